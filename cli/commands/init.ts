@@ -1,0 +1,7 @@
+// Placeholder until its issue lands: the command is listed but says it is not built yet.
+import { Command } from 'commander';
+import { InputError } from '../errors.ts';
+
+export const command = new Command('init').description('(not built yet)').action(() => {
+  throw new InputError('panform init is not built yet');
+});

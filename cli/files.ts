@@ -1,0 +1,87 @@
+// Reading formula, catalog and plan files from disk for the CLI: the I/O edge around
+// shared/parse.ts. Errors carry the file's location and a suggestion.
+import { existsSync, readFileSync, statSync } from 'node:fs';
+import { basename, dirname, join, resolve } from 'node:path';
+import { parseCatalogText, parseFormulaText, parsePlanText, type Finding } from '#shared/parse';
+import type { Catalog, Formula, Plan } from '#shared/model';
+import { InputError } from './errors.ts';
+
+export const CATALOG_FILE = 'ingredients.yaml';
+
+export function readText(path: string): string {
+  try {
+    return readFileSync(path, 'utf8');
+  } catch (e) {
+    const code = (e as NodeJS.ErrnoException).code;
+    if (code === 'ENOENT') throw new InputError(`no such file: ${path}`);
+    if (code === 'EISDIR') throw new InputError(`${path} is a folder; give a file`);
+    throw new InputError(`cannot read ${path}: ${(e as Error).message}`);
+  }
+}
+
+/** The catalog beside a formula or plan, or in its parent folder. */
+export function findCatalogPath(near: string): string | undefined {
+  const dir = statSync(near, { throwIfNoEntry: false })?.isDirectory() ? near : dirname(near);
+  for (const d of [dir, dirname(dir)]) {
+    const p = join(d, CATALOG_FILE);
+    if (existsSync(p)) return p;
+  }
+  return undefined;
+}
+
+export function readCatalog(path: string): Catalog {
+  const parsed = parseCatalogText(readText(path), path);
+  if (!parsed.ok) throw new InputError(`the ingredient catalog ${path} has errors; run \`panform check ${path}\``, parsed.findings);
+  return parsed.value;
+}
+
+/** The catalog for a formula or plan: `--catalog FILE`, else found beside it, else empty. */
+export function readCatalogFor(near: string, explicit?: string): { catalog: Catalog; path?: string } {
+  const path = explicit ?? findCatalogPath(near);
+  if (!path) return { catalog: {} };
+  return { catalog: readCatalog(path), path };
+}
+
+/**
+ * A formula given as a path, or as an id found in ./formulas/<id>.yaml or ./<id>.yaml
+ * (or in `dir` when given).
+ */
+export function resolveFormulaPath(arg: string, dir?: string): string {
+  if (existsSync(arg) && statSync(arg).isFile()) return arg;
+  const candidates = dir
+    ? [join(dir, `${arg}.yaml`), join(dir, `${arg}.yml`)]
+    : [join('formulas', `${arg}.yaml`), join('formulas', `${arg}.yml`), `${arg}.yaml`, `${arg}.yml`];
+  for (const c of candidates) if (existsSync(c)) return c;
+  throw new InputError(`unknown formula: ${arg}`, [], `give a formula file's path or an id with a file in ${dir ?? 'formulas/'} (try \`panform check\` to list problems)`);
+}
+
+export function readFormula(path: string): Formula {
+  const parsed = parseFormulaText(readText(path), path);
+  if (!parsed.ok) throw new InputError(`${path} has errors; fix them first (\`panform check ${path}\`)`, parsed.findings);
+  const expected = basename(path).replace(/\.ya?ml$/, '');
+  if (parsed.value.id !== expected) {
+    const where = parsed.source.locate('/id');
+    const f: Finding = { file: path, line: where.line, col: where.col, severity: 'error', message: `id "${parsed.value.id}" must equal the file name "${expected}"` };
+    throw new InputError(`${path} has errors`, [f]);
+  }
+  return parsed.value;
+}
+
+export function readFormulaWithCatalog(arg: string, opts: { catalog?: string; dir?: string } = {}): { formula: Formula; catalog: Catalog; path: string } {
+  const path = resolveFormulaPath(arg, opts.dir);
+  const formula = readFormula(path);
+  const { catalog } = readCatalogFor(path, opts.catalog);
+  return { formula, catalog, path: resolve(path) };
+}
+
+export function readPlan(path: string): Plan {
+  const parsed = parsePlanText(readText(path), path);
+  if (!parsed.ok) throw new InputError(`${path} has errors; fix them first (\`panform check ${path}\`)`, parsed.findings);
+  return parsed.value;
+}
+
+/** The folder that holds `plans/`, where a plan's orders find their formulas. */
+export function formulasDirForPlan(planPath: string): string {
+  const dir = dirname(resolve(planPath));
+  return basename(dir) === 'plans' ? dirname(dir) : dir;
+}

@@ -1,0 +1,238 @@
+// The formula, catalog and plan as the arithmetic sees them: quantities parsed to grams, °C,
+// percent and minutes. `normalize…` turns a file that passed the schema into this shape.
+// Pure; no I/O.
+import type {
+  AllergenCode, CatalogFile, FormulaFile, FormulaStatus, IngredientKind, PlanFile, PrefermentKind, StepKind, YeastType,
+} from './schema/shapes.ts';
+import {
+  parseMass, parsePercent, parseRange, parseTemperature, parseTemperatureDelta, type NumberRange, type RangePick,
+} from './units.ts';
+
+export interface Line {
+  ingredient: string;
+  /** Baker's percent. */
+  percent: number;
+}
+
+export interface Preferment {
+  name: string;
+  kind: PrefermentKind;
+  /** Percent of the formula's total flour held by this pre-ferment. */
+  share: number;
+  /** Baker's percent of the pre-ferment's own flour (seed flour included). */
+  ingredients: Line[];
+  ripenHours?: NumberRange;
+  /** °C */
+  ripenTemperature?: number;
+  /** °C: the temperature the build should come off the mixer at. */
+  temperature?: number;
+  note?: string;
+}
+
+export interface Soaker {
+  name: string;
+  /** Baker's percent of the formula's TOTAL flour. */
+  ingredients: Line[];
+  soakHours?: NumberRange;
+  soakTemperature?: number;
+  hot?: boolean;
+  note?: string;
+}
+
+export interface Step {
+  step: StepKind;
+  /** Duration in minutes (a range; `hours` in the file is converted). */
+  minutes?: NumberRange;
+  /** °C */
+  temperature?: number;
+  folds?: { count: number; every: number };
+  vessel?: 'deck' | 'tray' | 'pot' | 'tin' | 'stone';
+  covered?: number;
+  steam?: boolean;
+  note?: string;
+}
+
+export interface Formula {
+  id: string;
+  title: string;
+  status: FormulaStatus;
+  category: string;
+  description?: string;
+  tags: string[];
+  yield: { pieces: number; pieceGrams: number };
+  /** Percent of mixed dough lost before dividing. */
+  loss: number;
+  /** °C */
+  doughTemperature?: number;
+  flour: Line[];
+  ingredients: Line[];
+  preferments: Preferment[];
+  soakers: Soaker[];
+  process: Step[];
+  mayContain: AllergenCode[];
+  notes?: string;
+}
+
+export interface CatalogItem {
+  name: string;
+  kind: IngredientKind;
+  /** Water content in percent of the ingredient's weight (water itself: 100). */
+  water: number;
+  allergens: AllergenCode[];
+  yeast?: YeastType;
+  /** For a culture: its hydration in percent, and the flour it is fed with. */
+  hydration?: number;
+  fedWith?: string;
+  costPerKg?: number;
+  costDate?: string;
+  components?: string[];
+  label?: string;
+  note?: string;
+}
+
+export type Catalog = Record<string, CatalogItem>;
+
+export interface Mixer {
+  name: string;
+  capacityGrams: number;
+  minimumGrams?: number;
+  /** °C-degrees (a difference). */
+  friction: number;
+}
+
+export interface Order {
+  formula: string;
+  pieces: number;
+  pieceGrams?: number;
+  mixer?: string;
+  customer?: string;
+}
+
+export interface Plan {
+  date: string;
+  readyBy: string;
+  conditions: { room: number; flour: number; tapWater: number; preferment?: number };
+  mixers: Mixer[];
+  orders: Order[];
+  ranges: RangePick;
+  notes?: string;
+}
+
+const table = (t: Record<string, number> | undefined): Line[] =>
+  Object.entries(t ?? {}).map(([ingredient, percent]) => ({ ingredient, percent }));
+
+export function normalizeFormula(f: FormulaFile): Formula {
+  return {
+    id: f.id,
+    title: f.title,
+    status: f.status,
+    category: f.category,
+    description: f.description,
+    tags: f.tags ?? [],
+    yield: { pieces: f.yield.pieces, pieceGrams: parseMass(f.yield.piece) },
+    loss: f.loss === undefined ? 0 : parsePercent(f.loss),
+    doughTemperature: f.dough_temperature === undefined ? undefined : parseTemperature(f.dough_temperature),
+    flour: table(f.flour),
+    ingredients: table(f.ingredients),
+    preferments: (f.preferments ?? []).map((p) => ({
+      name: p.name,
+      kind: p.kind,
+      share: parsePercent(p.share),
+      ingredients: table(p.ingredients),
+      ripenHours: p.ripen ? parseRange(p.ripen.hours) : undefined,
+      ripenTemperature: p.ripen?.temperature === undefined ? undefined : parseTemperature(p.ripen.temperature),
+      temperature: p.temperature === undefined ? undefined : parseTemperature(p.temperature),
+      note: p.note,
+    })),
+    soakers: (f.soakers ?? []).map((s) => ({
+      name: s.name,
+      ingredients: table(s.ingredients),
+      soakHours: s.soak ? parseRange(s.soak.hours) : undefined,
+      soakTemperature: s.soak?.temperature === undefined ? undefined : parseTemperature(s.soak.temperature),
+      hot: s.soak?.hot,
+      note: s.note,
+    })),
+    process: (f.process ?? []).map((s) => {
+      let minutes: NumberRange | undefined;
+      if (s.minutes !== undefined) minutes = parseRange(s.minutes);
+      else if (s.hours !== undefined) {
+        const h = parseRange(s.hours);
+        minutes = { min: h.min * 60, max: h.max * 60 };
+      }
+      return {
+        step: s.step,
+        minutes,
+        temperature: s.temperature === undefined ? undefined : parseTemperature(s.temperature),
+        folds: s.folds,
+        vessel: s.vessel,
+        covered: s.covered,
+        steam: s.steam,
+        note: s.note,
+      };
+    }),
+    mayContain: f.may_contain ?? [],
+    notes: f.notes,
+  };
+}
+
+/** Water content by kind when the catalog gives none. */
+export function defaultWaterContent(kind: IngredientKind): number {
+  return kind === 'water' ? 100 : 0;
+}
+
+export function normalizeCatalog(c: CatalogFile): Catalog {
+  const out: Catalog = {};
+  for (const [name, e] of Object.entries(c)) {
+    out[name] = {
+      name,
+      kind: e.kind,
+      water: e.water === undefined ? defaultWaterContent(e.kind) : parsePercent(e.water),
+      allergens: e.allergens ?? [],
+      yeast: e.yeast,
+      hydration: e.hydration === undefined ? undefined : parsePercent(e.hydration),
+      fedWith: e.fed_with,
+      costPerKg: e.cost_per_kg,
+      costDate: e.cost_date,
+      components: e.components,
+      label: e.label,
+      note: e.note,
+    };
+  }
+  return out;
+}
+
+export function normalizePlan(p: PlanFile): Plan {
+  return {
+    date: p.date,
+    readyBy: p.ready_by,
+    conditions: {
+      room: parseTemperature(p.conditions.room),
+      flour: parseTemperature(p.conditions.flour),
+      tapWater: parseTemperature(p.conditions.tap_water),
+      preferment: p.conditions.preferment === undefined ? undefined : parseTemperature(p.conditions.preferment),
+    },
+    mixers: p.mixers.map((m) => ({
+      name: m.name,
+      capacityGrams: parseMass(m.capacity),
+      minimumGrams: m.minimum === undefined ? undefined : parseMass(m.minimum),
+      friction: parseTemperatureDelta(m.friction),
+    })),
+    orders: p.orders.map((o) => ({
+      formula: o.formula,
+      pieces: o.pieces,
+      pieceGrams: o.piece === undefined ? undefined : parseMass(o.piece),
+      mixer: o.mixer,
+      customer: o.customer,
+    })),
+    ranges: p.ranges ?? 'mid',
+    notes: p.notes,
+  };
+}
+
+/** What the catalog says of an ingredient, or a guess from its name when it is not listed. */
+export function lookupIngredient(catalog: Catalog, name: string): CatalogItem {
+  const found = catalog[name];
+  if (found) return found;
+  const kind: IngredientKind = name === 'water' ? 'water' : /flour/.test(name) ? 'flour' : 'other';
+  return { name, kind, water: defaultWaterContent(kind), allergens: [] };
+}

@@ -1,0 +1,236 @@
+// The one source of truth for the shapes of Panform's files. The JSON Schemas in
+// shared/schema/*.schema.json are generated from these definitions (`npm run schema`), and
+// tests/shared/schema-drift.test.ts fails when the committed files and these shapes differ.
+import { Type, type Static, type TSchema } from '@sinclair/typebox';
+
+// ---- quantities written with their unit, as a baker writes them -------------------------
+export const MASS_PATTERN = '^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$';
+export const TEMPERATURE_PATTERN = '^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$';
+export const PERCENT_PATTERN = '^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$';
+export const RANGE_PATTERN = '^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$';
+export const CLOCK_PATTERN = '^([01][0-9]|2[0-3]):[0-5][0-9]$';
+export const ID_PATTERN = '^[a-z0-9]+(-[a-z0-9]+)*$';
+export const DATE_PATTERN = '^[0-9]{4}-[0-9]{2}-[0-9]{2}$';
+
+export const Mass = Type.String({
+  pattern: MASS_PATTERN,
+  description: 'A weight with its unit: g, kg, oz or lb, e.g. "320 g" or "2 lb".',
+});
+export const Temperature = Type.String({
+  pattern: TEMPERATURE_PATTERN,
+  description: 'A temperature with its unit, e.g. "25 °C" or "77 °F".',
+});
+export const Percent = Type.Union([Type.Number(), Type.String({ pattern: PERCENT_PATTERN })], {
+  description: 'A percentage, e.g. "2 %" or 2.',
+});
+/** A number or a range "10-14"; ranges use their midpoint unless a plan says otherwise. */
+export const Range = Type.Union([Type.Number({ minimum: 0 }), Type.String({ pattern: RANGE_PATTERN })], {
+  description: 'A number or a range such as "10-14".',
+});
+/** Ingredient name → baker's percent. */
+export const PercentTable = Type.Record(Type.String({ minLength: 1 }), Type.Number(), {
+  description: "Ingredient name (as in the catalog) → baker's percent.",
+});
+
+export const FORMULA_STATUSES = ['draft', 'active', 'retired'] as const;
+export const PREFERMENT_KINDS = ['poolish', 'biga', 'levain', 'sponge', 'old-dough', 'other'] as const;
+export const STEP_KINDS = [
+  'autolyse', 'mix', 'bulk', 'fold', 'divide', 'preshape', 'rest', 'shape', 'proof', 'retard', 'bake', 'cool', 'other',
+] as const;
+export const BAKE_VESSELS = ['deck', 'tray', 'pot', 'tin', 'stone'] as const;
+export const INGREDIENT_KINDS = [
+  'flour', 'water', 'salt', 'yeast', 'sugar', 'fat', 'dairy', 'egg', 'seed', 'inclusion', 'culture', 'improver', 'other',
+] as const;
+export const YEAST_TYPES = ['fresh', 'active-dry', 'instant'] as const;
+export const ALLERGEN_CODES = [
+  'wheat', 'rye', 'barley', 'oats', 'spelt', 'khorasan', 'crustaceans', 'eggs', 'fish', 'peanuts', 'soybeans', 'milk',
+  'almonds', 'hazelnuts', 'walnuts', 'cashews', 'pecans', 'brazil-nuts', 'pistachios', 'macadamia', 'celery', 'mustard',
+  'sesame', 'sulphites', 'lupin', 'molluscs',
+] as const;
+
+export const AllergenCode = Type.Unsafe<(typeof ALLERGEN_CODES)[number]>({
+  type: 'string',
+  enum: [...ALLERGEN_CODES],
+  description: 'An allergen code; the EU and US roll-ups are derived from these.',
+});
+
+// ---- formula ------------------------------------------------------------------------------
+export const Ripen = Type.Object(
+  {
+    hours: Range,
+    temperature: Type.Optional(Temperature),
+  },
+  { additionalProperties: false, description: 'How long and how warm a pre-ferment ripens.' },
+);
+
+export const Preferment = Type.Object(
+  {
+    name: Type.String({ minLength: 1 }),
+    kind: Type.Unsafe<(typeof PREFERMENT_KINDS)[number]>({ type: 'string', enum: [...PREFERMENT_KINDS] }),
+    share: Type.Union([Type.Number({ exclusiveMinimum: 0 }), Type.String({ pattern: PERCENT_PATTERN })], {
+      description: 'Share of the total flour that this pre-ferment holds, e.g. "30 %".',
+    }),
+    ingredients: PercentTable,
+    ripen: Type.Optional(Ripen),
+    temperature: Type.Optional(Type.String({ pattern: TEMPERATURE_PATTERN, description: 'Target temperature of the build when mixed.' })),
+    note: Type.Optional(Type.String()),
+  },
+  { additionalProperties: false },
+);
+
+export const Soaker = Type.Object(
+  {
+    name: Type.String({ minLength: 1 }),
+    ingredients: PercentTable,
+    soak: Type.Optional(
+      Type.Object(
+        { hours: Range, temperature: Type.Optional(Temperature), hot: Type.Optional(Type.Boolean({ description: 'Made with boiling water (a scald).' })) },
+        { additionalProperties: false },
+      ),
+    ),
+    note: Type.Optional(Type.String()),
+  },
+  { additionalProperties: false },
+);
+
+export const Step = Type.Object(
+  {
+    step: Type.Unsafe<(typeof STEP_KINDS)[number]>({ type: 'string', enum: [...STEP_KINDS] }),
+    minutes: Type.Optional(Range),
+    hours: Type.Optional(Range),
+    temperature: Type.Optional(Temperature),
+    folds: Type.Optional(
+      Type.Object(
+        {
+          count: Type.Integer({ minimum: 1 }),
+          every: Type.Number({ exclusiveMinimum: 0, description: 'Minutes between folds.' }),
+        },
+        { additionalProperties: false },
+      ),
+    ),
+    vessel: Type.Optional(Type.Unsafe<(typeof BAKE_VESSELS)[number]>({ type: 'string', enum: [...BAKE_VESSELS] })),
+    covered: Type.Optional(Type.Number({ minimum: 0, description: 'Minutes of the bake under a lid or cover.' })),
+    steam: Type.Optional(Type.Boolean()),
+    note: Type.Optional(Type.String()),
+  },
+  { additionalProperties: false },
+);
+
+export const FormulaFile = Type.Object(
+  {
+    $schema: Type.Optional(Type.String()),
+    id: Type.String({ pattern: ID_PATTERN, description: 'kebab-case; equals the file name.' }),
+    title: Type.String({ minLength: 1 }),
+    status: Type.Unsafe<(typeof FORMULA_STATUSES)[number]>({ type: 'string', enum: [...FORMULA_STATUSES] }),
+    category: Type.String({ pattern: ID_PATTERN, description: 'e.g. lean, sourdough, rye, enriched, oil, rolls.' }),
+    description: Type.Optional(Type.String()),
+    tags: Type.Optional(Type.Array(Type.String({ minLength: 1 }), { uniqueItems: true })),
+    yield: Type.Object(
+      {
+        pieces: Type.Integer({ minimum: 1 }),
+        piece: Mass,
+      },
+      { additionalProperties: false, description: 'The batch the formula is written for.' },
+    ),
+    loss: Type.Optional(Percent),
+    dough_temperature: Type.Optional(Temperature),
+    flour: PercentTable,
+    ingredients: PercentTable,
+    preferments: Type.Optional(Type.Array(Preferment)),
+    soakers: Type.Optional(Type.Array(Soaker)),
+    process: Type.Optional(Type.Array(Step)),
+    may_contain: Type.Optional(Type.Array(AllergenCode, { uniqueItems: true })),
+    notes: Type.Optional(Type.String()),
+  },
+  { additionalProperties: false, $id: 'https://panform.example/schema/formula.schema.json', title: 'Panform formula' },
+);
+
+// ---- ingredient catalog --------------------------------------------------------------------
+export const CatalogEntry = Type.Object(
+  {
+    kind: Type.Unsafe<(typeof INGREDIENT_KINDS)[number]>({ type: 'string', enum: [...INGREDIENT_KINDS] }),
+    water: Type.Optional(Type.Union([Type.Number({ minimum: 0, maximum: 100 }), Type.String({ pattern: PERCENT_PATTERN })], {
+      description: 'Water content in percent of its weight.',
+    })),
+    allergens: Type.Optional(Type.Array(AllergenCode, { uniqueItems: true })),
+    yeast: Type.Optional(Type.Unsafe<(typeof YEAST_TYPES)[number]>({ type: 'string', enum: [...YEAST_TYPES] })),
+    /** For a culture (levain seed): its hydration and the flour it is fed with. */
+    hydration: Type.Optional(Percent),
+    fed_with: Type.Optional(Type.String({ minLength: 1 })),
+    cost_per_kg: Type.Optional(Type.Number({ minimum: 0 })),
+    cost_date: Type.Optional(Type.String({ pattern: DATE_PATTERN })),
+    /** A compound ingredient: its components in descending order of weight. */
+    components: Type.Optional(Type.Array(Type.String({ minLength: 1 }), { minItems: 1 })),
+    label: Type.Optional(Type.String({ minLength: 1, description: 'Name on the ingredient statement.' })),
+    note: Type.Optional(Type.String()),
+  },
+  { additionalProperties: false },
+);
+
+export const CatalogFile = Type.Record(Type.String({ minLength: 1 }), CatalogEntry, {
+  $id: 'https://panform.example/schema/catalog.schema.json',
+  title: 'Panform ingredient catalog',
+});
+
+// ---- production plan -----------------------------------------------------------------------
+export const Mixer = Type.Object(
+  {
+    name: Type.String({ minLength: 1 }),
+    capacity: Mass,
+    minimum: Type.Optional(Mass),
+    friction: Type.String({ pattern: TEMPERATURE_PATTERN, description: 'Temperature rise from mixing, as a difference.' }),
+  },
+  { additionalProperties: false },
+);
+
+export const Order = Type.Object(
+  {
+    formula: Type.String({ pattern: ID_PATTERN }),
+    pieces: Type.Integer({ minimum: 1 }),
+    piece: Type.Optional(Mass),
+    mixer: Type.Optional(Type.String({ minLength: 1 })),
+    customer: Type.Optional(Type.String()),
+  },
+  { additionalProperties: false },
+);
+
+export const PlanFile = Type.Object(
+  {
+    $schema: Type.Optional(Type.String()),
+    date: Type.String({ pattern: DATE_PATTERN }),
+    ready_by: Type.String({ pattern: CLOCK_PATTERN, description: 'First bake out of the oven, "HH:MM".' }),
+    conditions: Type.Object(
+      {
+        room: Temperature,
+        flour: Temperature,
+        tap_water: Temperature,
+        preferment: Type.Optional(Temperature),
+      },
+      { additionalProperties: false },
+    ),
+    mixers: Type.Array(Mixer, { minItems: 1 }),
+    orders: Type.Array(Order, { minItems: 1 }),
+    ranges: Type.Optional(Type.Union([Type.Literal('short'), Type.Literal('mid'), Type.Literal('long')], {
+      description: 'Which end of a step range the timeline uses; default mid.',
+    })),
+    notes: Type.Optional(Type.String()),
+  },
+  { additionalProperties: false, $id: 'https://panform.example/schema/plan.schema.json', title: 'Panform production plan' },
+);
+
+export type FormulaFile = Static<typeof FormulaFile>;
+export type CatalogFile = Static<typeof CatalogFile>;
+export type CatalogEntry = Static<typeof CatalogEntry>;
+export type PlanFile = Static<typeof PlanFile>;
+export type StepFile = Static<typeof Step>;
+export type PrefermentFile = Static<typeof Preferment>;
+export type SoakerFile = Static<typeof Soaker>;
+export type AllergenCode = (typeof ALLERGEN_CODES)[number];
+export type IngredientKind = (typeof INGREDIENT_KINDS)[number];
+export type YeastType = (typeof YEAST_TYPES)[number];
+export type FormulaStatus = (typeof FORMULA_STATUSES)[number];
+export type PrefermentKind = (typeof PREFERMENT_KINDS)[number];
+export type StepKind = (typeof STEP_KINDS)[number];
+
+export const SCHEMAS = { formula: FormulaFile, catalog: CatalogFile, plan: PlanFile } as const;
+export type SchemaKind = keyof typeof SCHEMAS;

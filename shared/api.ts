@@ -1,0 +1,128 @@
+// The JSON the server sends and the viewer reads: one contract for both shells. Types only.
+import type { Catalog, Formula, Plan } from './model.ts';
+import type { Permission, Role } from './permissions.ts';
+import type { ScaleResult } from './scale.ts';
+import type { Sheet } from './sheet/types.ts';
+import type { FormulaDiff } from './diff.ts';
+import type { AllergenSummary } from './allergens.ts';
+import type { CostSummary } from './cost.ts';
+
+/** Every error response: `error` is a stable code, `message` is for people. */
+export interface ApiError {
+  error: 'unauthenticated' | 'forbidden' | 'not_found' | 'invalid' | 'rate_limited' | 'conflict' | 'payload_too_large' | 'internal';
+  message: string;
+  requiredPermission?: Permission;
+  issues?: { path: string; message: string }[];
+}
+
+export interface UserInfo {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+}
+
+/** GET /api/me, POST /api/session */
+export interface Me {
+  user: UserInfo;
+  permissions: Permission[];
+}
+
+/** Figures of a formula's reference batch (or of a scaled batch). */
+export interface FormulaFigures {
+  totalPercent: number;
+  hydration: number;
+  effectiveHydration: number;
+  prefermentedFlour: number;
+  finalDoughHydration: number;
+  flour: number;
+  mixedDough: number;
+  dividedDough: number;
+  pieces: number | null;
+  pieceGrams: number | null;
+}
+
+export interface FormulaSummary {
+  id: string;
+  title: string;
+  status: string;
+  category: string;
+  tags: string[];
+  figures: FormulaFigures;
+  revision: number;
+  updatedAt: string;
+}
+
+/** GET /api/formulas?q=&category=&tag=&status= */
+export interface FormulaListResponse {
+  formulas: FormulaSummary[];
+  categories: string[];
+  tags: string[];
+}
+
+/** GET /api/formulas/:id[?pieces=&piece=|?mix=] */
+export interface FormulaDetail {
+  formula: Formula;
+  /** Catalog entries this formula uses; prices removed unless the role has read:cost. */
+  catalog: Catalog;
+  scaled: ScaleResult;
+  reference: FormulaFigures;
+  allergens: AllergenSummary;
+  /** null unless the role has read:cost. */
+  cost: CostSummary | null;
+  cautions: string[];
+  revision: number;
+  updatedAt: string;
+  path: string;
+}
+
+export interface RevisionSummary {
+  revision: number;
+  contentHash: string;
+  gitCommit: string | null;
+  gitAuthor: string | null;
+  loadedAt: string;
+  figures: FormulaFigures;
+}
+
+/** GET /api/formulas/:id/revisions */
+export interface RevisionListResponse {
+  formula: string;
+  revisions: RevisionSummary[];
+}
+
+/** GET /api/formulas/:id/diff?from=&to= */
+export interface RevisionDiffResponse {
+  formula: string;
+  from: number;
+  to: number;
+  diff: FormulaDiff;
+}
+
+/** GET /api/changes: the newest revisions across formulas */
+export interface ChangeListResponse {
+  changes: (RevisionSummary & { formula: string; title: string })[];
+}
+
+export interface PlanSummary {
+  date: string;
+  readyBy: string;
+  orders: number;
+  formulas: string[];
+}
+
+/** GET /api/plans */
+export interface PlanListResponse {
+  plans: PlanSummary[];
+}
+
+/** GET /api/plans/:date */
+export interface PlanDetail {
+  plan: Plan;
+  sheet: Sheet;
+}
+
+/** GET /api/catalog */
+export interface CatalogResponse {
+  catalog: Catalog;
+}

@@ -80,6 +80,8 @@ export interface CatalogItem {
   water: number;
   allergens: AllergenCode[];
   yeast?: YeastType;
+  /** Grams of this yeast that replace 1 g of fresh yeast, when the catalog sets it. */
+  yeastFactor?: number;
   /** For a culture: its hydration in percent, and the flour it is fed with. */
   hydration?: number;
   fedWith?: string;
@@ -189,6 +191,7 @@ export function normalizeCatalog(c: CatalogFile): Catalog {
       water: e.water === undefined ? defaultWaterContent(e.kind) : parsePercent(e.water),
       allergens: e.allergens ?? [],
       yeast: e.yeast,
+      yeastFactor: e.yeast_factor,
       hydration: e.hydration === undefined ? undefined : parsePercent(e.hydration),
       fedWith: e.fed_with,
       costPerKg: e.cost_per_kg,

@@ -154,6 +154,10 @@ export const CatalogEntry = Type.Object(
     })),
     allergens: Type.Optional(Type.Array(AllergenCode, { uniqueItems: true })),
     yeast: Type.Optional(Type.Unsafe<(typeof YEAST_TYPES)[number]>({ type: 'string', enum: [...YEAST_TYPES] })),
+    yeast_factor: Type.Optional(Type.Number({
+      exclusiveMinimum: 0,
+      description: 'Grams of this yeast that replace 1 g of fresh yeast (default: fresh 1, active-dry 0.4, instant 0.33).',
+    })),
     /** For a culture (levain seed): its hydration and the flour it is fed with. */
     hydration: Type.Optional(Percent),
     fed_with: Type.Optional(Type.String({ minLength: 1 })),

@@ -1,0 +1,280 @@
+// Opening the database: embedded PostgreSQL (PGlite) in a data directory, or a PostgreSQL server
+// when DATABASE_URL is set. Both give the same drizzle query API (the PgDatabase base).
+//
+// Exactly one process owns a PGlite directory. It takes a lock file inside the directory
+// (`panform.lock`, mode 600) holding its pid, the port it serves on (once known) and a random
+// token for the local load channel (`panform load` hands its work to the running server with it).
+// A lock whose pid is dead is stale and is taken over.
+//
+// Always `await handle.close()`: an open PGlite keeps the Node process alive.
+import { randomBytes } from 'node:crypto';
+import { closeSync, existsSync, mkdirSync, openSync, readFileSync, renameSync, unlinkSync, writeFileSync, writeSync } from 'node:fs';
+import { dirname, join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import type { PgDatabase, PgQueryResultHKT } from 'drizzle-orm/pg-core';
+import * as schema from './schema.ts';
+
+export type Schema = typeof schema;
+/** The drizzle API both drivers share. */
+export type Database = PgDatabase<PgQueryResultHKT, Schema>;
+
+export interface DatabaseHandle {
+  db: Database;
+  kind: 'pglite' | 'postgres';
+  /** The PGlite data directory (absolute), or null for memory and for a PostgreSQL server. */
+  dataDir: string | null;
+  /** The lock this process holds on the data directory, or null. */
+  lock: HeldLock | null;
+  close(): Promise<void>;
+}
+
+export interface OpenOptions {
+  /** PGlite data directory; default PANFORM_DATA, else `var/data`. */
+  dataDir?: string;
+  /** A PostgreSQL connection string; default DATABASE_URL. */
+  url?: string;
+  /** PGlite in memory (tests). */
+  memory?: boolean;
+  /** Environment to read PANFORM_DATA and DATABASE_URL from (default process.env). */
+  env?: NodeJS.ProcessEnv;
+}
+
+export const DEFAULT_DATA_DIR = 'var/data';
+export const LOCK_FILE = 'panform.lock';
+
+export interface LockInfo {
+  pid: number;
+  /** The port of the server holding the directory, once it listens; null for other processes. */
+  port: number | null;
+  /** Secret for the local load channel (`x-panform-load-token`). */
+  token: string;
+  startedAt: string;
+}
+
+export interface HeldLock {
+  path: string;
+  info: LockInfo;
+  /** Records the port the owning server listens on, so `panform load` can hand loads to it. */
+  setPort(port: number): void;
+  release(): void;
+}
+
+/** The data directory is held by another live process. */
+export class DatabaseLockedError extends Error {
+  constructor(
+    readonly dataDir: string,
+    readonly lock: LockInfo,
+  ) {
+    super(
+      `the database in ${dataDir} is in use by another Panform process (pid ${lock.pid}${lock.port ? `, serving on port ${lock.port}` : ''})`,
+    );
+    this.name = 'DatabaseLockedError';
+  }
+}
+
+/** Where the database is, from options and environment, without opening anything. */
+export function resolveTarget(opts: OpenOptions = {}): { kind: 'memory' } | { kind: 'postgres'; url: string } | { kind: 'pglite'; dataDir: string } {
+  const env = opts.env ?? process.env;
+  if (opts.memory) return { kind: 'memory' };
+  if (opts.url) return { kind: 'postgres', url: opts.url };
+  if (opts.dataDir) return { kind: 'pglite', dataDir: resolve(opts.dataDir) };
+  if (env.DATABASE_URL) return { kind: 'postgres', url: env.DATABASE_URL };
+  return { kind: 'pglite', dataDir: resolve(env.PANFORM_DATA || DEFAULT_DATA_DIR) };
+}
+
+function pidAlive(pid: number): boolean {
+  if (!Number.isInteger(pid) || pid <= 0) return false;
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (e) {
+    return (e as NodeJS.ErrnoException).code === 'EPERM';
+  }
+}
+
+/** The lock in a data directory if a live process holds it; null when free or stale. */
+export function readLiveLock(dataDir: string): LockInfo | null {
+  const path = join(dataDir, LOCK_FILE);
+  let info: LockInfo;
+  try {
+    info = JSON.parse(readFileSync(path, 'utf8')) as LockInfo;
+  } catch {
+    return null;
+  }
+  if (!info || typeof info.pid !== 'number' || !pidAlive(info.pid)) return null;
+  return info;
+}
+
+/** Takes the lock of a data directory, taking over a stale one. Throws DatabaseLockedError. */
+export function acquireLock(dataDir: string): HeldLock {
+  mkdirSync(dataDir, { recursive: true });
+  const path = join(dataDir, LOCK_FILE);
+  const info: LockInfo = { pid: process.pid, port: null, token: randomBytes(32).toString('hex'), startedAt: new Date().toISOString() };
+  for (let attempt = 0; attempt < 5; attempt++) {
+    let fd: number;
+    try {
+      fd = openSync(path, 'wx', 0o600);
+    } catch (e) {
+      if ((e as NodeJS.ErrnoException).code !== 'EEXIST') throw e;
+      let existing: LockInfo | null = null;
+      try {
+        existing = JSON.parse(readFileSync(path, 'utf8')) as LockInfo;
+      } catch {
+        // An unreadable or half-written lock: treat as stale only if it stays so (writer may be mid-write).
+        existing = null;
+      }
+      if (existing && typeof existing.pid === 'number' && pidAlive(existing.pid)) throw new DatabaseLockedError(dataDir, existing);
+      // Stale: move it aside atomically so two processes taking over do not both win.
+      const aside = `${path}.stale-${process.pid}-${randomBytes(4).toString('hex')}`;
+      try {
+        renameSync(path, aside);
+        unlinkSync(aside);
+      } catch {
+        // someone else moved it first; try again
+      }
+      continue;
+    }
+    try {
+      writeSync(fd, JSON.stringify(info));
+    } finally {
+      closeSync(fd);
+    }
+    let released = false;
+    return {
+      path,
+      info,
+      setPort(port: number) {
+        info.port = port;
+        const tmp = `${path}.${process.pid}.tmp`;
+        writeFileSync(tmp, JSON.stringify(info), { mode: 0o600 });
+        renameSync(tmp, path);
+      },
+      release() {
+        if (released) return;
+        released = true;
+        try {
+          const now = JSON.parse(readFileSync(path, 'utf8')) as LockInfo;
+          if (now.pid === info.pid && now.token === info.token) unlinkSync(path);
+        } catch {
+          // already gone
+        }
+      },
+    };
+  }
+  throw new Error(`could not take the lock ${path}; another process keeps changing it`);
+}
+
+/** The committed migrations folder (drizzle/), found from this module upward (works bundled too). */
+export function migrationsFolder(): string {
+  let dir = dirname(fileURLToPath(import.meta.url));
+  for (let i = 0; i < 8; i++) {
+    if (existsSync(join(dir, 'drizzle', 'meta', '_journal.json'))) return join(dir, 'drizzle');
+    const up = dirname(dir);
+    if (up === dir) break;
+    dir = up;
+  }
+  throw new Error('cannot find the drizzle/ migrations folder next to the Panform installation');
+}
+
+export async function openDatabase(opts: OpenOptions = {}): Promise<DatabaseHandle> {
+  const target = resolveTarget(opts);
+  if (target.kind === 'postgres') {
+    const [{ drizzle }, pg] = await Promise.all([import('drizzle-orm/node-postgres'), import('pg')]);
+    const pool = new pg.default.Pool({ connectionString: target.url, max: 10 });
+    // An idle client losing its connection must not crash the process.
+    pool.on('error', () => {});
+    const db = drizzle({ client: pool, schema });
+    let closed = false;
+    return {
+      db: db as unknown as Database,
+      kind: 'postgres',
+      dataDir: null,
+      lock: null,
+      async close() {
+        if (closed) return;
+        closed = true;
+        await pool.end();
+      },
+    };
+  }
+  const [{ PGlite }, { drizzle }] = await Promise.all([import('@electric-sql/pglite'), import('drizzle-orm/pglite')]);
+  if (target.kind === 'memory') {
+    const client = new PGlite();
+    await client.waitReady;
+    const db = drizzle({ client, schema });
+    let closed = false;
+    return {
+      db: db as unknown as Database,
+      kind: 'pglite',
+      dataDir: null,
+      lock: null,
+      async close() {
+        if (closed) return;
+        closed = true;
+        await client.close();
+      },
+    };
+  }
+  const lock = acquireLock(target.dataDir);
+  let client: InstanceType<typeof PGlite>;
+  try {
+    client = new PGlite(target.dataDir);
+    await client.waitReady;
+  } catch (e) {
+    lock.release();
+    throw e;
+  }
+  const db = drizzle({ client, schema });
+  let closed = false;
+  return {
+    db: db as unknown as Database,
+    kind: 'pglite',
+    dataDir: target.dataDir,
+    lock,
+    async close() {
+      if (closed) return;
+      closed = true;
+      try {
+        await client.close();
+      } finally {
+        lock.release();
+      }
+    },
+  };
+}
+
+/** Applies the committed migrations in drizzle/ with the migrator for the handle's driver. */
+export async function migrateDatabase(handle: DatabaseHandle, folder = migrationsFolder()): Promise<void> {
+  if (handle.kind === 'pglite') {
+    const { migrate } = await import('drizzle-orm/pglite/migrator');
+    await migrate(handle.db as unknown as Parameters<typeof migrate>[0], { migrationsFolder: folder });
+    return;
+  }
+  const { migrate } = await import('drizzle-orm/node-postgres/migrator');
+  // Several processes may start against one server: serialize migrations with an advisory lock
+  // held on one pooled connection while the migrator runs on another.
+  const pool = (handle.db as unknown as { $client: import('pg').Pool }).$client;
+  const holder = await pool.connect();
+  try {
+    await holder.query('select pg_advisory_lock(726101)');
+    await migrate(handle.db as unknown as Parameters<typeof migrate>[0], { migrationsFolder: folder });
+  } finally {
+    try {
+      await holder.query('select pg_advisory_unlock(726101)');
+    } finally {
+      holder.release();
+    }
+  }
+}
+
+/** Opens and migrates in one step; closes again if migrating fails. */
+export async function openMigratedDatabase(opts: OpenOptions = {}): Promise<DatabaseHandle> {
+  const handle = await openDatabase(opts);
+  try {
+    await migrateDatabase(handle);
+  } catch (e) {
+    await handle.close();
+    throw e;
+  }
+  return handle;
+}

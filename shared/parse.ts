@@ -104,7 +104,7 @@ function describeAjvError(e: ErrorObject): { pointer: string; message: string; a
         at: 'value',
       };
     case 'pattern':
-      return { pointer: e.instancePath, message: `${where} is not written as expected (${patternHint(e.schema as string)})`, at: 'value' };
+      return { pointer: e.instancePath, message: `${where} is not written as expected (${patternHint((e.params as { pattern: string }).pattern)})`, at: 'value' };
     case 'type':
       return { pointer: e.instancePath, message: `${where} must be ${(e.params as { type: string }).type}`, at: 'value' };
     case 'minimum':

@@ -1,0 +1,181 @@
+// Reading what a load will take in: the files under the given paths, their text, and where known
+// the git commit and author that last touched each one. The I/O edge of the load core.
+import { execFile } from 'node:child_process';
+import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { basename, dirname, join, relative, resolve, sep } from 'node:path';
+import { promisify } from 'node:util';
+
+const run = promisify(execFile);
+
+export type FileKind = 'catalog' | 'formula' | 'plan';
+
+export const CATALOG_FILE = 'ingredients.yaml';
+
+export interface LoadFile {
+  kind: FileKind;
+  /** Absolute path on disk. */
+  absPath: string;
+  /** The path recorded in the database: `<folder>/<file>`, e.g. `formulas/harbour-ciabatta.yaml`. */
+  path: string;
+  text: string;
+  gitCommit: string | null;
+  gitAuthor: string | null;
+}
+
+export interface LoadInput {
+  files: LoadFile[];
+  /**
+   * True when whole folders were given: formulas and plans in the database but not in the folder
+   * are then marked removed (formulas, kept) or deleted (plans). A load of single files touches
+   * only those files.
+   */
+  complete: boolean;
+  /** HEAD of the repository holding the files, where known. */
+  gitCommit: string | null;
+}
+
+const isYaml = (name: string) => /\.ya?ml$/i.test(name);
+
+/** A formulas folder's files: ingredients.yaml, <id>.yaml, plans/<date>.yaml. */
+function folderFiles(dir: string): { kind: FileKind; absPath: string; root: string }[] {
+  const out: { kind: FileKind; absPath: string; root: string }[] = [];
+  for (const name of readdirSync(dir).sort()) {
+    const p = join(dir, name);
+    if (!isYaml(name) || !statSync(p).isFile()) continue;
+    out.push({ kind: name === CATALOG_FILE ? 'catalog' : 'formula', absPath: p, root: dir });
+  }
+  const plans = join(dir, 'plans');
+  if (existsSync(plans) && statSync(plans).isDirectory()) {
+    for (const name of readdirSync(plans).sort()) {
+      const p = join(plans, name);
+      if (isYaml(name) && statSync(p).isFile()) out.push({ kind: 'plan', absPath: p, root: dir });
+    }
+  }
+  return out;
+}
+
+/** A single file: which kind, and the formulas folder it belongs to. */
+function classifyFile(absPath: string): { kind: FileKind; absPath: string; root: string } {
+  const dir = dirname(absPath);
+  if (basename(absPath) === CATALOG_FILE) return { kind: 'catalog', absPath, root: dir };
+  if (basename(dir) === 'plans') return { kind: 'plan', absPath, root: dirname(dir) };
+  return { kind: 'formula', absPath, root: dir };
+}
+
+export class LoadPathError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'LoadPathError';
+  }
+}
+
+/**
+ * The files under `paths` (folders or files). A single file brings the catalog beside it (or in
+ * its parent folder) along, since the figures and checks need it.
+ */
+export async function readLoadInput(paths: string[], opts: { git?: boolean } = {}): Promise<LoadInput> {
+  if (paths.length === 0) throw new LoadPathError('nothing to load: give a folder or files');
+  const picked = new Map<string, { kind: FileKind; absPath: string; root: string }>();
+  let complete = true;
+  for (const given of paths) {
+    const abs = resolve(given);
+    const st = statSync(abs, { throwIfNoEntry: false });
+    if (!st) throw new LoadPathError(`no such file or folder: ${given}`);
+    if (st.isDirectory()) {
+      for (const f of folderFiles(abs)) picked.set(f.absPath, f);
+    } else {
+      if (!isYaml(abs)) throw new LoadPathError(`${given} is not a YAML file (.yaml or .yml)`);
+      complete = false;
+      const f = classifyFile(abs);
+      picked.set(f.absPath, f);
+      if (f.kind !== 'catalog') {
+        for (const d of [f.root, dirname(f.root)]) {
+          const c = join(d, CATALOG_FILE);
+          if (existsSync(c)) {
+            if (!picked.has(c)) picked.set(c, { kind: 'catalog', absPath: c, root: d });
+            break;
+          }
+        }
+      }
+    }
+  }
+  const catalogs = [...picked.values()].filter((f) => f.kind === 'catalog');
+  if (catalogs.length > 1) {
+    throw new LoadPathError(`one catalog per load; found ${catalogs.map((c) => c.absPath).join(' and ')}`);
+  }
+  const list = [...picked.values()];
+  const git = opts.git === false ? null : await readGitInfo(list.map((f) => f.absPath));
+  const files: LoadFile[] = list.map((f) => {
+    const g = git?.files.get(f.absPath);
+    return {
+      kind: f.kind,
+      absPath: f.absPath,
+      path: [basename(f.root), ...relative(f.root, f.absPath).split(sep)].join('/'),
+      text: readFileSync(f.absPath, 'utf8'),
+      gitCommit: g?.commit ?? null,
+      gitAuthor: g?.author ?? null,
+    };
+  });
+  return { files, complete, gitCommit: git?.head ?? null };
+}
+
+interface GitInfo {
+  head: string | null;
+  files: Map<string, { commit: string; author: string }>;
+}
+
+/**
+ * The last commit and author of each file, from one `git log` over all of them (one process, not
+ * one per file). Files changed since that commit or not committed get none: the loaded text is not
+ * what the commit holds. Outside a repository, or without git, returns null.
+ */
+export async function readGitInfo(absPaths: string[]): Promise<GitInfo | null> {
+  if (absPaths.length === 0) return null;
+  const cwd = dirname(absPaths[0]);
+  let top: string;
+  try {
+    top = (await run('git', ['rev-parse', '--show-toplevel'], { cwd })).stdout.trim();
+  } catch {
+    return null;
+  }
+  const rel = new Map<string, string>();
+  for (const p of absPaths) {
+    const r = relative(top, p);
+    if (!r.startsWith('..')) rel.set(r.split(sep).join('/'), p);
+  }
+  const files = new Map<string, { commit: string; author: string }>();
+  let head: string | null = null;
+  try {
+    head = (await run('git', ['rev-parse', 'HEAD'], { cwd: top })).stdout.trim() || null;
+  } catch {
+    return { head: null, files };
+  }
+  // The folders, not each file: one short command line however many formulas there are.
+  const pathspecs = [...new Set([...rel.keys()].map((r) => (r.includes('/') ? r.slice(0, r.lastIndexOf('/')) : '.')))];
+  const dirty = new Set<string>();
+  try {
+    const status = await run('git', ['status', '--porcelain=v1', '-z', '--untracked-files=all', '--', ...pathspecs], {
+      cwd: top,
+      maxBuffer: 64 * 1024 * 1024,
+    });
+    for (const entry of status.stdout.split('\0')) if (entry.length > 3) dirty.add(entry.slice(3));
+    const log = await run('git', ['log', '--format=%x01%H%x00%an', '--name-only', '--no-renames', '--', ...pathspecs], {
+      cwd: top,
+      maxBuffer: 256 * 1024 * 1024,
+    });
+    let current: { commit: string; author: string } | null = null;
+    for (const line of log.stdout.split('\n')) {
+      if (line.startsWith('\u0001')) {
+        const [commit, author] = line.slice(1).split('\0');
+        current = { commit, author };
+      } else if (line && current && rel.has(line) && !dirty.has(line)) {
+        const abs = rel.get(line)!;
+        if (!files.has(abs)) files.set(abs, current);
+      }
+    }
+  } catch {
+    // git failed on these paths (too many for one command line, a broken repository): no git info.
+    files.clear();
+  }
+  return { head, files };
+}

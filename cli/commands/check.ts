@@ -1,7 +1,234 @@
-// Placeholder until its issue lands: the command is listed but says it is not built yet.
+// `panform check [paths..]`: schema and trade checks of formulas, the catalog and plans, one
+// line per finding. Reading files happens here; the checks themselves are in shared/check/.
 import { Command } from 'commander';
-import { InputError } from '../errors.ts';
+import { closeSync, openSync, readdirSync, readSync, statSync } from 'node:fs';
+import { basename, dirname, join, relative, resolve } from 'node:path';
+import { checkFileText, fileStem } from '#shared/check/check-file';
+import type { KnownFormula } from '#shared/check/plan';
+import type { Catalog } from '#shared/model';
+import { formatFinding, parseYamlText, sortFindings, type Finding } from '#shared/parse';
+import { ExitError, UsageError } from '../errors.ts';
+import { CATALOG_FILE, findCatalogPath, formulasDirForPlan } from '../files.ts';
 
-export const command = new Command('check').description('(not built yet)').action(() => {
-  throw new InputError('panform check is not built yet');
-});
+export interface CheckOptions {
+  paths: string[];
+  /** Use this catalog for every formula instead of the one found beside it. */
+  catalog?: string;
+  json: boolean;
+}
+
+export interface CheckReport {
+  /** How many files were checked. */
+  files: number;
+  /** Their paths, as shown in findings. */
+  checked: string[];
+  findings: Finding[];
+  errors: number;
+  warnings: number;
+}
+
+type FileKind = 'formula' | 'catalog' | 'plan';
+const DEFAULT_PATH = 'formulas';
+/** A formula file is a few kB; anything far larger is not one, and is not read whole. */
+const MAX_BYTES = 2 * 1024 * 1024;
+
+export function classify(path: string, catalogPath?: string): FileKind {
+  if (basename(path) === CATALOG_FILE || (catalogPath !== undefined && resolve(path) === resolve(catalogPath))) return 'catalog';
+  if (basename(dirname(resolve(path))) === 'plans') return 'plan';
+  return 'formula';
+}
+
+const isYaml = (name: string) => /\.ya?ml$/i.test(name);
+
+function walk(dir: string, out: string[]): void {
+  const entries = readdirSync(dir, { withFileTypes: true }).sort((a, b) => a.name.localeCompare(b.name));
+  for (const e of entries) {
+    if (e.name.startsWith('.') || e.name === 'node_modules') continue;
+    const p = join(dir, e.name);
+    if (e.isDirectory()) walk(p, out);
+    else if (e.isFile() && isYaml(e.name)) out.push(p);
+  }
+}
+
+/** The files named on the command line: files as given, folders searched for .yaml/.yml. */
+export function listFiles(paths: string[]): string[] {
+  const out: string[] = [];
+  const seen = new Set<string>();
+  for (const p of paths) {
+    const st = statSync(p, { throwIfNoEntry: false });
+    if (!st) throw new UsageError(`no such file or folder: ${p}`, p === DEFAULT_PATH ? 'run panform check in the project folder, or give the files or folders to check' : undefined);
+    const found: string[] = [];
+    if (st.isDirectory()) {
+      walk(p, found);
+      if (found.length === 0) throw new UsageError(`found no .yaml or .yml files in ${p}`);
+    } else found.push(p);
+    for (const f of found) {
+      const key = resolve(f);
+      if (!seen.has(key)) {
+        seen.add(key);
+        out.push(f);
+      }
+    }
+  }
+  return out;
+}
+
+/** The file's text, or a finding when it cannot be read or is too large to be a formula file. */
+function readForCheck(path: string): { text: string } | { finding: Finding } {
+  const at = (message: string): { finding: Finding } => ({ finding: { file: path, line: 1, col: 1, severity: 'error', message } });
+  try {
+    const size = statSync(path).size;
+    if (size > MAX_BYTES) return at(`the file is ${(size / 1024 / 1024).toFixed(1)} MB; a formula, catalog or plan file is a few kB, so this is not one`);
+    const fd = openSync(path, 'r');
+    try {
+      const buf = Buffer.alloc(size);
+      let read = 0;
+      while (read < size) {
+        const n = readSync(fd, buf, read, size - read, read);
+        if (n === 0) break;
+        read += n;
+      }
+      return { text: buf.subarray(0, read).toString('utf8') };
+    } finally {
+      closeSync(fd);
+    }
+  } catch (e) {
+    return at(`cannot read the file: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
+  }
+}
+
+/** Reads and checks every file; returns the findings, sorted. Throws UsageError for a bad path. */
+export function collectCheck(options: Pick<CheckOptions, 'paths' | 'catalog'>): CheckReport {
+  const paths = options.paths.length > 0 ? options.paths : [DEFAULT_PATH];
+  if (options.catalog !== undefined && !statSync(options.catalog, { throwIfNoEntry: false })?.isFile()) {
+    throw new UsageError(`--catalog ${options.catalog}: no such file`);
+  }
+  const files = listFiles(paths);
+  if (options.catalog !== undefined && !files.some((f) => resolve(f) === resolve(options.catalog!))) files.push(options.catalog);
+
+  const findings: Finding[] = [];
+  const checkedSet = new Set(files.map((f) => resolve(f)));
+
+  // Catalogs first: formulas need them. Each is read and checked once.
+  const catalogs = new Map<string, { catalog: Catalog | null; findings: Finding[] }>();
+  const loadCatalog = (path: string) => {
+    const key = resolve(path);
+    let c = catalogs.get(key);
+    if (!c) {
+      const r = readForCheck(path);
+      if ('finding' in r) c = { catalog: null, findings: [r.finding] };
+      else {
+        const res = checkFileText({ kind: 'catalog', file: path, text: r.text });
+        c = { catalog: res.kind === 'catalog' && res.value && !res.findings.some((f) => f.severity === 'error') ? res.value : null, findings: res.findings };
+      }
+      catalogs.set(key, c);
+    }
+    return c;
+  };
+
+  const formulaDirs = new Map<string, Map<string, KnownFormula>>();
+  const formulasIn = (dir: string) => {
+    let m = formulaDirs.get(dir);
+    if (!m) {
+      m = new Map();
+      const names = readdirSync(dir, { withFileTypes: true })
+        .filter((e) => e.isFile() && isYaml(e.name) && e.name !== CATALOG_FILE && !e.name.startsWith('.'))
+        .map((e) => e.name);
+      for (const name of names) {
+        const r = readForCheck(join(dir, name));
+        let status: string | undefined;
+        if ('text' in r) {
+          const y = parseYamlText(r.text, name);
+          if (y.ok && y.data && typeof y.data === 'object' && typeof (y.data as { status?: unknown }).status === 'string') {
+            status = (y.data as { status: string }).status;
+          }
+        }
+        m.set(fileStem(name), { status });
+      }
+      formulaDirs.set(dir, m);
+    }
+    return m;
+  };
+
+  for (const file of files) {
+    const kind = classify(file, options.catalog);
+    if (kind === 'catalog') {
+      findings.push(...loadCatalog(file).findings);
+      continue;
+    }
+    const r = readForCheck(file);
+    if ('finding' in r) {
+      findings.push(r.finding);
+      continue;
+    }
+    if (kind === 'formula') {
+      const catalogPath = options.catalog ?? findCatalogPath(file);
+      let catalog: Catalog | null = null;
+      let noCatalog: string | undefined;
+      if (catalogPath !== undefined) {
+        const c = loadCatalog(catalogPath);
+        catalog = c.catalog;
+        if (!catalog) {
+          noCatalog = `the catalog ${catalogPath} has errors`;
+          if (!checkedSet.has(resolve(catalogPath))) noCatalog += ` (run \`panform check ${catalogPath}\`)`;
+        }
+      }
+      findings.push(...checkFileText({ kind: 'formula', file, text: r.text, catalog, noCatalog }).findings);
+    } else {
+      const dir = formulasDirForPlan(file);
+      const shown = relative(process.cwd(), dir) || '.';
+      findings.push(...checkFileText({ kind: 'plan', file, text: r.text, formulas: formulasIn(dir), formulasDir: `${shown}/` }).findings);
+    }
+  }
+
+  const sorted = sortFindings(findings);
+  return {
+    files: files.length,
+    checked: files,
+    findings: sorted,
+    errors: sorted.filter((f) => f.severity === 'error').length,
+    warnings: sorted.filter((f) => f.severity === 'warning').length,
+  };
+}
+
+const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
+
+export function summaryLine(r: CheckReport): string {
+  if (r.findings.length === 0) return `${plural(r.files, 'file')} checked, no problems`;
+  return `${plural(r.errors, 'error')}, ${plural(r.warnings, 'warning')} in ${plural(r.files, 'file')}`;
+}
+
+export function printCheck(r: CheckReport): string {
+  return [...r.findings.map(formatFinding), summaryLine(r)].join('\n') + '\n';
+}
+
+export const command = new Command('check')
+  .description('check formulas, the ingredient catalog and plans: schema, units and the baker\'s arithmetic')
+  .argument('[paths...]', 'files or folders to check (default: formulas/)')
+  .option('--catalog <file>', 'use this ingredient catalog for every formula')
+  .option('--json', 'print the findings as JSON', false)
+  .addHelpText(
+    'after',
+    `
+Each problem is printed as path:line:col severity message, sorted, then a count.
+Errors (exit 1) stop a formula from being used; warnings flag values outside the
+trade's usual ranges and do not change the exit code.
+
+Examples:
+  $ panform check                         # everything under formulas/
+  $ panform check formulas/harbour-ciabatta.yaml
+  $ panform check formulas/plans --json
+`,
+  )
+  .action((paths: string[], flags: { catalog?: string; json?: boolean }) => {
+    const options: CheckOptions = { paths: paths ?? [], catalog: flags.catalog, json: flags.json === true };
+    const report = collectCheck(options);
+    if (options.json) {
+      const { files, findings, errors, warnings, checked } = report;
+      process.stdout.write(`${JSON.stringify({ files, findings, errors, warnings, checked }, null, 2)}\n`);
+    } else {
+      process.stdout.write(printCheck(report));
+    }
+    // Exit 1 when there is an error; the findings are already printed.
+    if (report.errors > 0) throw new ExitError(1, '');
+  });

@@ -1,0 +1,103 @@
+// Trade checks of the ingredient catalog once it has passed the schema: compound ingredients
+// name known components and declare their allergens, seed cultures say how to count them,
+// water contents and dates are real. Pure.
+import type { Finding, SourceMap } from '../parse.ts';
+import type { Catalog } from '../model.ts';
+import { finite, FindingList, pct, pointer, quote } from './report.ts';
+import { didYouMean } from './suggest.ts';
+
+export interface CatalogCheckInput {
+  file: string;
+  catalog: Catalog;
+  source: SourceMap;
+}
+
+export function checkCatalog(input: CatalogCheckInput): Finding[] {
+  const { catalog } = input;
+  const out = new FindingList(input.file, input.source);
+  const names = Object.keys(catalog);
+
+  for (const [name, e] of Object.entries(catalog)) {
+    const at = (...k: string[]) => pointer(name, ...k);
+
+    if (!finite(e.water) || e.water < 0 || e.water > 100) {
+      out.error(at('water'), `the water content of ${quote(name)} is ${pct(e.water)}; it must be from 0 to 100 % of its weight`);
+    }
+    if (e.kind === 'water' && e.water !== 100) {
+      out.warning(at('water'), `${quote(name)} is of kind water but its water content is ${pct(e.water)}; hydration counts it as water all the same`);
+    }
+
+    if (e.kind === 'culture') {
+      if (e.hydration === undefined) {
+        out.error(at(), `the culture ${quote(name)} needs "hydration" (e.g. "hydration: 100 %"): a levain build counts its flour and water by it`, 'key');
+      } else if (!finite(e.hydration) || e.hydration < 0) {
+        out.error(at('hydration'), `the hydration of ${quote(name)} is ${pct(e.hydration)}; it cannot be negative`);
+      }
+      if (e.fedWith === undefined) {
+        out.error(at(), `the culture ${quote(name)} needs "fed_with": the flour it is fed with`, 'key');
+      } else if (!catalog[e.fedWith]) {
+        out.error(at('fed_with'), `${quote(name)} is fed with ${quote(e.fedWith)}, which is not in the catalog${didYouMean(e.fedWith, names)}`);
+      } else if (catalog[e.fedWith].kind !== 'flour') {
+        out.error(at('fed_with'), `${quote(name)} is fed with ${quote(e.fedWith)}, whose kind is ${catalog[e.fedWith].kind}; a culture is fed with a flour`);
+      }
+    } else {
+      if (e.hydration !== undefined) out.warning(at('hydration'), `"hydration" is used only for a culture; ${quote(name)} is of kind ${e.kind}`, 'key');
+      if (e.fedWith !== undefined) out.warning(at('fed_with'), `"fed_with" is used only for a culture; ${quote(name)} is of kind ${e.kind}`, 'key');
+    }
+
+    if (e.kind === 'yeast' && e.yeast === undefined) {
+      out.warning(at(), `the yeast ${quote(name)} has no "yeast" type (fresh, active-dry or instant); it is treated as fresh yeast when converting`, 'key');
+    }
+    if (e.kind !== 'yeast' && e.yeast !== undefined) {
+      out.warning(at('yeast'), `"yeast" is used only for kind yeast; ${quote(name)} is of kind ${e.kind}`, 'key');
+    }
+    if (e.kind !== 'yeast' && e.yeastFactor !== undefined) {
+      out.warning(at('yeast_factor'), `"yeast_factor" is used only for kind yeast; ${quote(name)} is of kind ${e.kind}`, 'key');
+    }
+
+    if (e.costDate !== undefined && !isCalendarDate(e.costDate)) {
+      out.error(at('cost_date'), `cost_date ${quote(e.costDate)} is not a date in the calendar (YYYY-MM-DD)`);
+    }
+    if (e.costDate !== undefined && e.costPerKg === undefined) {
+      out.warning(at('cost_date'), `${quote(name)} has a cost_date but no cost_per_kg`, 'key');
+    }
+
+    if (e.components) {
+      const seen = new Set<string>();
+      e.components.forEach((c, i) => {
+        const cat = pointer(name, 'components', String(i));
+        if (seen.has(c)) out.error(cat, `${quote(c)} is listed twice in the components of ${quote(name)}`);
+        seen.add(c);
+        if (c === name) {
+          out.error(cat, `${quote(name)} lists itself as a component`);
+          return;
+        }
+        const comp = catalog[c];
+        if (!comp) {
+          out.error(cat, `component ${quote(c)} of ${quote(name)} is not in the catalog${didYouMean(c, names)}`);
+          return;
+        }
+        // An allergen in a component is an allergen of the compound: a missing one would drop off the label.
+        for (const a of comp.allergens) {
+          if (!e.allergens.includes(a)) {
+            out.error(
+              at(...(e.allergens.length ? ['allergens'] : [])),
+              `${quote(name)} does not declare allergen ${quote(a)}, which its component ${quote(c)} has; add it to allergens`,
+              e.allergens.length ? 'value' : 'key',
+            );
+          }
+        }
+      });
+    }
+  }
+  return out.findings;
+}
+
+export function isCalendarDate(s: string): boolean {
+  const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(s);
+  if (!m) return false;
+  const [y, mo, d] = [Number(m[1]), Number(m[2]), Number(m[3])];
+  if (mo < 1 || mo > 12 || d < 1) return false;
+  const days = [31, y % 4 === 0 && (y % 100 !== 0 || y % 400 === 0) ? 29 : 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+  return d <= days[mo - 1];
+}

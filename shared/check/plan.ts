@@ -1,0 +1,67 @@
+// Trade checks of a production plan once it has passed the schema: its orders name formulas
+// and mixers that exist, its mixers make sense, its date is the file's. Pure.
+import type { Finding, SourceMap } from '../parse.ts';
+import type { Plan } from '../model.ts';
+import type { FormulaStatus } from '../schema/shapes.ts';
+import { isCalendarDate } from './catalog.ts';
+import { FindingList, grams, pointer, quote } from './report.ts';
+import { didYouMean } from './suggest.ts';
+
+export interface KnownFormula {
+  /** The status written in the file, when it could be read. */
+  status?: FormulaStatus | string;
+}
+
+export interface PlanCheckInput {
+  file: string;
+  plan: Plan;
+  source: SourceMap;
+  /** The file's name without its extension; when it looks like a date, the plan's date must equal it. */
+  fileStem: string;
+  /** Formulas by id, from the folder that holds plans/. */
+  formulas: ReadonlyMap<string, KnownFormula>;
+  /** Where those formulas were looked for, for messages. */
+  formulasDir: string;
+}
+
+export function checkPlan(input: PlanCheckInput): Finding[] {
+  const { plan, formulas } = input;
+  const out = new FindingList(input.file, input.source);
+
+  if (!isCalendarDate(plan.date)) out.error('/date', `date ${quote(plan.date)} is not a date in the calendar (YYYY-MM-DD)`);
+  else if (/^\d{4}-\d{2}-\d{2}$/.test(input.fileStem) && input.fileStem !== plan.date) {
+    out.error('/date', `date ${quote(plan.date)} must equal the file name ${quote(input.fileStem)}`);
+  }
+
+  const mixerNames = new Set<string>();
+  plan.mixers.forEach((m, i) => {
+    const at = (k?: string) => pointer('mixers', String(i), ...(k ? [k] : []));
+    if (mixerNames.has(m.name)) out.error(at('name'), `mixer ${quote(m.name)} is listed twice; give each mixer its own name`);
+    mixerNames.add(m.name);
+    if (!(m.capacityGrams > 0)) out.error(at('capacity'), `the capacity of mixer ${quote(m.name)} is ${grams(m.capacityGrams)}; it must be above 0 g`);
+    if (m.minimumGrams !== undefined && m.minimumGrams > m.capacityGrams) {
+      out.error(at('minimum'), `the minimum of mixer ${quote(m.name)} (${grams(m.minimumGrams)}) is above its capacity (${grams(m.capacityGrams)})`);
+    }
+    if (m.friction < 0) out.warning(at('friction'), `mixer ${quote(m.name)} has a negative friction (${m.friction} °C); mixing warms dough, it does not cool it`);
+  });
+
+  const ids = [...formulas.keys()];
+  plan.orders.forEach((o, i) => {
+    const at = (k: string) => pointer('orders', String(i), k);
+    const known = formulas.get(o.formula);
+    if (!known) {
+      out.error(at('formula'), `order ${i + 1} names formula ${quote(o.formula)}, which is not in ${input.formulasDir}${didYouMean(o.formula, ids)}`);
+    } else if (known.status === 'retired') {
+      out.warning(at('formula'), `order ${i + 1} names ${quote(o.formula)}, which is retired`);
+    } else if (known.status === 'draft') {
+      out.warning(at('formula'), `order ${i + 1} names ${quote(o.formula)}, which is still a draft`);
+    }
+    if (o.mixer !== undefined && !mixerNames.has(o.mixer)) {
+      out.error(at('mixer'), `order ${i + 1} names mixer ${quote(o.mixer)}, which is not among this plan's mixers${didYouMean(o.mixer, mixerNames)}`);
+    }
+    if (o.pieceGrams !== undefined && !(o.pieceGrams > 0)) {
+      out.error(at('piece'), `order ${i + 1} has a piece weight of ${grams(o.pieceGrams)}; it must be above 0 g`);
+    }
+  });
+  return out.findings;
+}

@@ -1,0 +1,43 @@
+// The trade's usual ranges (common practice, no single source). Values outside them are
+// warnings, never errors: a baker may have a reason. Sources where there is one:
+// trade-references §8 (pre-ferments) and §3 (dough temperature).
+
+export interface Band {
+  min: number;
+  max: number;
+}
+
+export const PRACTICE = {
+  /** Poolish: equal weights of flour and water, about 100 % (common practice). */
+  poolishHydration: { min: 90, max: 110 } as Band,
+  /** Biga: stiff at 50–60 % (Hamelman, Bread, "Biga"; Gisslen), or poolish-like near 100 %. */
+  bigaStiffHydration: { min: 50, max: 60 } as Band,
+  bigaLiquidHydration: { min: 90, max: 110 } as Band,
+  /** Levain: stiff about 50–60 %, liquid 100–125 % (common practice). */
+  levainHydration: { min: 50, max: 125 } as Band,
+  /** Salt in percent of the flour (common practice). */
+  salt: { min: 1.5, max: 3 } as Band,
+  /** Hydration, counting the water in milk, eggs and butter (common practice for bread doughs). */
+  hydration: { min: 50, max: 100 } as Band,
+  /** Desired dough temperature, °C (common practice; Gisslen gives 25.5–26.7 °C as usual). */
+  doughTemperature: { min: 20, max: 30 } as Band,
+  /** Pre-fermented flour, percent of the total flour (common practice). */
+  prefermentedFlourMax: 60,
+  /** Yeast in a lean dough, as fresh yeast in percent of the flour (common practice). */
+  leanYeastFreshMax: 4,
+  /** A dough is lean when sugar, fat, dairy and egg together are at most this percent (common practice). */
+  leanEnrichmentMax: 5,
+  /** Loss allowance, percent of the mixed dough (common practice: 1–3 %). */
+  lossMax: 10,
+  /** A cold hold (retard) runs at about 2–6 °C (common practice; follow your food-safety plan). */
+  retardTemperatureMax: 8,
+  /** Bake temperatures, °C (common practice for bread and rolls). */
+  bakeTemperature: { min: 150, max: 300 } as Band,
+} as const;
+
+/** Grams of each yeast type that replace 1 g of fresh yeast (Hamelman, Bread, Wiley 2004). */
+export const YEAST_FACTORS = { fresh: 1, 'active-dry': 0.4, instant: 0.33 } as const;
+
+export function outside(value: number, band: Band): boolean {
+  return value < band.min - 1e-9 || value > band.max + 1e-9;
+}

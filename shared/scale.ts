@@ -12,7 +12,8 @@
 //   flour and water of the build, and so of the formula. The build then asks for less fresh flour
 //   and water: fresh = the listed line − the seed's part.
 // Weights stay unrounded here; rounding is for display only (units.ts).
-import { lookupIngredient, type Catalog, type Formula, type Line } from './model.ts';
+import { lookupIngredient, type Catalog, type CatalogItem, type Formula, type Line } from './model.ts';
+import type { IngredientKind } from './schema/shapes.ts';
 
 export type ScaleTarget =
   | { by: 'pieces'; pieces: number; pieceGrams?: number }
@@ -64,12 +65,20 @@ export interface ScaleResult {
   dividedDough: number;
   flour: number;
   totalPercent: number;
+  /** All water in the overall formula (pre-ferments' and soakers' included), g. */
   water: number;
+  /** Water plus the water inside other ingredients (catalog water content), g. */
+  effectiveWater: number;
   hydration: number;
   effectiveHydration: number;
+  /** Flour held by all pre-ferments, g (seed flour included). */
+  prefermentedFlourGrams: number;
   prefermentedFlour: number;
+  /** Flour and water weighed into the final dough itself (outside the builds), g. */
+  finalDoughFlour: number;
+  finalDoughWater: number;
   finalDoughHydration: number;
-  overall: (WeighedLine & { kind: string })[];
+  overall: (WeighedLine & { kind: IngredientKind })[];
   preferments: ScaledBuild[];
   soakers: ScaledBuild[];
   finalDough: FinalLine[];
@@ -106,29 +115,37 @@ export function resolveTarget(
       if (!Number.isInteger(target.pieces) || target.pieces < 1) {
         throw new ScaleError(`pieces must be a whole number of at least 1; got ${target.pieces}`);
       }
-      if (!(piece > 0)) throw new ScaleError(`piece weight must be above 0 g; got ${piece} g`);
+      if (!(piece > 0) || !Number.isFinite(piece)) throw new ScaleError(`piece weight must be above 0 g; got ${piece} g`);
       if (!(f.loss >= 0 && f.loss < 100)) throw new ScaleError(`loss must be from 0 % to below 100 %; got ${f.loss} %`);
       const divided = target.pieces * piece;
       const mixed = divided / (1 - f.loss / 100);
       return { flour: mixed / (total / 100), mixedDough: mixed, dividedDough: divided, loss: f.loss, pieces: target.pieces, pieceGrams: piece };
     }
     case 'mix': {
-      if (!(target.grams > 0)) throw new ScaleError(`mixed dough weight must be above 0 g; got ${target.grams} g`);
+      if (!(target.grams > 0) || !Number.isFinite(target.grams)) throw new ScaleError(`mixed dough weight must be above 0 g; got ${target.grams} g`);
       return { flour: target.grams / (total / 100), mixedDough: target.grams, dividedDough: target.grams, loss: 0, pieces: null, pieceGrams: null };
     }
     case 'flour': {
-      if (!(target.grams > 0)) throw new ScaleError(`flour weight must be above 0 g; got ${target.grams} g`);
+      if (!(target.grams > 0) || !Number.isFinite(target.grams)) throw new ScaleError(`flour weight must be above 0 g; got ${target.grams} g`);
       const mixed = target.grams * (total / 100);
       return { flour: target.grams, mixedDough: mixed, dividedDough: mixed, loss: 0, pieces: null, pieceGrams: null };
     }
   }
 }
 
+/** Water carried inside an ingredient, in percent of its weight (a culture without a stated water content: from its hydration). */
+export function waterContent(item: CatalogItem): number {
+  if (item.kind === 'culture' && item.water === 0 && item.hydration !== undefined) return (item.hydration / (100 + item.hydration)) * 100;
+  return item.water;
+}
+
 export function scaleFormula(f: Formula, catalog: Catalog, target: ScaleTarget): ScaleResult {
   const t = resolveTarget(f, target);
   const F = t.flour;
   const total = totalPercent(f);
-  const kindOf = (name: string) => lookupIngredient(catalog, name).kind;
+  // Everything listed under `flour:` is flour, whatever the catalog says (or does not say) about it.
+  const flourNames = new Set(f.flour.map((l) => l.ingredient));
+  const kindOf = (name: string): IngredientKind => (flourNames.has(name) ? 'flour' : lookupIngredient(catalog, name).kind);
 
   const overall = overallLines(f).map((l) => ({
     ingredient: l.ingredient,
@@ -145,38 +162,42 @@ export function scaleFormula(f: Formula, catalog: Catalog, target: ScaleTarget):
   const preferments: ScaledBuild[] = f.preferments.map((p) => {
     const pFlour = (F * p.share) / 100;
     const lines: BuildLine[] = [];
-    let seedFlour = 0;
-    let seedWater = 0;
-    let seedFedWith: string | undefined;
+    const seeds: { line: BuildLine; flour: number; water: number; fedWith?: string }[] = [];
     for (const l of p.ingredients) {
       const grams = (pFlour * l.percent) / 100;
       const item = lookupIngredient(catalog, l.ingredient);
-      if (item.kind === 'culture') {
+      if (item.kind === 'culture' && !flourNames.has(l.ingredient)) {
+        if (overallByName.has(l.ingredient)) {
+          throw new ScaleError(
+            `${f.id}: the seed "${l.ingredient}" in "${p.name}" is also in the overall formula; its flour and water already count there, so list it in the build only`,
+          );
+        }
         const h = item.hydration ?? 100;
-        seedFlour += (grams * 100) / (100 + h);
-        seedWater += (grams * h) / (100 + h);
-        seedFedWith = item.fedWith;
-        lines.push({ ingredient: l.ingredient, percent: l.percent, grams, weigh: grams, seed: true });
+        const line: BuildLine = { ingredient: l.ingredient, percent: l.percent, grams, weigh: grams, seed: true };
+        lines.push(line);
+        seeds.push({ line, flour: (grams * 100) / (100 + h), water: (grams * h) / (100 + h), fedWith: item.fedWith });
       } else {
         lines.push({ ingredient: l.ingredient, percent: l.percent, grams, weigh: grams });
         take(l.ingredient, grams);
       }
     }
-    if (seedFlour > 0) {
+    for (const seed of seeds) {
+      // The seed's flour comes out of the flour it is fed with, else out of the build's first flour.
       const flourLine =
-        lines.find((l) => !l.seed && l.ingredient === seedFedWith) ?? lines.find((l) => !l.seed && kindOf(l.ingredient) === 'flour');
+        lines.find((l) => !l.seed && l.ingredient === seed.fedWith) ?? lines.find((l) => !l.seed && kindOf(l.ingredient) === 'flour');
       const waterLine = lines.find((l) => !l.seed && kindOf(l.ingredient) === 'water');
       if (!flourLine || !waterLine) {
         throw new ScaleError(`${f.id}: pre-ferment "${p.name}" has a seed culture but no flour or water line for it to count in`);
       }
-      flourLine.weigh -= seedFlour;
-      waterLine.weigh -= seedWater;
-      for (const [line, part, what] of [[flourLine, seedFlour, 'flour'], [waterLine, seedWater, 'water']] as const) {
-        if (line.weigh < -EPSILON) {
+      flourLine.weigh -= seed.flour;
+      waterLine.weigh -= seed.water;
+      for (const [line, part, what] of [[flourLine, seed.flour, 'flour'], [waterLine, seed.water, 'water']] as const) {
+        if (line.weigh < -EPSILON * Math.max(1, F)) {
           throw new ScaleError(
             `${f.id}: the seed in "${p.name}" brings ${part.toFixed(1)} g of ${what}, more than the build's ${line.ingredient} (${line.grams.toFixed(1)} g)`,
           );
         }
+        if (line.weigh < 0) line.weigh = 0;
       }
     }
     const buildLines = lines.filter((l) => !l.seed);
@@ -235,9 +256,13 @@ export function scaleFormula(f: Formula, catalog: Catalog, target: ScaleTarget):
   for (const s of soakers) finalDough.push({ ingredient: s.name, grams: s.grams, source: 'soaker' });
 
   const water = sum(overall.filter((l) => l.kind === 'water').map((l) => l.grams));
-  const effectiveWater = sum(overall.map((l) => (l.grams * lookupIngredient(catalog, l.ingredient).water) / 100));
+  // Flour's own moisture is not counted: effective hydration adds the water inside the other ingredients.
+  const effectiveWater = sum(
+    overall.map((l) => (l.kind === 'flour' ? 0 : (l.grams * (l.kind === 'water' ? 100 : waterContent(lookupIngredient(catalog, l.ingredient)))) / 100)),
+  );
   const finalFlour = sum(finalDough.filter((l) => l.source === 'ingredient' && kindOf(l.ingredient) === 'flour').map((l) => l.grams));
   const finalWater = sum(finalDough.filter((l) => l.source === 'ingredient' && kindOf(l.ingredient) === 'water').map((l) => l.grams));
+  const prefermentedFlourGrams = sum(preferments.map((p) => p.flour));
 
   return {
     formula: f.id,
@@ -251,9 +276,13 @@ export function scaleFormula(f: Formula, catalog: Catalog, target: ScaleTarget):
     flour: F,
     totalPercent: total,
     water,
+    effectiveWater,
     hydration: (water / F) * 100,
     effectiveHydration: (effectiveWater / F) * 100,
-    prefermentedFlour: (sum(preferments.map((p) => p.flour)) / F) * 100,
+    prefermentedFlourGrams,
+    prefermentedFlour: (prefermentedFlourGrams / F) * 100,
+    finalDoughFlour: finalFlour,
+    finalDoughWater: finalWater,
     finalDoughHydration: finalFlour > 0 ? (finalWater / finalFlour) * 100 : 0,
     overall,
     preferments,

@@ -170,6 +170,23 @@ export interface Resolution {
 }
 export const DEFAULT_RESOLUTION: Resolution = { coarse: 1, fine: 0.1, fineBelow: 100 };
 
+/**
+ * A scale resolution as written on the command line: "1", "1,0.1" or "1,0.1,100" (coarse step,
+ * fine step, and the weight in grams below which the fine step applies).
+ */
+export function parseResolution(text: string): Resolution {
+  const parts = text.split(',').map((p) => p.trim());
+  const nums = parts.map(Number);
+  if (parts.length < 1 || parts.length > 3 || parts.some((p) => p === '') || nums.some((n) => !Number.isFinite(n) || n <= 0)) {
+    throw new QuantityError(`not a scale resolution: ${JSON.stringify(text)}`, 'grams above 0: "1", "1,0.1" or "1,0.1,100" (step, fine step, fine below)');
+  }
+  return {
+    coarse: nums[0],
+    fine: nums[1] ?? Math.min(nums[0], DEFAULT_RESOLUTION.fine),
+    fineBelow: nums[2] ?? DEFAULT_RESOLUTION.fineBelow,
+  };
+}
+
 function decimalsOf(step: number): number {
   const s = String(step);
   const i = s.indexOf('.');
@@ -192,10 +209,15 @@ export function formatGrams(grams: number, res: Resolution = DEFAULT_RESOLUTION)
 
 export function formatMass(grams: number, system: UnitSystem, res: Resolution = DEFAULT_RESOLUTION): string {
   if (system === 'metric') return formatGrams(grams, res);
-  const lb = Math.floor(grams / GRAMS_PER_POUND + 1e-9);
-  const oz = (grams - lb * GRAMS_PER_POUND) / GRAMS_PER_OUNCE;
-  const ozText = oz < 1 ? oz.toFixed(3) : oz.toFixed(2);
-  return lb > 0 ? `${lb} lb ${ozText} oz` : `${ozText} oz`;
+  const sign = grams < 0 ? '-' : '';
+  const totalOz = Math.abs(grams) / GRAMS_PER_OUNCE;
+  // Under 1 oz: three decimals (yeast, spices); otherwise hundredths, carried into pounds so
+  // that 15.999 oz prints as 1 lb 0.00 oz, never as 16.00 oz.
+  if (totalOz < 1) return `${sign}${totalOz.toFixed(3)} oz`;
+  const hundredths = Math.round(totalOz * 100);
+  const lb = Math.floor(hundredths / 1600);
+  const ozText = ((hundredths - lb * 1600) / 100).toFixed(2);
+  return lb > 0 ? `${sign}${lb} lb ${ozText} oz` : `${sign}${ozText} oz`;
 }
 
 function groupThousands(s: string): string {

@@ -1,0 +1,25 @@
+// Printing `panform temp`: the inputs and the result as one small table, cautions below it.
+import type { TempData } from '../commands/temp.ts';
+import { renderFacts } from './table.ts';
+import { formatGrams } from '#shared/units';
+
+export function tempText(d: TempData): string {
+  const t = (v: number) => `${v.toFixed(1)} °${d.unit}`;
+  const facts: [string, string][] = [];
+  if (d.mode === 'water') facts.push(['desired dough temperature', t(d.desiredDoughTemperature ?? 0)]);
+  else facts.push(['measured dough temperature', t(d.measured ?? 0)]);
+  facts.push(['room', t(d.room)], ['flour', t(d.flour)]);
+  d.preferments.forEach((p, i) => facts.push([d.preferments.length > 1 ? `pre-ferment ${i + 1}` : 'pre-ferment', t(p)]));
+  if (d.mode === 'water') {
+    facts.push(['friction', t(d.friction)], ['factors', String(d.factors)], ['water temperature', t(d.waterTemperature)]);
+    if (d.tap !== null) facts.push(['tap water temperature', t(d.tap)]);
+    if (d.water !== null) facts.push(['water in all', formatGrams(d.water)]);
+    if (d.ice !== null && d.tapWater !== null) facts.push(['ice (at 0 °C)', formatGrams(d.ice)], ['tap water', formatGrams(d.tapWater)]);
+    else if (d.iceShare !== null) facts.push(['ice per kg of water', formatGrams(d.iceShare * 1000)]);
+  } else {
+    facts.push(['water temperature', t(d.waterTemperature)], ['factors', String(d.factors)], ['friction', t(d.friction)]);
+  }
+  const title = d.mode === 'water' ? 'Water for the dough' : "The mixer's friction";
+  const lines = [renderFacts(title, facts), ...d.warnings.map((w) => `  caution: ${w}`)];
+  return `${lines.join('\n')}\n`;
+}

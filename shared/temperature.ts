@@ -1,0 +1,179 @@
+// Dough temperature: the water temperature for a desired dough temperature (DDT), the ice to
+// add when that water must be colder than the tap, and a mixer's friction worked back from a
+// measured dough. Pure; no I/O.
+//
+// Conventions (README "Arithmetic"):
+// - water = n·DDT − (room + flour + each pre-ferment + friction), where n counts room, flour,
+//   water and each pre-ferment: 3 without a pre-ferment, 4 with one, 5 with two ...
+//   Friction is a temperature *difference*. Because n counts the water too, the method gives
+//   the same water in °C and in °F as long as friction converts by 5/9 without the offset; the
+//   functions here work in whichever scale their inputs share.
+// - ice (at 0 °C) for W grams of water in all, tap water at T_tap, combined water at T_w (°C):
+//   ice = W·(T_tap − T_w) / (T_tap + L/c); tap water = W − ice. From the heat balance
+//   (W − I)·c·(T_tap − T_w) = I·L + I·c·T_w: the tap water melts the ice and warms the meltwater.
+// - friction from a measured dough: FF = n·actual − (room + flour + water + each pre-ferment).
+
+/** Latent heat of fusion of ice, J/g. Case Western Reserve University, Physics dept. demo "Specific Heat and Heat of Fusion". */
+export const LATENT_HEAT_OF_FUSION_OF_ICE = 334;
+/** Specific heat of liquid water, J/(g·K); within 10 % from 0 to 30 °C. Same source. */
+export const SPECIFIC_HEAT_OF_WATER = 4.18;
+/** Above this the water is hot enough to scald and to harm yeast (common practice). */
+export const HOT_WATER_CELSIUS = 50;
+
+/** Target water that cannot be reached, or inputs that make no sense. */
+export class TemperatureError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'TemperatureError';
+  }
+}
+
+export interface DoughTemperatureInputs {
+  /** Desired dough temperature. */
+  ddt: number;
+  room: number;
+  flour: number;
+  /** One temperature per pre-ferment going into the dough (none for a straight dough). */
+  preferments: readonly number[];
+  /** The mixer's friction: a temperature difference in the same scale's degrees. */
+  friction: number;
+}
+
+export interface WaterTemperature {
+  /** Water temperature, in the inputs' scale. */
+  water: number;
+  /** n: room, flour, water and each pre-ferment. */
+  factors: number;
+  /** n·DDT */
+  total: number;
+  /** room + flour + pre-ferments + friction */
+  known: number;
+}
+
+function requireFinite(name: string, v: number): void {
+  if (!Number.isFinite(v)) throw new TemperatureError(`${name} must be a number; got ${v}`);
+}
+
+/** n·DDT − (room + flour + pre-ferments + friction). Works in °C or °F (friction as a difference). */
+export function computeWaterTemperature(i: DoughTemperatureInputs): WaterTemperature {
+  for (const [name, v] of [['desired dough temperature', i.ddt], ['room temperature', i.room], ['flour temperature', i.flour], ['friction', i.friction]] as const) {
+    requireFinite(name, v);
+  }
+  i.preferments.forEach((p, k) => requireFinite(`pre-ferment ${k + 1} temperature`, p));
+  const factors = 3 + i.preferments.length;
+  const total = factors * i.ddt;
+  let known = i.room + i.flour + i.friction;
+  for (const p of i.preferments) known += p;
+  return { water: total - known, factors, total, known };
+}
+
+export interface FrictionInputs {
+  /** The dough temperature measured at the end of the mix. */
+  measured: number;
+  room: number;
+  flour: number;
+  water: number;
+  preferments: readonly number[];
+}
+
+/** A mixer's friction from a measured dough: n·actual − (room + flour + water + pre-ferments). */
+export function computeFriction(i: FrictionInputs): { friction: number; factors: number } {
+  for (const [name, v] of [['measured dough temperature', i.measured], ['room temperature', i.room], ['flour temperature', i.flour], ['water temperature', i.water]] as const) {
+    requireFinite(name, v);
+  }
+  const factors = 3 + i.preferments.length;
+  let known = i.room + i.flour + i.water;
+  for (const p of i.preferments) known += p;
+  return { friction: factors * i.measured - known, factors };
+}
+
+export interface IceConstants {
+  /** J/g */
+  latentHeat: number;
+  /** J/(g·K) */
+  specificHeat: number;
+}
+export const ICE_CONSTANTS: IceConstants = { latentHeat: LATENT_HEAT_OF_FUSION_OF_ICE, specificHeat: SPECIFIC_HEAT_OF_WATER };
+
+export interface IceSplit {
+  /** Ice at 0 °C, g. */
+  ice: number;
+  /** Tap water, g. */
+  tapWater: number;
+  /** Ice per gram of total water. */
+  iceShare: number;
+}
+
+/**
+ * How much of `water` grams must be ice (at 0 °C) so that tap water at `tap` °C and the ice
+ * together come to `target` °C. No ice when the tap is already cold enough. Throws when the
+ * target is below 0 °C (ice at 0 °C cannot bring water below 0 °C).
+ */
+export function computeIce(water: number, tap: number, target: number, k: IceConstants = ICE_CONSTANTS): IceSplit {
+  requireFinite('water weight', water);
+  requireFinite('tap water temperature', tap);
+  requireFinite('water temperature', target);
+  if (water < 0) throw new TemperatureError(`water weight must be 0 g or more; got ${water} g`);
+  if (target < 0) {
+    throw new TemperatureError(
+      `the water would have to be ${target.toFixed(1)} °C, below the 0 °C that ice can bring it to; chill the flour or pre-ferment, or lower the friction`,
+    );
+  }
+  if (target >= tap) return { ice: 0, tapWater: water, iceShare: 0 };
+  const share = (tap - target) / (tap + k.latentHeat / k.specificHeat);
+  return { ice: water * share, tapWater: water - water * share, iceShare: share };
+}
+
+export interface WaterPlanInputs extends DoughTemperatureInputs {
+  /** Tap water temperature, °C; with `waterGrams`, the ice is worked out. */
+  tap?: number;
+  /** All the water the dough takes, g. */
+  waterGrams?: number;
+}
+
+export interface WaterPlan {
+  /** °C */
+  waterTemperature: number;
+  factors: number;
+  /** g; null when the tap temperature or the water weight is not given. */
+  ice: number | null;
+  /** g; null likewise. */
+  tapWater: number | null;
+  /** Ice per gram of water; null without a tap temperature. */
+  iceShare: number | null;
+  /** Cautions for the bench (ice, hot water). */
+  warnings: string[];
+}
+
+/** Water temperature and, given the tap, the ice. All temperatures in °C. Throws when the target cannot be reached. */
+export function planWater(i: WaterPlanInputs): WaterPlan {
+  const w = computeWaterTemperature(i);
+  const warnings: string[] = [];
+  if (w.water < 0) {
+    throw new TemperatureError(
+      `the water would have to be ${w.water.toFixed(1)} °C, below the 0 °C that ice can bring it to; chill the flour or pre-ferment, or lower the friction`,
+    );
+  }
+  if (w.water > HOT_WATER_CELSIUS) {
+    warnings.push(
+      `the water would have to be ${w.water.toFixed(1)} °C: hot enough to scald and to harm the yeast; check the inputs, or warm the flour or the room instead`,
+    );
+  }
+  let ice: number | null = null;
+  let tapWater: number | null = null;
+  let iceShare: number | null = null;
+  if (i.tap !== undefined) {
+    const split = computeIce(i.waterGrams ?? 0, i.tap, w.water);
+    iceShare = split.iceShare;
+    if (i.waterGrams !== undefined) {
+      ice = split.ice;
+      tapWater = split.tapWater;
+    }
+    if (split.iceShare > 0) {
+      warnings.push('use clean food-grade ice, weigh it with the water, and let it melt in the mix; count it as part of the water');
+    } else if (w.water > i.tap) {
+      warnings.push(`the water must be warmer than the tap (${i.tap.toFixed(1)} °C): warm it to ${w.water.toFixed(1)} °C`);
+    }
+  }
+  return { waterTemperature: w.water, factors: w.factors, ice, tapWater, iceShare, warnings };
+}

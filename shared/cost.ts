@@ -56,6 +56,9 @@ export interface CostResult {
   undated: string[];
 }
 
+/** The name the API contract (shared/api.ts) uses for a batch's costs. */
+export type CostSummary = CostResult;
+
 export interface CostOptions {
   /** Currency symbol or code for display; default "" (a plain number). */
   currency?: string;

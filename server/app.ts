@@ -1,0 +1,210 @@
+// The Express app: the JSON API under /api and the built viewer (dist/web). Built by a factory so
+// tests and the benchmark can drive it without a fixed port; server/start.ts listens.
+import { existsSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import express, { Router, type Express, type NextFunction, type Request, type Response } from 'express';
+import helmet from 'helmet';
+import { csrfProtection } from './auth/csrf.ts';
+import { DEFAULT_SCRYPT, hashPassword, randomPassword, type ScryptParams } from './auth/password.ts';
+import { createLimiters, DEFAULT_LIMITS, type Clock, type Limiters, type SignInLimits } from './auth/rate-limit.ts';
+import { readCookie, SESSION_COOKIE, SessionStore } from './auth/sessions.ts';
+import type { OutgoingMail, ServerContext } from './context.ts';
+import type { DatabaseHandle } from './db/client.ts';
+import type { Env } from './env.ts';
+import { errorMiddleware, notFound } from './http/errors.ts';
+import { DataCache } from './routes/data.ts';
+import { formulasRouter } from './routes/formulas.ts';
+import { plansRouter } from './routes/plans.ts';
+import { sessionRouter } from './routes/session.ts';
+import { sendMail as sendMailDefault } from './mail.ts';
+
+/** Largest JSON body accepted (sign-in and reset bodies are a few hundred bytes). */
+export const JSON_LIMIT = '16kb';
+
+export interface AppOptions {
+  handle: DatabaseHandle;
+  env: Env;
+  /** Clock for sessions, reset links and rate limits (tests move it forward). */
+  now?: Clock;
+  limits?: SignInLimits;
+  /** Password-hash cost for new hashes (tests use a low one). */
+  scrypt?: ScryptParams;
+  /** How mail is sent; default server/mail.ts (SMTP_URL, else the local fake outbox). */
+  sendMail?: (message: OutgoingMail) => Promise<void>;
+  /** The built viewer; default dist/web of this installation; null: serve the API only. */
+  webDir?: string | null;
+  /** Mounted at /api/internal/load (the local load channel) when given. */
+  internalLoadRouter?: express.Router;
+  log?: (message: string) => void;
+}
+
+export interface AppInternals {
+  /** The router mounted at /api: every route on it is session-guarded or deliberately public. */
+  api: Router;
+  context: ServerContext;
+  limiters: Limiters;
+  sessions: SessionStore;
+  /** Resolves when background work (reset e-mails) has finished. */
+  idle(): Promise<void>;
+}
+
+const INTERNALS = Symbol('panform');
+
+/** The built viewer next to this installation (found from this module upward). */
+export function findWebDir(): string | null {
+  let dir = dirname(fileURLToPath(import.meta.url));
+  for (let i = 0; i < 6; i++) {
+    if (existsSync(join(dir, 'dist', 'web', 'index.html'))) return join(dir, 'dist', 'web');
+    const up = dirname(dir);
+    if (up === dir) break;
+    dir = up;
+  }
+  return null;
+}
+
+export function appInternals(app: Express): AppInternals {
+  const internals = (app as unknown as Record<symbol, AppInternals>)[INTERNALS];
+  if (!internals) throw new Error('not a Panform app');
+  return internals;
+}
+
+export function createApp(opts: AppOptions): Express {
+  const { handle, env } = opts;
+  const now = opts.now ?? Date.now;
+  const log = opts.log ?? ((m: string) => process.stderr.write(`${m}\n`));
+  const scrypt = opts.scrypt ?? DEFAULT_SCRYPT;
+  const limiters = createLimiters(opts.limits ?? DEFAULT_LIMITS, now);
+  const sessions = new SessionStore(handle.db, env.sessionDays, now);
+  const pending = new Set<Promise<unknown>>();
+  const mailer = opts.sendMail ?? ((m: OutgoingMail) => sendMailDefault(m, { smtpUrl: env.smtpUrl, outbox: env.outbox, from: env.mailFrom }).then(() => undefined));
+
+  const context: ServerContext = {
+    db: handle.db,
+    env,
+    now,
+    sessions,
+    limiters,
+    scrypt,
+    dummyHash: hashPassword(randomPassword(), scrypt),
+    sendMail: mailer,
+    data: new DataCache(handle.db),
+    background(task) {
+      const p = task()
+        .catch((e: unknown) => log(`panform serve: background task failed: ${(e as Error)?.stack ?? String(e)}`))
+        .finally(() => pending.delete(p));
+      pending.add(p);
+    },
+    log,
+  };
+
+  const app = express();
+  app.disable('x-powered-by');
+  // Behind a reverse proxy, req.ip, req.secure and req.protocol come from X-Forwarded-* only when
+  // the proxy is trusted; otherwise a client could pick its own address and dodge rate limits.
+  app.set('trust proxy', env.trustProxy);
+  app.set('etag', 'weak');
+
+  const https = env.publicUrl.startsWith('https:');
+  // Security headers on every response. The CSP allows exactly what the built viewer loads: its
+  // own scripts, styles and fonts (bundled, no CDN), images including data: URLs (inline SVG
+  // icons), fetches to this origin, and PDFs of this origin in a frame for print preview.
+  // Inline styles are allowed because React sets style attributes; inline scripts are not.
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          baseUri: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          fontSrc: ["'self'", 'data:'],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          connectSrc: ["'self'"],
+          frameSrc: ["'self'", 'blob:'],
+          objectSrc: ["'none'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'self'"],
+          // Only over HTTPS: on a plain-HTTP bakery network this would break every request.
+          ...(https ? { upgradeInsecureRequests: [] } : {}),
+        },
+      },
+      // HSTS makes sense only when the viewer is published over HTTPS.
+      strictTransportSecurity: https ? { maxAge: 180 * 24 * 60 * 60 } : false,
+      referrerPolicy: { policy: 'same-origin' },
+    }),
+  );
+
+  // The local load channel authenticates with its own token header (a custom header forces a
+  // CORS preflight, so browsers cannot forge it) and takes larger bodies: mounted before the
+  // session, CSRF and body-size rules of the rest of the API.
+  if (opts.internalLoadRouter) app.use('/api/internal/load', opts.internalLoadRouter);
+
+  const api = Router();
+  api.use(sessionRouter(context));
+  api.use(formulasRouter(context));
+  api.use(plansRouter(context));
+
+  app.use(
+    '/api',
+    (_req: Request, res: Response, next: NextFunction) => {
+      // API answers are per user: never stored by shared caches.
+      res.set('Cache-Control', 'private, no-cache');
+      next();
+    },
+    // Order matters: refuse cross-site and non-JSON writes before reading any body, then parse
+    // (bounded), then find the session, then route.
+    csrfProtection(env.publicUrl),
+    express.json({ limit: JSON_LIMIT, strict: true }),
+    async (req: Request, _res: Response, next: NextFunction) => {
+      const token = readCookie(req.headers.cookie, SESSION_COOKIE);
+      req.auth = token ? await sessions.find(token) : null;
+      next();
+    },
+    api,
+    (req: Request) => {
+      throw notFound(`no API route ${req.method} ${req.originalUrl.split('?')[0]}`);
+    },
+  );
+
+  const webDir = opts.webDir === undefined ? findWebDir() : opts.webDir;
+  if (webDir) {
+    // Vite names built assets by content hash: they never change, so browsers keep them a year.
+    app.use(
+      express.static(webDir, {
+        index: false,
+        setHeaders(res, path) {
+          res.setHeader('Cache-Control', /[\\/]assets[\\/]/.test(path) ? 'public, max-age=31536000, immutable' : 'public, max-age=3600');
+        },
+      }),
+    );
+  }
+  // Every other GET is a page of the single-page viewer: its index.html, never cached, so a new
+  // build is picked up at once.
+  app.use((req: Request, res: Response, next: NextFunction) => {
+    if (req.method !== 'GET' && req.method !== 'HEAD') {
+      next();
+      return;
+    }
+    if (!webDir) {
+      res.status(503).type('text/plain').send('The Panform viewer is not built. Run `npm run build`, then start the server again.\n');
+      return;
+    }
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(join(webDir, 'index.html'));
+  });
+  app.use(errorMiddleware(log));
+
+  const internals: AppInternals = {
+    api,
+    context,
+    limiters,
+    sessions,
+    async idle() {
+      while (pending.size > 0) await Promise.allSettled([...pending]);
+    },
+  };
+  (app as unknown as Record<symbol, AppInternals>)[INTERNALS] = internals;
+  return app;
+}

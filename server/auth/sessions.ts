@@ -1,0 +1,128 @@
+// Signed-in sessions. The browser holds a random 256-bit token in an httpOnly cookie; the
+// database holds only its SHA-256, so a copy of the database cannot be used to sign in.
+//
+// Lookups are cached in memory for a few seconds: every API request needs the session, and the
+// embedded database answers one query at a time. Signing out, a password change or a reset in
+// this process drops the cached entries at once; a change made by another process (the CLI
+// against a PostgreSQL server) takes effect within CACHE_MS.
+import { createHash, randomBytes } from 'node:crypto';
+import { and, eq, gt, lte } from 'drizzle-orm';
+import type { Database } from '../db/client.ts';
+import { sessionsTable, usersTable } from '../db/schema.ts';
+import { isRole } from '#shared/permissions';
+import type { UserInfo } from '#shared/api';
+import type { Clock } from './rate-limit.ts';
+
+export const SESSION_COOKIE = 'panform_session';
+const CACHE_MS = 5_000;
+const DAY_MS = 24 * 60 * 60 * 1000;
+
+export function hashToken(token: string): string {
+  return createHash('sha256').update(token).digest('hex');
+}
+
+export function newToken(): string {
+  return randomBytes(32).toString('base64url');
+}
+
+export interface Session {
+  tokenHash: string;
+  user: UserInfo;
+  expiresAt: Date;
+}
+
+interface Cached {
+  session: Session | null;
+  until: number;
+}
+
+export class SessionStore {
+  private readonly cache = new Map<string, Cached>();
+
+  constructor(
+    private readonly db: Database,
+    private readonly sessionDays: number,
+    private readonly now: Clock = Date.now,
+  ) {}
+
+  get lifetimeMs(): number {
+    return this.sessionDays * DAY_MS;
+  }
+
+  /** A new session for a user; returns the token for the cookie. */
+  async create(userId: number): Promise<{ token: string; expiresAt: Date }> {
+    const token = newToken();
+    const t = this.now();
+    const expiresAt = new Date(t + this.lifetimeMs);
+    await this.db.insert(sessionsTable).values({ tokenHash: hashToken(token), userId, createdAt: new Date(t), expiresAt });
+    // Now and then, sweep expired sessions so the table does not grow without end.
+    if (Math.random() < 0.05) await this.db.delete(sessionsTable).where(lte(sessionsTable.expiresAt, new Date(t)));
+    return { token, expiresAt };
+  }
+
+  /** The live session for a token, or null (unknown, expired, or its user removed). */
+  async find(token: string): Promise<Session | null> {
+    if (!token || token.length > 200) return null;
+    const tokenHash = hashToken(token);
+    const t = this.now();
+    const hit = this.cache.get(tokenHash);
+    if (hit && hit.until > t) {
+      if (hit.session && hit.session.expiresAt.getTime() <= t) return null;
+      return hit.session;
+    }
+    const rows = await this.db
+      .select({
+        expiresAt: sessionsTable.expiresAt,
+        id: usersTable.id,
+        email: usersTable.email,
+        name: usersTable.name,
+        role: usersTable.role,
+      })
+      .from(sessionsTable)
+      .innerJoin(usersTable, eq(usersTable.id, sessionsTable.userId))
+      .where(and(eq(sessionsTable.tokenHash, tokenHash), gt(sessionsTable.expiresAt, new Date(t))))
+      .limit(1);
+    const row = rows[0];
+    const session: Session | null =
+      row && isRole(row.role)
+        ? { tokenHash, expiresAt: row.expiresAt, user: { id: row.id, email: row.email, name: row.name, role: row.role } }
+        : null;
+    if (this.cache.size > 10_000) this.cache.clear();
+    this.cache.set(tokenHash, { session, until: t + CACHE_MS });
+    return session;
+  }
+
+  async destroy(tokenHash: string): Promise<void> {
+    this.cache.delete(tokenHash);
+    await this.db.delete(sessionsTable).where(eq(sessionsTable.tokenHash, tokenHash));
+  }
+
+  /** Signs a user out everywhere. */
+  async destroyAllFor(userId: number): Promise<void> {
+    this.forgetUser(userId);
+    await this.db.delete(sessionsTable).where(eq(sessionsTable.userId, userId));
+  }
+
+  /** Drops cached sessions of a user (after their password changed in this process). */
+  forgetUser(userId: number): void {
+    for (const [k, v] of this.cache) if (v.session?.user.id === userId) this.cache.delete(k);
+  }
+}
+
+/** The value of one cookie from a Cookie header. */
+export function readCookie(header: string | undefined, name: string): string | undefined {
+  if (!header) return undefined;
+  for (const part of header.split(';')) {
+    const i = part.indexOf('=');
+    if (i < 0) continue;
+    if (part.slice(0, i).trim() === name) {
+      const v = part.slice(i + 1).trim();
+      try {
+        return decodeURIComponent(v.startsWith('"') && v.endsWith('"') ? v.slice(1, -1) : v);
+      } catch {
+        return undefined;
+      }
+    }
+  }
+  return undefined;
+}

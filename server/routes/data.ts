@@ -1,0 +1,157 @@
+// The loaded formulas, catalog and plans, normalized once per load and kept in memory.
+//
+// Everything in these tables changes only through a load, and every load adds a row to `loads`
+// in the same transaction. So one tiny query (the newest load id) tells whether the snapshot is
+// still current; the formulas are read and normalized again only after a load. Revision history
+// is not cached: it is read from the database when asked for.
+import { desc, max } from 'drizzle-orm';
+import type { FormulaFigures } from '#shared/api';
+import { normalizeCatalog, normalizeFormula, normalizePlan, type Catalog, type Formula, type Plan } from '#shared/model';
+import type { CatalogFile, FormulaFile, PlanFile } from '#shared/schema/shapes';
+import type { Database } from '../db/client.ts';
+import { catalogTable, formulasTable, loadsTable, plansTable } from '../db/schema.ts';
+
+export interface FormulaEntry {
+  id: string;
+  title: string;
+  /** As the viewer should treat it: a formula whose file was removed counts as retired. */
+  status: string;
+  category: string;
+  tags: string[];
+  figures: FormulaFigures;
+  revision: number;
+  updatedAt: string;
+  path: string;
+  /** Null when the stored content no longer normalizes (it passed the schema when loaded). */
+  formula: Formula | null;
+  problem?: string;
+  /** Lower-case text searched by `q`: id, title, tags and every ingredient name. */
+  searchText: string;
+}
+
+export interface PlanEntry {
+  date: string;
+  plan: Plan | null;
+  problem?: string;
+  updatedAt: string;
+}
+
+export interface Snapshot {
+  version: number;
+  catalog: Catalog;
+  formulas: Map<string, FormulaEntry>;
+  /** Newest first. */
+  plans: PlanEntry[];
+  /** Per-snapshot memo for derived results (sheets), dropped with the snapshot. */
+  memo: Map<string, unknown>;
+}
+
+const FIGURE_KEYS: (keyof FormulaFigures)[] = [
+  'totalPercent', 'hydration', 'effectiveHydration', 'prefermentedFlour', 'finalDoughHydration',
+  'flour', 'mixedDough', 'dividedDough', 'pieces', 'pieceGrams',
+];
+
+/** Only the known figure keys, whatever else the stored JSON holds. */
+export function pickFigures(stored: unknown): FormulaFigures {
+  const src = (stored ?? {}) as Record<string, unknown>;
+  const out = {} as Record<keyof FormulaFigures, number | null>;
+  for (const k of FIGURE_KEYS) out[k] = typeof src[k] === 'number' ? (src[k] as number) : k === 'pieces' || k === 'pieceGrams' ? null : 0;
+  return out as unknown as FormulaFigures;
+}
+
+function ingredientNames(f: Formula): string[] {
+  const names = new Set<string>();
+  for (const l of [...f.flour, ...f.ingredients]) names.add(l.ingredient);
+  for (const p of f.preferments) {
+    names.add(p.name);
+    for (const l of p.ingredients) names.add(l.ingredient);
+  }
+  for (const s of f.soakers) {
+    names.add(s.name);
+    for (const l of s.ingredients) names.add(l.ingredient);
+  }
+  return [...names];
+}
+
+export class DataCache {
+  private current: Snapshot | null = null;
+  private refreshing: Promise<Snapshot> | null = null;
+
+  constructor(private readonly db: Database) {}
+
+  /** The newest load's id (0 before the first load). */
+  async version(): Promise<number> {
+    const rows = await this.db.select({ v: max(loadsTable.id) }).from(loadsTable);
+    return rows[0]?.v ?? 0;
+  }
+
+  async snapshot(): Promise<Snapshot> {
+    const v = await this.version();
+    if (this.current && this.current.version === v) return this.current;
+    // One rebuild at a time; concurrent requests wait for it.
+    this.refreshing ??= this.read(v).finally(() => {
+      this.refreshing = null;
+    });
+    const s = await this.refreshing;
+    if (!this.current || s.version >= this.current.version) this.current = s;
+    return s;
+  }
+
+  private async read(version: number): Promise<Snapshot> {
+    const [catalogRows, formulaRows, planRows] = await Promise.all([
+      this.db.select({ name: catalogTable.name, content: catalogTable.content }).from(catalogTable),
+      this.db
+        .select({
+          id: formulasTable.id,
+          title: formulasTable.title,
+          status: formulasTable.status,
+          category: formulasTable.category,
+          tags: formulasTable.tags,
+          content: formulasTable.content,
+          figures: formulasTable.figures,
+          revision: formulasTable.revision,
+          path: formulasTable.path,
+          removedAt: formulasTable.removedAt,
+          updatedAt: formulasTable.updatedAt,
+        })
+        .from(formulasTable)
+        .orderBy(formulasTable.title),
+      this.db.select({ date: plansTable.date, content: plansTable.content, updatedAt: plansTable.updatedAt }).from(plansTable).orderBy(desc(plansTable.date)),
+    ]);
+    const catalog = normalizeCatalog(Object.fromEntries(catalogRows.map((r) => [r.name, r.content])) as CatalogFile);
+    const formulas = new Map<string, FormulaEntry>();
+    for (const r of formulaRows) {
+      let formula: Formula | null = null;
+      let problem: string | undefined;
+      try {
+        formula = normalizeFormula(r.content as FormulaFile);
+      } catch (e) {
+        problem = (e as Error).message;
+      }
+      const status = r.removedAt ? 'retired' : r.status;
+      const tags = r.tags ?? [];
+      formulas.set(r.id, {
+        id: r.id,
+        title: r.title,
+        status,
+        category: r.category,
+        tags,
+        figures: pickFigures(r.figures),
+        revision: r.revision,
+        updatedAt: r.updatedAt.toISOString(),
+        path: r.path,
+        formula: formula && status !== formula.status ? { ...formula, status: status as Formula['status'] } : formula,
+        problem,
+        searchText: [r.id, r.title, ...tags, ...(formula ? ingredientNames(formula) : [])].join('\n').toLowerCase(),
+      });
+    }
+    const plans: PlanEntry[] = planRows.map((r) => {
+      try {
+        return { date: r.date, plan: normalizePlan(r.content as PlanFile), updatedAt: r.updatedAt.toISOString() };
+      } catch (e) {
+        return { date: r.date, plan: null, problem: (e as Error).message, updatedAt: r.updatedAt.toISOString() };
+      }
+    });
+    return { version, catalog, formulas, plans, memo: new Map() };
+  }
+}

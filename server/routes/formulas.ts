@@ -1,0 +1,267 @@
+// Formulas (read-only): list with search and filters, one formula with its tables and figures for
+// the reference batch or a scaled one, its revision history and the diff between two revisions,
+// and the newest changes across formulas.
+import { and, desc, eq, inArray } from 'drizzle-orm';
+import { Router, type Request } from 'express';
+import type {
+  ChangeListResponse, FormulaDetail, FormulaListResponse, FormulaSummary, RevisionDiffResponse, RevisionListResponse, RevisionSummary,
+} from '#shared/api';
+import { AllergenError, allergenSummary, formulaIngredientNames } from '#shared/allergens';
+import { computeCost } from '#shared/cost';
+import { normalizeFormula, type Catalog, type CatalogItem, type Formula } from '#shared/model';
+import { canSeeFormulaStatus, roleHasPermission, type Role } from '#shared/permissions';
+import { scaleFormula, ScaleError, type ScaleTarget } from '#shared/scale';
+import type { FormulaFile } from '#shared/schema/shapes';
+import { FORMULA_STATUSES } from '#shared/schema/shapes';
+import { parseMassArgument, QuantityError } from '#shared/units';
+import { requirePermission } from '../auth/guards.ts';
+import type { ServerContext } from '../context.ts';
+import { formulaRevisionsTable, formulasTable } from '../db/schema.ts';
+import { forbidden, HttpError, invalid, notFound } from '../http/errors.ts';
+import { queryInteger, queryString } from '../http/query.ts';
+import { pickFigures, type FormulaEntry, type Snapshot } from './data.ts';
+import { formulaCautions } from './formula-cautions.ts';
+
+const MAX_PIECES = 100_000;
+/** 10 t of dough: far beyond any mixer, small enough to keep the arithmetic meaningful. */
+const MAX_GRAMS = 10_000_000;
+
+/** A catalog entry without its price, for roles that may not see costs. */
+export function withoutPrice(item: CatalogItem): CatalogItem {
+  const { costPerKg: _price, costDate: _date, ...rest } = item;
+  return rest;
+}
+
+export function visibleCatalog(catalog: Catalog, role: Role, names?: Iterable<string>): Catalog {
+  const withCost = roleHasPermission(role, 'read:cost');
+  const out: Catalog = {};
+  const visit = (name: string) => {
+    const item = catalog[name];
+    if (!item || out[name]) return;
+    out[name] = withCost ? item : withoutPrice(item);
+    for (const c of item.components ?? []) visit(c);
+    if (item.fedWith) visit(item.fedWith);
+  };
+  for (const name of names ?? Object.keys(catalog)) visit(name);
+  return out;
+}
+
+/** The formula, if the role may see it; 404 when unknown, 403 when its status is beyond the role. */
+function visibleFormula(snapshot: Snapshot, id: string, role: Role): FormulaEntry {
+  const entry = snapshot.formulas.get(id);
+  if (!entry) throw notFound(`no formula "${id}"; it may not have been loaded yet`);
+  if (!canSeeFormulaStatus(role, entry.status)) throw forbidden('read:formula:draft', `"${id}" is ${entry.status}; your role sees active formulas only`);
+  return entry;
+}
+
+function usable(entry: FormulaEntry): Formula {
+  if (!entry.formula) {
+    throw new HttpError(500, { error: 'internal', message: `the stored formula "${entry.id}" cannot be read: ${entry.problem ?? 'unknown problem'}; load it again` });
+  }
+  return entry.formula;
+}
+
+function massQuery(req: Request, name: string): number | undefined {
+  const text = queryString(req, name, 40);
+  if (text === undefined || text.trim() === '') return undefined;
+  let grams: number;
+  try {
+    grams = parseMassArgument(text);
+  } catch (e) {
+    if (e instanceof QuantityError) throw invalid(`${name} must be a weight like 320 g or 2.5 kg (a bare number is grams); got "${text}"`, [{ path: name, message: 'not a weight' }]);
+    throw e;
+  }
+  if (!(grams > 0) || grams > MAX_GRAMS) throw invalid(`${name} must be above 0 g and at most ${MAX_GRAMS / 1_000_000} t; got "${text}"`, [{ path: name, message: 'out of range' }]);
+  return grams;
+}
+
+/** `?pieces=N[&piece=W]`, `?mix=W` or `?flour=W`; none: the formula's own yield. */
+export function readScaleTarget(req: Request, formula: Formula): ScaleTarget {
+  const pieces = queryInteger(req, 'pieces', { min: 1, max: MAX_PIECES });
+  const piece = massQuery(req, 'piece');
+  const mix = massQuery(req, 'mix');
+  const flour = massQuery(req, 'flour');
+  const given = [pieces !== undefined || piece !== undefined, mix !== undefined, flour !== undefined].filter(Boolean).length;
+  if (given > 1) throw invalid('scale by one of pieces (with piece), mix or flour, not several', [{ path: 'pieces', message: 'conflicts with mix/flour' }]);
+  if (mix !== undefined) return { by: 'mix', grams: mix };
+  if (flour !== undefined) return { by: 'flour', grams: flour };
+  if (pieces !== undefined || piece !== undefined) return { by: 'pieces', pieces: pieces ?? formula.yield.pieces, pieceGrams: piece };
+  return { by: 'pieces', pieces: formula.yield.pieces };
+}
+
+function scaleOr422(formula: Formula, catalog: Catalog, target: ScaleTarget) {
+  try {
+    return scaleFormula(formula, catalog, target);
+  } catch (e) {
+    if (e instanceof ScaleError) throw invalid(e.message);
+    throw e;
+  }
+}
+
+export function formulaDetail(entry: FormulaEntry, catalog: Catalog, role: Role, target: ScaleTarget): FormulaDetail {
+  const formula = usable(entry);
+  const scaled = scaleOr422(formula, catalog, target);
+  const referenceTarget: ScaleTarget = { by: 'pieces', pieces: formula.yield.pieces };
+  const ref = target.by === 'pieces' && target.pieces === formula.yield.pieces && target.pieceGrams === undefined ? scaled : scaleOr422(formula, catalog, referenceTarget);
+  let allergens;
+  try {
+    allergens = allergenSummary(formula, catalog);
+  } catch (e) {
+    if (e instanceof AllergenError) throw new HttpError(500, { error: 'internal', message: `the catalog's allergens cannot be worked out: ${e.message}` });
+    throw e;
+  }
+  return {
+    formula,
+    catalog: visibleCatalog(catalog, role, formulaIngredientNames(formula)),
+    scaled,
+    reference: pickFigures(ref),
+    allergens,
+    cost: roleHasPermission(role, 'read:cost') ? computeCost(scaled, catalog) : null,
+    cautions: formulaCautions(formula, catalog, allergens),
+    revision: entry.revision,
+    updatedAt: entry.updatedAt,
+    path: entry.path,
+  };
+}
+
+function revisionSummary(r: {
+  revision: number;
+  contentHash: string;
+  gitCommit: string | null;
+  gitAuthor: string | null;
+  loadedAt: Date;
+  figures: unknown;
+}): RevisionSummary {
+  return {
+    revision: r.revision,
+    contentHash: r.contentHash,
+    gitCommit: r.gitCommit,
+    gitAuthor: r.gitAuthor,
+    loadedAt: r.loadedAt.toISOString(),
+    figures: pickFigures(r.figures),
+  };
+}
+
+export function formulasRouter(ctx: ServerContext): Router {
+  const r = Router();
+
+  r.get('/formulas', async (req, res) => {
+    const user = requirePermission(req, 'read:formula:active');
+    const q = queryString(req, 'q');
+    const category = queryString(req, 'category');
+    const tag = queryString(req, 'tag');
+    const status = queryString(req, 'status');
+    if (status !== undefined && status !== '' && !(FORMULA_STATUSES as readonly string[]).includes(status)) {
+      throw invalid(`status must be one of ${FORMULA_STATUSES.join(', ')}; got "${status}"`, [{ path: 'status', message: 'unknown status' }]);
+    }
+    if (status && !canSeeFormulaStatus(user.role, status)) throw forbidden('read:formula:draft', `your role sees active formulas only, not ${status} ones`);
+    const snapshot = await ctx.data.snapshot();
+    const visible = [...snapshot.formulas.values()].filter((f) => canSeeFormulaStatus(user.role, f.status));
+    const words = (q ?? '').toLowerCase().split(/\s+/).filter(Boolean);
+    const found = visible.filter(
+      (f) =>
+        (!status || f.status === status) &&
+        (!category || f.category === category) &&
+        (!tag || f.tags.includes(tag)) &&
+        words.every((w) => f.searchText.includes(w)),
+    );
+    const formulas: FormulaSummary[] = found.map((f) => ({
+      id: f.id,
+      title: f.title,
+      status: f.status,
+      category: f.category,
+      tags: f.tags,
+      figures: f.figures,
+      revision: f.revision,
+      updatedAt: f.updatedAt,
+    }));
+    const body: FormulaListResponse = {
+      formulas,
+      categories: [...new Set(visible.map((f) => f.category))].sort(),
+      tags: [...new Set(visible.flatMap((f) => f.tags))].sort(),
+    };
+    res.json(body);
+  });
+
+  r.get('/formulas/:id', async (req, res) => {
+    const user = requirePermission(req, 'read:formula:active');
+    const snapshot = await ctx.data.snapshot();
+    const entry = visibleFormula(snapshot, req.params.id, user.role);
+    const target = readScaleTarget(req, usable(entry));
+    res.json(formulaDetail(entry, snapshot.catalog, user.role, target));
+  });
+
+  r.get('/formulas/:id/revisions', async (req, res) => {
+    const user = requirePermission(req, 'read:history');
+    const snapshot = await ctx.data.snapshot();
+    const entry = visibleFormula(snapshot, req.params.id, user.role);
+    const rows = await ctx.db
+      .select({
+        revision: formulaRevisionsTable.revision,
+        contentHash: formulaRevisionsTable.contentHash,
+        gitCommit: formulaRevisionsTable.gitCommit,
+        gitAuthor: formulaRevisionsTable.gitAuthor,
+        loadedAt: formulaRevisionsTable.loadedAt,
+        figures: formulaRevisionsTable.figures,
+      })
+      .from(formulaRevisionsTable)
+      .where(eq(formulaRevisionsTable.formulaId, entry.id))
+      .orderBy(desc(formulaRevisionsTable.revision));
+    const body: RevisionListResponse = { formula: entry.id, revisions: rows.map(revisionSummary) };
+    res.json(body);
+  });
+
+  r.get('/formulas/:id/diff', async (req, res) => {
+    const user = requirePermission(req, 'read:history');
+    const snapshot = await ctx.data.snapshot();
+    const entry = visibleFormula(snapshot, req.params.id, user.role);
+    const to = queryInteger(req, 'to', { min: 1, max: 1_000_000 }) ?? entry.revision;
+    const from = queryInteger(req, 'from', { min: 1, max: 1_000_000 }) ?? to - 1;
+    if (from < 1) throw invalid(`"${entry.id}" has only revision ${to}; there is nothing to compare it with`, [{ path: 'from', message: 'no earlier revision' }]);
+    const rows = await ctx.db
+      .select({ revision: formulaRevisionsTable.revision, content: formulaRevisionsTable.content })
+      .from(formulaRevisionsTable)
+      .where(and(eq(formulaRevisionsTable.formulaId, entry.id), inArray(formulaRevisionsTable.revision, [from, to])));
+    const byRevision = new Map(rows.map((row) => [row.revision, row.content]));
+    const missing = [from, to].filter((n) => !byRevision.has(n));
+    if (missing.length > 0) throw notFound(`"${entry.id}" has no revision ${missing.join(' or ')}`);
+    let before: Formula;
+    let after: Formula;
+    try {
+      before = normalizeFormula(byRevision.get(from) as FormulaFile);
+      after = normalizeFormula(byRevision.get(to) as FormulaFile);
+    } catch (e) {
+      throw new HttpError(500, { error: 'internal', message: `a stored revision of "${entry.id}" cannot be read: ${(e as Error).message}` });
+    }
+    const { diffFormulas } = await import('#shared/diff');
+    const body: RevisionDiffResponse = { formula: entry.id, from, to, diff: diffFormulas(before, after, snapshot.catalog) };
+    res.json(body);
+  });
+
+  r.get('/changes', async (req, res) => {
+    const user = requirePermission(req, 'read:history');
+    const limit = queryInteger(req, 'limit', { min: 1, max: 500 }) ?? 50;
+    const rows = await ctx.db
+      .select({
+        formula: formulaRevisionsTable.formulaId,
+        title: formulasTable.title,
+        status: formulasTable.status,
+        revision: formulaRevisionsTable.revision,
+        contentHash: formulaRevisionsTable.contentHash,
+        gitCommit: formulaRevisionsTable.gitCommit,
+        gitAuthor: formulaRevisionsTable.gitAuthor,
+        loadedAt: formulaRevisionsTable.loadedAt,
+        figures: formulaRevisionsTable.figures,
+      })
+      .from(formulaRevisionsTable)
+      .innerJoin(formulasTable, eq(formulasTable.id, formulaRevisionsTable.formulaId))
+      .orderBy(desc(formulaRevisionsTable.loadedAt), desc(formulaRevisionsTable.id))
+      .limit(limit);
+    const body: ChangeListResponse = {
+      changes: rows.filter((row) => canSeeFormulaStatus(user.role, row.status)).map((row) => ({ ...revisionSummary(row), formula: row.formula, title: row.title })),
+    };
+    res.json(body);
+  });
+
+  return r;
+}

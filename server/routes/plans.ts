@@ -1,0 +1,101 @@
+// Production plans and their batch sheets (JSON and PDF), and the ingredient catalog.
+import { Router } from 'express';
+import type { CatalogResponse, PlanDetail, PlanListResponse } from '#shared/api';
+import type { Formula } from '#shared/model';
+import { canSeeFormulaStatus, type Role } from '#shared/permissions';
+import { buildSheet } from '#shared/sheet/build';
+import { SheetError, type Sheet } from '#shared/sheet/types';
+import { ScaleError } from '#shared/scale';
+import { requirePermission } from '../auth/guards.ts';
+import type { ServerContext } from '../context.ts';
+import { forbidden, HttpError, invalid, notFound } from '../http/errors.ts';
+import type { PlanEntry, Snapshot } from './data.ts';
+import { visibleCatalog } from './formulas.ts';
+
+const DATE_RE = /^[0-9]{4}-[0-9]{2}-[0-9]{2}$/;
+
+function planFor(snapshot: Snapshot, date: string, role: Role): { entry: PlanEntry; sheet: Sheet } {
+  if (!DATE_RE.test(date)) throw invalid(`a plan is named by its date, like 2026-12-03; got "${date}"`, [{ path: 'date', message: 'not yyyy-mm-dd' }]);
+  const entry = snapshot.plans.find((p) => p.date === date);
+  if (!entry) throw notFound(`no plan for ${date}; it may not have been loaded yet`);
+  if (!entry.plan) throw new HttpError(500, { error: 'internal', message: `the stored plan for ${date} cannot be read: ${entry.problem ?? 'unknown problem'}; load it again` });
+  const plan = entry.plan;
+  const formulas: Record<string, Formula> = {};
+  const missing: string[] = [];
+  const hidden: string[] = [];
+  for (const o of plan.orders) {
+    const f = snapshot.formulas.get(o.formula);
+    if (!f || !f.formula) missing.push(o.formula);
+    else if (!canSeeFormulaStatus(role, f.status)) hidden.push(`${o.formula} (${f.status})`);
+    else formulas[o.formula] = f.formula;
+  }
+  // A sheet carries every ordered formula's quantities, so a role that may not see a draft or
+  // retired formula may not see a sheet that orders one.
+  if (hidden.length > 0) throw forbidden('read:formula:draft', `the plan for ${date} orders formulas that are not active: ${[...new Set(hidden)].join(', ')}; ask the technical baker to fix the plan`);
+  if (missing.length > 0) throw invalid(`the plan for ${date} orders formulas that are not loaded: ${[...new Set(missing)].join(', ')}`);
+  // Sheets depend only on the loaded data, so each is built once per load.
+  const key = `sheet:${date}`;
+  let sheet = snapshot.memo.get(key) as Sheet | Error | undefined;
+  if (!sheet) {
+    try {
+      sheet = buildSheet({ plan, formulas, catalog: snapshot.catalog });
+    } catch (e) {
+      if (!(e instanceof SheetError || e instanceof ScaleError)) throw e;
+      sheet = e;
+    }
+    snapshot.memo.set(key, sheet);
+  }
+  if (sheet instanceof Error) throw invalid(`the sheet for ${date} cannot be made: ${sheet.message}`);
+  return { entry, sheet };
+}
+
+export function plansRouter(ctx: ServerContext): Router {
+  const r = Router();
+
+  r.get('/plans', async (req, res) => {
+    requirePermission(req, 'read:plan');
+    const snapshot = await ctx.data.snapshot();
+    const body: PlanListResponse = {
+      plans: snapshot.plans.map((p) => ({
+        date: p.date,
+        readyBy: p.plan?.readyBy ?? '',
+        orders: p.plan?.orders.length ?? 0,
+        formulas: [...new Set(p.plan?.orders.map((o) => o.formula) ?? [])],
+      })),
+    };
+    res.json(body);
+  });
+
+  r.get('/plans/:date', async (req, res) => {
+    const user = requirePermission(req, 'read:plan');
+    const snapshot = await ctx.data.snapshot();
+    const { entry, sheet } = planFor(snapshot, req.params.date, user.role);
+    const body: PlanDetail = { plan: entry.plan!, sheet };
+    res.json(body);
+  });
+
+  r.get('/plans/:date/sheet.pdf', async (req, res) => {
+    const user = requirePermission(req, 'read:plan');
+    const snapshot = await ctx.data.snapshot();
+    const { sheet } = planFor(snapshot, req.params.date, user.role);
+    const { renderSheetPdf } = await import('../../cli/print/sheet-pdf.ts');
+    const pdf = await renderSheetPdf(sheet);
+    // The browser's PDF viewer is blocked by the page CSP (object-src 'none'), and a PDF runs no
+    // page scripts: this response goes without one. nosniff stays.
+    res.removeHeader('Content-Security-Policy');
+    res
+      .type('application/pdf')
+      .set('Content-Disposition', `inline; filename="panform-sheet-${sheet.date}.pdf"`)
+      .set('Cache-Control', 'private, no-cache')
+      .send(pdf);
+  });
+
+  r.get('/catalog', async (req, res) => {
+    const user = requirePermission(req, 'read:catalog');
+    const snapshot = await ctx.data.snapshot();
+    const body: CatalogResponse = { catalog: visibleCatalog(snapshot.catalog, user.role) };
+    res.json(body);
+  });
+
+  return r;
+}

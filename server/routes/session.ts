@@ -1,0 +1,145 @@
+// Signing in and out, who am I, and password reset by e-mail link.
+import { createHash, randomBytes } from 'node:crypto';
+import { and, eq, gt, isNull } from 'drizzle-orm';
+import { Router, type Request, type Response } from 'express';
+import type { Me } from '#shared/api';
+import { permissionsOf } from '#shared/permissions';
+import { requireUser } from '../auth/guards.ts';
+import { checkNewPassword, MAX_PASSWORD_LENGTH, verifyPassword } from '../auth/password.ts';
+import { SESSION_COOKIE } from '../auth/sessions.ts';
+import { findUserByEmail, normalizeEmail, setPassword, toUserInfo } from '../auth/users.ts';
+import type { ServerContext } from '../context.ts';
+import { passwordResetsTable } from '../db/schema.ts';
+import { readStringFields } from '../http/body.ts';
+import { HttpError, invalid, rateLimited } from '../http/errors.ts';
+
+/** How long a reset link works. */
+export const RESET_TTL_MS = 60 * 60 * 1000;
+/** The viewer's page that takes the token from the e-mail's link. */
+export const RESET_PAGE = '/reset-password';
+
+const me = (user: Me['user']): Me => ({ user, permissions: permissionsOf(user.role) });
+
+const sha256 = (s: string) => createHash('sha256').update(s).digest('hex');
+
+function clientAddress(req: Request): string {
+  return req.ip ?? req.socket.remoteAddress ?? 'unknown';
+}
+
+function setSessionCookie(res: Response, req: Request, token: string, maxAgeMs: number): void {
+  // httpOnly: page scripts cannot read the token. SameSite=Lax: not sent on cross-site
+  // sub-requests or POSTs, still sent when someone follows a link to the viewer. Secure when the
+  // request came over HTTPS (directly or through a trusted proxy: TRUST_PROXY).
+  res.cookie(SESSION_COOKIE, token, { httpOnly: true, sameSite: 'lax', secure: req.secure, path: '/', maxAge: maxAgeMs });
+}
+
+function clearSessionCookie(res: Response, req: Request): void {
+  res.clearCookie(SESSION_COOKIE, { httpOnly: true, sameSite: 'lax', secure: req.secure, path: '/' });
+}
+
+export function sessionRouter(ctx: ServerContext): Router {
+  const r = Router();
+
+  // Public: sign in.
+  r.post('/session', async (req, res) => {
+    const body = readStringFields(req.body, { email: { max: 254 }, password: { max: MAX_PASSWORD_LENGTH } });
+    const email = normalizeEmail(body.email);
+    const address = clientAddress(req);
+    const wait = Math.max(ctx.limiters.account.blockedFor(email), ctx.limiters.address.blockedFor(address));
+    if (wait > 0) {
+      throw rateLimited(`too many failed sign-ins; try again in ${Math.ceil(wait / 60_000)} min`, wait / 1000);
+    }
+    const user = await findUserByEmail(ctx.db, email);
+    // Verify against a dummy hash for unknown addresses so the answer takes as long either way.
+    const ok = await verifyPassword(body.password, user?.passwordHash ?? (await ctx.dummyHash));
+    if (!user || !ok) {
+      ctx.limiters.account.fail(email);
+      ctx.limiters.address.fail(address);
+      throw new HttpError(401, { error: 'unauthenticated', message: 'that e-mail address and password do not match an account' });
+    }
+    ctx.limiters.account.reset(email);
+    const { token } = await ctx.sessions.create(user.id);
+    setSessionCookie(res, req, token, ctx.sessions.lifetimeMs);
+    res.status(200).json(me(toUserInfo(user)));
+  });
+
+  r.delete('/session', async (req, res) => {
+    const token = req.auth?.tokenHash;
+    clearSessionCookie(res, req);
+    requireUser(req);
+    if (token) await ctx.sessions.destroy(token);
+    res.status(204).end();
+  });
+
+  r.get('/me', (req, res) => {
+    res.json(me(requireUser(req)));
+  });
+
+  // Public: ask for a reset link. Always 202, whether or not the address has an account, and the
+  // work (token, e-mail) happens after the answer so its timing tells nothing either.
+  r.post('/password-reset', (req, res) => {
+    const body = readStringFields(req.body, { email: { max: 254 } });
+    const address = clientAddress(req);
+    const wait = ctx.limiters.resetAddress.blockedFor(address);
+    if (wait > 0) throw rateLimited(`too many reset requests; try again in ${Math.ceil(wait / 60_000)} min`, wait / 1000);
+    ctx.limiters.resetAddress.fail(address);
+    const email = normalizeEmail(body.email);
+    ctx.background(async () => {
+      // A few e-mails per account and hour at most, silently: the answer must not differ.
+      if (ctx.limiters.resetAccount.blockedFor(email) > 0) return;
+      const user = await findUserByEmail(ctx.db, email);
+      if (!user) return;
+      ctx.limiters.resetAccount.fail(email);
+      const token = randomBytes(32).toString('base64url');
+      const expiresAt = new Date(ctx.now() + RESET_TTL_MS);
+      await ctx.db.insert(passwordResetsTable).values({ tokenHash: sha256(token), userId: user.id, expiresAt });
+      const link = `${ctx.env.publicUrl}${RESET_PAGE}?token=${encodeURIComponent(token)}`;
+      await ctx.sendMail({
+        to: user.email,
+        subject: 'Panform: set a new password',
+        text: [
+          `Hello${user.name ? ` ${user.name}` : ''},`,
+          '',
+          'Someone (we hope you) asked to set a new password for your Panform account.',
+          `Open this link within ${RESET_TTL_MS / 60_000} minutes to choose one; it works once:`,
+          '',
+          link,
+          '',
+          'If you did not ask for this, ignore this message: your password stays as it is.',
+        ].join('\n'),
+      });
+    });
+    res.status(202).json({ message: 'if that address has an account, a link to set a new password is on its way' });
+  });
+
+  // Public: set a new password with the token from the link.
+  r.post('/password-reset/confirm', async (req, res) => {
+    const body = readStringFields(req.body, { token: { max: 200 }, password: { max: MAX_PASSWORD_LENGTH } });
+    const problem = checkNewPassword(body.password);
+    if (problem) throw invalid(problem, [{ path: 'password', message: problem }]);
+    const now = new Date(ctx.now());
+    // Marking the token used in the same statement that checks it: two requests with one token
+    // cannot both succeed.
+    const used = await ctx.db
+      .update(passwordResetsTable)
+      .set({ usedAt: now })
+      .where(and(eq(passwordResetsTable.tokenHash, sha256(body.token)), isNull(passwordResetsTable.usedAt), gt(passwordResetsTable.expiresAt, now)))
+      .returning({ userId: passwordResetsTable.userId });
+    if (used.length === 0) {
+      throw invalid('this reset link does not work: it was used already, it expired, or it was mistyped; ask for a new one', [
+        { path: 'token', message: 'unknown, used or expired' },
+      ]);
+    }
+    const userId = used[0].userId;
+    // Other links sent to this account stop working too.
+    await ctx.db
+      .update(passwordResetsTable)
+      .set({ usedAt: now })
+      .where(and(eq(passwordResetsTable.userId, userId), isNull(passwordResetsTable.usedAt)));
+    await setPassword(ctx.db, userId, body.password, ctx.scrypt, now);
+    ctx.sessions.forgetUser(userId);
+    res.status(204).end();
+  });
+
+  return r;
+}

@@ -1,0 +1,147 @@
+// Every route on the /api router, read from the router itself, must answer 401 without a session
+// (unless listed as public) and follow the role matrix. A route added without an entry here, or
+// without a guard, fails this suite.
+import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { appInternals } from '../../server/app.ts';
+import type { DatabaseHandle } from '../../server/db/client.ts';
+import { loadFolder } from '../../server/load/index.ts';
+import { ROLES, type Role } from '#shared/permissions';
+import { openTestDatabase, startTestServer, type TestServer } from './harness.ts';
+
+type Who = 'anonymous' | Role;
+type Expect = Record<Who, number>;
+
+interface Case {
+  label: string;
+  method: string;
+  path: string;
+  body?: unknown;
+  expect: Expect;
+}
+
+const all = (status: number, anonymous = 401): Expect => ({ anonymous, admin: status, author: status, reviewer: status, bench: status });
+const staffOnly = (bench: number, others = 200): Expect => ({ anonymous: 401, admin: others, author: others, reviewer: others, bench });
+
+/** Cases for each route on the router ("METHOD /path" as the router writes it). */
+const MATRIX: Record<string, Case[]> = {
+  'POST /session': [
+    { label: 'wrong password', method: 'POST', path: '/api/session', body: { email: 'nobody@tidewater.example', password: 'wrong wrong' }, expect: all(401, 401) },
+  ],
+  'DELETE /session': [{ label: 'sign out', method: 'DELETE', path: '/api/session', expect: all(204) }],
+  'GET /me': [{ label: 'me', method: 'GET', path: '/api/me', expect: all(200) }],
+  'POST /password-reset': [
+    { label: 'reset request', method: 'POST', path: '/api/password-reset', body: { email: 'nobody@tidewater.example' }, expect: all(202, 202) },
+  ],
+  'POST /password-reset/confirm': [
+    { label: 'bad token', method: 'POST', path: '/api/password-reset/confirm', body: { token: 'nope', password: 'long enough password' }, expect: all(422, 422) },
+  ],
+  'GET /formulas': [
+    { label: 'list', method: 'GET', path: '/api/formulas', expect: all(200) },
+    { label: 'list drafts', method: 'GET', path: '/api/formulas?status=draft', expect: staffOnly(403) },
+    { label: 'list retired', method: 'GET', path: '/api/formulas?status=retired', expect: staffOnly(403) },
+  ],
+  'GET /formulas/:id': [
+    { label: 'active', method: 'GET', path: '/api/formulas/harbour-ciabatta', expect: all(200) },
+    { label: 'draft', method: 'GET', path: '/api/formulas/spelt-porridge-loaf', expect: staffOnly(403) },
+    { label: 'retired', method: 'GET', path: '/api/formulas/malted-grain-loaf', expect: staffOnly(403) },
+    { label: 'unknown', method: 'GET', path: '/api/formulas/no-such-bread', expect: all(404) },
+  ],
+  'GET /formulas/:id/revisions': [
+    { label: 'active', method: 'GET', path: '/api/formulas/harbour-ciabatta/revisions', expect: staffOnly(403) },
+    { label: 'draft', method: 'GET', path: '/api/formulas/spelt-porridge-loaf/revisions', expect: staffOnly(403) },
+  ],
+  'GET /formulas/:id/diff': [
+    { label: 'two revisions', method: 'GET', path: '/api/formulas/harbour-ciabatta/diff?from=1&to=2', expect: staffOnly(403) },
+  ],
+  'GET /changes': [{ label: 'changes', method: 'GET', path: '/api/changes', expect: staffOnly(403) }],
+  'GET /plans': [{ label: 'plans', method: 'GET', path: '/api/plans', expect: all(200) }],
+  'GET /plans/:date': [
+    { label: 'a plan', method: 'GET', path: '/api/plans/2026-12-03', expect: all(200) },
+    { label: 'no plan', method: 'GET', path: '/api/plans/2030-01-01', expect: all(404) },
+  ],
+  'GET /plans/:date/sheet.pdf': [{ label: 'pdf', method: 'GET', path: '/api/plans/2026-12-03/sheet.pdf', expect: all(200) }],
+  'GET /catalog': [{ label: 'catalog', method: 'GET', path: '/api/catalog', expect: all(200) }],
+};
+
+interface RouteLayer {
+  route?: { path: string; methods: Record<string, boolean> };
+  handle?: { stack?: RouteLayer[] };
+}
+
+/** "METHOD /path" for every route on a router, descending into routers mounted with use(). */
+function routesOf(stack: RouteLayer[]): string[] {
+  const out: string[] = [];
+  for (const layer of stack) {
+    if (layer.route) {
+      for (const m of Object.keys(layer.route.methods)) if (m !== '_all') out.push(`${m.toUpperCase()} ${layer.route.path}`);
+    } else if (layer.handle?.stack) out.push(...routesOf(layer.handle.stack));
+  }
+  return out;
+}
+
+let handle: DatabaseHandle;
+let t: TestServer;
+const cookies = new Map<Role, string>();
+let folder: string;
+
+beforeAll(async () => {
+  handle = await openTestDatabase();
+  // A second revision of one formula, so the diff route has two to compare.
+  folder = mkdtempSync(join(tmpdir(), 'panform-routes-'));
+  cpSync(resolve('formulas'), folder, { recursive: true });
+  const file = join(folder, 'harbour-ciabatta.yaml');
+  writeFileSync(file, readFileSync(file, 'utf8').replace(/^title: (.*)$/m, 'title: $1 (revised)'));
+  await loadFolder(handle, folder, { git: false });
+  t = await startTestServer(handle);
+});
+afterAll(async () => {
+  await t?.close();
+  await handle?.close();
+  rmSync(folder, { recursive: true, force: true });
+});
+
+async function call(c: Case, cookie: string | undefined): Promise<number> {
+  const headers: Record<string, string> = {};
+  if (cookie) headers.cookie = cookie;
+  if (c.body !== undefined) headers['content-type'] = 'application/json';
+  const res = await fetch(`${t.url}${c.path}`, { method: c.method, headers, body: c.body === undefined ? undefined : JSON.stringify(c.body) });
+  await res.arrayBuffer();
+  return res.status;
+}
+
+describe('the /api router', () => {
+  it('has a role-matrix entry for every route, and every entry is a route', () => {
+    const routes = routesOf(appInternals(t.app).api.stack as unknown as RouteLayer[]);
+    expect(routes.length).toBeGreaterThan(10);
+    expect(routes.filter((r) => !(r in MATRIX))).toEqual([]);
+    expect(Object.keys(MATRIX).filter((k) => !routes.includes(k))).toEqual([]);
+  });
+
+  const cases = Object.values(MATRIX).flat();
+
+  it.each(cases.map((c) => [c.method, c.path, c]))('answers %s %s without a session as the matrix says', async (_m, _p, c) => {
+    expect(await call(c, undefined)).toBe(c.expect.anonymous);
+  });
+
+  it.each(ROLES.flatMap((role) => cases.map((c) => [role, c.method, c.path, c] as const)))(
+    'answers %s for %s %s as the matrix says',
+    async (role, _m, _p, c) => {
+      // Signing out ends the session: that case gets a session of its own.
+      let cookie = cookies.get(role);
+      if (!cookie || c.method === 'DELETE') {
+        cookie = await t.signIn(role);
+        if (c.method !== 'DELETE') cookies.set(role, cookie);
+      }
+      expect(await call(c, cookie)).toBe(c.expect[role]);
+    },
+  );
+
+  it('answers an unknown /api path with a JSON 404, not the viewer', async () => {
+    const res = await fetch(`${t.url}/api/no-such-thing`, { headers: { cookie: cookies.get('admin') ?? (await t.signIn('admin')) } });
+    expect(res.status).toBe(404);
+    expect(await res.json()).toMatchObject({ error: 'not_found' });
+  });
+});

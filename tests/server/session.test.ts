@@ -1,0 +1,146 @@
+// Signing in and out, sessions that expire, and the limits on failed sign-ins.
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import type { DatabaseHandle } from '../../server/db/client.ts';
+import { emailOf, getJson, openTestDatabase, PASSWORD, sendJson, sessionCookie, startTestServer, type TestServer } from './harness.ts';
+
+let handle: DatabaseHandle;
+beforeAll(async () => {
+  handle = await openTestDatabase();
+});
+afterAll(async () => {
+  await handle?.close();
+});
+
+describe('signing in', () => {
+  let t: TestServer;
+  beforeAll(async () => {
+    t = await startTestServer(handle);
+  });
+  afterAll(async () => t?.close());
+
+  it('answers a right e-mail and password with the user, their permissions and an httpOnly SameSite=Lax cookie', async () => {
+    const { status, body, res } = await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('bench'), password: PASSWORD });
+    expect(status).toBe(200);
+    expect(body).toMatchObject({ user: { email: 'bench@tidewater.example', role: 'bench' }, permissions: ['read:formula:active', 'read:plan', 'read:catalog'] });
+    const set = res.headers.getSetCookie()[0];
+    expect(set).toMatch(/^panform_session=[A-Za-z0-9_-]{43};/);
+    expect(set).toMatch(/HttpOnly/);
+    expect(set).toMatch(/SameSite=Lax/);
+    expect(set).not.toMatch(/Secure/);
+    expect(set).toMatch(/Max-Age=1209600/); // 14 days, the SESSION_DAYS default
+  });
+
+  it('accepts the e-mail address in any case and with spaces around it', async () => {
+    const { status } = await sendJson(`${t.url}/api/session`, 'POST', { email: '  Reviewer@Tidewater.EXAMPLE ', password: PASSWORD });
+    expect(status).toBe(200);
+  });
+
+  it('refuses a wrong password and an unknown address alike, with 401', async () => {
+    const wrong = await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('admin'), password: 'not the password' });
+    const unknown = await sendJson(`${t.url}/api/session`, 'POST', { email: 'ghost@tidewater.example', password: PASSWORD });
+    expect(wrong.status).toBe(401);
+    expect(unknown.status).toBe(401);
+    expect(wrong.body).toEqual(unknown.body);
+    expect(wrong.res.headers.getSetCookie()).toEqual([]);
+  });
+
+  it('shows who is signed in at /api/me and nobody without a cookie', async () => {
+    const cookie = await t.signIn('author');
+    expect(await getJson(`${t.url}/api/me`, cookie)).toMatchObject({ status: 200, body: { user: { role: 'author' } } });
+    expect(await getJson(`${t.url}/api/me`)).toMatchObject({ status: 401, body: { error: 'unauthenticated' } });
+    expect(await getJson(`${t.url}/api/me`, 'panform_session=made-up-token')).toMatchObject({ status: 401 });
+  });
+
+  it('ends the session on sign-out: the old cookie no longer works and is cleared', async () => {
+    const cookie = await t.signIn('author');
+    const out = await fetch(`${t.url}/api/session`, { method: 'DELETE', headers: { cookie } });
+    expect(out.status).toBe(204);
+    expect(out.headers.getSetCookie()[0]).toMatch(/^panform_session=;.*Expires=Thu, 01 Jan 1970/);
+    expect((await getJson(`${t.url}/api/me`, cookie)).status).toBe(401);
+  });
+
+  it('lets a session expire after SESSION_DAYS', async () => {
+    const cookie = await t.signIn('reviewer');
+    t.clock.now += 13.9 * 24 * 3600 * 1000;
+    expect((await getJson(`${t.url}/api/me`, cookie)).status).toBe(200);
+    t.clock.now += 0.2 * 24 * 3600 * 1000;
+    expect((await getJson(`${t.url}/api/me`, cookie)).status).toBe(401);
+  });
+
+  it('marks the cookie Secure when the request came over HTTPS through a trusted proxy', async () => {
+    const proxied = await startTestServer(handle, { envVars: { TRUST_PROXY: 'loopback', PANFORM_PUBLIC_URL: 'https://panform.tidewater.example' } });
+    try {
+      const { res } = await sendJson(`${proxied.url}/api/session`, 'POST', { email: emailOf('bench'), password: PASSWORD }, { 'x-forwarded-proto': 'https' });
+      expect(res.status).toBe(200);
+      expect(res.headers.getSetCookie()[0]).toMatch(/; Secure/);
+    } finally {
+      await proxied.close();
+    }
+  });
+});
+
+describe('limits on failed sign-ins', () => {
+  let t: TestServer;
+  afterEach(async () => t?.close());
+
+  it('answers 429 after 5 failures for one account, even with the right password, until the window has passed', async () => {
+    t = await startTestServer(handle);
+    for (let i = 0; i < 5; i++) {
+      expect((await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('bench'), password: `guess ${i} wrong` })).status).toBe(401);
+    }
+    const blocked = await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('bench'), password: PASSWORD });
+    expect(blocked.status).toBe(429);
+    expect(blocked.body).toMatchObject({ error: 'rate_limited' });
+    expect(Number(blocked.res.headers.get('retry-after'))).toBe(900); // the 15-minute window
+    // Another account from the same address is not locked out by this one's failures.
+    expect((await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('admin'), password: PASSWORD })).status).toBe(200);
+    t.clock.now += 15 * 60 * 1000 + 1;
+    expect((await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('bench'), password: PASSWORD })).status).toBe(200);
+  });
+
+  it('answers 429 after 20 failures from one address across accounts', async () => {
+    t = await startTestServer(handle);
+    for (let i = 0; i < 20; i++) {
+      expect((await sendJson(`${t.url}/api/session`, 'POST', { email: `guess${i}@tidewater.example`, password: 'wrong password' })).status).toBe(401);
+    }
+    const blocked = await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('admin'), password: PASSWORD });
+    expect(blocked.status).toBe(429);
+    t.clock.now += 15 * 60 * 1000 + 1;
+    expect((await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('admin'), password: PASSWORD })).status).toBe(200);
+  });
+
+  it('clears an account\'s failures when it signs in', async () => {
+    t = await startTestServer(handle);
+    for (let round = 0; round < 3; round++) {
+      for (let i = 0; i < 4; i++) await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('author'), password: 'wrong password' });
+      expect((await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('author'), password: PASSWORD })).status).toBe(200);
+    }
+  });
+
+  it('counts the client address from X-Forwarded-For only behind a trusted proxy', async () => {
+    t = await startTestServer(handle, { limits: { account: { max: 100, windowMs: 60_000 }, address: { max: 2, windowMs: 60_000 }, resetAddress: { max: 10, windowMs: 60_000 }, resetAccount: { max: 3, windowMs: 60_000 } } });
+    // Untrusted: a forged X-Forwarded-For does not give a fresh address.
+    for (let i = 0; i < 2; i++) {
+      await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('bench'), password: 'wrong password' }, { 'x-forwarded-for': `10.0.0.${i}` });
+    }
+    const r = await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('bench'), password: PASSWORD }, { 'x-forwarded-for': '10.0.0.99' });
+    expect(r.status).toBe(429);
+  });
+});
+
+describe('the session cookie', () => {
+  it('is read from a Cookie header among other cookies', async () => {
+    const t = await startTestServer(handle);
+    try {
+      const res = await fetch(`${t.url}/api/session`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ email: emailOf('admin'), password: PASSWORD }),
+      });
+      const cookie = sessionCookie(res);
+      expect((await getJson(`${t.url}/api/me`, `theme=dark; ${cookie}; lang=en`)).status).toBe(200);
+    } finally {
+      await t.close();
+    }
+  });
+});

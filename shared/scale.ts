@@ -249,8 +249,11 @@ export function scaleFormula(f: Formula, catalog: Catalog, target: ScaleTarget):
   for (const l of overall) {
     if (seen.has(l.ingredient)) continue;
     seen.add(l.ingredient);
-    const left = (overallByName.get(l.ingredient) ?? 0) - (taken.get(l.ingredient) ?? 0);
-    if (left > EPSILON * Math.max(1, F)) finalDough.push({ ingredient: l.ingredient, grams: left, source: 'ingredient' });
+    const have = overallByName.get(l.ingredient) ?? 0;
+    const used = taken.get(l.ingredient) ?? 0;
+    // What the builds leave; a remainder within rounding noise of the line itself means all of it went into them.
+    const left = have - used;
+    if (used === 0 ? have > 0 : left > 1e-9 * have) finalDough.push({ ingredient: l.ingredient, grams: left, source: 'ingredient' });
   }
   for (const p of preferments) finalDough.push({ ingredient: p.name, grams: p.grams, source: 'preferment' });
   for (const s of soakers) finalDough.push({ ingredient: s.name, grams: s.grams, source: 'soaker' });

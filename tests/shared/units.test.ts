@@ -1,0 +1,112 @@
+// Units as bakers write them, and display rounding.
+import { describe, expect, it } from 'vitest';
+import {
+  convertMass, DEFAULT_RESOLUTION, fahrenheitDeltaToCelsius, formatGrams, formatMass, GRAMS_PER_OUNCE, GRAMS_PER_POUND, parseMass,
+  parseMassArgument, parseResolution, parseTemperature, parseTemperatureArgument, parseTemperatureDelta, parseTemperatureDeltaArgument,
+  QuantityError, roundGrams, toGrams,
+} from '#shared/units';
+
+describe('exact weights', () => {
+  it('defines the pound and the ounce exactly', () => {
+    expect(GRAMS_PER_POUND).toBe(453.59237); // trade-references §1, International yard and pound agreement (1959)
+    expect(GRAMS_PER_OUNCE).toBe(28.349523125); // §1 [DERIVED]: 453.592 37 / 16
+    expect(toGrams(16, 'oz')).toBe(GRAMS_PER_POUND); // §1: 1 lb = 16 oz
+    expect(convertMass(7000, 'g', 'g')).toBe(7000);
+  });
+});
+
+describe('parseMass', () => {
+  it.each([
+    ['320 g', 320],
+    ['0.32 kg', 320],
+    ['2 lb', 2 * 453.59237], // §1
+    ['11 oz', 11 * 28.349523125], // §1
+    ['28.47kg', 28470],
+    ['900G', 900],
+  ])('reads %s', (text, grams) => {
+    expect(parseMass(text)).toBeCloseTo(grams, 9);
+  });
+
+  it('refuses a bare number in a file', () => {
+    expect(() => parseMass('320')).toThrow(QuantityError);
+  });
+});
+
+describe('parseMassArgument', () => {
+  it.each([
+    ['900 g', 900],
+    ['28.47 kg', 28470],
+    ['2 lb', 907.18474],
+    ['900', 900],
+  ])('reads %s from the command line', (text, grams) => {
+    expect(parseMassArgument(text)).toBeCloseTo(grams, 9);
+  });
+
+  it('refuses a word', () => {
+    expect(() => parseMassArgument('heavy')).toThrow(/not a weight/);
+  });
+});
+
+describe('temperatures', () => {
+  it('reads a temperature with its unit', () => {
+    expect(parseTemperature('25 °C')).toBe(25);
+    expect(parseTemperature('77°F')).toBeCloseTo(25, 12); // (77 − 32)/1.8
+  });
+
+  it('converts a temperature difference without the offset', () => {
+    expect(fahrenheitDeltaToCelsius(20)).toBeCloseTo(11.11, 2); // trade-references §1: 20 °F of friction = 11.11 °C, not −6.67 °C
+    expect(parseTemperatureDelta('20 °F')).toBeCloseTo(100 / 9, 12);
+    expect(parseTemperatureDeltaArgument('20', 'F')).toBeCloseTo(100 / 9, 12);
+    expect(parseTemperatureDeltaArgument('13')).toBe(13);
+  });
+
+  it('reads bare command-line numbers in the default unit', () => {
+    expect(parseTemperatureArgument('25')).toBe(25);
+    expect(parseTemperatureArgument('77', 'F')).toBeCloseTo(25, 12);
+    expect(parseTemperatureArgument('77F')).toBeCloseTo(25, 12);
+    expect(parseTemperatureArgument('-5')).toBe(-5);
+  });
+});
+
+describe('roundGrams', () => {
+  it.each([
+    [1234.5, 1235], // 1 g at or above 100 g (product brief)
+    [1234.49, 1234],
+    [99.96, 100], // the fine step applies below 100 g
+    [56.34, 56.3], // 0.1 g below 100 g
+    [0.19, 0.2],
+    [100.4, 100],
+  ])('rounds %d g to %d g for display', (grams, shown) => {
+    expect(roundGrams(grams)).toBe(shown);
+  });
+
+  it('follows a configured resolution', () => {
+    const r = parseResolution('5,1,500');
+    expect(r).toEqual({ coarse: 5, fine: 1, fineBelow: 500 });
+    expect(roundGrams(1233, r)).toBe(1235);
+    expect(roundGrams(233.4, r)).toBe(233);
+  });
+
+  it('fills in the rest of a short resolution from the default', () => {
+    expect(parseResolution('1')).toEqual(DEFAULT_RESOLUTION);
+    expect(parseResolution('2,0.5')).toEqual({ coarse: 2, fine: 0.5, fineBelow: 100 });
+  });
+
+  it.each(['', '0', '-1', 'one', '1,2,3,4', '1,,100'])('refuses the resolution %j', (text) => {
+    expect(() => parseResolution(text)).toThrow(QuantityError);
+  });
+});
+
+describe('formatting', () => {
+  it('groups thousands and keeps one decimal below 100 g', () => {
+    expect(formatGrams(28470)).toBe('28\u202f470 g');
+    expect(formatGrams(56.34)).toBe('56.3 g');
+  });
+
+  it('prints pounds and ounces, carrying 16 oz into a pound', () => {
+    expect(formatMass(453.59237 * 2 + 28.349523125 * 3.2, 'us')).toBe('2 lb 3.20 oz');
+    expect(formatMass(453.59237 - 0.001, 'us')).toBe('1 lb 0.00 oz');
+    expect(formatMass(10, 'us')).toBe('0.353 oz');
+    expect(formatMass(1000, 'metric')).toBe('1\u202f000 g');
+  });
+});

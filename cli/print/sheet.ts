@@ -1,0 +1,84 @@
+// The batch sheet as terminal text: the presented sections (shared/sheet/present.ts) as plain
+// cli-table3 tables, a "[ ]" beside every weight to tick off.
+import type { PresentedSheet } from '#shared/sheet/present';
+import type { Sheet } from '#shared/sheet/types';
+import { roundGrams } from '#shared/units';
+import { renderCsv } from './csv.ts';
+import { renderTable } from './table.ts';
+
+export function renderSheetText(p: PresentedSheet): string {
+  const out: string[] = [p.title, ...p.subtitle.map((s) => `  ${s}`), ''];
+  for (const section of p.sections) {
+    out.push(section.title.toUpperCase(), '');
+    for (const b of section.blocks) {
+      if (b.title) out.push(b.title);
+      for (const l of b.lines) out.push(section.key === 'cautions' || section.key === 'warnings' ? `- ${l}` : `  ${l}`);
+      if (b.table) {
+        const tk = b.table.tick.some(Boolean);
+        out.push(
+          renderTable({
+            head: tk ? [...b.table.head, ''] : b.table.head,
+            rows: b.table.rows.map((r, i) => (tk ? [...r, b.table!.tick[i] ? '[ ]' : ''] : r).map((cell) => wrap(cell, WRAP))),
+            align: tk ? [...b.table.align, 'left'] : b.table.align,
+            footer: b.table.footer ? (tk ? [...b.table.footer, ''] : b.table.footer) : undefined,
+          }),
+        );
+      }
+      out.push('');
+    }
+  }
+  return out.join('\n');
+}
+
+/**
+ * The sheet for spreadsheets: one row per weighed line, with its section (preferment, soaker,
+ * mix, total). Grams are rounded as printed (1 g, 0.1 g below 100 g); ice and tap water sit on
+ * the water line they split, so a column sum counts the water once.
+ */
+export function renderSheetCsv(sheet: Sheet): string {
+  const rows: (string | number | null)[][] = [];
+  for (const b of [...sheet.preferments, ...sheet.soakers]) {
+    for (const l of b.ingredients) {
+      const ice = l.kind === 'water' && b.ice > 0;
+      rows.push([
+        b.kind === 'soaker' ? 'soaker' : 'preferment', b.formulas.join('+'), b.batches > 1 ? `${b.name} (${b.batch}/${b.batches})` : b.name, '', '',
+        l.ingredient, l.seed ? 'culture (seed)' : l.kind, roundGrams(l.grams), ice ? roundGrams(b.ice) : null, ice ? roundGrams(b.tapWater) : null,
+        b.waterTemperature === null || l.kind !== 'water' ? null : round1(b.waterTemperature), b.mixFrom ?? '', b.mixUntil,
+      ]);
+    }
+  }
+  for (const m of sheet.mixes) {
+    for (const l of m.ingredients) {
+      const water = l.kind === 'water';
+      rows.push([
+        'mix', m.formula, m.title, `${m.mixNumber}/${m.of}`, m.mixer, l.ingredient, l.kind, roundGrams(l.grams),
+        water && m.ice > 0 ? roundGrams(m.ice) : null, water && m.ice > 0 ? roundGrams(m.tapWater) : null,
+        water && m.waterTemperature !== null ? round1(m.waterTemperature) : null, m.start, m.end,
+      ]);
+    }
+  }
+  for (const l of sheet.totals) rows.push(['total', '', '', '', '', l.ingredient, l.kind, roundGrams(l.grams), null, null, null, '', '']);
+  return renderCsv(
+    ['section', 'formula', 'name', 'mix', 'mixer', 'ingredient', 'kind', 'grams', 'ice_grams', 'tap_water_grams', 'water_celsius', 'from', 'until'],
+    rows,
+  );
+}
+
+const WRAP = 56;
+
+/** Long cells (step notes) wrapped onto several lines of a table cell. */
+function wrap(text: string, width: number): string {
+  if (text.length <= width) return text;
+  const lines: string[] = [];
+  let line = '';
+  for (const word of text.split(' ')) {
+    if (line && line.length + 1 + word.length > width) {
+      lines.push(line);
+      line = word;
+    } else line = line ? `${line} ${word}` : word;
+  }
+  if (line) lines.push(line);
+  return lines.join('\n');
+}
+
+const round1 = (x: number) => Math.round(x * 10) / 10;

@@ -1,0 +1,331 @@
+// The batch sheet as a PDF, drawn with pdfkit in the shipped JetBrains Mono (no browser): the
+// same sections and figures as the text and HTML formats (shared/sheet/present.ts), tick boxes
+// beside every weight, the timeline chart drawn with vector shapes, the cautions in a box.
+//
+//   const pdf = await renderSheetPdf(sheet, { paper: 'a4' });   // Buffer
+//
+// The fonts are read from @fontsource/jetbrains-mono unless passed in as TrueType bytes.
+import PDFDocument from 'pdfkit';
+import { chartModel, colourOf, LEGEND, type ChartModel } from '#shared/sheet/chart';
+import { presentSheet, type SheetSection, type SheetTable } from '#shared/sheet/present';
+import type { Sheet } from '#shared/sheet/types';
+import { readJetBrainsMonoTtf } from './fonts.ts';
+
+export type Paper = 'a4' | 'letter';
+
+export interface PdfFonts {
+  /** TrueType bytes (not WOFF/WOFF2: see fonts.ts). */
+  regular: Uint8Array;
+  bold: Uint8Array;
+}
+
+export interface PdfOptions {
+  paper?: Paper;
+  fonts?: PdfFonts;
+}
+
+type Doc = InstanceType<typeof PDFDocument>;
+
+const MARGIN = { top: 36, bottom: 42, left: 34, right: 34 };
+// Ligatures off: JetBrains Mono joins "->", "<=" and the like, which a weighing sheet must not do.
+const FEATURES = { liga: false, calt: false, clig: false, dlig: false } as unknown as never;
+const INK = '#111111';
+const MUTED = '#444444';
+
+/** The latin subset has no narrow no-break space (formatGrams' thousands separator): use a no-break space. */
+function clean(s: string): string {
+  return s.replace(/\u202f/g, '\u00a0');
+}
+
+class Writer {
+  y: number;
+  readonly left = MARGIN.left;
+  readonly width: number;
+  readonly bottom: number;
+
+  constructor(readonly doc: Doc) {
+    this.y = MARGIN.top;
+    this.width = doc.page.width - MARGIN.left - MARGIN.right;
+    this.bottom = doc.page.height - MARGIN.bottom;
+  }
+
+  font(size: number, bold = false): this {
+    this.doc.font(bold ? 'mono-bold' : 'mono').fontSize(size);
+    return this;
+  }
+
+  widthOf(s: string, size: number, bold = false): number {
+    this.font(size, bold);
+    return this.doc.widthOfString(clean(s), { features: FEATURES });
+  }
+
+  heightOf(s: string, size: number, width: number, bold = false): number {
+    this.font(size, bold);
+    return this.doc.heightOfString(clean(s), { width, features: FEATURES, lineGap: 1 });
+  }
+
+  text(s: string, x: number, y: number, o: { size: number; bold?: boolean; width?: number; align?: 'left' | 'right' | 'center'; colour?: string }): void {
+    this.font(o.size, o.bold);
+    this.doc.fillColor(o.colour ?? INK).text(clean(s), x, y, {
+      width: o.width,
+      align: o.align ?? 'left',
+      lineBreak: o.width !== undefined,
+      lineGap: 1,
+      features: FEATURES,
+    });
+  }
+
+  /** Starts a new page when `h` points do not fit on this one. */
+  ensure(h: number): void {
+    if (this.y + h > this.bottom && this.y > MARGIN.top + 1) this.newPage();
+  }
+
+  newPage(): void {
+    this.doc.addPage();
+    this.y = MARGIN.top;
+  }
+
+  paragraph(s: string, size: number, o: { bold?: boolean; colour?: string; indent?: number; gap?: number } = {}): void {
+    const x = this.left + (o.indent ?? 0);
+    const w = this.width - (o.indent ?? 0);
+    const h = this.heightOf(s, size, w, o.bold);
+    this.ensure(h);
+    this.text(s, x, this.y, { size, bold: o.bold, width: w, colour: o.colour });
+    this.y += h + (o.gap ?? 1);
+  }
+}
+
+function sectionTitle(w: Writer, title: string, keepWith = 150): void {
+  w.ensure(32 + keepWith);
+  w.y += 8;
+  w.text(title, w.left, w.y, { size: 14, bold: true });
+  w.y += 18;
+  w.doc.moveTo(w.left, w.y).lineTo(w.left + w.width, w.y).lineWidth(1.2).strokeColor(INK).stroke();
+  w.y += 6;
+}
+
+interface TableStyle {
+  size: number;
+  weightSize: number;
+  pad: number;
+  /** Column that may wrap when the table is too wide (the last left-aligned one). */
+  wrapColumn?: number;
+  maxWidth?: number;
+}
+
+const TICK_W = 22;
+
+function drawTable(w: Writer, t: SheetTable, s: TableStyle): void {
+  const tick = t.tick.some(Boolean);
+  const cols = t.head.length;
+  const bold = (i: number) => t.align[i] === 'right' && s.weightSize > s.size;
+  const sizeOf = (i: number) => (bold(i) ? s.weightSize : s.size);
+  const widths = Array.from({ length: cols }, (_, i) => {
+    const cells = [t.head[i], ...t.rows.map((r) => r[i]), ...(t.footer ? [t.footer[i]] : [])];
+    return Math.max(...cells.map((c) => w.widthOf(c ?? '', sizeOf(i), bold(i) || (t.footer !== undefined && c === t.footer[i])))) + 2 * s.pad;
+  });
+  const avail = Math.min(s.maxWidth ?? w.width, w.width) - (tick ? TICK_W : 0);
+  let total = widths.reduce((a, b) => a + b, 0);
+  if (total > avail && s.wrapColumn !== undefined) {
+    widths[s.wrapColumn] = Math.max(60, widths[s.wrapColumn] - (total - avail));
+    total = widths.reduce((a, b) => a + b, 0);
+  }
+  const xs: number[] = [];
+  let x = w.left;
+  for (const cw of widths) {
+    xs.push(x);
+    x += cw;
+  }
+  const tickX = x;
+  const tableW = total + (tick ? TICK_W : 0);
+  const rowHeight = (r: string[]) =>
+    Math.max(...r.map((c, i) => (i === s.wrapColumn ? w.heightOf(c, sizeOf(i), widths[i] - 2 * s.pad) : sizeOf(i) * 1.2))) + 2 * s.pad;
+
+  const drawHead = () => {
+    const h = s.size * 1.2 + 2 * s.pad;
+    t.head.forEach((c, i) =>
+      w.text(c, xs[i] + s.pad, w.y + s.pad, { size: s.size - 1, width: widths[i] - 2 * s.pad, align: t.align[i], colour: MUTED }),
+    );
+    w.y += h;
+    w.doc.moveTo(w.left, w.y).lineTo(w.left + tableW, w.y).lineWidth(0.8).strokeColor(INK).stroke();
+  };
+
+  w.ensure(s.size * 1.2 * 3 + 6 * s.pad);
+  drawHead();
+  t.rows.forEach((r, ri) => {
+    const h = rowHeight(r);
+    if (w.y + h > w.bottom) {
+      w.newPage();
+      drawHead();
+    }
+    r.forEach((c, i) =>
+      w.text(c, xs[i] + s.pad, w.y + s.pad, { size: sizeOf(i), bold: bold(i), width: widths[i] - 2 * s.pad, align: t.align[i] }),
+    );
+    if (tick && t.tick[ri]) {
+      const box = Math.min(12, h - 4);
+      w.doc.rect(tickX + 6, w.y + (h - box) / 2, box, box).lineWidth(1).strokeColor(INK).stroke();
+    }
+    w.y += h;
+    w.doc.moveTo(w.left, w.y).lineTo(w.left + tableW, w.y).lineWidth(0.3).strokeColor('#bbbbbb').stroke();
+  });
+  if (t.footer) {
+    const h = s.size * 1.2 + 2 * s.pad;
+    if (w.y + h > w.bottom) w.newPage();
+    w.doc.moveTo(w.left, w.y).lineTo(w.left + tableW, w.y).lineWidth(0.8).strokeColor(INK).stroke();
+    t.footer.forEach((c, i) => w.text(c, xs[i] + s.pad, w.y + s.pad, { size: s.size, bold: true, width: widths[i] - 2 * s.pad, align: t.align[i] }));
+    w.y += h;
+  }
+}
+
+function box(w: Writer, section: SheetSection | undefined, dashed: boolean): void {
+  if (!section) return;
+  const lines = section.blocks.flatMap((b) => b.lines);
+  const inner = w.width - 24;
+  const heights = lines.map((l) => w.heightOf(`• ${l}`, 9.5, inner));
+  const h = 26 + heights.reduce((a, b) => a + b + 3, 0) + 6;
+  w.ensure(h);
+  const top = w.y;
+  w.doc.roundedRect(w.left, top, w.width, h, 5).lineWidth(1.6);
+  if (dashed) w.doc.dash(4, { space: 3 });
+  w.doc.strokeColor(INK).stroke();
+  w.doc.undash();
+  w.text(section.title, w.left + 12, top + 8, { size: 12, bold: true });
+  let y = top + 26;
+  lines.forEach((l, i) => {
+    w.text(`• ${l}`, w.left + 12, y, { size: 9.5, width: inner });
+    y += heights[i] + 3;
+  });
+  w.y = top + h + 8;
+}
+
+function chart(w: Writer, m: ChartModel): void {
+  const rowH = 11;
+  const labelW = 150;
+  const top = 24;
+  const h = top + m.rows.length * rowH + 26;
+  w.ensure(h);
+  const y0 = w.y + top;
+  const span = Math.max(1, m.to - m.from);
+  const x = (minute: number) => w.left + labelW + ((Math.min(Math.max(minute, m.from), m.to) - m.from) / span) * (w.width - labelW - 4);
+  const doc = w.doc;
+  m.rows.forEach((_, i) => {
+    if (i % 2 === 1) doc.rect(w.left, y0 + i * rowH, w.width, rowH).fillColor('#f1f1f1').fill();
+  });
+  for (const t of m.ticks) {
+    const tx = x(t.minute);
+    doc.moveTo(tx, y0 - 3).lineTo(tx, y0 + m.rows.length * rowH).lineWidth(0.4).strokeColor('#bbbbbb').stroke();
+    w.text(t.label, tx - 40, y0 - 11, { size: 6.5, width: 80, align: 'center', colour: '#333333' });
+    if (t.day) w.text(t.day, tx - 40, y0 - 20, { size: 6.5, bold: true, width: 80, align: 'center' });
+  }
+  m.rows.forEach((row, i) => {
+    const y = y0 + i * rowH;
+    const label = row.label.length > 30 ? `${row.label.slice(0, 29)}…` : row.label;
+    w.text(label, w.left + 2, y + 2, { size: 7 });
+    for (const b of row.bars) {
+      if (b.to < m.from || b.from > m.to) continue;
+      const x1 = x(b.from);
+      const bw = x(b.to) - x1;
+      if (bw <= 0) {
+        doc.moveTo(x1, y + 1.5).lineTo(x1, y + rowH - 1.5).lineWidth(1).strokeColor(colourOf(b.step)).stroke();
+        continue;
+      }
+      doc.rect(x1, y + 2, Math.max(1, bw), rowH - 4).fillColor(colourOf(b.step)).fill();
+      doc.rect(x1, y + 2, Math.max(1, bw), rowH - 4).lineWidth(0.4);
+      if (b.window) doc.dash(2, { space: 1.5 });
+      doc.strokeColor('#333333').stroke();
+      doc.undash();
+      for (const f of b.folds) {
+        const fx = x(f);
+        doc.polygon([fx - 2, y + 0.5], [fx + 2, y + 0.5], [fx, y + 4]).fillColor(INK).fill();
+      }
+    }
+  });
+  if (m.readyBy >= m.from && m.readyBy <= m.to) {
+    const rx = x(m.readyBy);
+    doc.moveTo(rx, y0 - 3).lineTo(rx, y0 + m.rows.length * rowH).lineWidth(1).dash(3, { space: 2 }).strokeColor('#cc0000').stroke();
+    doc.undash();
+  }
+  let lx = w.left;
+  const ly = y0 + m.rows.length * rowH + 7;
+  for (const step of LEGEND) {
+    doc.rect(lx, ly, 9, 7).fillColor(colourOf(step)).fill();
+    doc.rect(lx, ly, 9, 7).lineWidth(0.4).strokeColor('#333333').stroke();
+    w.text(step, lx + 12, ly, { size: 6.5 });
+    lx += 18 + w.widthOf(step, 6.5);
+  }
+  doc.polygon([lx + 1, ly], [lx + 7, ly], [lx + 4, ly + 5]).fillColor(INK).fill();
+  w.text('fold', lx + 10, ly, { size: 6.5 });
+  lx += 36;
+  doc.moveTo(lx, ly - 1).lineTo(lx, ly + 8).lineWidth(1).dash(3, { space: 2 }).strokeColor('#cc0000').stroke();
+  doc.undash();
+  w.text('first bake out', lx + 4, ly, { size: 6.5 });
+  w.y = ly + 16;
+  if (m.clipped) w.paragraph('Cooling after the last bake runs past the right edge.', 7, { colour: MUTED });
+}
+
+export async function renderSheetPdf(sheet: Sheet, options: PdfOptions = {}): Promise<Buffer> {
+  const fonts = options.fonts ?? { regular: readJetBrainsMonoTtf(400), bold: readJetBrainsMonoTtf(700) };
+  const p = presentSheet(sheet);
+  const doc = new PDFDocument({
+    size: options.paper === 'letter' ? 'LETTER' : 'A4',
+    margins: MARGIN,
+    bufferPages: true,
+    autoFirstPage: true,
+    info: { Title: p.title, Author: 'Panform', Subject: `Batch sheet for ${sheet.date}` },
+  });
+  const chunks: Buffer[] = [];
+  doc.on('data', (c: Buffer) => chunks.push(c));
+  const done = new Promise<void>((resolve, reject) => {
+    doc.on('end', () => resolve());
+    doc.on('error', reject);
+  });
+  doc.registerFont('mono', Buffer.from(fonts.regular));
+  doc.registerFont('mono-bold', Buffer.from(fonts.bold));
+
+  const w = new Writer(doc);
+  w.paragraph(p.title, 17, { bold: true, gap: 4 });
+  for (const s of p.subtitle) w.paragraph(s, 9, { colour: MUTED });
+  w.y += 6;
+  box(w, p.sections.find((s) => s.key === 'cautions'), false);
+  box(w, p.sections.find((s) => s.key === 'warnings'), true);
+  const model = chartModel(sheet);
+  sectionTitle(w, 'Timeline chart', 24 + model.rows.length * 11 + 42);
+  chart(w, model);
+
+  for (const s of p.sections) {
+    if (s.key === 'cautions' || s.key === 'warnings') continue;
+    if (s.key === 'timeline') w.newPage();
+    sectionTitle(w, s.title);
+    for (const b of s.blocks) {
+      const style: TableStyle =
+        s.key === 'timeline'
+          ? { size: 7.5, weightSize: 7.5, pad: 2, wrapColumn: 4 }
+          : s.key === 'formulas'
+            ? { size: 9, weightSize: 9, pad: 3 }
+            : { size: 10.5, weightSize: 12, pad: 3.5, maxWidth: 360 };
+      if (b.title || b.lines.length > 0) {
+        // Keep a block's title with the start of its table.
+        const head = (b.title ? 16 : 0) + b.lines.reduce((a, l) => a + w.heightOf(l, 8.5, w.width - 8) + 1, 0);
+        const rows = b.table ? Math.min(b.table.rows.length, 14) + 2 : 0;
+        w.ensure(head + rows * (style.weightSize * 1.2 + 2 * style.pad) + 8);
+        if (b.title) w.paragraph(b.title, 11.5, { bold: true, gap: 2 });
+        for (const l of b.lines) w.paragraph(l, 8.5, { colour: MUTED, indent: 8 });
+      }
+      if (b.table) drawTable(w, b.table, style);
+      w.y += 12;
+    }
+  }
+
+  const range = doc.bufferedPageRange();
+  for (let i = 0; i < range.count; i++) {
+    doc.switchToPage(range.start + i);
+    // Drawing in the bottom margin must not add a page: write with the margin lifted.
+    const bottom = doc.page.margins.bottom;
+    doc.page.margins.bottom = 0;
+    w.text(`${p.title} · page ${i + 1} of ${range.count}`, MARGIN.left, doc.page.height - 28, { size: 7, width: w.width, align: 'center', colour: MUTED });
+    doc.page.margins.bottom = bottom;
+  }
+  doc.end();
+  await done;
+  return Buffer.concat(chunks);
+}

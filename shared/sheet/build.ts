@@ -1,0 +1,527 @@
+// Tomorrow's batch sheet from a plan: builds to mix tonight, mixes split by mixer capacity with
+// water temperature and ice, the timeline, the pick list and the cautions. Pure; no I/O, no clock.
+//
+// Conventions (README "Batch sheets"):
+// - An order's mixed dough is the formula scaled to its pieces with its loss (scale.ts). It is split
+//   into the fewest EQUAL mixes that fit the mixer: the order's mixer, else the first mixer that
+//   takes the whole order (capacity and minimum), else the biggest. Pieces per mix are whole: when
+//   they do not divide evenly the first mixes divide one piece more.
+// - A mix's water temperature: n·DDT − (room + flour + each pre-ferment + friction), n = 3 + the
+//   number of pre-ferments; a pre-ferment's temperature is the plan's `conditions.preferment`, else
+//   its ripening temperature, else its build temperature, else the room's.
+// - A build's water temperature: 3·T − (room + flour), T its `temperature`, else its ripening
+//   temperature; no friction.
+// - Builds whose kind, ingredient percentages, ripening hours and temperatures are identical are
+//   made together, across formulas. A build must have ripened at least its minimum hours and at most
+//   its maximum at every final mix that takes it: mixUntil = first use − min hours, mixFrom = last
+//   use − max hours. When uses are too far apart for one build, it is made in several batches.
+//   Soakers follow the same rule with their soaking hours.
+import { lookupIngredient, type Catalog, type Formula, type Mixer, type Order } from '../model.ts';
+import { scaleFormula, ScaleError, sum, type ScaledBuild, type ScaleResult } from '../scale.ts';
+import type { AllergenCode, IngredientKind } from '../schema/shapes.ts';
+import { INGREDIENT_KINDS } from '../schema/shapes.ts';
+import { ALLERGEN_NAMES, AllergenError, allergenSummary, sortCodes, type AllergenSummary } from '../allergens.ts';
+import { computeIce, computeWaterTemperature, HOT_WATER_CELSIUS } from '../temperature.ts';
+import { formatTemperature } from '../units.ts';
+import { processChain, scheduleJobs, type Chain } from './schedule.ts';
+import { clockMinutes, localDateTime, minuteOf } from './time.ts';
+import {
+  SheetError,
+  type BuildUse,
+  type Caution,
+  type FormulaSummary,
+  type PickLine,
+  type Sheet,
+  type SheetBuild,
+  type SheetInput,
+  type SheetLine,
+  type SheetMix,
+  type TimelineEntry,
+} from './types.ts';
+
+const EPSILON = 1e-9;
+
+interface PlannedMix {
+  order: number;
+  o: Order;
+  formula: Formula;
+  mixer: Mixer;
+  mixNumber: number;
+  of: number;
+  pieces: number;
+  pieceGrams: number;
+  scaled: ScaleResult;
+  chain: Chain;
+  /** Chain start, minutes from the plan date's midnight. */
+  start: number;
+  mixStart: number;
+  mixEnd: number;
+}
+
+export function buildSheet(input: SheetInput): Sheet {
+  const { plan, formulas, catalog } = input;
+  const warnings: string[] = [];
+  const date = plan.date;
+  const at = (minute: number) => localDateTime(date, minute);
+  const readyBy = clockMinutes(plan.readyBy);
+
+  // ---- orders → equal mixes -------------------------------------------------------------
+  const chains = new Map<string, Chain>();
+  const warnedFolds = new Set<string>();
+  const planned: PlannedMix[] = [];
+  plan.orders.forEach((o, order) => {
+    const formula = formulas[o.formula];
+    if (!formula) {
+      throw new SheetError(`order ${order + 1} names formula "${o.formula}", which was not found; known formulas: ${Object.keys(formulas).sort().join(', ') || 'none'}`);
+    }
+    if (formula.status !== 'active') warnings.push(`${formula.id} is ${formula.status}, not active`);
+    const whole = scaleOrThrow(formula, catalog, { by: 'pieces', pieces: o.pieces, pieceGrams: o.pieceGrams }, order);
+    const pieceGrams = whole.pieceGrams ?? formula.yield.pieceGrams;
+    const mixer = chooseMixer(plan.mixers, o, whole.mixedDough, order);
+    const pieceMixed = pieceGrams / (1 - whole.loss / 100);
+    if (pieceMixed > mixer.capacityGrams * (1 + EPSILON)) {
+      throw new SheetError(
+        `order ${order + 1} (${formula.id}): one piece needs ${grams(pieceMixed)} of mixed dough, more than mixer "${mixer.name}" holds (${grams(mixer.capacityGrams)})`,
+      );
+    }
+    const of = Math.max(1, Math.ceil(whole.mixedDough / mixer.capacityGrams - EPSILON));
+    const dough = whole.mixedDough / of;
+    if (mixer.minimumGrams !== undefined && dough < mixer.minimumGrams * (1 - EPSILON)) {
+      throw new SheetError(
+        `order ${order + 1} (${formula.id}): ${of === 1 ? 'the mix' : `each of ${of} mixes`} holds ${grams(dough)}, below mixer "${mixer.name}"'s minimum of ${grams(mixer.minimumGrams)}`,
+      );
+    }
+    const perMix = scaleOrThrow(formula, catalog, { by: 'mix', grams: dough }, order);
+    let chain = chains.get(formula.id);
+    if (!chain) {
+      chain = processChain(formula, plan.ranges, warnings);
+      chains.set(formula.id, chain);
+    }
+    const base = Math.floor(o.pieces / of);
+    const extra = o.pieces % of;
+    if (extra > 0 && (base + 1) * pieceMixed > dough * (1 + EPSILON)) {
+      warnings.push(
+        `order ${order + 1} (${formula.id}): ${o.pieces} pieces do not divide evenly into ${of} mixes; mixes 1–${extra} divide ${base + 1} pieces and need the dough left over from the others`,
+      );
+    }
+    for (let i = 0; i < of; i++) {
+      planned.push({
+        order, o, formula, mixer, mixNumber: i + 1, of, pieces: base + (i < extra ? 1 : 0), pieceGrams,
+        scaled: perMix, chain, start: 0, mixStart: 0, mixEnd: 0,
+      });
+    }
+  });
+
+  // ---- timeline -----------------------------------------------------------------------------
+  const placed = scheduleJobs(planned.map((p) => ({ chain: p.chain, mixer: p.mixer.name })), readyBy);
+  const timeline: TimelineEntry[] = [];
+  planned.forEach((p, i) => {
+    p.start = placed[i].start;
+    const firstMix = p.chain.steps.find((s) => s.step.step === 'mix')!;
+    p.mixStart = p.start + firstMix.offset;
+    p.mixEnd = p.mixStart + firstMix.minutes;
+    const label = `${p.formula.title} ${p.mixNumber}/${p.of}`;
+    for (const s of p.chain.steps) {
+      const from = p.start + s.offset;
+      const to = from + s.minutes;
+      const entry: TimelineEntry = {
+        formula: p.formula.id, label, step: s.step.step, order: p.order, mixNumber: p.mixNumber,
+        start: at(from), end: at(to), startMinute: from, endMinute: to, minutes: s.minutes,
+      };
+      if (s.step.step === 'mix') entry.resource = `mixer:${p.mixer.name}`;
+      if (s.step.step === 'bake') entry.resource = 'oven';
+      if (s.step.temperature !== undefined) entry.temperature = s.step.temperature;
+      if (s.step.step === 'retard') entry.cold = true;
+      if (s.step.steam || (s.step.step === 'bake' && /steam/i.test(s.step.note ?? ''))) entry.steam = true;
+      if (s.step.note) entry.note = s.step.note;
+      if (s.step.folds) {
+        const { count, every } = s.step.folds;
+        entry.folds = Array.from({ length: count }, (_, k) => at(from + every * (k + 1)));
+        if (count * every > s.minutes + EPSILON && p.mixNumber === 1 && !warnedFolds.has(p.formula.id)) {
+          warnedFolds.add(p.formula.id);
+          warnings.push(`${p.formula.id}: ${count} folds every ${every} min run past the end of its ${s.step.step} (${s.minutes} min)`);
+        }
+      }
+      timeline.push(entry);
+    }
+  });
+
+  // ---- builds: pre-ferments and soakers -----------------------------------------------------
+  const { room, flour: flourT, tapWater } = plan.conditions;
+  const preferments = makeBuilds('preferment', planned, catalog, plan.conditions, at, warnings);
+  const soakers = makeBuilds('soaker', planned, catalog, plan.conditions, at, warnings);
+  for (const b of [...preferments, ...soakers]) {
+    const from = b.mixFrom ? minuteOf(b.mixFrom, date) : minuteOf(b.mixUntil, date);
+    const to = minuteOf(b.mixUntil, date);
+    timeline.push({
+      formula: b.formula, label: b.batches > 1 ? `${b.name} (${b.batch}/${b.batches})` : b.name,
+      step: b.kind === 'soaker' ? 'soak' : 'build', order: null, mixNumber: null,
+      start: b.mixFrom ?? b.mixUntil, end: b.mixUntil, startMinute: from, endMinute: to, minutes: to - from, window: true,
+      ...(b.holdTemperature !== null ? { temperature: b.holdTemperature } : {}),
+    });
+  }
+  timeline.sort((a, b) => a.startMinute - b.startMinute || a.endMinute - b.endMinute || a.label.localeCompare(b.label));
+
+  // ---- mixes ---------------------------------------------------------------------------------
+  const mixes: SheetMix[] = planned.map((p) => {
+    const f = p.formula;
+    const kindOf = (name: string): IngredientKind => lookupIngredient(catalog, name).kind;
+    const ingredients: SheetLine[] = p.scaled.finalDough.map((l) => ({
+      ingredient: l.ingredient,
+      grams: l.grams,
+      kind: l.source === 'ingredient' ? kindOf(l.ingredient) : l.source,
+    }));
+    const water = sum(ingredients.filter((l) => l.kind === 'water').map((l) => l.grams));
+    let waterTemperature: number | null = null;
+    let factors: SheetMix['factors'] = null;
+    let ice = 0;
+    if (f.doughTemperature !== undefined) {
+      const prefT = f.preferments.map((pf) => plan.conditions.preferment ?? pf.ripenTemperature ?? pf.temperature ?? room);
+      factors = { room, flour: flourT, friction: p.mixer.friction, preferments: prefT, n: 3 + prefT.length };
+      waterTemperature = computeWaterTemperature({ ddt: f.doughTemperature, room, flour: flourT, friction: p.mixer.friction, preferments: prefT }).water;
+      ice = iceFor(water, tapWater, waterTemperature, `${f.id} mix ${p.mixNumber}/${p.of}`, warnings);
+    } else if (p.mixNumber === 1) {
+      warnings.push(`${f.id} has no dough_temperature; its mixes get no water temperature`);
+    }
+    return {
+      formula: f.id, title: f.title, order: p.order, ...(p.o.customer ? { customer: p.o.customer } : {}),
+      mixer: p.mixer.name, mixNumber: p.mixNumber, of: p.of, dough: p.scaled.mixedDough, flour: p.scaled.flour,
+      ingredients, doughTemperature: f.doughTemperature ?? null, factors, waterTemperature,
+      water, ice, tapWater: water - ice, pieces: p.pieces, pieceGrams: p.pieceGrams,
+      start: at(p.mixStart), end: at(p.mixEnd),
+    };
+  });
+  const mixOrder = mixes.map((m, i) => ({ m, start: planned[i].mixStart, i }));
+  mixOrder.sort((a, b) => a.start - b.start || a.i - b.i);
+
+  // ---- the pick list and the per-formula summary -----------------------------------------------
+  const pick = new PickList(catalog);
+  const perFormula = new Map<string, PickList>();
+  const formulaPick = (id: string) => {
+    let l = perFormula.get(id);
+    if (!l) perFormula.set(id, (l = new PickList(catalog)));
+    return l;
+  };
+  for (const p of planned) formulaPick(p.formula.id);
+  for (const b of [...preferments, ...soakers]) for (const l of b.ingredients) pick.add(l.ingredient, l.grams);
+  for (const p of planned) {
+    for (const list of p.scaled.preferments.concat(p.scaled.soakers)) {
+      for (const l of list.ingredients) formulaPick(p.formula.id).add(l.ingredient, l.weigh);
+    }
+  }
+  for (const m of mixes) {
+    for (const l of m.ingredients) {
+      if (l.kind === 'preferment' || l.kind === 'soaker') continue;
+      pick.add(l.ingredient, l.grams);
+      formulaPick(m.formula).add(l.ingredient, l.grams);
+    }
+  }
+
+  const summaries: FormulaSummary[] = [];
+  for (const [id, list] of perFormula) {
+    const ps = planned.filter((p) => p.formula.id === id);
+    const orders = new Set(ps.map((p) => p.order));
+    const ingredients = list.lines();
+    summaries.push({
+      formula: id,
+      title: ps[0].formula.title,
+      orders: orders.size,
+      pieces: sum(ps.map((p) => p.pieces)),
+      dividedDough: sum(ps.map((p) => p.pieces * p.pieceGrams)),
+      mixedDough: sum(ps.map((p) => p.scaled.mixedDough)),
+      mixes: ps.length,
+      mixers: [...new Set(ps.map((p) => p.mixer.name))],
+      weighed: sum(ingredients.map((l) => l.grams)),
+      ingredients,
+    });
+  }
+
+  // ---- cautions --------------------------------------------------------------------------------
+  const used = new Map<string, Formula>();
+  for (const p of planned) used.set(p.formula.id, p.formula);
+  const { allergens, mayContain, cautions } = makeCautions([...used.values()], catalog, mixes, [...preferments, ...soakers], timeline);
+
+  return {
+    date,
+    readyBy: at(readyBy),
+    conditions: plan.conditions,
+    mixers: plan.mixers,
+    ranges: plan.ranges,
+    ...(plan.notes ? { notes: plan.notes } : {}),
+    preferments,
+    soakers,
+    mixes: mixOrder.map((x) => x.m),
+    timeline,
+    totals: pick.lines(),
+    formulas: summaries,
+    allergens,
+    mayContain,
+    cautions,
+    warnings,
+  };
+}
+
+function scaleOrThrow(f: Formula, catalog: Catalog, target: Parameters<typeof scaleFormula>[2], order: number): ScaleResult {
+  try {
+    return scaleFormula(f, catalog, target);
+  } catch (e) {
+    if (e instanceof ScaleError) throw new SheetError(`order ${order + 1} (${f.id}): ${e.message}`);
+    throw e;
+  }
+}
+
+function chooseMixer(mixers: Mixer[], o: Order, dough: number, order: number): Mixer {
+  if (o.mixer !== undefined) {
+    const m = mixers.find((x) => x.name === o.mixer);
+    if (!m) {
+      throw new SheetError(`order ${order + 1} (${o.formula}) asks for mixer "${o.mixer}", which the plan does not list; mixers: ${mixers.map((x) => x.name).join(', ')}`);
+    }
+    return m;
+  }
+  const fits = mixers.find((m) => dough <= m.capacityGrams * (1 + EPSILON) && (m.minimumGrams === undefined || dough >= m.minimumGrams * (1 - EPSILON)));
+  if (fits) return fits;
+  return mixers.reduce((big, m) => (m.capacityGrams > big.capacityGrams ? m : big), mixers[0]);
+}
+
+function grams(g: number): string {
+  return g >= 1000 ? `${(g / 1000).toFixed(2)} kg` : `${g.toFixed(1)} g`;
+}
+
+function iceFor(water: number, tap: number, target: number, what: string, warnings: string[]): number {
+  if (target > HOT_WATER_CELSIUS) {
+    warnings.push(`${what}: the water would have to be ${formatTemperature(target)}, hot enough to scald and to harm the yeast; check the conditions, or warm the flour or the room instead`);
+  }
+  if (water <= 0 || target >= tap) return 0;
+  if (target < 0) {
+    warnings.push(`${what}: the water would have to be ${formatTemperature(target)}, colder than ice can make it; cool the flour or the room, or lower the friction (shorter mix)`);
+  }
+  return computeIce(water, tap, Math.max(0, target)).ice;
+}
+
+class PickList {
+  private readonly grams = new Map<string, number[]>();
+  constructor(private readonly catalog: Catalog) {}
+  add(ingredient: string, g: number): void {
+    const list = this.grams.get(ingredient) ?? [];
+    list.push(g);
+    this.grams.set(ingredient, list);
+  }
+  lines(): PickLine[] {
+    const out = [...this.grams].map(([ingredient, gs]) => ({ ingredient, grams: sum(gs), kind: lookupIngredient(this.catalog, ingredient).kind }));
+    const rank = (k: IngredientKind) => INGREDIENT_KINDS.indexOf(k);
+    return out.sort((a, b) => rank(a.kind) - rank(b.kind) || b.grams - a.grams || a.ingredient.localeCompare(b.ingredient));
+  }
+}
+
+// ---- builds ----------------------------------------------------------------------------------
+
+interface Consumer {
+  p: PlannedMix;
+  build: ScaledBuild;
+  index: number;
+}
+
+function makeBuilds(
+  what: 'preferment' | 'soaker',
+  planned: PlannedMix[],
+  catalog: Catalog,
+  conditions: SheetInput['plan']['conditions'],
+  at: (minute: number) => string,
+  warnings: string[],
+): SheetBuild[] {
+  const groups = new Map<string, Consumer[]>();
+  for (const p of planned) {
+    const builds = what === 'preferment' ? p.scaled.preferments : p.scaled.soakers;
+    builds.forEach((build, index) => {
+      const key = buildKey(p.formula, what, index);
+      const list = groups.get(key) ?? [];
+      list.push({ p, build, index });
+      groups.set(key, list);
+    });
+  }
+  const out: SheetBuild[] = [];
+  const noHours = new Set<string>();
+  for (const consumers of groups.values()) {
+    consumers.sort((a, b) => a.p.mixStart - b.p.mixStart);
+    const first = consumers[0];
+    const spec = specOf(first.p.formula, what, first.index);
+    // Greedy batches: a batch takes uses while the spread of their times fits max − min hours.
+    const batches: Consumer[][] = [];
+    const spread = spec.hours ? (spec.hours.max - spec.hours.min) * 60 : Infinity;
+    for (const c of consumers) {
+      const cur = batches[batches.length - 1];
+      if (cur && c.p.mixStart - cur[0].p.mixStart <= spread + EPSILON) cur.push(c);
+      else batches.push([c]);
+    }
+    if (!spec.hours && !noHours.has(first.p.formula.id + spec.name)) {
+      noHours.add(first.p.formula.id + spec.name);
+      warnings.push(`${first.p.formula.id}: ${what === 'preferment' ? 'pre-ferment' : 'soaker'} "${spec.name}" gives no ${what === 'preferment' ? 'ripening' : 'soaking'} hours; mix it before its first use`);
+    }
+    batches.forEach((batch, bi) => {
+      const lines = new Map<string, { grams: number[]; seed: boolean }>();
+      for (const c of batch) {
+        for (const l of c.build.ingredients) {
+          const e = lines.get(l.ingredient) ?? { grams: [], seed: false };
+          e.grams.push(l.weigh);
+          e.seed ||= Boolean(l.seed);
+          lines.set(l.ingredient, e);
+        }
+      }
+      const ingredients: SheetLine[] = [...lines].map(([ingredient, e]) => ({
+        ingredient,
+        grams: sum(e.grams),
+        kind: lookupIngredient(catalog, ingredient).kind,
+        ...(e.seed ? { seed: true } : {}),
+      }));
+      const water = sum(ingredients.filter((l) => l.kind === 'water').map((l) => l.grams));
+      const target = what === 'preferment' ? (spec.temperature ?? spec.holdTemperature) : null;
+      let waterTemperature =
+        target === null ? null : computeWaterTemperature({ ddt: target, room: conditions.room, flour: conditions.flour, friction: 0, preferments: [] }).water;
+      if (waterTemperature !== null && waterTemperature < 0) {
+        // A build that ripens cold (old dough in the cold room, say) cannot come off the mixer that cold.
+        warnings.push(
+          spec.temperature === null
+            ? `${spec.name} (${batch[0].p.formula.id}) ripens at ${formatTemperature(target!)}, colder than water can bring it to; mix it with the coldest tap water and chill it at once`
+            : `${spec.name} (${batch[0].p.formula.id}): the water would have to be ${formatTemperature(waterTemperature)} to reach ${formatTemperature(target!)}, colder than ice can make it; cool the flour or the room`,
+        );
+        waterTemperature = null;
+      }
+      const ice = waterTemperature === null ? 0 : iceFor(water, conditions.tapWater, waterTemperature, `${spec.name} build`, warnings);
+      const firstUse = batch[0].p.mixStart;
+      const lastUse = batch[batch.length - 1].p.mixStart;
+      const uses: BuildUse[] = batch.map((c) => ({ formula: c.p.formula.id, order: c.p.order, mixNumber: c.p.mixNumber, grams: c.build.grams, at: at(c.p.mixStart) }));
+      out.push({
+        formula: batch[0].p.formula.id,
+        formulas: [...new Set(batch.map((c) => c.p.formula.id))],
+        name: spec.name,
+        kind: what === 'soaker' ? 'soaker' : spec.kind,
+        batch: bi + 1,
+        batches: batches.length,
+        grams: sum(batch.map((c) => c.build.grams)),
+        flour: sum(batch.map((c) => c.build.flour)),
+        ingredients,
+        uses,
+        targetTemperature: target,
+        waterTemperature,
+        water,
+        ice,
+        tapWater: water - ice,
+        hours: spec.hours ?? null,
+        holdTemperature: spec.holdTemperature,
+        mixFrom: spec.hours ? at(lastUse - spec.hours.max * 60) : null,
+        mixUntil: at(firstUse - (spec.hours ? spec.hours.min * 60 : 0)),
+        hot: spec.hot,
+        ...(spec.note ? { note: spec.note } : {}),
+      });
+    });
+  }
+  const key = (b: SheetBuild) => b.mixFrom ?? b.mixUntil;
+  return out.sort((a, b) => key(a).localeCompare(key(b)) || a.mixUntil.localeCompare(b.mixUntil));
+}
+
+interface BuildSpec {
+  name: string;
+  kind: Exclude<SheetBuild['kind'], 'soaker'>;
+  hours?: { min: number; max: number };
+  holdTemperature: number | null;
+  temperature: number | null;
+  hot: boolean;
+  note?: string;
+}
+
+function specOf(f: Formula, what: 'preferment' | 'soaker', index: number): BuildSpec {
+  if (what === 'preferment') {
+    const p = f.preferments[index];
+    return { name: p.name, kind: p.kind, hours: p.ripenHours, holdTemperature: p.ripenTemperature ?? null, temperature: p.temperature ?? null, hot: false, note: p.note };
+  }
+  const s = f.soakers[index];
+  return { name: s.name, kind: 'other', hours: s.soakHours, holdTemperature: s.soakTemperature ?? null, temperature: null, hot: Boolean(s.hot), note: s.note };
+}
+
+/** Identical builds share a key: kind, ingredient percentages, hours and temperatures. */
+function buildKey(f: Formula, what: 'preferment' | 'soaker', index: number): string {
+  const spec = specOf(f, what, index);
+  const src = what === 'preferment' ? f.preferments[index].ingredients : f.soakers[index].ingredients;
+  const lines = [...src].sort((a, b) => a.ingredient.localeCompare(b.ingredient)).map((l) => [l.ingredient, l.percent]);
+  // Soakers are percent of the formula's total flour, so identical percentages are the same soaker per gram of flour.
+  return JSON.stringify([what, spec.kind, lines, spec.hours ?? null, spec.holdTemperature, spec.temperature, spec.hot]);
+}
+
+// ---- cautions --------------------------------------------------------------------------------
+
+function makeCautions(
+  used: Formula[],
+  catalog: Catalog,
+  mixes: SheetMix[],
+  builds: SheetBuild[],
+  timeline: TimelineEntry[],
+): { allergens: AllergenCode[]; mayContain: AllergenCode[]; cautions: Caution[] } {
+  const byAllergen = new Map<AllergenCode, Set<string>>();
+  const mayBy = new Map<AllergenCode, Set<string>>();
+  const unlisted = new Set<string>();
+  const note = (map: Map<AllergenCode, Set<string>>, a: AllergenCode, who: string) => {
+    const s = map.get(a) ?? new Set<string>();
+    s.add(who);
+    map.set(a, s);
+  };
+  for (const f of used) {
+    let summary: AllergenSummary;
+    try {
+      summary = allergenSummary(f, catalog);
+    } catch (e) {
+      if (e instanceof AllergenError) throw new SheetError(`${f.id}: ${e.message}`);
+      throw e;
+    }
+    for (const a of summary.codes) note(byAllergen, a, f.title);
+    for (const a of summary.mayContain.codes) note(mayBy, a, f.title);
+    for (const u of summary.unlisted) unlisted.add(u);
+  }
+  const allergens = sortCodes(byAllergen.keys());
+  const mayContain = sortCodes([...mayBy.keys()].filter((a) => !byAllergen.has(a)));
+  const cautions: Caution[] = [];
+  const list = (codes: AllergenCode[], map: Map<AllergenCode, Set<string>>) =>
+    codes.map((a) => `${ALLERGEN_NAMES[a]} (${[...map.get(a)!].join(', ')})`).join('; ');
+  if (allergens.length > 0) {
+    cautions.push({
+      topic: 'allergens',
+      text: `Allergens in today's products: ${list(allergens, byAllergen)}. Keep them apart, clean scales, bowls and benches between products, and label as your local allergen rules require.`,
+    });
+  }
+  if (unlisted.size > 0) {
+    cautions.push({
+      topic: 'allergens',
+      text: `Not in the ingredient catalog, so their allergens are unknown: ${[...unlisted].sort().join(', ')}. Check them before these products are sold.`,
+    });
+  }
+  if (mayContain.length > 0) {
+    cautions.push({ topic: 'may-contain', text: `May contain (cross-contact): ${list(mayContain, mayBy)}.` });
+  }
+  const bakes = timeline.filter((t) => t.step === 'bake');
+  if (bakes.length > 0) {
+    const hottest = Math.max(...bakes.map((b) => b.temperature ?? 0));
+    cautions.push({
+      topic: 'oven',
+      text: `Hot ovens${hottest > 0 ? ` (up to ${formatTemperature(hottest, 'C', 0)})` : ''}: dry oven gloves and long sleeves, peels and trays kept to their places, and a clear path to the racks.`,
+    });
+  }
+  if (bakes.some((b) => b.steam)) {
+    cautions.push({ topic: 'steam', text: 'Steam: stand aside when opening a steamed oven and let the steam clear before reaching in.' });
+  }
+  if (mixes.some((m) => m.ice > 0) || builds.some((b) => b.ice > 0)) {
+    cautions.push({
+      topic: 'ice',
+      text: 'Ice: weigh ice as part of the water (ice + tap water = the water line); use clean food-grade ice and a scoop, never a glass, and wipe up melt water on the floor at once.',
+    });
+  }
+  if (builds.some((b) => b.hot)) {
+    cautions.push({ topic: 'hot-water', text: 'Scalds: boiling water for hot soakers; pour slowly, away from the body, and let the soaker cool before it goes into a dough.' });
+  }
+  if (timeline.some((t) => t.cold) || builds.some((b) => b.holdTemperature !== null && b.holdTemperature < 10)) {
+    cautions.push({ topic: 'cold', text: 'Cold room: check that the door opens from inside before going in, keep the floor dry, and wear a warm layer for long stays.' });
+  }
+  cautions.push({
+    topic: 'food-safety',
+    text: "This sheet supports, and does not replace, your site's food-safety plan and local food-safety and labelling rules; check temperatures, times and allergen controls as they require.",
+  });
+  return { allergens, mayContain, cautions };
+}

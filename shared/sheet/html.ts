@@ -1,0 +1,189 @@
+// The batch sheet as one print-ready HTML page (a string): A4 or Letter through @page, large
+// type, a tick box beside every weight, the timeline drawn as an inline SVG chart and the
+// cautions in a box at the top. Self-contained: no script, no external file; the caller may pass
+// @font-face rules that embed JetBrains Mono (server/print/fonts.ts), else the page names the
+// font and falls back to the system's monospace. Pure; no I/O.
+import { chartModel, colourOf, LEGEND, type ChartModel } from './chart.ts';
+import { presentSheet, type SheetBlock, type SheetSection, type SheetTable } from './present.ts';
+import type { Sheet } from './types.ts';
+
+export type Paper = 'a4' | 'letter';
+
+export interface HtmlOptions {
+  paper?: Paper;
+  /** @font-face CSS for 'JetBrains Mono' (e.g. with data: URLs). */
+  fontFaceCss?: string;
+}
+
+export function escapeHtml(s: string): string {
+  return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+}
+
+const PAGE_SIZE: Record<Paper, string> = { a4: 'A4 portrait', letter: 'letter portrait' };
+
+function css(paper: Paper, fontFaceCss: string): string {
+  return `${fontFaceCss}
+@page { size: ${PAGE_SIZE[paper]}; margin: 12mm 11mm 14mm; }
+:root { --ink: #111; --muted: #444; --rule: #999; }
+* { box-sizing: border-box; }
+html { font-family: 'JetBrains Mono', ui-monospace, 'DejaVu Sans Mono', monospace; font-variant-ligatures: none; color: var(--ink); }
+body { margin: 0 auto; max-width: 190mm; padding: 6mm 0; font-size: 12.5pt; line-height: 1.35; }
+h1 { font-size: 20pt; margin: 0 0 2mm; }
+h2 { font-size: 16pt; margin: 7mm 0 2mm; padding-bottom: 1mm; border-bottom: 0.6mm solid var(--ink); break-after: avoid; }
+h3 { font-size: 13.5pt; margin: 0 0 1mm; }
+ul.sub { list-style: none; margin: 0 0 3mm; padding: 0; color: var(--muted); font-size: 11pt; }
+.block { break-inside: avoid; margin: 0 0 5mm; }
+.block p { margin: 0; font-size: 10.5pt; color: var(--muted); }
+table { border-collapse: collapse; margin-top: 1.5mm; }
+.grid { display: grid; grid-template-columns: 1fr 1fr; column-gap: 8mm; }
+table.weigh { width: 100%; }
+section.totals .grid, section.formulas .grid { display: block; }
+section.totals table.weigh { width: auto; min-width: 120mm; }
+th, td { padding: 1mm 2.5mm; border-bottom: 0.2mm solid #ccc; vertical-align: top; text-align: left; }
+th { font-size: 10pt; color: var(--muted); font-weight: 400; border-bottom: 0.4mm solid var(--ink); }
+td.r, th.r { text-align: right; }
+table.weigh td.r { font-size: 14pt; font-weight: 700; white-space: nowrap; }
+tfoot td { border-top: 0.4mm solid var(--ink); border-bottom: none; font-weight: 700; }
+td.tick { width: 9mm; padding-left: 1mm; }
+.tick span { display: inline-block; width: 5.5mm; height: 5.5mm; border: 0.45mm solid var(--ink); border-radius: 0.6mm; vertical-align: middle; }
+table.timeline { font-size: 9.5pt; width: 100%; }
+table.timeline td { padding: 0.6mm 1.5mm; }
+table.timeline td.time { white-space: nowrap; }
+.box { border: 0.7mm solid var(--ink); border-radius: 2mm; padding: 2.5mm 4mm; margin: 3mm 0; break-inside: avoid; }
+.box h2 { margin-top: 0; border: none; font-size: 14pt; }
+.box ul { margin: 0; padding-left: 5mm; font-size: 10.5pt; }
+.box.warnings { border-style: dashed; }
+figure.chart { margin: 2mm 0 4mm; break-inside: avoid; }
+figure.chart svg { width: 100%; height: auto; display: block; }
+figure.chart figcaption { font-size: 9pt; color: var(--muted); }
+@media screen { body { padding: 8mm; } }
+@media print { h2 { break-after: avoid; } section.timeline-table { break-before: page; } }`;
+}
+
+function table(t: SheetTable, cls: string): string {
+  const tick = t.tick.some(Boolean);
+  const alignCls = (i: number) => (t.align[i] === 'right' ? ' class="r"' : '');
+  const head = `<thead><tr>${t.head.map((h, i) => `<th${alignCls(i)}>${escapeHtml(h)}</th>`).join('')}${tick ? '<th class="r">✓</th>' : ''}</tr></thead>`;
+  const body = t.rows
+    .map(
+      (r, ri) =>
+        `<tr>${r.map((c, i) => `<td${cls === 'timeline' && i < 2 ? ' class="time"' : alignCls(i)}>${escapeHtml(c)}</td>`).join('')}${
+          tick ? `<td class="tick">${t.tick[ri] ? '<span aria-label="tick box"></span>' : ''}</td>` : ''
+        }</tr>`,
+    )
+    .join('');
+  const foot = t.footer ? `<tfoot><tr>${t.footer.map((c, i) => `<td${alignCls(i)}>${escapeHtml(c)}</td>`).join('')}${tick ? '<td></td>' : ''}</tr></tfoot>` : '';
+  return `<table class="${cls}">${head}<tbody>${body}</tbody>${foot}</table>`;
+}
+
+function block(b: SheetBlock, cls: string): string {
+  return `<div class="block">${b.title ? `<h3>${escapeHtml(b.title)}</h3>` : ''}${b.lines.map((l) => `<p>${escapeHtml(l)}</p>`).join('')}${b.table ? table(b.table, cls) : ''}</div>`;
+}
+
+function section(s: SheetSection): string {
+  const cls = s.key === 'timeline' ? 'timeline' : s.key === 'formulas' ? 'summary' : 'weigh';
+  const blocks = s.blocks.map((b) => block(b, cls)).join('');
+  return `<section class="${s.key}${s.key === 'timeline' ? ' timeline-table' : ''}"><h2>${escapeHtml(s.title)}</h2>${cls === 'weigh' ? `<div class="grid">${blocks}</div>` : blocks}</section>`;
+}
+
+function box(s: SheetSection | undefined, cls: string): string {
+  if (!s) return '';
+  return `<section class="box ${cls}"><h2>${escapeHtml(s.title)}</h2><ul>${s.blocks.flatMap((b) => b.lines).map((l) => `<li>${escapeHtml(l)}</li>`).join('')}</ul></section>`;
+}
+
+/** The timeline chart as SVG: rows of bars, hour ticks, a line at the first bake out. */
+export function timelineSvg(m: ChartModel): string {
+  const W = 760;
+  const labelW = 190;
+  const rowH = 15;
+  const top = 32;
+  const legendH = 20;
+  const H = top + m.rows.length * rowH + 8 + legendH;
+  const span = Math.max(1, m.to - m.from);
+  const x = (minute: number) => labelW + ((Math.min(Math.max(minute, m.from), m.to) - m.from) / span) * (W - labelW - 6);
+  const out: string[] = [];
+  out.push(`<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${W} ${H}" role="img" aria-label="Timeline chart" font-family="'JetBrains Mono', ui-monospace, monospace">`);
+  for (const t of m.ticks) {
+    const tx = x(t.minute).toFixed(1);
+    out.push(`<line x1="${tx}" y1="${top - 4}" x2="${tx}" y2="${top + m.rows.length * rowH}" stroke="#ccc" stroke-width="0.6"/>`);
+    out.push(`<text x="${tx}" y="${top - 7}" font-size="9" text-anchor="middle" fill="#333">${escapeHtml(t.label)}</text>`);
+    if (t.day) out.push(`<text x="${tx}" y="${top - 18}" font-size="9" font-weight="700" text-anchor="middle" fill="#111">${escapeHtml(t.day)}</text>`);
+  }
+  m.rows.forEach((row, i) => {
+    const y = top + i * rowH;
+    if (i % 2 === 1) out.push(`<rect x="0" y="${y}" width="${W}" height="${rowH}" fill="#f3f3f3"/>`);
+    out.push(`<text x="4" y="${y + rowH - 4}" font-size="9.5" fill="#111">${escapeHtml(truncate(row.label, 30))}</text>`);
+    for (const b of row.bars) {
+      if (b.to < m.from || b.from > m.to) continue;
+      const x1 = x(b.from);
+      const w = Math.max(b.to > b.from ? 1.5 : 0, x(b.to) - x1);
+      if (w === 0) {
+        out.push(`<line x1="${x1.toFixed(1)}" y1="${y + 2}" x2="${x1.toFixed(1)}" y2="${y + rowH - 2}" stroke="${colourOf(b.step)}" stroke-width="1.4"/>`);
+        continue;
+      }
+      const dash = b.window ? ' stroke-dasharray="3 2"' : '';
+      out.push(
+        `<rect x="${x1.toFixed(1)}" y="${y + 2.5}" width="${w.toFixed(1)}" height="${rowH - 5}" fill="${colourOf(b.step)}" stroke="#333" stroke-width="0.5"${dash}><title>${escapeHtml(b.step)}</title></rect>`,
+      );
+      for (const f of b.folds) {
+        const fx = x(f).toFixed(1);
+        out.push(`<path d="M${fx} ${y + 1} l-2.5 -0 l2.5 4 l2.5 -4 z" fill="#111"/>`);
+      }
+    }
+  });
+  if (m.readyBy >= m.from && m.readyBy <= m.to) {
+    const rx = x(m.readyBy).toFixed(1);
+    out.push(`<line x1="${rx}" y1="${top - 4}" x2="${rx}" y2="${top + m.rows.length * rowH}" stroke="#cc0000" stroke-width="1.2" stroke-dasharray="4 2"/>`);
+  }
+  const ly = top + m.rows.length * rowH + 8;
+  let lx = 4;
+  for (const step of LEGEND) {
+    out.push(`<rect x="${lx}" y="${ly}" width="12" height="9" fill="${colourOf(step)}" stroke="#333" stroke-width="0.5"/>`);
+    out.push(`<text x="${lx + 15}" y="${ly + 8}" font-size="9" fill="#111">${step}</text>`);
+    lx += 20 + step.length * 6.2;
+  }
+  out.push(`<path d="M${lx + 6} ${ly} l-3 0 l3 5 l3 -5 z" fill="#111"/><text x="${lx + 13}" y="${ly + 8}" font-size="9" fill="#111">fold</text>`);
+  lx += 50;
+  out.push(`<line x1="${lx}" y1="${ly - 1}" x2="${lx}" y2="${ly + 10}" stroke="#cc0000" stroke-width="1.2" stroke-dasharray="4 2"/><text x="${lx + 5}" y="${ly + 8}" font-size="9" fill="#111">first bake out</text>`);
+  out.push('</svg>');
+  return out.join('');
+}
+
+function truncate(s: string, n: number): string {
+  return s.length <= n ? s : `${s.slice(0, n - 1)}…`;
+}
+
+export function renderSheetHtml(sheet: Sheet, options: HtmlOptions = {}): string {
+  const p = presentSheet(sheet);
+  const paper = options.paper ?? 'a4';
+  const byKey = (k: SheetSection['key']) => p.sections.find((s) => s.key === k);
+  const model = chartModel(sheet);
+  const body: string[] = [];
+  body.push(`<header><h1>${escapeHtml(p.title)}</h1><ul class="sub">${p.subtitle.map((s) => `<li>${escapeHtml(s)}</li>`).join('')}</ul></header>`);
+  body.push(box(byKey('cautions'), 'cautions'));
+  body.push(box(byKey('warnings'), 'warnings'));
+  body.push(
+    `<section class="chart"><h2>Timeline</h2><figure class="chart">${timelineSvg(model)}<figcaption>Bars are steps; dashed bars are windows to mix a build in; the red dashed line is the first bake out.${
+      model.clipped ? ' Cooling after the last bake runs past the right edge.' : ''
+    }</figcaption></figure></section>`,
+  );
+  for (const s of p.sections) {
+    if (s.key === 'cautions' || s.key === 'warnings') continue;
+    body.push(section(s));
+  }
+  return `<!doctype html>
+<html lang="en">
+<head>
+<meta charset="utf-8">
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<title>${escapeHtml(p.title)}</title>
+<style>
+${css(paper, options.fontFaceCss ?? '')}
+</style>
+</head>
+<body>
+${body.join('\n')}
+</body>
+</html>
+`;
+}

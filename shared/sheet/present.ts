@@ -1,0 +1,197 @@
+// The sheet as the bench reads it: sections of headed tables with rounded weights, shared by
+// the text, HTML and PDF renderers so that every format shows the same figures. Rounding happens
+// here (units.ts formatGrams) and nowhere earlier. Pure; no I/O.
+import { sum } from '../scale.ts';
+import { formatGrams, formatTemperature } from '../units.ts';
+import { shortTime } from './time.ts';
+import type { Sheet, SheetBuild, SheetMix } from './types.ts';
+
+export type Align = 'left' | 'right';
+
+export interface SheetTable {
+  head: string[];
+  rows: string[][];
+  align: Align[];
+  /** Rows with a weight to weigh: the renderers put a tick box beside them. */
+  tick: boolean[];
+  footer?: string[];
+}
+
+export interface SheetBlock {
+  title: string;
+  /** Short facts under the title: times, temperatures, what to divide. */
+  lines: string[];
+  table?: SheetTable;
+}
+
+export type SectionKey = 'preferments' | 'soakers' | 'mixes' | 'timeline' | 'totals' | 'formulas' | 'cautions' | 'warnings';
+
+export interface SheetSection {
+  key: SectionKey;
+  title: string;
+  blocks: SheetBlock[];
+}
+
+export interface PresentedSheet {
+  title: string;
+  subtitle: string[];
+  sections: SheetSection[];
+}
+
+const WEEKDAYS = ['Sunday', 'Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday'];
+const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
+
+/** "Thursday 3 December 2026". */
+export function longDate(date: string): string {
+  const [y, m, d] = date.split('-').map(Number);
+  const weekday = new Date(Date.UTC(y, m - 1, d)).getUTCDay();
+  return `${WEEKDAYS[weekday]} ${d} ${MONTHS[m - 1]} ${y}`;
+}
+
+const g = (grams: number) => formatGrams(grams);
+const t = (celsius: number) => formatTemperature(celsius);
+
+/** "03:32–03:42", or "2 Dec 11:47–11:55" off the plan's date. */
+export function span(from: string, to: string, planDate: string): string {
+  const a = shortTime(from, planDate);
+  return from.slice(0, 10) === to.slice(0, 10) ? `${a}–${to.slice(11, 16)}` : `${a}–${shortTime(to, planDate)}`;
+}
+
+function hoursText(h: { min: number; max: number }): string {
+  return h.min === h.max ? `${h.min} h` : `${h.min}–${h.max} h`;
+}
+
+function buildBlock(b: SheetBuild, sheet: Sheet): SheetBlock {
+  const when = (x: string) => shortTime(x, sheet.date);
+  const lines: string[] = [];
+  const forWhom = b.formulas.length > 1 ? `combined for ${b.formulas.join(' + ')}` : `for ${b.formula}`;
+  lines.push(`${forWhom}${b.batches > 1 ? `, batch ${b.batch} of ${b.batches}` : ''}`);
+  lines.push(b.mixFrom ? `mix between ${when(b.mixFrom)} and ${when(b.mixUntil)}` : `mix before ${when(b.mixUntil)}`);
+  const hold = [b.hours ? hoursText(b.hours) : null, b.holdTemperature !== null ? `at ${t(b.holdTemperature)}` : null].filter(Boolean).join(' ');
+  if (hold) lines.push(`${b.kind === 'soaker' ? 'soak' : 'ripen'} ${hold}`);
+  if (b.waterTemperature !== null) lines.push(`water at ${t(b.waterTemperature)}${b.targetTemperature !== null ? ` for a build at ${t(b.targetTemperature)}` : ''}`);
+  if (b.hot) lines.push('made with boiling water: pour with care');
+  lines.push(`used at ${b.uses.map((u) => `${when(u.at)} (${u.formula} ${u.mixNumber}, ${g(u.grams)})`).join('; ')}`);
+  if (b.note) lines.push(b.note);
+  const rows: string[][] = [];
+  const tick: boolean[] = [];
+  for (const l of b.ingredients) {
+    rows.push([l.seed ? `${l.ingredient} (seed)` : l.ingredient, g(l.grams)]);
+    tick.push(true);
+    if (l.kind === 'water' && b.ice > 0) addIceRows(rows, tick, b.ice, b.tapWater, sheet.conditions.tapWater);
+  }
+  return {
+    title: `${b.name} · ${g(b.grams)}`,
+    lines,
+    table: { head: ['ingredient', 'weigh'], rows, align: ['left', 'right'], tick, footer: ['build', g(b.grams)] },
+  };
+}
+
+function addIceRows(rows: string[][], tick: boolean[], ice: number, tapWater: number, tapT: number): void {
+  rows.push(['  as ice', g(ice)]);
+  tick.push(true);
+  rows.push([`  as tap water (${t(tapT)})`, g(tapWater)]);
+  tick.push(true);
+}
+
+function mixBlock(m: SheetMix, sheet: Sheet): SheetBlock {
+  const lines: string[] = [];
+  lines.push(`${m.mixer} · mix at ${span(m.start, m.end, sheet.date)}${m.customer ? ` · for ${m.customer}` : ''}`);
+  if (m.waterTemperature !== null && m.doughTemperature !== null) {
+    const f = m.factors!;
+    const pre = f.preferments.map((x) => ` − pre-ferment ${t(x)}`).join('');
+    lines.push(
+      `water at ${t(m.waterTemperature)} for dough at ${t(m.doughTemperature)} (${f.n} × ${t(m.doughTemperature)} − room ${t(f.room)} − flour ${t(f.flour)}${pre} − friction ${t(f.friction)})`,
+    );
+  }
+  if (m.ice > 0) lines.push(`ice ${g(m.ice)} + tap water ${g(m.tapWater)} = water ${g(m.water)}`);
+  lines.push(`divide ${m.pieces} × ${g(m.pieceGrams)}`);
+  const rows: string[][] = [];
+  const tick: boolean[] = [];
+  for (const l of m.ingredients) {
+    const name = l.kind === 'preferment' ? `${l.ingredient} (pre-ferment)` : l.kind === 'soaker' ? `${l.ingredient} (soaker)` : l.ingredient;
+    rows.push([name, g(l.grams)]);
+    tick.push(true);
+    if (l.kind === 'water' && m.ice > 0) addIceRows(rows, tick, m.ice, m.tapWater, sheet.conditions.tapWater);
+  }
+  return {
+    title: `${m.title} · mix ${m.mixNumber} of ${m.of} · ${g(m.dough)}`,
+    lines,
+    table: { head: ['ingredient', 'weigh'], rows, align: ['left', 'right'], tick, footer: ['dough', g(m.dough)] },
+  };
+}
+
+export function presentSheet(sheet: Sheet): PresentedSheet {
+  const when = (x: string) => shortTime(x, sheet.date);
+  const c = sheet.conditions;
+  const subtitle = [
+    `first bake out of the oven at ${when(sheet.readyBy)}`,
+    `room ${t(c.room)} · flour ${t(c.flour)} · tap water ${t(c.tapWater)}${c.preferment !== undefined ? ` · pre-ferments ${t(c.preferment)}` : ''}`,
+    `mixers: ${sheet.mixers.map((m) => `${m.name} ${g(m.capacityGrams)}${m.minimumGrams !== undefined ? ` (min ${g(m.minimumGrams)})` : ''}, friction ${t(m.friction)}`).join(' · ')}`,
+  ];
+  if (sheet.ranges !== 'mid') subtitle.push(`step ranges: ${sheet.ranges} end`);
+  if (sheet.notes) subtitle.push(sheet.notes);
+
+  const sections: SheetSection[] = [];
+  if (sheet.preferments.length > 0) {
+    sections.push({ key: 'preferments', title: 'Pre-ferments to build', blocks: sheet.preferments.map((b) => buildBlock(b, sheet)) });
+  }
+  if (sheet.soakers.length > 0) {
+    sections.push({ key: 'soakers', title: 'Soakers', blocks: sheet.soakers.map((b) => buildBlock(b, sheet)) });
+  }
+  sections.push({ key: 'mixes', title: 'Mixes', blocks: sheet.mixes.map((m) => mixBlock(m, sheet)) });
+
+  const timelineRows = sheet.timeline.map((e) => {
+    const what: string[] = [];
+    if (e.window) what.push(e.step === 'soak' ? 'soak: mix within this window' : 'build: mix within this window');
+    if (e.resource === 'oven' && e.temperature !== undefined) what.push(t(e.temperature));
+    else if (e.temperature !== undefined) what.push(`at ${t(e.temperature)}`);
+    if (e.cold) what.push('cold');
+    if (e.steam) what.push('steam');
+    if (e.resource?.startsWith('mixer:')) what.push(e.resource.slice('mixer:'.length));
+    if (e.folds && e.folds.length > 0) what.push(`fold at ${e.folds.map(when).join(', ')}`);
+    if (e.note) what.push(e.note);
+    return [when(e.start), when(e.end), e.step, e.label, what.join('; ')];
+  });
+  sections.push({
+    key: 'timeline',
+    title: 'Timeline',
+    blocks: [{ title: '', lines: [], table: { head: ['start', 'end', 'step', 'what', 'notes'], rows: timelineRows, align: ['left', 'left', 'left', 'left', 'left'], tick: timelineRows.map(() => false) } }],
+  });
+
+  const totalRows = sheet.totals.map((l) => [l.ingredient, l.kind, g(l.grams)]);
+  sections.push({
+    key: 'totals',
+    title: 'Pick list',
+    blocks: [
+      {
+        title: '',
+        lines: ['everything weighed today: builds and mixes, seed cultures included'],
+        table: { head: ['ingredient', 'kind', 'total'], rows: totalRows, align: ['left', 'left', 'right'], tick: totalRows.map(() => true), footer: ['all', '', g(sum(sheet.totals.map((l) => l.grams)))] },
+      },
+    ],
+  });
+
+  const formulaRows = sheet.formulas.map((f) => [f.title, String(f.pieces), String(f.mixes), f.mixers.join(', '), g(f.dividedDough), g(f.mixedDough)]);
+  sections.push({
+    key: 'formulas',
+    title: 'Per product',
+    blocks: [
+      {
+        title: '',
+        lines: [],
+        table: {
+          head: ['product', 'pieces', 'mixes', 'mixer', 'divided', 'mixed'],
+          rows: formulaRows,
+          align: ['left', 'right', 'right', 'left', 'right', 'right'],
+          tick: formulaRows.map(() => false),
+          footer: ['all', String(sum(sheet.formulas.map((f) => f.pieces))), String(sheet.mixes.length), '', g(sum(sheet.formulas.map((f) => f.dividedDough))), g(sum(sheet.formulas.map((f) => f.mixedDough)))],
+        },
+      },
+    ],
+  });
+  sections.push({ key: 'cautions', title: 'Cautions', blocks: [{ title: '', lines: sheet.cautions.map((x) => x.text) }] });
+  if (sheet.warnings.length > 0) sections.push({ key: 'warnings', title: 'Check before you start', blocks: [{ title: '', lines: sheet.warnings }] });
+
+  return { title: `Batch sheet · ${longDate(sheet.date)}`, subtitle, sections };
+}

@@ -1,0 +1,203 @@
+// The batch sheet as data: what `panform sheet --format json` prints and what the viewer and the
+// HTML/PDF renderers draw. The JSON keys are a contract (README "Batch sheets"); weights are grams,
+// unrounded; temperatures °C; times are local date-times "YYYY-MM-DDTHH:MM" on the plan's clock.
+import type { AllergenCode, IngredientKind, PrefermentKind, StepKind } from '../schema/shapes.ts';
+import type { Catalog, Formula, Plan } from '../model.ts';
+import type { NumberRange, RangePick } from '../units.ts';
+
+/** A local date-time without a zone, e.g. "2026-12-03T04:10". */
+export type LocalDateTime = string;
+
+export interface SheetInput {
+  plan: Plan;
+  /** Every formula the plan's orders name, by id. */
+  formulas: Record<string, Formula>;
+  catalog: Catalog;
+}
+
+/** What a line is: a catalog kind, or a build that goes into the final dough as one line. */
+export type LineKind = IngredientKind | 'preferment' | 'soaker';
+
+export interface SheetLine {
+  ingredient: string;
+  /** What to weigh, g. */
+  grams: number;
+  kind: LineKind;
+  /** A mature culture that seeds a levain build; its flour and water are inside the build's lines. */
+  seed?: boolean;
+}
+
+/** One mix that takes part of a build. */
+export interface BuildUse {
+  formula: string;
+  /** Index of the order in the plan. */
+  order: number;
+  mixNumber: number;
+  grams: number;
+  /** When that final mix starts: the build must be ripe then. */
+  at: LocalDateTime;
+}
+
+/** A pre-ferment or soaker to make tonight. */
+export interface SheetBuild {
+  /** The first formula that uses it; `formulas` lists all when identical builds are combined. */
+  formula: string;
+  formulas: string[];
+  name: string;
+  kind: PrefermentKind | 'soaker';
+  /** 1-based; a build is made in more than one batch when its uses are too far apart to be ripe for all. */
+  batch: number;
+  batches: number;
+  /** Whole build, g. */
+  grams: number;
+  /** Flour in the build (seed flour included), g. */
+  flour: number;
+  ingredients: SheetLine[];
+  uses: BuildUse[];
+  /** °C the build should come off the mixer at (its `temperature`, else its ripening temperature). */
+  targetTemperature: number | null;
+  /** °C; n = 3 (room, flour, water) with no friction. Null when the formula gives no target. */
+  waterTemperature: number | null;
+  /** Water lines of the build, g; split into ice and tap water when the water must be colder than the tap. */
+  water: number;
+  ice: number;
+  tapWater: number;
+  /** Ripening (pre-ferment) or soaking (soaker) hours, from the formula. */
+  hours: NumberRange | null;
+  /** °C to ripen or soak at. */
+  holdTemperature: number | null;
+  /** Mix it no earlier than this (ripe at most `hours.max` at its last use); null without hours. */
+  mixFrom: LocalDateTime | null;
+  /** Mix it no later than this (ripe at least `hours.min` at its first use). */
+  mixUntil: LocalDateTime;
+  /** A scald: made with boiling water. */
+  hot: boolean;
+  note?: string;
+}
+
+export interface TemperatureFactors {
+  room: number;
+  flour: number;
+  friction: number;
+  /** One per pre-ferment in the dough, °C. */
+  preferments: number[];
+  /** 3 + the number of pre-ferments. */
+  n: number;
+}
+
+export interface SheetMix {
+  formula: string;
+  title: string;
+  /** Index of the order in the plan. */
+  order: number;
+  customer?: string;
+  mixer: string;
+  mixNumber: number;
+  /** How many equal mixes the order is split into. */
+  of: number;
+  /** Mixed dough of this mix, g. */
+  dough: number;
+  flour: number;
+  /** Final-dough lines: ingredients to weigh, and each pre-ferment and soaker as one line. */
+  ingredients: SheetLine[];
+  /** °C the dough should come off the mixer at; null when the formula has none. */
+  doughTemperature: number | null;
+  factors: TemperatureFactors | null;
+  /** °C for all the water of this mix (ice and tap water together); null without a dough temperature. */
+  waterTemperature: number | null;
+  water: number;
+  ice: number;
+  tapWater: number;
+  /** Whole pieces to divide from this mix, and their weight. */
+  pieces: number;
+  pieceGrams: number;
+  start: LocalDateTime;
+  end: LocalDateTime;
+}
+
+export type TimelineStep = StepKind | 'build' | 'soak';
+
+export interface TimelineEntry {
+  formula: string;
+  /** For builds: the build's name; for mixes: "<title> <n>/<of>". */
+  label: string;
+  step: TimelineStep;
+  /** Order index and mix number; null for builds. */
+  order: number | null;
+  mixNumber: number | null;
+  start: LocalDateTime;
+  end: LocalDateTime;
+  /** Minutes from the plan date's midnight (negative: the evening before). */
+  startMinute: number;
+  endMinute: number;
+  minutes: number;
+  /** "mixer:<name>" or "oven" when the step holds one. */
+  resource?: string;
+  /** Fold times during this step. */
+  folds?: LocalDateTime[];
+  /** °C for bakes and cold holds. */
+  temperature?: number;
+  /** A window to do the step in (builds), not a fixed slot. */
+  window?: boolean;
+  cold?: boolean;
+  steam?: boolean;
+  note?: string;
+}
+
+export interface PickLine {
+  ingredient: string;
+  grams: number;
+  kind: IngredientKind;
+}
+
+export interface FormulaSummary {
+  formula: string;
+  title: string;
+  orders: number;
+  pieces: number;
+  dividedDough: number;
+  mixedDough: number;
+  mixes: number;
+  mixers: string[];
+  /** Everything weighed for it: its share of builds and its final-dough lines, g (= mixedDough). */
+  weighed: number;
+  /** Ingredient → grams across its builds and mixes (seed culture included). */
+  ingredients: PickLine[];
+}
+
+export type CautionTopic = 'allergens' | 'may-contain' | 'oven' | 'steam' | 'ice' | 'hot-water' | 'cold' | 'food-safety';
+
+export interface Caution {
+  topic: CautionTopic;
+  text: string;
+}
+
+export interface Sheet {
+  date: string;
+  readyBy: LocalDateTime;
+  conditions: Plan['conditions'];
+  mixers: Plan['mixers'];
+  ranges: RangePick;
+  notes?: string;
+  preferments: SheetBuild[];
+  soakers: SheetBuild[];
+  mixes: SheetMix[];
+  timeline: TimelineEntry[];
+  totals: PickLine[];
+  formulas: FormulaSummary[];
+  allergens: AllergenCode[];
+  mayContain: AllergenCode[];
+  cautions: Caution[];
+  /** Things the baker should look at that do not stop the sheet. */
+  warnings: string[];
+}
+
+/** The plan cannot be turned into a sheet: the message says why and what to change. */
+export class SheetError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'SheetError';
+  }
+}
+
+export type { Catalog, Formula, Plan };

@@ -2,8 +2,8 @@
 //
 // Order. Ingredients are listed in descending order of weight as used: the overall formula, with
 // the pre-ferments' and soakers' ingredients merged into it (they are overall lines already). A
-// levain's seed culture counts as flour and water (README "Arithmetic"); when it is fed with a
-// flour that the formula does not otherwise use, that flour is listed with the seed's share.
+// levain's seed culture counts as flour and water (README "Arithmetic"); when the build has no line
+// of the flour the culture is fed with, the seed's flour is moved from the build's flour to that flour.
 // Lines with the same name on the statement (two flours both labelled "wheat flour") are one entry.
 //
 // Water. EU: Regulation (EU) No 1169/2011 Annex VII Part A ranks added water by its weight in the
@@ -282,14 +282,14 @@ function weightsAsUsed(formula: Formula, catalog: Catalog): Map<string, number> 
     for (const l of p.ingredients) {
       if (!l.seed) continue;
       const item = lookupIngredient(catalog, l.ingredient);
-      if (!item.fedWith || grams.has(item.fedWith)) continue;
+      if (!item.fedWith || p.ingredients.some((x) => !x.seed && x.ingredient === item.fedWith)) continue;
       // scale.ts counted the seed's flour in the build's first flour line; move it to the flour it really is.
       const flourLine = p.ingredients.find((x) => !x.seed && lookupIngredient(catalog, x.ingredient).kind === 'flour');
       if (!flourLine) continue;
       const h = item.hydration ?? 100;
       const seedFlour = (l.grams * 100) / (100 + h);
       grams.set(flourLine.ingredient, (grams.get(flourLine.ingredient) ?? 0) - seedFlour);
-      grams.set(item.fedWith, seedFlour);
+      grams.set(item.fedWith, (grams.get(item.fedWith) ?? 0) + seedFlour);
     }
   }
   return grams;

@@ -75,6 +75,18 @@ describe('ingredientStatement: order', () => {
     expect(s.text).toContain('RYE flour');
   });
 
+  it('counts a seed culture\'s flour as the flour it is fed with when the build uses another', () => {
+    // F = 1000 g: bread flour 800, rye flour 200, water 700, salt 18 = 1718 g mixed. The levain (20 % = 200 g of
+    // bread flour) is seeded with 40 g of rye culture at 100 %: 20 g of its flour is rye, so wheat 780 g, rye 220 g (hand-worked).
+    const f = makeFormula({ 'bread flour': 80, 'rye flour': 20 }, { water: 70, 'fine salt': 1.8 }, {
+      preferments: [{ name: 'levain', kind: 'levain', share: '20 %', ingredients: { 'bread flour': 100, water: 100, 'rye culture': 20 } }],
+    });
+    const s = ingredientStatement(f, catalog, { rules: 'eu' });
+    expect(labels(s.main)).toEqual(['wheat flour', 'water', 'rye flour']);
+    expect(s.main[0].share).toBeCloseTo((780 / 1718) * 100, 9);
+    expect(s.main[2].share).toBeCloseTo((220 / 1718) * 100, 9);
+  });
+
   it('ranks water by what is left after the bake loss under EU rules, and by the weight added under US rules', () => {
     // F = 1000 g: flour 1000, water 300, whole milk 280, butter 100, salt 20 = 1700 g mixed.
     // Bake loss 10 % = 170 g, taken as water: water 130 g of 1530 g baked = 8.50 %; milk 280 / 1530 = 18.30 % (hand-worked)

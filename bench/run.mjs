@@ -1,0 +1,507 @@
+// `npm run bench`: Panform's speed figures, measured side by side in one run, with the targets
+// from the issues. Prints a table and writes bench/results.json.
+//
+//   npm run bench                       everything (about 3 minutes on 2 cores)
+//   npm run bench -- --quick            fewer runs, shorter loads, no 30 s soak
+//   npm run bench -- --only cli,sheet   some groups: cli sheet load api bundle render soak
+//   npm run bench -- --runs 25 --api-seconds 10 --no-soak --no-build
+//   npm run bench -- --strict           exit 1 when a figure misses its target
+//
+// Everything runs on the loopback interface, in a temporary folder that is removed at the end;
+// every process the bench starts is stopped, also on Ctrl-C.
+import { existsSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { cpus, tmpdir, totalmem } from 'node:os';
+import { join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { answers, cleanupAll, freePort, memoryOf, onCleanup, startChild, timedRun } from './lib/proc.mjs';
+import { median, ms, seconds, ratio, kb, mb, rps } from './lib/stats.mjs';
+import { writeBigPlan, writeManyFormulas } from './lib/fixtures.mjs';
+import { measureInitialJs } from './lib/bundle.mjs';
+import { measureRender, renderUnavailable } from './lib/render.mjs';
+
+const ROOT = resolve(fileURLToPath(new URL('..', import.meta.url)));
+process.chdir(ROOT);
+const NODE = process.execPath;
+const PANFORM = join(ROOT, 'bin', 'panform.js');
+const GROUPS = ['cli', 'sheet', 'load', 'api', 'bundle', 'render', 'soak'];
+
+// ---- options ------------------------------------------------------------------------------
+function readOptions(argv) {
+  const flag = (name) => argv.includes(`--${name}`);
+  const value = (name, fallback) => {
+    const i = argv.findIndex((a) => a === `--${name}` || a.startsWith(`--${name}=`));
+    if (i < 0) return fallback;
+    const v = argv[i].includes('=') ? argv[i].split('=').slice(1).join('=') : argv[i + 1];
+    return v ?? fallback;
+  };
+  const quick = flag('quick');
+  const only = value('only', null);
+  const groups = only ? only.split(',').map((s) => s.trim()) : GROUPS.filter((g) => g !== 'soak' || !quick);
+  for (const g of groups) if (!GROUPS.includes(g)) throw new Error(`unknown group "${g}"; choose from ${GROUPS.join(', ')}`);
+  if (flag('no-soak') && groups.includes('soak')) groups.splice(groups.indexOf('soak'), 1);
+  if (flag('soak') && !groups.includes('soak')) groups.push('soak');
+  const num = (name, fallback) => {
+    const n = Number(value(name, fallback));
+    if (!(n > 0)) throw new Error(`--${name} must be a positive number`);
+    return n;
+  };
+  return {
+    groups: new Set(groups),
+    runs: num('runs', quick ? 5 : 15),
+    loadRuns: num('load-runs', quick ? 1 : 3),
+    apiSeconds: num('api-seconds', quick ? 2 : 5),
+    renderRuns: num('render-runs', quick ? 3 : 5),
+    soakSeconds: num('soak-seconds', 30),
+    soakClients: num('soak-clients', 200),
+    build: !flag('no-build'),
+    strict: flag('strict'),
+    help: flag('help') || flag('h'),
+  };
+}
+
+// ---- results ------------------------------------------------------------------------------
+/** @type {{ id: string, figure: string, value: string, target: string, pass: boolean | null, data?: unknown }[]} */
+const rows = [];
+const raw = {};
+
+function row(id, figure, value, target, pass, data) {
+  rows.push({ id, figure, value, target, pass, ...(data === undefined ? {} : { data }) });
+  const mark = pass === null ? '' : pass ? 'pass' : 'FAIL';
+  process.stderr.write(`  ${figure}: ${value}${target ? ` (target ${target})` : ''} ${mark}\n`);
+}
+function unavailable(id, figure, target, reason) {
+  rows.push({ id, figure, value: `not available: ${reason}`, target, pass: null });
+  process.stderr.write(`  ${figure}: not available: ${reason}\n`);
+}
+function failed(id, figure, target, error) {
+  const message = String(error?.message ?? error).split('\n')[0];
+  rows.push({ id, figure, value: `error: ${message}`, target, pass: false, data: { error: String(error?.message ?? error).slice(0, 4000) } });
+  process.stderr.write(`  ${figure}: error: ${String(error?.message ?? error).slice(0, 2000)}\n`);
+}
+
+/** A command module that still answers "not built yet". */
+const PLACEHOLDER = /is not built yet/;
+
+// ---- build --------------------------------------------------------------------------------
+function newestMtime(paths) {
+  let newest = 0;
+  const walk = (p) => {
+    if (!existsSync(p)) return;
+    const st = statSync(p);
+    if (st.isDirectory()) {
+      for (const f of readdirSync(p)) if (f !== 'node_modules') walk(join(p, f));
+    } else newest = Math.max(newest, st.mtimeMs);
+  };
+  for (const p of paths) walk(p);
+  return newest;
+}
+
+function ensureBuilt(opts) {
+  const cliOut = join(ROOT, 'dist', 'cli', 'index.js');
+  const webOut = join(ROOT, 'dist', 'web', 'index.html');
+  const missing = !existsSync(cliOut) || !existsSync(webOut);
+  const built = Math.min(missing ? 0 : statSync(cliOut).mtimeMs, missing ? 0 : statSync(webOut).mtimeMs);
+  const stale = !missing && newestMtime(['cli', 'shared', 'server', 'src', 'drizzle', 'index.html', 'vite.config.ts', 'scripts']) > built;
+  if (!missing && (!stale || !opts.build)) return { rebuilt: false, stale };
+  if (!opts.build && missing) return { rebuilt: false, stale: true, error: 'dist/ is missing and --no-build was given' };
+  process.stderr.write(`bench: ${missing ? 'dist/ is missing' : 'sources changed since the last build'}; running npm run build...\n`);
+  const r = timedRun('npm', ['run', 'build'], { check: false });
+  if (r.status !== 0) return { rebuilt: false, stale: true, error: `npm run build failed:\n${(r.stderr || r.stdout).slice(-2000)}` };
+  return { rebuilt: true, stale: false, ms: r.ms };
+}
+
+// ---- timing of short commands ---------------------------------------------------------------
+/**
+ * Times `node -e 0` and a Panform command alternately, `runs` times each after one warm-up run of
+ * each, and returns both medians and their ratio.
+ */
+function compareWithNodeStart(args, runs, validate) {
+  const warm = timedRun(NODE, [PANFORM, ...args], { check: false });
+  if (warm.status !== 0) {
+    const out = `${warm.stderr}${warm.stdout}`;
+    if (PLACEHOLDER.test(out)) return { unavailable: out.trim().split('\n').pop().replace(/^panform: /, '') };
+    throw new Error(`panform ${args.join(' ')} exited with ${warm.status}: ${out.trim().split('\n').slice(-3).join(' | ')}`);
+  }
+  validate?.(warm.stdout);
+  timedRun(NODE, ['-e', '0']);
+  const base = [];
+  const cand = [];
+  for (let i = 0; i < runs; i++) {
+    base.push(timedRun(NODE, ['-e', '0']).ms);
+    cand.push(timedRun(NODE, [PANFORM, ...args]).ms);
+  }
+  const b = median(base);
+  const c = median(cand);
+  return { baseline: b, command: c, ratio: c / b, baselineRuns: base, commandRuns: cand };
+}
+
+async function benchCli(opts) {
+  const figure = 'CLI start: panform scale --json vs node -e 0';
+  const target = '≤ 1.50×';
+  try {
+    const r = compareWithNodeStart(['scale', 'harbour-ciabatta', '--pieces', '24', '--json'], opts.runs, (out) => {
+      const data = JSON.parse(out);
+      if (typeof data.mixedDough !== 'number') throw new Error('scale --json printed no mixedDough');
+    });
+    if (r.unavailable) return unavailable('cli-start', figure, target, r.unavailable);
+    raw.cli = r;
+    row('cli-start', figure, `${ms(r.command)} vs ${ms(r.baseline)} = ${ratio(r.ratio)}`, target, r.ratio <= 1.5, {
+      medianMs: r.command,
+      nodeMedianMs: r.baseline,
+      ratio: r.ratio,
+      runs: opts.runs,
+    });
+  } catch (e) {
+    failed('cli-start', figure, target, e);
+  }
+}
+
+async function benchSheet(opts, work) {
+  const figure = 'panform sheet, 40-order plan (json) vs node -e 0';
+  const target = '≤ 2.00×';
+  try {
+    const plan = writeBigPlan(join(work, 'sheet'), 40);
+    const r = compareWithNodeStart(['sheet', plan, '--format', 'json'], opts.runs, (out) => {
+      const data = JSON.parse(out);
+      if (!Array.isArray(data.mixes) || data.mixes.length === 0) throw new Error('sheet --format json printed no mixes');
+    });
+    if (r.unavailable) return unavailable('sheet-40', figure, target, r.unavailable);
+    raw.sheet = r;
+    row('sheet-40', figure, `${ms(r.command)} vs ${ms(r.baseline)} = ${ratio(r.ratio)}`, target, r.ratio <= 2, {
+      medianMs: r.command,
+      nodeMedianMs: r.baseline,
+      ratio: r.ratio,
+      runs: opts.runs,
+    });
+  } catch (e) {
+    failed('sheet-40', figure, target, e);
+  }
+}
+
+// ---- load ---------------------------------------------------------------------------------
+/** Loads 1,000 formulas into fresh data directories; leaves the last one for the server. */
+async function benchLoad(opts, work, state) {
+  const figure = 'Load 1,000 formulas (read, check, write), beyond opening';
+  const target = '< 3.00 s';
+  const folder = join(work, 'many');
+  let count;
+  try {
+    count = writeManyFormulas(folder, 1000);
+  } catch (e) {
+    return failed('load-1000', figure, target, e);
+  }
+  state.manyFolder = folder;
+  if (!existsSync(join(ROOT, 'server', 'load', 'index.ts')) || !existsSync(join(ROOT, 'server', 'db', 'client.ts'))) {
+    return unavailable('load-1000', figure, target, 'server/load or server/db is not built yet');
+  }
+  const runs = [];
+  try {
+    for (let i = 0; i < opts.loadRuns; i++) {
+      const dataDir = join(work, `data-${i}`);
+      const r = timedRun(NODE, ['--import', 'tsx', join('bench', 'load-phases.ts'), dataDir, folder]);
+      const out = JSON.parse(r.stdout.trim().split('\n').pop());
+      if (out.formulas.added !== count) throw new Error(`expected ${count} formulas added, the load reported ${JSON.stringify(out.formulas)}`);
+      runs.push(out.phases);
+      state.dataDir = dataDir;
+      if (i < opts.loadRuns - 1) rmSync(dataDir, { recursive: true, force: true });
+    }
+  } catch (e) {
+    return failed('load-1000', figure, target, e);
+  }
+  const med = (k) => median(runs.map((p) => p[k]));
+  raw.load = { formulas: count, runs };
+  row('load-open', 'Open a fresh PGlite directory (initdb) + migrate', `${seconds(med('open'))} + ${seconds(med('migrate'))}`, '', null, {
+    openMs: med('open'),
+    migrateMs: med('migrate'),
+  });
+  row('load-1000', figure, seconds(med('load')), target, med('load') < 3000, { medianMs: med('load'), runs: runs.length, formulas: count });
+  row('load-reload', 'Load the same 1,000 again (nothing changed)', seconds(med('reload')), '', null, { medianMs: med('reload') });
+  row('load-reopen', 'Open the existing data directory', seconds(med('reopen')), '', null, { medianMs: med('reopen') });
+
+  // The command itself, end to end (a fresh directory: initdb included).
+  const cliFigure = 'panform load of 1,000 formulas, whole command (fresh directory)';
+  const dataDir = join(work, 'data-cli');
+  const r = timedRun(NODE, [PANFORM, 'load', folder, '--data', dataDir], { check: false, env: { ...process.env, PANFORM_DATA: dataDir } });
+  const out = `${r.stderr}${r.stdout}`;
+  if (r.status !== 0 && PLACEHOLDER.test(out)) unavailable('load-cli', cliFigure, '', 'panform load is not built yet');
+  else if (r.status !== 0) failed('load-cli', cliFigure, '', new Error(`panform load exited with ${r.status}: ${out.trim().split('\n').slice(-3).join(' | ')}`));
+  else row('load-cli', cliFigure, seconds(r.ms), '', null, { ms: r.ms });
+  rmSync(dataDir, { recursive: true, force: true });
+}
+
+// ---- server -------------------------------------------------------------------------------
+const BENCH_USER = { email: 'bench-runner@tidewater.example', password: 'flour-water-salt-yeast-2026', role: 'bench' };
+
+async function startPanformServer(state, work) {
+  if (state.server) return state.server;
+  if (!state.dataDir) {
+    // The load group did not run: load the 1,000 formulas now (not timed).
+    const folder = state.manyFolder ?? join(work, 'many');
+    if (!state.manyFolder) writeManyFormulas(folder, 1000);
+    state.manyFolder = folder;
+    const dataDir = join(work, 'data-server');
+    timedRun(NODE, ['--import', 'tsx', join('bench', 'load-phases.ts'), dataDir, folder]);
+    state.dataDir = dataDir;
+  }
+  const env = { ...process.env, PANFORM_DATA: state.dataDir, NODE_ENV: 'production' };
+  delete env.DATABASE_URL;
+  const add = timedRun(NODE, [PANFORM, 'user', 'add', BENCH_USER.email, '--role', BENCH_USER.role, '--name', 'Bench runner', '--password-stdin'], {
+    env,
+    input: `${BENCH_USER.password}\n`,
+    check: false,
+  });
+  const addOut = `${add.stderr}${add.stdout}`;
+  if (add.status !== 0) {
+    if (PLACEHOLDER.test(addOut)) throw Object.assign(new Error('panform user is not built yet'), { unavailable: true });
+    if (!/already|exists/i.test(addOut)) throw new Error(`panform user add exited with ${add.status}: ${addOut.trim()}`);
+  }
+  const port = await freePort();
+  const base = `http://127.0.0.1:${port}`;
+  const probe = timedRun(NODE, [PANFORM, 'serve', '--help'], { check: false });
+  if (PLACEHOLDER.test(`${probe.stdout}${probe.stderr}`) || /not built yet/.test(probe.stdout)) {
+    throw Object.assign(new Error('panform serve is not built yet'), { unavailable: true });
+  }
+  const server = await startChild(NODE, [PANFORM, 'serve', '--port', String(port)], {
+    env: { ...env, PORT: String(port), HOST: '127.0.0.1' },
+    name: 'panform serve',
+    ready: async (h) => {
+      if (PLACEHOLDER.test(h.output())) throw Object.assign(new Error('panform serve is not built yet'), { unavailable: true });
+      return answers(`${base}/api/me`);
+    },
+  });
+  const res = await fetch(`${base}/api/session`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email: BENCH_USER.email, password: BENCH_USER.password }),
+  });
+  if (res.status !== 200) throw new Error(`signing in answered ${res.status}: ${await res.text()}`);
+  const setCookie = res.headers.getSetCookie()[0] ?? '';
+  const [name, ...rest] = setCookie.split(';')[0].split('=');
+  const cookie = { name, value: rest.join('=') };
+  const headers = { cookie: `${cookie.name}=${cookie.value}` };
+  const list = await (await fetch(`${base}/api/formulas`, { headers })).json();
+  const ids = (list.formulas ?? []).map((f) => f.id);
+  const formulaId = ids.includes('harbour-ciabatta') ? 'harbour-ciabatta' : ids[0];
+  if (!formulaId) throw new Error(`GET /api/formulas listed no formulas: ${JSON.stringify(list).slice(0, 300)}`);
+  const detail = await fetch(`${base}/api/formulas/${formulaId}`, { headers });
+  if (detail.status !== 200) throw new Error(`GET /api/formulas/${formulaId} answered ${detail.status}`);
+  const detailBytes = (await detail.arrayBuffer()).byteLength;
+  state.server = { handle: server, base, port, cookie, headers, formulaId, ids, detailBytes, listed: ids.length };
+  onCleanup(() => server.stop());
+  return state.server;
+}
+
+function autocannon(cfg) {
+  const r = timedRun(NODE, [join('bench', 'lib', 'autocannon-worker.mjs'), JSON.stringify(cfg)]);
+  return JSON.parse(r.stdout.trim().split('\n').pop());
+}
+
+async function benchApi(opts, work, state) {
+  const target = '≥ 0.50× hello-world';
+  let srv;
+  try {
+    srv = await startPanformServer(state, work);
+  } catch (e) {
+    if (e.unavailable) return unavailable('api-ratio-50', 'API formula detail throughput', target, e.message);
+    return failed('api-ratio-50', 'API formula detail throughput', target, e);
+  }
+  let hello;
+  try {
+    hello = await startChild(NODE, [join('bench', 'lib', 'hello-express.mjs')], {
+      name: 'hello-world',
+      ready: async (h) => /"port"/.test(h.output()),
+    });
+    const helloPort = JSON.parse(hello.output().trim().split('\n')[0]).port;
+    const results = {};
+    for (const connections of [10, 50]) {
+      results[`hello${connections}`] = autocannon({ url: `http://127.0.0.1:${helloPort}/`, connections, duration: opts.apiSeconds });
+      results[`formula${connections}`] = autocannon({
+        url: `${srv.base}/api/formulas/${srv.formulaId}`,
+        connections,
+        duration: opts.apiSeconds,
+        headers: srv.headers,
+      });
+    }
+    raw.api = { formula: srv.formulaId, responseBytes: srv.detailBytes, ...results };
+    for (const c of [10, 50]) {
+      const h = results[`hello${c}`];
+      const f = results[`formula${c}`];
+      const bad = f.errors + f.timeouts + f.non2xx;
+      const r = f.rps / h.rps;
+      row(
+        `api-ratio-${c}`,
+        `GET /api/formulas/:id vs Express hello-world, ${c} connections`,
+        `${rps(f.rps)} vs ${rps(h.rps)} = ${ratio(r)}${bad ? `, ${bad} errors` : ''}`,
+        c === 50 ? target : '',
+        c === 50 ? r >= 0.5 && bad === 0 : bad === 0 ? null : false,
+        { formulaRps: f.rps, helloRps: h.rps, ratio: r, errors: bad },
+      );
+      row(`api-p99-${c}`, `GET /api/formulas/:id p99 latency, ${c} connections`, `${ms(f.latency.p99)} (hello-world ${ms(h.latency.p99)})`, c === 50 ? '< 25 ms' : '', c === 50 ? f.latency.p99 < 25 : null, {
+        p99Ms: f.latency.p99,
+        p50Ms: f.latency.p50,
+        helloP99Ms: h.latency.p99,
+      });
+    }
+  } catch (e) {
+    failed('api-ratio-50', 'API formula detail throughput', target, e);
+  } finally {
+    await hello?.stop();
+  }
+}
+
+async function benchRender(opts, work, state) {
+  const figure = 'Formula page: navigation to scaled table visible (median)';
+  const target = '< 500 ms';
+  const why = renderUnavailable();
+  if (why) return unavailable('render', figure, target, why);
+  let srv;
+  try {
+    srv = await startPanformServer(state, work);
+  } catch (e) {
+    if (e.unavailable) return unavailable('render', figure, target, e.message);
+    return failed('render', figure, target, e);
+  }
+  try {
+    const page = await fetch(`${srv.base}/formulas/${srv.formulaId}`, { headers: srv.headers });
+    const html = await page.text();
+    if (!/<div id="root">/.test(html)) return unavailable('render', figure, target, 'the server does not serve the viewer (dist/web) yet');
+    const { times } = await measureRender({
+      baseUrl: srv.base,
+      cookie: srv.cookie,
+      path: `/formulas/${srv.formulaId}?pieces=24`,
+      selector: '[data-testid="overall"] tbody tr',
+      runs: opts.renderRuns,
+      onCleanup,
+    });
+    raw.render = { times };
+    const m = median(times);
+    row('render', figure, `${ms(m)} (runs: ${times.map((t) => Math.round(t)).join(', ')} ms)`, target, m < 500, { medianMs: m, times });
+  } catch (e) {
+    failed('render', figure, target, e);
+  }
+}
+
+async function benchSoak(opts, work, state) {
+  const figure = `Soak: ${opts.soakClients} clients reading formulas and plans for ${opts.soakSeconds} s`;
+  const target = '0 errors';
+  let srv;
+  try {
+    srv = await startPanformServer(state, work);
+  } catch (e) {
+    if (e.unavailable) return unavailable('soak', figure, target, e.message);
+    return failed('soak', figure, target, e);
+  }
+  try {
+    const plans = await (await fetch(`${srv.base}/api/plans`, { headers: srv.headers })).json();
+    const dates = (plans.plans ?? []).map((p) => p.date);
+    const sampleIds = [srv.formulaId, ...srv.ids.filter((_, i) => i % 97 === 0).slice(0, 8)];
+    const paths = [
+      '/api/formulas',
+      ...sampleIds.map((id) => `/api/formulas/${id}`),
+      `/api/formulas/${srv.formulaId}?pieces=60`,
+      '/api/plans',
+      ...dates.map((d) => `/api/plans/${d}`),
+      '/api/formulas?q=rye',
+    ];
+    const r = autocannon({ url: srv.base, connections: opts.soakClients, duration: opts.soakSeconds, headers: srv.headers, paths });
+    raw.soak = { paths, ...r };
+    const bad = r.errors + r.timeouts + r.non2xx;
+    row('soak', figure, `${r.requests.toLocaleString('en-US')} requests, ${bad} errors, p99 ${ms(r.latency.p99)}`, target, bad === 0 && r.requests > 0, {
+      requests: r.requests,
+      errors: r.errors,
+      timeouts: r.timeouts,
+      non2xx: r.non2xx,
+      statusCounts: r.statusCounts,
+      p99Ms: r.latency.p99,
+    });
+  } catch (e) {
+    failed('soak', figure, target, e);
+  }
+}
+
+function benchBundle() {
+  const figure = 'Viewer initial JavaScript (gzip)';
+  const target = '≤ 150 KB';
+  const web = join(ROOT, 'dist', 'web');
+  if (!existsSync(join(web, 'index.html'))) return unavailable('bundle', figure, target, 'dist/web is not built');
+  try {
+    const r = measureInitialJs(web);
+    raw.bundle = r;
+    row('bundle', figure, `${kb(r.gzip)} in ${r.files.length} file${r.files.length === 1 ? '' : 's'} (${kb(r.bytes)} raw; CSS ${kb(r.css.gzip)} gzip)`, target, r.gzip <= 150 * 1024, {
+      gzipBytes: r.gzip,
+      bytes: r.bytes,
+      files: r.files,
+      cssGzipBytes: r.css.gzip,
+    });
+  } catch (e) {
+    failed('bundle', figure, target, e);
+  }
+}
+
+function reportMemory(state) {
+  if (!state.server) return;
+  const m = memoryOf(state.server.handle.pid);
+  if (m.peak === null) return unavailable('rss', 'Server peak RSS with 1,000 formulas', '', '/proc is not available');
+  row('rss', `Server peak RSS with ${state.server.listed.toLocaleString('en-US')} formulas, after the load tests`, `${mb(m.peak)} (now ${mb(m.current)})`, '', null, {
+    peakBytes: m.peak,
+    currentBytes: m.current,
+  });
+}
+
+// ---- main ---------------------------------------------------------------------------------
+function printTable() {
+  const head = ['figure', 'value', 'target', 'result'];
+  const body = rows.map((r) => [r.figure, r.value, r.target || '—', r.pass === null ? (r.value.startsWith('not available') ? 'skipped' : 'info') : r.pass ? 'pass' : 'FAIL']);
+  const widths = head.map((h, i) => Math.min(i === 1 ? 70 : 64, Math.max(h.length, ...body.map((b) => b[i].length))));
+  const line = (cells) => cells.map((c, i) => (c.length > widths[i] ? `${c.slice(0, widths[i] - 1)}…` : c.padEnd(widths[i]))).join('  ');
+  process.stdout.write(`\n${line(head)}\n${widths.map((w) => '-'.repeat(w)).join('  ')}\n${body.map(line).join('\n')}\n`);
+}
+
+async function main() {
+  const opts = readOptions(process.argv.slice(2));
+  if (opts.help) {
+    process.stdout.write(`usage: npm run bench -- [--quick] [--only ${GROUPS.join(',')}] [--runs N] [--load-runs N] [--api-seconds S]
+                        [--render-runs N] [--soak-seconds S] [--soak-clients N] [--no-soak] [--no-build] [--strict]\n`);
+    return 0;
+  }
+  const started = new Date();
+  process.stderr.write(`bench: Node ${process.version}, ${cpus().length} CPUs, groups: ${[...opts.groups].join(' ')}\n`);
+  const build = ensureBuilt(opts);
+  if (build.error) process.stderr.write(`bench: ${build.error}\n`);
+  const work = mkdtempSync(join(tmpdir(), 'panform-bench-'));
+  onCleanup(() => rmSync(work, { recursive: true, force: true }));
+  const state = {};
+  const g = opts.groups;
+  if (g.has('cli')) await benchCli(opts);
+  if (g.has('sheet')) await benchSheet(opts, work);
+  if (g.has('load')) await benchLoad(opts, work, state);
+  if (g.has('bundle')) benchBundle();
+  if (g.has('api')) await benchApi(opts, work, state);
+  if (g.has('render')) await benchRender(opts, work, state);
+  if (g.has('soak')) await benchSoak(opts, work, state);
+  reportMemory(state);
+  printTable();
+  const results = {
+    startedAt: started.toISOString(),
+    finishedAt: new Date().toISOString(),
+    machine: { node: process.version, platform: `${process.platform} ${process.arch}`, cpus: cpus().length, cpuModel: cpus()[0]?.model, memoryBytes: totalmem() },
+    options: { ...opts, groups: [...opts.groups] },
+    build,
+    rows,
+    raw,
+  };
+  writeFileSync(join(ROOT, 'bench', 'results.json'), `${JSON.stringify(results, null, 2)}\n`);
+  const failures = rows.filter((r) => r.pass === false).length;
+  process.stdout.write(`\nbench/results.json written. ${failures === 0 ? 'Every measured target met.' : `${failures} figure${failures === 1 ? '' : 's'} missed the target.`}\n`);
+  return failures > 0 && opts.strict ? 1 : 0;
+}
+
+let code = 1;
+try {
+  code = await main();
+} catch (e) {
+  process.stderr.write(`bench: ${e?.stack ?? e}\n`);
+} finally {
+  await cleanupAll();
+}
+process.exitCode = code;

@@ -46,7 +46,8 @@ const TOLERANCE = 1e-9;
 
 export const LABEL_CAUTION =
   'This ingredient statement supports, and does not replace, the bakery\'s own labelling review under local law. ' +
-  'Check names, allergens and cross-contact against the suppliers\' specifications and your own bakehouse before printing a label.';
+  'Check names, allergens and cross-contact against the suppliers\' specifications and your own bakehouse before printing a label. ' +
+  'Toppings, washes, dusting flour and fillings that are not in the formula are not in this statement.';
 
 export interface LabelOptions {
   rules: Jurisdiction;

@@ -35,7 +35,7 @@ export function checkCatalog(input: CatalogCheckInput): Finding[] {
       }
       if (e.fedWith === undefined) {
         out.error(at(), `the culture ${quote(name)} needs "fed_with": the flour it is fed with`, 'key');
-      } else if (!catalog[e.fedWith]) {
+      } else if (!Object.hasOwn(catalog, e.fedWith)) {
         out.error(at('fed_with'), `${quote(name)} is fed with ${quote(e.fedWith)}, which is not in the catalog${didYouMean(e.fedWith, names)}`);
       } else if (catalog[e.fedWith].kind !== 'flour') {
         out.error(at('fed_with'), `${quote(name)} is fed with ${quote(e.fedWith)}, whose kind is ${catalog[e.fedWith].kind}; a culture is fed with a flour`);
@@ -72,7 +72,7 @@ export function checkCatalog(input: CatalogCheckInput): Finding[] {
           out.error(cat, `${quote(name)} lists itself as a component`);
           return;
         }
-        const comp = catalog[c];
+        const comp = Object.hasOwn(catalog, c) ? catalog[c] : undefined;
         if (!comp) {
           out.error(cat, `component ${quote(c)} of ${quote(name)} is not in the catalog${didYouMean(c, names)}`);
           return;

@@ -35,9 +35,9 @@ export function fileStem(file: string): string {
 }
 
 /** Schema findings explained; a value the model refused located where it is written. */
-function parseFindings<T>(kind: SchemaKind, parsed: Parsed<T>, file: string): Finding[] {
+function parseFindings<T>(kind: SchemaKind, parsed: Parsed<T>, file: string, text: string): Finding[] {
   if (parsed.ok) return [];
-  if (parsed.raw === undefined || parsed.source === null) return parsed.findings;
+  if (parsed.raw === undefined || parsed.source === null) return parsed.findings.map((f) => nameDuplicateKey(f, text));
   const explained = explainSchemaFindings(kind, parsed.findings, parsed.raw);
   const atTop = explained.length === 1 && explained[0].line === 1 && explained[0].col === 1 && explained[0].pointer === undefined;
   if (atTop) {
@@ -45,6 +45,16 @@ function parseFindings<T>(kind: SchemaKind, parsed: Parsed<T>, file: string): Fi
     if (located.length > 0) return located;
   }
   return explained;
+}
+
+/** "duplicate key: …" → 'duplicate key "water": …', reading the key where the finding points. */
+function nameDuplicateKey(f: Finding, text: string): Finding {
+  if (!f.message.startsWith('duplicate key')) return f;
+  const line = text.replace(/^\uFEFF/, '').split(/\r?\n/)[f.line - 1] ?? '';
+  const m = /^\s*(?:-\s+)?("[^"]*"|'[^']*'|[^:#{}[\],]+?)\s*:/.exec(line.slice(f.col - 1));
+  if (!m) return f;
+  const key = m[1].replace(/^["']|["']$/g, '');
+  return { ...f, message: `duplicate key ${JSON.stringify(key)}: it appears twice in the same block; keep one` };
 }
 
 export function checkFileText(req: CheckRequest): CheckResult {
@@ -65,7 +75,7 @@ function run(req: CheckRequest): CheckResult {
   switch (req.kind) {
     case 'formula': {
       const parsed = parseFormulaText(req.text, req.file);
-      if (!parsed.ok) return { kind: 'formula', findings: parseFindings('formula', parsed, req.file) };
+      if (!parsed.ok) return { kind: 'formula', findings: parseFindings('formula', parsed, req.file, req.text) };
       const findings = checkFormula({
         file: req.file,
         formula: parsed.value,
@@ -79,12 +89,12 @@ function run(req: CheckRequest): CheckResult {
     }
     case 'catalog': {
       const parsed = parseCatalogText(req.text, req.file);
-      if (!parsed.ok) return { kind: 'catalog', findings: parseFindings('catalog', parsed, req.file) };
+      if (!parsed.ok) return { kind: 'catalog', findings: parseFindings('catalog', parsed, req.file, req.text) };
       return { kind: 'catalog', findings: checkCatalog({ file: req.file, catalog: parsed.value, source: parsed.source }), value: parsed.value };
     }
     case 'plan': {
       const parsed = parsePlanText(req.text, req.file);
-      if (!parsed.ok) return { kind: 'plan', findings: parseFindings('plan', parsed, req.file) };
+      if (!parsed.ok) return { kind: 'plan', findings: parseFindings('plan', parsed, req.file, req.text) };
       const findings = checkPlan({
         file: req.file,
         plan: parsed.value,

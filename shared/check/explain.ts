@@ -2,7 +2,7 @@
 // unit it saw and which it accepts. Pure.
 import { decodePointer, type Finding, type SourceMap } from '../parse.ts';
 import { parseRange, QuantityError } from '../units.ts';
-import type { SchemaKind } from '../schema/shapes.ts';
+import { SCHEMAS, type SchemaKind } from '../schema/shapes.ts';
 import { FindingList, pointer, quote } from './report.ts';
 import { didYouMean } from './suggest.ts';
 
@@ -86,8 +86,29 @@ function explainQuantity(q: Quantity, where: string, v: unknown): string | undef
   if (!m) return `${where} is ${show(v)}: not ${how.what}; ${write}`;
   if (m[1].includes(',')) return `${where} is ${show(v)}: use a decimal point, not a comma; ${write}`;
   if (m[2] === '') return `${where} is ${show(v)} without a unit; ${write}`;
+  if (/^e[+-]?[0-9]/i.test(m[2])) return `${where} is ${show(v)}: write the number in full, without an exponent; ${write}`;
   if (m[1].startsWith('-') && q === 'mass') return `${where} is ${show(v)}: a weight cannot be negative`;
   return `${where} is ${show(v)}: unknown unit ${quote(m[2])}; ${write}`;
+}
+
+type SchemaNode = {
+  properties?: Record<string, SchemaNode>;
+  patternProperties?: Record<string, SchemaNode>;
+  items?: SchemaNode;
+  anyOf?: SchemaNode[];
+};
+
+/** The field names the schema allows in the object at `path`. */
+export function fieldsAt(kind: SchemaKind, path: string[]): string[] {
+  let node: SchemaNode | undefined = SCHEMAS[kind] as unknown as SchemaNode;
+  for (const seg of path) {
+    if (!node) return [];
+    if (node.properties && seg in node.properties) node = node.properties[seg];
+    else if (node.patternProperties) node = Object.values(node.patternProperties)[0];
+    else if (node.items) node = node.items;
+    else return [];
+  }
+  return node?.properties ? Object.keys(node.properties).filter((k) => k !== '$schema') : [];
 }
 
 /** Rewrites the schema's findings about quantities and codes into messages that say what to write. */
@@ -103,9 +124,18 @@ export function explainSchemaFindings(kind: SchemaKind, findings: Finding[], dat
       const message = explainQuantity(q, where, v);
       if (message) return { ...f, message };
     }
+    const unknownField = /^unknown field "(.*)" in /.exec(f.message);
+    if (unknownField) {
+      const fields = fieldsAt(kind, path.slice(0, -1));
+      return { ...f, message: `${f.message}${didYouMean(unknownField[1], fields)}${fields.length ? ` (fields here: ${fields.join(', ')})` : ''}` };
+    }
     const oneOf = /must be one of: (.*)$/.exec(f.message);
     if (oneOf && typeof v === 'string') {
       const allowed = oneOf[1].split(', ');
+      if (path.includes('allergens') || path.includes('may_contain')) {
+        const hint = /gluten/i.test(v) ? '; cereals containing gluten are written by grain: wheat, rye, barley, oats, spelt, khorasan' : didYouMean(v, allowed);
+        return { ...f, message: `unknown allergen code ${quote(v)} in ${path.slice(0, -1).join('.')}${hint} (codes: ${oneOf[1]})` };
+      }
       return { ...f, message: `${where} is ${quote(v)}, not one of: ${oneOf[1]}${didYouMean(v, allowed)}` };
     }
     return f;

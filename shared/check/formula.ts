@@ -30,8 +30,9 @@ const ENRICHING_KINDS = new Set(['sugar', 'fat', 'dairy', 'egg']);
 export function checkFormula(input: FormulaCheckInput): Finding[] {
   const { formula: f, raw, catalog, expectedId } = input;
   const out = new FindingList(input.file, input.source);
-  const known = (name: string): CatalogItem | undefined => (catalog ? catalog[name] : undefined);
-  const item = (name: string): CatalogItem => lookupIngredient(catalog ?? {}, name);
+  // Own keys only: a name such as "constructor" must not find the object's prototype.
+  const known = (name: string): CatalogItem | undefined => (catalog && Object.hasOwn(catalog, name) ? catalog[name] : undefined);
+  const item = (name: string): CatalogItem => known(name) ?? lookupIngredient({}, name);
   const catalogNames = catalog ? Object.keys(catalog) : [];
 
   // ---- identity -----------------------------------------------------------------------------
@@ -106,7 +107,8 @@ export function checkFormula(input: FormulaCheckInput): Finding[] {
   const total = sum([...f.flour, ...f.ingredients].map((l) => l.percent));
   const lossOk = f.loss >= 0 && f.loss < 100;
   const refFlour = amountsOk && lossOk && total > 0 ? (f.yield.pieces * f.yield.pieceGrams) / (1 - f.loss / 100) / (total / 100) : undefined;
-  const both = (percentOfFlour: number) => (refFlour === undefined ? pct(percentOfFlour) : `${pct(percentOfFlour)}, ${grams((refFlour * percentOfFlour) / 100)}`);
+  const inBatch = (percentOfFlour: number, batch: boolean) =>
+    refFlour === undefined ? '' : ` (${grams((refFlour * percentOfFlour) / 100)}${batch ? ` in the reference batch of ${f.yield.pieces} × ${grams(f.yield.pieceGrams)}` : ''})`;
   if (!(f.yield.pieceGrams > 0)) out.error('/yield/piece', `the piece weight is ${grams(f.yield.pieceGrams)}; it must be above 0 g`);
 
   // ---- pre-ferments and soakers -------------------------------------------------------------
@@ -190,7 +192,7 @@ export function checkFormula(input: FormulaCheckInput): Finding[] {
       const who = acc.from.size === 1 ? `${t.from} takes` : `the pre-ferments and soakers take`;
       out.error(
         t.at,
-        `${who} ${both(acc.percent)} of ${quote(t.ingredient)}, more than the overall formula has (${both(have)}); raise it in the overall formula or take less`,
+        `${who} ${pct(acc.percent)} of ${quote(t.ingredient)}${inBatch(acc.percent, true)}, but the overall formula has only ${pct(have)}${inBatch(have, false)}; raise it in the overall formula or take less`,
       );
     }
   }

@@ -35,12 +35,13 @@ export class FindingList {
 
 /** 2.2 → "2.2 %", 0.030000000004 → "0.03 %". */
 export function pct(p: number): string {
-  return `${Number(p.toFixed(2))} %`;
+  if (!Number.isFinite(p)) return `${p} %`;
+  return `${Number(p.toFixed(p !== 0 && Math.abs(p) < 1 ? 3 : 2))} %`;
 }
 
 /** Grams for a message: one decimal. */
 export function grams(g: number): string {
-  return `${g.toFixed(1)} g`;
+  return `${Number(g.toFixed(1))} g`;
 }
 
 export function quote(s: string): string {

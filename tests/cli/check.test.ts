@@ -1,0 +1,120 @@
+import { execFileSync, spawnSync } from 'node:child_process';
+import { cpSync, existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+// End to end: the built CLI, as a baker runs it (`node bin/panform.js check`).
+const ROOT = new URL('../../', import.meta.url).pathname;
+const ENTRY = join(ROOT, 'dist/cli/index.js');
+
+function run(args: string[], cwd = ROOT) {
+  const r = spawnSync(process.execPath, [join(ROOT, 'bin/panform.js'), 'check', ...args], { cwd, encoding: 'utf8' });
+  return { code: r.status, stdout: r.stdout, stderr: r.stderr };
+}
+
+let scratch: string;
+beforeAll(() => {
+  // `npm install` builds dist/ (prepare); build the CLI here only when it is missing.
+  if (!existsSync(ENTRY)) execFileSync(process.execPath, ['scripts/build.mjs', '--cli'], { cwd: ROOT, stdio: 'pipe' });
+  scratch = mkdtempSync(join(tmpdir(), 'panform-check-'));
+});
+afterAll(() => {
+  if (scratch) rmSync(scratch, { recursive: true, force: true });
+});
+
+describe('panform check', () => {
+  it('finds no problems in the demo bakery and exits 0', () => {
+    const r = run([]);
+    expect(r.stderr).toBe('');
+    expect(r.stdout).toBe('14 files checked, no problems\n');
+    expect(r.code).toBe(0);
+  });
+
+  it('prints one sorted line per finding, a count, and exits 1 on errors', () => {
+    const r = run(['tests/fixtures/check']);
+    expect(r.code).toBe(1);
+    const out = r.stdout.trimEnd().split('\n');
+    expect(out.at(-1)).toBe('15 errors, 0 warnings in 16 files');
+    const findings = out.slice(0, -1);
+    expect(findings).toContain('tests/fixtures/check/loss-100.yaml:6:7 error loss is 100 %; it must be below 100 % (it is the share of mixed dough lost before dividing)');
+    expect(findings).toContain(
+      'tests/fixtures/check/plans/2026-12-03.yaml:8:16 error order 2 names formula "good-laof", which is not in tests/fixtures/check/; did you mean "good-loaf"?',
+    );
+    const files = findings.map((l) => l.split(':')[0]);
+    expect(files).toEqual([...files].sort((a, b) => a.localeCompare(b)));
+    expect(r.stderr).toBe('');
+  });
+
+  it('exits 0 with warnings only, and counts them', () => {
+    const dir = join(scratch, 'warn');
+    cpSync(join(ROOT, 'tests/fixtures/check/ingredients.yaml'), join(dir, 'ingredients.yaml'));
+    writeFileSync(
+      join(dir, 'salty.yaml'),
+      'id: salty\ntitle: Salty\nstatus: active\ncategory: lean\nyield: { pieces: 1, piece: 500 g }\nflour: { bread flour: 100 }\ningredients: { water: 70, fine salt: 4 }\n',
+    );
+    const r = run([dir]);
+    expect(r.stdout).toBe(`${join(dir, 'salty.yaml')}:7:38 warning salt is 4 % of the flour; bread usually has 1.5-3 % (common practice)\n0 errors, 1 warning in 2 files\n`);
+    expect(r.code).toBe(0);
+  });
+
+  it('prints files, findings, errors and warnings as JSON with --json', () => {
+    const r = run(['tests/fixtures/check/loss-100.yaml', '--json']);
+    expect(r.code).toBe(1);
+    const data = JSON.parse(r.stdout);
+    expect(data).toMatchObject({ files: 1, errors: 1, warnings: 0 });
+    expect(data.findings).toEqual([
+      {
+        file: 'tests/fixtures/check/loss-100.yaml',
+        line: 6,
+        col: 7,
+        severity: 'error',
+        message: 'loss is 100 %; it must be below 100 % (it is the share of mixed dough lost before dividing)',
+        pointer: '/loss',
+      },
+    ]);
+  });
+
+  it('checks a formula against the catalog given with --catalog', () => {
+    const dir = join(scratch, 'elsewhere');
+    cpSync(join(ROOT, 'tests/fixtures/check/good-loaf.yaml'), join(dir, 'good-loaf.yaml'));
+    expect(run([join(dir, 'good-loaf.yaml')]).stdout).toMatch(/warning no ingredient catalog/);
+    const r = run([join(dir, 'good-loaf.yaml'), '--catalog', 'tests/fixtures/check/ingredients.yaml']);
+    expect(r.stdout).toBe('2 files checked, no problems\n');
+    expect(r.code).toBe(0);
+  });
+
+  it('reports binary and random bytes as findings, never a stack trace', () => {
+    const dir = join(scratch, 'bytes');
+    cpSync(join(ROOT, 'tests/fixtures/check/ingredients.yaml'), join(dir, 'ingredients.yaml'));
+    writeFileSync(join(dir, 'noise.yaml'), Buffer.from([0xff, 0xfe, 0x00, 0x41, 0x3a, 0x0a, 0x80, 0x81, 0x7b, 0x5b]));
+    writeFileSync(join(dir, 'half.yaml'), 'id: half\ntitle: "Half');
+    const r = run([dir]);
+    expect(r.code).toBe(1);
+    expect(r.stdout).toMatch(/noise\.yaml:1:1 error this is not a text file \(binary content\)/);
+    expect(r.stdout + r.stderr).not.toMatch(/internal error|\n\s+at /);
+  });
+
+  it.each([
+    ['a path that does not exist', ['no/such/folder'], /panform: no such file or folder: no\/such\/folder/],
+    ['an unknown option', ['--frobnicate'], /unknown option '--frobnicate'/],
+    ['a catalog that does not exist', ['--catalog', 'nope.yaml'], /panform: --catalog nope.yaml: no such file/],
+  ])('exits 2 on misuse: %s', (_, args, message) => {
+    const r = run(args);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(message);
+    expect(r.stdout).toBe('');
+  });
+
+  it('exits 2 when there is no formulas/ folder to check by default', () => {
+    const r = run([], scratch);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/no such file or folder: formulas/);
+  });
+
+  it('shows an example in --help', () => {
+    const r = run(['--help']);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/\$ panform check formulas\/harbour-ciabatta\.yaml/);
+  });
+});

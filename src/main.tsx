@@ -1,13 +1,13 @@
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
+import { App } from './app/app.tsx';
 import './index.css';
 
-function Placeholder() {
-  return <main className="p-8 font-mono">Panform viewer</main>;
-}
+const root = document.getElementById('root');
+if (!root) throw new Error('index.html has no #root element');
 
-createRoot(document.getElementById('root')!).render(
+createRoot(root).render(
   <StrictMode>
-    <Placeholder />
+    <App />
   </StrictMode>,
 );

@@ -1,0 +1,146 @@
+import { useEffect, useId, useState } from 'react';
+import type { Formula } from '#shared/model';
+import type { ScaleTarget } from '#shared/scale';
+import { readNumber, TextField } from '../../../components/field.tsx';
+import { pieceWeight } from '../../../lib/format.ts';
+import { isWrittenBatch, writtenBatch } from '../scale-target.ts';
+
+type Mode = 'pieces' | 'mix';
+
+/**
+ * How big a batch: pieces × piece weight, or a weight of mixed dough. Every valid keystroke
+ * becomes the new target at once; a half-typed number waits.
+ */
+export function ScaleControl({ formula, target, onChange }: { formula: Formula; target: ScaleTarget; onChange: (t: ScaleTarget) => void }) {
+  const mode: Mode = target.by === 'mix' ? 'mix' : 'pieces';
+  const piecesNow = target.by === 'pieces' ? target.pieces : formula.yield.pieces;
+  const pieceNow = target.by === 'pieces' ? (target.pieceGrams ?? formula.yield.pieceGrams) : formula.yield.pieceGrams;
+  const mixNow = target.by === 'mix' ? target.grams : null;
+
+  const [pieces, setPieces] = useState(String(piecesNow));
+  const [piece, setPiece] = useState(trim(pieceNow));
+  const [mixKg, setMixKg] = useState(mixNow === null ? '' : trim(mixNow / 1000));
+  const groupId = useId();
+
+  // Follow the URL when it changes from outside (back button, reset).
+  useEffect(() => setPieces(String(piecesNow)), [piecesNow]);
+  useEffect(() => setPiece(trim(pieceNow)), [pieceNow]);
+  useEffect(() => {
+    if (mixNow !== null) setMixKg(trim(mixNow / 1000));
+  }, [mixNow]);
+
+  const piecesValue = readNumber(pieces);
+  const pieceValue = readNumber(piece);
+  const mixValue = readNumber(mixKg);
+  const piecesError = piecesValue === null || !Number.isInteger(piecesValue) || piecesValue < 1 ? 'A whole number, 1 or more.' : undefined;
+  const pieceError = pieceValue === null || pieceValue <= 0 ? 'A weight above 0 g.' : undefined;
+  const mixError = mixValue === null || mixValue <= 0 ? 'A weight above 0 kg.' : undefined;
+
+  const setMode = (m: Mode) => {
+    if (m === mode) return;
+    if (m === 'pieces') onChange({ by: 'pieces', pieces: piecesValue && !piecesError ? piecesValue : formula.yield.pieces, pieceGrams: pieceValue && !pieceError ? pieceValue : formula.yield.pieceGrams });
+    else {
+      const start = target.by === 'pieces' ? (target.pieces * (target.pieceGrams ?? formula.yield.pieceGrams)) / (1 - formula.loss / 100) : 10_000;
+      const kg = Math.round(start / 100) / 10;
+      setMixKg(trim(kg));
+      onChange({ by: 'mix', grams: kg * 1000 });
+    }
+  };
+
+  const step = (delta: number) => {
+    const next = Math.max(1, (piecesValue && !piecesError ? piecesValue : piecesNow) + delta);
+    setPieces(String(next));
+    onChange({ by: 'pieces', pieces: next, pieceGrams: pieceValue && !pieceError ? pieceValue : pieceNow });
+  };
+
+  const tab = (m: Mode, label: string) => (
+    <button
+      type="button"
+      role="radio"
+      aria-checked={mode === m}
+      onClick={() => setMode(m)}
+      className={`min-h-12 flex-1 rounded-lg px-3 font-semibold ${mode === m ? 'bg-crust text-on-crust shadow-sm' : 'text-ink hover:bg-card'}`}
+    >
+      {label}
+    </button>
+  );
+
+  return (
+    <div className="space-y-3 print:hidden" data-testid="scale-control">
+      <div role="radiogroup" aria-labelledby={groupId} className="flex gap-1 rounded-xl border-2 border-line bg-sunk p-1">
+        <span id={groupId} className="sr-only">
+          Scale by
+        </span>
+        {tab('pieces', 'Pieces × weight')}
+        {tab('mix', 'Dough weight')}
+      </div>
+      {mode === 'pieces' ? (
+        <div className="grid grid-cols-[1fr_1fr] gap-3">
+          <div>
+            <TextField
+              label="Pieces"
+              name="pieces"
+              inputMode="numeric"
+              value={pieces}
+              error={piecesError}
+              onChange={(e) => {
+                setPieces(e.target.value);
+                const n = readNumber(e.target.value);
+                if (n !== null && Number.isInteger(n) && n >= 1) onChange({ by: 'pieces', pieces: n, pieceGrams: pieceValue && !pieceError ? pieceValue : pieceNow });
+              }}
+            />
+            <div className="mt-2 flex gap-2">
+              <button type="button" aria-label="One piece fewer" onClick={() => step(-1)} className="min-h-12 flex-1 rounded-xl border-2 border-line bg-card text-2xl font-bold hover:border-crust">
+                −
+              </button>
+              <button type="button" aria-label="One piece more" onClick={() => step(1)} className="min-h-12 flex-1 rounded-xl border-2 border-line bg-card text-2xl font-bold hover:border-crust">
+                +
+              </button>
+            </div>
+          </div>
+          <TextField
+            label="Piece weight"
+            name="piece"
+            inputMode="decimal"
+            suffix="g"
+            value={piece}
+            error={pieceError}
+            onChange={(e) => {
+              setPiece(e.target.value);
+              const n = readNumber(e.target.value);
+              if (n !== null && n > 0) onChange({ by: 'pieces', pieces: piecesValue && !piecesError ? piecesValue : piecesNow, pieceGrams: n });
+            }}
+          />
+        </div>
+      ) : (
+        <TextField
+          label="Mixed dough"
+          name="mix"
+          inputMode="decimal"
+          suffix="kg"
+          value={mixKg}
+          error={mixError}
+          hint="The whole dough out of the mixer; no loss allowance is added."
+          onChange={(e) => {
+            setMixKg(e.target.value);
+            const n = readNumber(e.target.value);
+            if (n !== null && n > 0) onChange({ by: 'mix', grams: n * 1000 });
+          }}
+        />
+      )}
+      {!isWrittenBatch(target, formula) && (
+        <button
+          type="button"
+          onClick={() => onChange(writtenBatch(formula))}
+          className="min-h-12 w-full rounded-xl border-2 border-dashed border-line px-3 text-crust hover:border-crust"
+        >
+          Back to the written batch ({formula.yield.pieces} × {pieceWeight(formula.yield.pieceGrams)})
+        </button>
+      )}
+    </div>
+  );
+}
+
+function trim(n: number): string {
+  return String(Number(n.toFixed(3)));
+}

@@ -1,0 +1,288 @@
+// The night's work as a chart: one lane per build and per mix, time running left to right.
+// On screen the lane names stay put while the hours scroll; on paper one picture fits the page.
+import { useLayoutEffect, useRef, useState, type ReactNode } from 'react';
+import type { Sheet, TimelineEntry } from '#shared/sheet/types';
+
+const STEP_WORD: Record<string, string> = {
+  build: 'build',
+  soak: 'soak',
+  autolyse: 'rest',
+  mix: 'mix',
+  bulk: 'first rise',
+  fold: 'fold',
+  divide: 'divide',
+  preshape: 'pre-shape',
+  rest: 'bench rest',
+  shape: 'shape',
+  proof: 'proof',
+  retard: 'cold hold',
+  bake: 'bake',
+  cool: 'cool',
+  other: 'step',
+};
+
+function fillOf(e: TimelineEntry): string {
+  if (e.step === 'bake') return 'var(--color-ember)';
+  if (e.step === 'retard' || e.cold) return 'var(--color-focus)';
+  if (e.step === 'mix' || e.step === 'autolyse') return 'var(--color-crust)';
+  if (e.step === 'bulk' || e.step === 'proof' || e.step === 'rest') return 'var(--color-rise)';
+  return 'var(--color-muted)';
+}
+
+function textOn(e: TimelineEntry): string {
+  return e.window || e.step === 'bulk' || e.step === 'proof' || e.step === 'rest' ? 'var(--color-ink)' : 'var(--color-card)';
+}
+
+const LABEL_W = 210;
+const LANE_H = 36;
+const AXIS_H = 46;
+const PAD = 70;
+
+interface Layout {
+  lanes: { key: string; label: string; build: boolean }[];
+  laneOf: (e: TimelineEntry) => number;
+  start: number;
+  end: number;
+  ready: number;
+  height: number;
+}
+
+const laneKey = (e: TimelineEntry) => `${e.formula}|${e.label}|${e.step === 'build' || e.step === 'soak' ? 'b' : 'm'}`;
+
+function layout(sheet: Sheet): Layout {
+  const lanes: Layout['lanes'] = [];
+  const index = new Map<string, number>();
+  for (const e of sheet.timeline) {
+    const key = laneKey(e);
+    if (!index.has(key)) {
+      index.set(key, lanes.length);
+      lanes.push({ key, label: e.label, build: e.step === 'build' || e.step === 'soak' });
+    }
+  }
+  const ready = minuteOfDay(sheet.readyBy, sheet.date);
+  const start = Math.floor(Math.min(...sheet.timeline.map((e) => e.startMinute)) / 60) * 60;
+  const end = Math.ceil(Math.max(ready, ...sheet.timeline.map((e) => e.endMinute)) / 60) * 60;
+  return { lanes, laneOf: (e) => index.get(laneKey(e)) ?? 0, start, end, ready, height: AXIS_H + lanes.length * LANE_H + 8 };
+}
+
+function LaneLabels({ l, width, names = true }: { l: Layout; width: number; names?: boolean }) {
+  return (
+    <>
+      {l.lanes.map((lane, i) => (
+        <g key={lane.key}>
+          {i % 2 === 0 && <rect x={0} y={AXIS_H + i * LANE_H} width={width} height={LANE_H} fill="var(--color-sunk)" opacity="0.5" />}
+          {names && (
+            <text x={8} y={AXIS_H + i * LANE_H + LANE_H / 2 + 5} fontSize="15" fontWeight={lane.build ? 400 : 700} fill="var(--color-ink)">
+              {lane.label.length > 24 ? `${lane.label.slice(0, 23)}…` : lane.label}
+            </text>
+          )}
+        </g>
+      ))}
+    </>
+  );
+}
+
+/** The hours, the days and the bars, drawn from `left` with `px` pixels per minute. */
+function Bars({ l, left, px, sheet }: { l: Layout; left: number; px: number; sheet: Sheet }) {
+  const x = (m: number) => left + (m - l.start) * px;
+  const hourStep = px * 60 < 30 ? 3 : px * 60 < 50 ? 2 : 1;
+  const ticks: number[] = [];
+  for (let m = l.start; m <= l.end; m += 60 * hourStep) ticks.push(m);
+  const midnights: number[] = [];
+  for (let m = Math.ceil(l.start / 1440) * 1440; m <= l.end; m += 1440) midnights.push(m);
+  return (
+    <>
+      {ticks.map((m) => (
+        <g key={m}>
+          <line x1={x(m)} x2={x(m)} y1={AXIS_H - 6} y2={l.height} stroke="var(--color-line)" strokeWidth={1} />
+          <text x={x(m) + 3} y={AXIS_H - 10} fontSize="13" fill="var(--color-muted)" fontFamily="var(--font-mono)">
+            {clock(m)}
+          </text>
+        </g>
+      ))}
+      {(midnights.length === 0 || midnights[0] > l.start + 180) && (
+        <text x={left + 4} y={16} fontSize="13" fontWeight="700" fill="var(--color-ink)">
+          {dayName(l.start, sheet.date)}
+        </text>
+      )}
+      {midnights.map((m) => (
+        <g key={`day-${m}`}>
+          <line x1={x(m)} x2={x(m)} y1={4} y2={l.height} stroke="var(--color-ink)" strokeWidth={2} opacity={0.6} />
+          <text x={x(m) + 4} y={16} fontSize="13" fontWeight="700" fill="var(--color-ink)">
+            {dayName(m, sheet.date)}
+          </text>
+        </g>
+      ))}
+      {sheet.timeline.map((e, i) => {
+        const y = AXIS_H + l.laneOf(e) * LANE_H + 6;
+        const h = LANE_H - 12;
+        const x0 = x(e.startMinute);
+        const w = (e.endMinute - e.startMinute) * px;
+        const tip = `${e.label}: ${STEP_WORD[e.step] ?? e.step} ${e.start.slice(11)}–${e.end.slice(11)}${e.temperature !== undefined ? `, ${Math.round(e.temperature)} °C` : ''}${e.window ? ' (window to make it)' : ''}`;
+        if (w < 3) {
+          return (
+            <g key={i} data-step={e.step}>
+              <title>{tip}</title>
+              <path d={`M${x0} ${y} l5 ${h / 2} l-5 ${h / 2} l-5 ${-h / 2} Z`} fill={fillOf(e)} />
+            </g>
+          );
+        }
+        return (
+          <g key={i} data-step={e.step}>
+            <title>{tip}</title>
+            <rect
+              x={x0}
+              y={y}
+              width={w}
+              height={h}
+              rx={5}
+              fill={e.window ? 'url(#window-hatch)' : fillOf(e)}
+              stroke={e.window ? 'var(--color-sage)' : 'none'}
+              strokeWidth={e.window ? 2 : 0}
+              strokeDasharray={e.window ? '5 3' : undefined}
+              opacity={e.step === 'cool' ? 0.55 : 1}
+            />
+            {w > 52 && (
+              <text x={x0 + 5} y={y + h / 2 + 5} fontSize="13" fontWeight="600" fill={textOn(e)}>
+                {STEP_WORD[e.step] ?? e.step}
+              </text>
+            )}
+          </g>
+        );
+      })}
+      <line x1={x(l.ready)} x2={x(l.ready)} y1={AXIS_H - 4} y2={l.height} stroke="var(--color-ember)" strokeWidth={3} strokeDasharray="6 4" />
+      <text x={x(l.ready) + 4} y={AXIS_H - 24} fontSize="13" fontWeight="700" fill="var(--color-ember)">
+        out by {sheet.readyBy.slice(11)}
+      </text>
+    </>
+  );
+}
+
+function Hatch() {
+  return (
+    <defs>
+      <pattern id="window-hatch" width="8" height="8" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
+        <rect width="8" height="8" fill="var(--color-sage-soft)" />
+        <line x1="0" y1="0" x2="0" y2="8" stroke="var(--color-sage)" strokeWidth="3" opacity="0.45" />
+      </pattern>
+    </defs>
+  );
+}
+
+export function TimelineChart({ sheet }: { sheet: Sheet }) {
+  const scroller = useRef<HTMLDivElement>(null);
+  const [room, setRoom] = useState(900);
+  const [zoom, setZoom] = useState<'fit' | 'near'>('fit');
+  useLayoutEffect(() => {
+    const el = scroller.current;
+    if (!el) return;
+    const measure = () => setRoom(el.clientWidth);
+    measure();
+    const observer = new ResizeObserver(measure);
+    observer.observe(el);
+    return () => observer.disconnect();
+  }, []);
+
+  const l = sheet.timeline.length === 0 ? null : layout(sheet);
+  const span = l ? Math.max(60, l.end - l.start) : 60;
+  // The whole night fitted to the width, or a close-up of the hours before the first bake.
+  const px = zoom === 'near' ? 2.2 : Math.max(0.3, Math.min(3, (room - PAD) / span));
+  const readyX = l ? 8 + (l.ready - l.start) * px : 0;
+  useLayoutEffect(() => {
+    const el = scroller.current;
+    if (el) el.scrollLeft = zoom === 'near' ? Math.max(0, readyX - el.clientWidth * 0.8) : 0;
+  }, [zoom, readyX]);
+
+  if (!l) return <p className="text-muted">Nothing to schedule.</p>;
+  const chartW = span * px + PAD;
+  const title = `Timeline: ${l.lanes.length} builds and mixes, ${dayName(l.start, sheet.date)} ${clock(l.start)} to ${dayName(l.end, sheet.date)} ${clock(l.end)}`;
+
+  return (
+    <figure className="m-0" data-testid="timeline">
+      <div role="radiogroup" aria-label="Timeline view" className="mb-2 inline-flex gap-1 rounded-xl border-2 border-line bg-sunk p-1 print:hidden">
+        {(
+          [
+            ['fit', 'Whole night'],
+            ['near', 'Close up'],
+          ] as const
+        ).map(([value, word]) => (
+          <button
+            key={value}
+            type="button"
+            role="radio"
+            aria-checked={zoom === value}
+            onClick={() => setZoom(value)}
+            className={`min-h-11 rounded-lg px-4 font-semibold ${zoom === value ? 'bg-crust text-on-crust' : 'hover:bg-card'}`}
+          >
+            {word}
+          </button>
+        ))}
+      </div>
+      <div className="flex overflow-hidden rounded-xl border border-line bg-page/40 print:hidden">
+        <svg width={LABEL_W} height={l.height} className="shrink-0 border-r border-line" aria-hidden="true" fontFamily="var(--font-sans)">
+          <LaneLabels l={l} width={LABEL_W} />
+        </svg>
+        <div ref={scroller} className="min-w-0 flex-1 overflow-x-auto" tabIndex={0} role="region" aria-label="Timeline hours, scroll sideways">
+          <svg role="img" aria-label={title} width={chartW} height={l.height} className="block" fontFamily="var(--font-sans)">
+            <Hatch />
+            <LaneLabels l={l} width={chartW} names={false} />
+            <Bars l={l} left={8} px={px} sheet={sheet} />
+          </svg>
+        </div>
+      </div>
+      <PrintChart>
+        <svg viewBox={`0 0 ${LABEL_W + span * 0.6 + PAD} ${l.height}`} className="h-auto w-full" fontFamily="var(--font-sans)" aria-hidden="true">
+          <Hatch />
+          <LaneLabels l={l} width={LABEL_W + span * 0.6 + PAD} />
+          <Bars l={l} left={LABEL_W} px={0.6} sheet={sheet} />
+        </svg>
+      </PrintChart>
+      <figcaption className="mt-2 flex flex-wrap gap-x-4 gap-y-1 text-sm text-muted">
+        <Key color="var(--color-sage)" hatch>
+          window to make a build
+        </Key>
+        <Key color="var(--color-crust)">mix</Key>
+        <Key color="var(--color-rise)">rise, rest, proof</Key>
+        <Key color="var(--color-focus)">cold hold</Key>
+        <Key color="var(--color-ember)">bake</Key>
+        <Key color="var(--color-muted)">divide, shape, cool</Key>
+      </figcaption>
+    </figure>
+  );
+}
+
+function PrintChart({ children }: { children: ReactNode }) {
+  return <div className="hidden print:block">{children}</div>;
+}
+
+function Key({ color, hatch, children }: { color: string; hatch?: boolean; children: ReactNode }) {
+  return (
+    <span className="inline-flex items-center gap-1.5">
+      <span
+        aria-hidden="true"
+        className="inline-block h-3 w-5 rounded-sm"
+        style={hatch ? { border: `2px dashed ${color}`, background: 'var(--color-sage-soft)' } : { background: color }}
+      />
+      {children}
+    </span>
+  );
+}
+
+/** Minutes from the plan date's midnight for a "YYYY-MM-DDTHH:MM". */
+function minuteOfDay(t: string, planDate: string): number {
+  const day = Date.UTC(+planDate.slice(0, 4), +planDate.slice(5, 7) - 1, +planDate.slice(8, 10));
+  const at = Date.UTC(+t.slice(0, 4), +t.slice(5, 7) - 1, +t.slice(8, 10), +t.slice(11, 13), +t.slice(14, 16));
+  return Math.round((at - day) / 60_000);
+}
+
+function clock(m: number): string {
+  const within = ((m % 1440) + 1440) % 1440;
+  return `${String(Math.floor(within / 60)).padStart(2, '0')}:${String(within % 60).padStart(2, '0')}`;
+}
+
+/** "Wed 2 Dec": the day that minute `m` (from the plan date's midnight) falls in. */
+function dayName(m: number, planDate: string): string {
+  const offset = Math.floor(m / 1440);
+  const d = new Date(Date.UTC(+planDate.slice(0, 4), +planDate.slice(5, 7) - 1, +planDate.slice(8, 10) + offset));
+  return d.toLocaleDateString('en-GB', { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' });
+}

@@ -1,0 +1,53 @@
+// Display helpers for the viewer, on top of shared/units (rounding only ever happens here).
+import { formatGrams, formatPercent, formatTemperature } from '#shared/units';
+import type { NumberRange } from '#shared/units';
+
+export const grams = (g: number): string => formatGrams(g);
+/** A piece weight as written: "70 g", "320 g", "62.5 g". */
+export const pieceWeight = (g: number): string => (Number.isInteger(g) ? formatGrams(g).replace(/\.0 g$/, ' g') : formatGrams(g));
+export const percent = (p: number, decimals = 1): string => formatPercent(p, decimals);
+export const celsius = (c: number, decimals = 1): string => formatTemperature(c, 'C', decimals);
+
+/** 28 500 g → "28.5 kg"; below a kilo stays in grams. */
+export function weight(g: number): string {
+  if (Math.abs(g) >= 10_000) return `${(g / 1000).toFixed(1)} kg`;
+  if (Math.abs(g) >= 1_000) return `${(g / 1000).toFixed(2)} kg`;
+  return formatGrams(g);
+}
+
+export function minutes(m: number): string {
+  if (m < 60) return `${round1(m)} min`;
+  const h = Math.floor(m / 60);
+  const rest = Math.round(m - h * 60);
+  return rest === 0 ? `${h} h` : `${h} h ${rest} min`;
+}
+
+export function minutesRange(r: NumberRange): string {
+  return r.min === r.max ? minutes(r.min) : `${minutes(r.min)} – ${minutes(r.max)}`;
+}
+
+export function hoursRange(r: NumberRange): string {
+  return r.min === r.max ? `${round1(r.min)} h` : `${round1(r.min)}–${round1(r.max)} h`;
+}
+
+function round1(x: number): string {
+  return String(Number(x.toFixed(1)));
+}
+
+/** "2026-12-03" → "Thursday 3 December 2026" (the date is a calendar day, not an instant). */
+export function longDate(isoDay: string): string {
+  const [y, m, d] = isoDay.split('-').map(Number);
+  if (!y || !m || !d) return isoDay;
+  const date = new Date(Date.UTC(y, m - 1, d));
+  return date.toLocaleDateString('en-GB', { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+}
+
+export function shortDateTime(iso: string): string {
+  const date = new Date(iso);
+  if (Number.isNaN(date.getTime())) return iso;
+  return date.toLocaleString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' });
+}
+
+export function money(amount: number, currency = '€'): string {
+  return `${currency}\u202f${amount.toFixed(2)}`;
+}

@@ -1,13 +1,15 @@
 // Builds the CLI + server bundle (esbuild, code-split so each command loads only what it needs)
 // and the viewer (Vite). Run by `npm run build` and by `prepare` on `npm install`.
 import { build } from 'esbuild';
-import { rmSync } from 'node:fs';
+import { renameSync, rmSync } from 'node:fs';
 
 const onlyCli = process.argv.includes('--cli');
-rmSync('dist/cli', { recursive: true, force: true });
+// Build beside the old bundle and swap only on success, so a failed build never leaves the
+// CLI missing.
+const next = `dist/cli-next-${process.pid}`;
 await build({
   entryPoints: ['cli/index.ts'],
-  outdir: 'dist/cli',
+  outdir: next,
   bundle: true,
   splitting: true,
   format: 'esm',
@@ -18,6 +20,8 @@ await build({
   logLevel: 'warning',
   chunkNames: 'chunks/[name]-[hash]',
 });
+rmSync('dist/cli', { recursive: true, force: true });
+renameSync(next, 'dist/cli');
 if (!onlyCli) {
   const { build: viteBuild } = await import('vite');
   await viteBuild({ logLevel: 'warn' });

@@ -77,12 +77,13 @@ export function checkCatalog(input: CatalogCheckInput): Finding[] {
           out.error(cat, `component ${quote(c)} of ${quote(name)} is not in the catalog${didYouMean(c, names)}`);
           return;
         }
-        // An allergen in a component is an allergen of the compound: a missing one would drop off the label.
+        // Labels roll a component's allergens up into the compound anyway; an entry that does
+        // not say so itself misleads whoever reads the catalog, so it is flagged.
         for (const a of comp.allergens) {
           if (!e.allergens.includes(a)) {
-            out.error(
+            out.warning(
               at(...(e.allergens.length ? ['allergens'] : [])),
-              `${quote(name)} does not declare allergen ${quote(a)}, which its component ${quote(c)} has; add it to allergens`,
+              `${quote(name)} does not list allergen ${quote(a)}, which its component ${quote(c)} has; add it to allergens so the catalog reads true`,
               e.allergens.length ? 'value' : 'key',
             );
           }
@@ -90,7 +91,37 @@ export function checkCatalog(input: CatalogCheckInput): Finding[] {
       });
     }
   }
+  for (const cycle of componentCycles(catalog)) {
+    out.error(pointer(cycle[0], 'components'), `${quote(cycle[0])} contains itself through its components: ${cycle.map(quote).join(' → ')}`, 'key');
+  }
   return out.findings;
+}
+
+/** Compounds that contain themselves through other compounds (A → B → A); each cycle once. */
+function componentCycles(catalog: Catalog): string[][] {
+  const cycles: string[][] = [];
+  const reported = new Set<string>();
+  const state = new Map<string, 'open' | 'done'>();
+  const path: string[] = [];
+  const visit = (name: string) => {
+    state.set(name, 'open');
+    path.push(name);
+    for (const c of Object.hasOwn(catalog, name) ? (catalog[name].components ?? []) : []) {
+      if (c === name || !Object.hasOwn(catalog, c)) continue; // reported above
+      if (state.get(c) === 'open') {
+        const cycle = [...path.slice(path.indexOf(c)), c];
+        const key = [...cycle.slice(0, -1)].sort().join('\u0000');
+        if (!reported.has(key)) {
+          reported.add(key);
+          cycles.push(cycle);
+        }
+      } else if (!state.has(c)) visit(c);
+    }
+    path.pop();
+    state.set(name, 'done');
+  };
+  for (const name of Object.keys(catalog)) if (!state.has(name)) visit(name);
+  return cycles;
 }
 
 export function isCalendarDate(s: string): boolean {

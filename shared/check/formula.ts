@@ -209,7 +209,9 @@ export function checkFormula(input: FormulaCheckInput): Finding[] {
   if (f.doughTemperature !== undefined && outside(f.doughTemperature, PRACTICE.doughTemperature)) {
     out.warning('/dough_temperature', `dough temperature ${Number(f.doughTemperature.toFixed(1))} °C is outside the usual 20-30 °C (common practice)`);
   }
-  if (catalog && amountsOk && flourSum > 0) {
+  // Kind-based totals (salt, yeast, water) mean nothing while a name is unknown: its error says enough.
+  const overallKnown = [...f.flour, ...f.ingredients].every((l) => !unknownName.has(l.ingredient));
+  if (catalog && amountsOk && flourSum > 0 && overallKnown) {
     const overallLines = [...f.flour, ...f.ingredients];
     const ofKind = (kind: string) => overallLines.filter((l) => item(l.ingredient).kind === kind);
     const salt = sum(ofKind('salt').map((l) => l.percent));

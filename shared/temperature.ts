@@ -22,10 +22,26 @@ export const HOT_WATER_CELSIUS = 50;
 
 /** Target water that cannot be reached, or inputs that make no sense. */
 export class TemperatureError extends Error {
-  constructor(message: string) {
+  constructor(
+    message: string,
+    /** °C: the water temperature that could not be reached, when that is the problem. */
+    readonly water?: number,
+  ) {
     super(message);
     this.name = 'TemperatureError';
   }
+}
+
+/** A temperature for a message, in the scale the baker works in. */
+export function describeTemperature(celsius: number, unit: 'C' | 'F' = 'C'): string {
+  return `${(unit === 'C' ? celsius : celsius * 1.8 + 32).toFixed(1)} °${unit}`;
+}
+
+function unreachable(water: number, unit: 'C' | 'F'): TemperatureError {
+  return new TemperatureError(
+    `the water would have to be ${describeTemperature(water, unit)}, below the ${unit === 'C' ? '0 °C' : '32 °F'} that ice can bring it to; chill the flour or pre-ferment, or lower the friction`,
+    water,
+  );
 }
 
 export interface DoughTemperatureInputs {
@@ -114,11 +130,7 @@ export function computeIce(water: number, tap: number, target: number, k: IceCon
   requireFinite('tap water temperature', tap);
   requireFinite('water temperature', target);
   if (water < 0) throw new TemperatureError(`water weight must be 0 g or more; got ${water} g`);
-  if (target < 0) {
-    throw new TemperatureError(
-      `the water would have to be ${target.toFixed(1)} °C, below the 0 °C that ice can bring it to; chill the flour or pre-ferment, or lower the friction`,
-    );
-  }
+  if (target < 0) throw unreachable(target, 'C');
   if (target >= tap) return { ice: 0, tapWater: water, iceShare: 0 };
   const share = (tap - target) / (tap + k.latentHeat / k.specificHeat);
   return { ice: water * share, tapWater: water - water * share, iceShare: share };
@@ -145,18 +157,18 @@ export interface WaterPlan {
   warnings: string[];
 }
 
-/** Water temperature and, given the tap, the ice. All temperatures in °C. Throws when the target cannot be reached. */
-export function planWater(i: WaterPlanInputs): WaterPlan {
+/**
+ * Water temperature and, given the tap, the ice. All temperatures in °C; `unit` is the scale the
+ * messages speak. Throws when the target cannot be reached.
+ */
+export function planWater(i: WaterPlanInputs, unit: 'C' | 'F' = 'C'): WaterPlan {
   const w = computeWaterTemperature(i);
+  const t = (c: number) => describeTemperature(c, unit);
   const warnings: string[] = [];
-  if (w.water < 0) {
-    throw new TemperatureError(
-      `the water would have to be ${w.water.toFixed(1)} °C, below the 0 °C that ice can bring it to; chill the flour or pre-ferment, or lower the friction`,
-    );
-  }
+  if (w.water < 0) throw unreachable(w.water, unit);
   if (w.water > HOT_WATER_CELSIUS) {
     warnings.push(
-      `the water would have to be ${w.water.toFixed(1)} °C: hot enough to scald and to harm the yeast; check the inputs, or warm the flour or the room instead`,
+      `the water would have to be ${t(w.water)}: hot enough to scald and to harm the yeast; check the inputs, or warm the flour or the room instead`,
     );
   }
   let ice: number | null = null;
@@ -172,7 +184,7 @@ export function planWater(i: WaterPlanInputs): WaterPlan {
     if (split.iceShare > 0) {
       warnings.push('use clean food-grade ice, weigh it with the water, and let it melt in the mix; count it as part of the water');
     } else if (w.water > i.tap) {
-      warnings.push(`the water must be warmer than the tap (${i.tap.toFixed(1)} °C): warm it to ${w.water.toFixed(1)} °C`);
+      warnings.push(`the water must be warmer than the tap (${t(i.tap)}): warm it to ${t(w.water)}`);
     }
   }
   return { waterTemperature: w.water, factors: w.factors, ice, tapWater, iceShare, warnings };

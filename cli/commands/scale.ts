@@ -160,7 +160,7 @@ export function toScaleOptions(o: RawOptions): ScaleOptions {
 }
 
 /** The water for the final dough, from the formula's pre-ferments and the conditions given. */
-function collectWater(formula: Formula, result: ScaleResult, c: Conditions): WaterSection {
+function collectWater(formula: Formula, result: ScaleResult, c: Conditions, unit: TemperatureUnit): WaterSection {
   const ddt = c.ddt ?? formula.doughTemperature;
   if (ddt === undefined) {
     throw new UsageError(`${formula.id} has no dough_temperature; give --ddt`, 'e.g. --ddt 25');
@@ -191,7 +191,7 @@ function collectWater(formula: Formula, result: ScaleResult, c: Conditions): Wat
   const waterGrams = result.finalDoughWater;
   let plan: WaterPlan;
   try {
-    plan = planWater({ ddt, room: c.room, flour: c.flour, friction: c.friction, preferments: prefermentTemps, tap: c.tap, waterGrams });
+    plan = planWater({ ddt, room: c.room, flour: c.flour, friction: c.friction, preferments: prefermentTemps, tap: c.tap, waterGrams }, unit);
   } catch (e) {
     if (e instanceof TemperatureError) throw new InputError(`${formula.id}: ${e.message}`);
     throw e;
@@ -218,7 +218,7 @@ export function collectScale(formulaArg: string, opts: ScaleOptions): ScaleData 
     if (e instanceof ScaleError) throw new InputError(e.message);
     throw e;
   }
-  const water = opts.conditions ? collectWater(formula, result, opts.conditions) : null;
+  const water = opts.conditions ? collectWater(formula, result, opts.conditions, opts.temperatureUnit) : null;
   return { result, formula, water };
 }
 

@@ -124,12 +124,6 @@ export interface TempData {
   warnings: string[];
 }
 
-/** Messages from shared/ speak °C; with --fahrenheit, restate their temperatures in °F. */
-function inUnit(message: string, unit: TemperatureUnit): string {
-  if (unit === 'C') return message;
-  return message.replace(/(-?\d+(?:\.\d+)?) °C/g, (_, c: string) => `${celsiusToFahrenheit(Number(c)).toFixed(1)} °F`);
-}
-
 export function collectTemp(o: TempOptions): TempData {
   const out = (c: number) => (o.unit === 'C' ? c : celsiusToFahrenheit(c));
   const outDelta = (c: number) => (o.unit === 'C' ? c : celsiusDeltaToFahrenheit(c));
@@ -144,9 +138,9 @@ export function collectTemp(o: TempOptions): TempData {
   }
   let plan: WaterPlan;
   try {
-    plan = planWater({ ddt: o.ddt, room: o.room, flour: o.flour, friction: o.friction, preferments: o.preferments, tap: o.tap, waterGrams: o.waterGrams });
+    plan = planWater({ ddt: o.ddt, room: o.room, flour: o.flour, friction: o.friction, preferments: o.preferments, tap: o.tap, waterGrams: o.waterGrams }, o.unit);
   } catch (e) {
-    if (e instanceof TemperatureError) throw new InputError(inUnit(e.message, o.unit));
+    if (e instanceof TemperatureError) throw new InputError(e.message);
     throw e;
   }
   return {
@@ -154,7 +148,7 @@ export function collectTemp(o: TempOptions): TempData {
     room: out(o.room), flour: out(o.flour), preferments: o.preferments.map(out), friction: outDelta(o.friction),
     waterTemperature: out(plan.waterTemperature), measured: null,
     tap: o.tap === undefined ? null : out(o.tap), water: o.waterGrams ?? null,
-    ice: plan.ice, tapWater: plan.tapWater, iceShare: plan.iceShare, warnings: plan.warnings.map((w) => inUnit(w, o.unit)),
+    ice: plan.ice, tapWater: plan.tapWater, iceShare: plan.iceShare, warnings: plan.warnings,
   };
 }
 

@@ -1,0 +1,69 @@
+// `panform convert` through the built CLI.
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { buildCli, type BuiltCli } from './arithmetic-cli.ts';
+
+let cli: BuiltCli;
+let empty: string;
+beforeAll(async () => {
+  cli = await buildCli();
+  empty = mkdtempSync(join(tmpdir(), 'panform-convert-'));
+});
+afterAll(() => {
+  cli?.dispose();
+  if (empty) rmSync(empty, { recursive: true, force: true });
+});
+
+const run = (args: string[], cwd = empty) => cli.run(['convert', ...args], { cwd });
+
+describe('panform convert', () => {
+  it.each([
+    [['2', 'lb', 'g'], '2 lb = 907.18474 g'], // trade-references §1: 1 lb = 453.592 37 g exactly
+    [['1', 'oz', 'g'], '1 oz = 28.34952313 g'], // §1: 28.349 523 125 g (ten significant digits shown)
+    [['26', 'C', 'F'], '26 °C = 78.8 °F'], // §1 fixed point
+    [['-40', 'C', 'F'], '-40 °C = -40 °F'], // §1 fixed point: the scales meet
+    [['10', 'g', 'fresh', 'instant'], '10 g fresh yeast = 3.3 g instant yeast (× 0.33)'], // §5 Hamelman: × 0.33
+    [['10', 'g', 'fresh', 'active-dry'], '10 g fresh yeast = 4 g active dry yeast (× 0.4)'], // §5 Hamelman: × 0.4
+    [['4', 'g', 'active-dry', 'instant'], '4 g active dry yeast = 3.3 g instant yeast (× 0.825)'], // §5 [DERIVED]: 0.33 / 0.4
+  ])('converts %j', async (args, line) => {
+    const r = await run(args);
+    expect(r.code).toBe(0);
+    expect(r.stdout.split('\n')[0]).toBe(line);
+  });
+
+  it('prints JSON with --json', async () => {
+    const r = await run(['2', 'lb', 'g', '--json']);
+    expect(JSON.parse(r.stdout)).toMatchObject({ kind: 'mass', value: 2, from: 'lb', to: 'g', result: 907.18474 });
+  });
+
+  it('takes the yeast factor from the catalog when it sets one', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'panform-convert-'));
+    try {
+      writeFileSync(join(dir, 'ingredients.yaml'), 'dry yeast: { kind: yeast, yeast: active-dry, yeast_factor: 0.5 }\n');
+      const r = await cli.run(['convert', '10', 'g', 'fresh', 'active-dry', '--json'], { cwd: dir });
+      expect(r.code).toBe(0);
+      expect(JSON.parse(r.stdout)).toMatchObject({ result: 5, factors: { fresh: 1, 'active-dry': 0.5, instant: 0.33 } });
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+
+  it.each([
+    [['3', 'stone', 'g'], 'panform: unknown unit "stone"'],
+    [['3', 'g', 'F'], 'panform: cannot convert a weight (g) to a temperature (F)'],
+    [['three', 'lb', 'g'], 'panform: not a number: "three"'],
+    [['3', 'lb'], 'panform: give a value and two units (three for yeast); got 1 unit(s)'],
+  ])('refuses %j with exit 2 and one clear line', async (args, message) => {
+    const r = await run(args);
+    expect(r.code).toBe(2);
+    expect(r.stdout).toBe('');
+    expect(r.stderr.split('\n')[0]).toBe(message);
+  });
+
+  it('shows an example in --help', async () => {
+    const r = await run(['--help']);
+    expect(r.stdout).toMatch(/\$ panform convert 10 g fresh instant/);
+  });
+});

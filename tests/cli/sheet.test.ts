@@ -1,0 +1,287 @@
+// `panform sheet` through the built CLI: every format on the demo plan and the fixtures, the PDF
+// read back with poppler's pdftotext, the HTML page looked at in headless Chromium, --mail into
+// the local outbox, and one clear line for every misuse.
+import { cpSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { execFileSync } from 'node:child_process';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { simpleParser } from 'mailparser';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Sheet } from '#shared/sheet/types';
+import { sum } from '#shared/scale';
+import { formatGrams } from '#shared/units';
+import { toSheetOptions } from '../../cli/commands/sheet.ts';
+import { UsageError } from '../../cli/errors.ts';
+import { buildCli, type BuiltCli } from './arithmetic-cli.ts';
+
+const DEMO_PLAN = join('formulas', 'plans', '2026-12-03.yaml');
+const HOT_PLAN = join('tests', 'fixtures', 'sheet', 'plans', '2030-07-10.yaml');
+const PLANS = [DEMO_PLAN, HOT_PLAN].filter((p) => existsSync(p));
+const PDFTOTEXT = '/usr/bin/pdftotext';
+const CHROMIUM = '/usr/bin/chromium';
+
+let cli: BuiltCli;
+let dir: string;
+beforeAll(async () => {
+  cli = await buildCli();
+  dir = mkdtempSync(join(tmpdir(), 'panform-sheet-'));
+});
+afterAll(() => {
+  cli?.dispose();
+  if (dir) rmSync(dir, { recursive: true, force: true });
+});
+
+const memo = new Map<string, ReturnType<BuiltCli['run']>>();
+/** Runs the CLI once per distinct command line: the outputs are read by several tests. */
+function run(args: string[]): ReturnType<BuiltCli['run']> {
+  const key = JSON.stringify(args);
+  let r = memo.get(key);
+  if (!r) memo.set(key, (r = cli.run(args)));
+  return r;
+}
+
+/** Weights as printed ("1 234 g", "56.3 g"), with the thousands space made plain. */
+function weightsIn(text: string): string[] {
+  const plain = text.replace(/[\u202f\u00a0]/g, ' ');
+  return [...plain.matchAll(/(?<![\d.])\d{1,3}(?: \d{3})*(?:\.\d)? g\b/g)].map((m) => m[0]);
+}
+
+describe('panform sheet --format json', () => {
+  it.each(PLANS)('prints the sheet with the keys the brief names (%s)', async (plan) => {
+    const r = await run(['sheet', plan, '--format', 'json']);
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    const sheet = JSON.parse(r.stdout) as Sheet;
+    for (const m of sheet.mixes) {
+      expect(Object.keys(m)).toEqual(expect.arrayContaining(['formula', 'mixer', 'dough', 'ingredients', 'waterTemperature', 'ice', 'mixNumber', 'of', 'pieces', 'pieceGrams']));
+    }
+    for (const p of sheet.preferments) expect(Object.keys(p)).toEqual(expect.arrayContaining(['formula', 'name', 'grams', 'ingredients', 'mixFrom', 'mixUntil', 'waterTemperature']));
+    for (const t of sheet.totals) expect(Object.keys(t)).toEqual(expect.arrayContaining(['ingredient', 'grams']));
+    for (const t of sheet.timeline) expect(Object.keys(t)).toEqual(expect.arrayContaining(['formula', 'step', 'start', 'end', 'minutes']));
+    expect(sheet.timeline.every((t) => /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}$/.test(t.start))).toBe(true);
+    // Unrounded: at least one weight has more than one decimal.
+    expect(sheet.totals.some((t) => !Number.isInteger(t.grams * 10))).toBe(true);
+  });
+
+  it('prints the same with --json', async () => {
+    const a = await run(['sheet', HOT_PLAN, '--json']);
+    const b = await run(['sheet', HOT_PLAN, '--format', 'json']);
+    expect(a.stdout).toBe(b.stdout);
+  });
+});
+
+describe('panform sheet --format text', () => {
+  it('prints builds, mixes with ice, the timeline, the pick list and the cautions', async () => {
+    const r = await run(['sheet', HOT_PLAN]);
+    expect(r.code).toBe(0);
+    for (const heading of ['PRE-FERMENTS TO BUILD', 'SOAKERS', 'MIXES', 'TIMELINE', 'PICK LIST', 'PER PRODUCT', 'CAUTIONS']) expect(r.stdout).toContain(heading);
+    expect(r.stdout).toContain('Poolish bread · mix 1 of 2');
+    expect(r.stdout).toContain('combined for poolish-bread + poolish-twin');
+    expect(r.stdout).toMatch(/as ice +│ +1\u202f379 g/);
+    expect(r.stdout).toContain('[ ]');
+    expect(r.stdout).toMatch(/does not replace/);
+  });
+});
+
+describe('panform sheet --format csv', () => {
+  it('writes one row per weighed line with its section, rounded as printed', async () => {
+    const [csv, json] = await Promise.all([run(['sheet', HOT_PLAN, '--format', 'csv']), run(['sheet', HOT_PLAN, '--json'])]);
+    expect(csv.code).toBe(0);
+    const sheet = JSON.parse(json.stdout) as Sheet;
+    const rows = csv.stdout.trim().split('\n');
+    expect(rows[0]).toBe('section,formula,name,mix,mixer,ingredient,kind,grams,ice_grams,tap_water_grams,water_celsius,from,until');
+    const lines = [...sheet.preferments, ...sheet.soakers].reduce((n, b) => n + b.ingredients.length, 0) + sheet.mixes.reduce((n, m) => n + m.ingredients.length, 0) + sheet.totals.length;
+    expect(rows).toHaveLength(lines + 1);
+    const sections = new Set(rows.slice(1).map((r) => r.split(',')[0]));
+    expect([...sections].sort()).toEqual(['mix', 'preferment', 'soaker', 'total']);
+    const water = rows.find((r) => r.startsWith('mix,straight-rolls,') && r.includes(',water,water,'))!.split(',');
+    expect(water.slice(7, 11)).toEqual(['9840', '1379', '8461', '6']);
+  });
+});
+
+describe('panform sheet --format pdf', () => {
+  it.each(PLANS)('writes a PDF that shows every weight the text format shows (%s)', async (plan) => {
+    const out = join(dir, `${plan.replace(/\W+/g, '-')}.pdf`);
+    const r = await cli.run(['sheet', plan, '--format', 'pdf', '--out', out]);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/Wrote the pdf batch sheet/);
+    const bytes = readFileSync(out);
+    expect(bytes.subarray(0, 5).toString()).toBe('%PDF-');
+    if (!existsSync(PDFTOTEXT)) {
+      console.info(`skipped reading the PDF back: ${PDFTOTEXT} is not installed (apt-get install poppler-utils)`);
+      return;
+    }
+    const pdfText = execFileSync(PDFTOTEXT, [out, '-'], { encoding: 'utf8' }).replace(/\u00a0/g, ' ');
+    const text = (await run(['sheet', plan])).stdout;
+    const expected = new Set(weightsIn(text));
+    expect(expected.size).toBeGreaterThan(20);
+    const found = new Set(weightsIn(pdfText));
+    const missing = [...expected].filter((w) => !found.has(w));
+    expect(missing).toEqual([]);
+    // Same count of each weight, not only the same set.
+    const count = (xs: string[]) => xs.reduce((m, x) => m.set(x, (m.get(x) ?? 0) + 1), new Map<string, number>());
+    const inText = count(weightsIn(text));
+    const inPdf = count(weightsIn(pdfText));
+    for (const [w, n] of inText) expect(inPdf.get(w) ?? 0, w).toBeGreaterThanOrEqual(n);
+    expect(pdfText).toMatch(/does not replace/);
+    const info = execFileSync('/usr/bin/pdfinfo', [out], { encoding: 'utf8' });
+    expect(info).toMatch(/Page size:\s+595\.28 x 841\.89 pts \(A4\)/);
+  });
+
+  it('prints on Letter paper with --paper letter', async () => {
+    const out = join(dir, 'letter.pdf');
+    expect((await cli.run(['sheet', HOT_PLAN, '--format', 'pdf', '--paper', 'letter', '--out', out])).code).toBe(0);
+    if (!existsSync('/usr/bin/pdfinfo')) return;
+    expect(execFileSync('/usr/bin/pdfinfo', [out], { encoding: 'utf8' })).toMatch(/Page size:\s+612 x 792 pts \(letter\)/);
+  });
+});
+
+describe('panform sheet --format html', () => {
+  it('writes a self-contained page with the font, @page size, tick boxes and the chart', async () => {
+    const out = join(dir, 'sheet.html');
+    expect((await cli.run(['sheet', HOT_PLAN, '--format', 'html', '--out', out])).code).toBe(0);
+    const html = readFileSync(out, 'utf8');
+    expect(html).toMatch(/@font-face\{font-family:'JetBrains Mono'.*base64,/);
+    expect(html).toContain('@page { size: A4 portrait;');
+    expect(html).toContain('<svg');
+    expect(html).not.toMatch(/<script|src="http|href="http/);
+    const text = (await run(['sheet', HOT_PLAN])).stdout;
+    const ticks = (text.match(/\[ \]/g) ?? []).length;
+    expect((html.match(/aria-label="tick box"/g) ?? []).length).toBe(ticks);
+  });
+
+  it.runIf(existsSync(CHROMIUM))('looks right in headless Chromium: the font loads, nothing runs off the page, the chart draws', async () => {
+    const out = join(dir, 'look.html');
+    expect((await cli.run(['sheet', DEMO_PLAN, '--format', 'html', '--out', out])).code).toBe(0);
+    const { chromium } = await import('playwright-core');
+    const profile = mkdtempSync(join(tmpdir(), 'panform-chromium-'));
+    const context = await chromium.launchPersistentContext(profile, {
+      executablePath: CHROMIUM,
+      headless: true,
+      args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+      // A4 at 96 dpi is 794 px wide.
+      viewport: { width: 794, height: 1123 },
+    });
+    try {
+      const page = await context.newPage();
+      await page.goto(`file://${out}`);
+      await page.evaluate(() => document.fonts.ready);
+      const look = await page.evaluate(() => ({
+        font: document.fonts.check("16px 'JetBrains Mono'"),
+        scrollWidth: document.documentElement.scrollWidth,
+        clientWidth: document.documentElement.clientWidth,
+        bars: document.querySelectorAll('figure.chart svg rect').length,
+        svgWidth: document.querySelector('figure.chart svg')!.getBoundingClientRect().width,
+        ticks: document.querySelectorAll('td.tick span').length,
+        cautions: document.querySelector('.box.cautions')?.textContent ?? '',
+        // Weigh tables must not be wider than their block.
+        overflowing: [...document.querySelectorAll('table')].filter((t) => t.getBoundingClientRect().right > document.documentElement.clientWidth + 1).length,
+      }));
+      expect(look.font).toBe(true);
+      expect(look.scrollWidth).toBeLessThanOrEqual(look.clientWidth);
+      expect(look.overflowing).toBe(0);
+      expect(look.bars).toBeGreaterThan(20);
+      expect(look.svgWidth).toBeGreaterThan(500);
+      expect(look.ticks).toBeGreaterThan(20);
+      expect(look.cautions).toMatch(/Allergens in today's products/);
+      await page.emulateMedia({ media: 'print' });
+      const pdf = await page.pdf({ preferCSSPageSize: true });
+      expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
+      await page.screenshot({ path: join(dir, 'look.png'), fullPage: true });
+    } finally {
+      await context.close();
+      rmSync(profile, { recursive: true, force: true });
+    }
+  });
+});
+
+describe('panform sheet --mail', () => {
+  it('sends the PDF sheet into the local outbox when no SMTP server is set', async () => {
+    const outbox = join(dir, 'outbox');
+    const saved = { outbox: process.env.PANFORM_OUTBOX, smtp: process.env.SMTP_URL };
+    process.env.PANFORM_OUTBOX = outbox;
+    delete process.env.SMTP_URL;
+    try {
+      const r = await cli.run(['sheet', HOT_PLAN, '--mail', 'ines@tidewater.example']);
+      expect(r.stderr).toBe('');
+      expect(r.code).toBe(0);
+      expect(r.stdout).toMatch(/^Sent the batch sheet for 2030-07-10 to ines@tidewater\.example \(no SMTP_URL set: saved in .*\.eml\)\n$/);
+      const [file] = readdirSync(outbox);
+      const mail = await simpleParser(readFileSync(join(outbox, file)));
+      expect(mail.subject).toBe('Batch sheet for Wednesday 10 July 2030');
+      expect(mail.attachments[0].filename).toBe('batch-sheet-2030-07-10.pdf');
+      expect(mail.attachments[0].content.subarray(0, 5).toString()).toBe('%PDF-');
+      expect(mail.text).toContain('PICK LIST');
+    } finally {
+      if (saved.outbox === undefined) delete process.env.PANFORM_OUTBOX;
+      else process.env.PANFORM_OUTBOX = saved.outbox;
+      if (saved.smtp !== undefined) process.env.SMTP_URL = saved.smtp;
+    }
+  });
+});
+
+describe('panform sheet misuse and bad input', () => {
+  it.each([
+    [{ format: 'xml' }, /unknown format "xml"/],
+    [{ json: true, format: 'csv' }, /--json and --format csv ask for different formats/],
+    [{ mail: 'not-an-address' }, /--mail needs an e-mail address/],
+    [{ paper: 'a3' }, /unknown paper "a3"/],
+  ])('refuses %j as misuse (exit 2)', (flags, message) => {
+    expect(() => toSheetOptions('plan.yaml', flags)).toThrow(UsageError);
+    expect(() => toSheetOptions('plan.yaml', flags)).toThrow(message);
+  });
+
+  it('turns flags into options', () => {
+    expect(toSheetOptions('p.yaml', {})).toEqual({ plan: 'p.yaml', format: 'text', paper: 'a4', out: undefined, mail: undefined, catalog: undefined });
+    expect(toSheetOptions('p.yaml', { json: true, paper: 'Letter', mail: 'ines@tidewater.example', out: 'x', catalog: 'c.yaml' })).toEqual({
+      plan: 'p.yaml', format: 'json', paper: 'letter', out: 'x', mail: 'ines@tidewater.example', catalog: 'c.yaml',
+    });
+  });
+
+  it.each([
+    [['sheet', HOT_PLAN, '--format', 'xml'], 2, /Allowed choices are text, json, csv, html, pdf/],
+    [['sheet', 'no/such/plan.yaml'], 1, /no such file: no\/such\/plan\.yaml/],
+    [['sheet'], 2, /missing required argument 'plan'/],
+  ])('%j exits %i with one clear line', async (args, code, message) => {
+    const r = await run(args as string[]);
+    expect(r.code).toBe(code);
+    expect(r.stderr).toMatch(message);
+    expect(r.stderr).not.toMatch(/at .*\.js:\d+/);
+  });
+
+  it('exits 1 and names the formula when an order names one that is not beside plans/', async () => {
+    const plan = join(dir, 'lonely', 'plans', '2030-07-10.yaml');
+    mkdirSync(join(dir, 'lonely', 'plans'), { recursive: true });
+    writeFileSync(plan, readFileSync(HOT_PLAN, 'utf8'));
+    const r = await cli.run(['sheet', plan, '--catalog', join('tests', 'fixtures', 'sheet', 'ingredients.yaml')]);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/unknown formula: straight-rolls/);
+  });
+
+  it('exits 1 and says why when a piece is bigger than its mixer', async () => {
+    const copy = join(dir, 'small-mixer');
+    cpSync(join('tests', 'fixtures', 'sheet'), copy, { recursive: true });
+    const plan = join(copy, 'plans', '2030-07-10.yaml');
+    writeFileSync(plan, readFileSync(plan, 'utf8').replace('capacity: 10 kg', 'capacity: 0.5 kg'));
+    const r = await cli.run(['sheet', plan]);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/one piece needs .* more than mixer "small spiral"/);
+  });
+
+  it('shows an example in --help', async () => {
+    const r = await run(['sheet', '--help']);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toContain('panform sheet formulas/plans/2026-12-03.yaml --format pdf --out sheet.pdf');
+  });
+});
+
+describe('the pick list in every format', () => {
+  it('adds up to the same total in JSON, text and CSV', async () => {
+    const sheet = JSON.parse((await run(['sheet', HOT_PLAN, '--json'])).stdout) as Sheet;
+    const total = sum(sheet.totals.map((t) => t.grams));
+    const text = (await run(['sheet', HOT_PLAN])).stdout;
+    expect(text).toMatch(new RegExp(`│ all +│ +│ +${formatGrams(total)} │`));
+    const csv = (await run(['sheet', HOT_PLAN, '--format', 'csv'])).stdout.trim().split('\n').filter((r) => r.startsWith('total,'));
+    expect(Math.abs(sum(csv.map((r) => Number(r.split(',')[7]))) - total)).toBeLessThan(csv.length);
+  });
+});

@@ -1,0 +1,125 @@
+// The sheet as the bench reads it: presentSheet (rounded, shared by text, HTML and PDF), the
+// chart model and the HTML page.
+import { describe, expect, it } from 'vitest';
+import { buildSheet } from '#shared/sheet/build';
+import { chartModel } from '#shared/sheet/chart';
+import { escapeHtml, renderSheetHtml } from '#shared/sheet/html';
+import { longDate, presentSheet } from '#shared/sheet/present';
+import { localDateTime, minuteOf, shortTime } from '#shared/sheet/time';
+import { formatGrams } from '#shared/units';
+import { FIXTURE_PLANS, sheetInput } from './sheet-fixtures.ts';
+
+const sheet = buildSheet(sheetInput(FIXTURE_PLANS[0]));
+
+describe('local times', () => {
+  it.each([
+    [0, '2030-07-10T00:00'],
+    [250, '2030-07-10T04:10'],
+    [-120, '2030-07-09T22:00'],
+    [1440 + 61, '2030-07-11T01:01'],
+  ])('minute %i of 2030-07-10 is %s, and back', (minute, iso) => {
+    expect(localDateTime('2030-07-10', minute)).toBe(iso);
+    expect(minuteOf(iso, '2030-07-10')).toBe(minute);
+  });
+
+  it('crosses month and year ends on the calendar', () => {
+    expect(localDateTime('2031-01-01', -30)).toBe('2030-12-31T23:30');
+    expect(localDateTime('2028-03-01', -60)).toBe('2028-02-29T23:00'); // 2028 is a leap year
+  });
+
+  it('shows the day only off the plan date', () => {
+    expect(shortTime('2030-07-10T04:10', '2030-07-10')).toBe('04:10');
+    expect(shortTime('2030-07-09T22:00', '2030-07-10')).toBe('9 Jul 22:00');
+  });
+
+  it.each([
+    ['2026-12-03', 'Thursday 3 December 2026'],
+    ['2030-07-10', 'Wednesday 10 July 2030'],
+  ])('names %s as %s', (date, text) => {
+    expect(longDate(date)).toBe(text);
+  });
+});
+
+describe('presentSheet', () => {
+  const p = presentSheet(sheet);
+
+  it('has the sections in bench order', () => {
+    expect(p.sections.map((s) => s.key)).toEqual(['preferments', 'soakers', 'mixes', 'timeline', 'totals', 'formulas', 'cautions']);
+  });
+
+  it('rounds every weight for display and puts a tick box beside it', () => {
+    const mixes = p.sections.find((s) => s.key === 'mixes')!;
+    for (const [i, m] of sheet.mixes.entries()) {
+      const t = mixes.blocks[i].table!;
+      const rows = t.rows.filter((r) => !r[0].startsWith('  as '));
+      expect(rows.map((r) => r[1])).toEqual(m.ingredients.map((l) => formatGrams(l.grams)));
+      expect(t.tick.every(Boolean)).toBe(true);
+      expect(t.footer).toEqual(['dough', formatGrams(m.dough)]);
+    }
+  });
+
+  it('splits the water line into ice and tap water when ice is needed', () => {
+    const mixes = p.sections.find((s) => s.key === 'mixes')!;
+    const i = sheet.mixes.findIndex((m) => m.ice > 0);
+    const rows = mixes.blocks[i].table!.rows;
+    const w = rows.findIndex((r) => r[0] === 'water');
+    expect(rows[w + 1]).toEqual(['  as ice', formatGrams(sheet.mixes[i].ice)]);
+    expect(rows[w + 2]).toEqual(['  as tap water (20.0 °C)', formatGrams(sheet.mixes[i].tapWater)]);
+  });
+
+  it('shows the water temperature with its working', () => {
+    const mixes = p.sections.find((s) => s.key === 'mixes')!;
+    const i = sheet.mixes.findIndex((m) => m.formula === 'straight-rolls');
+    expect(mixes.blocks[i].lines).toContain('water at 6.0 °C for dough at 24.0 °C (3 × 24.0 °C − room 27.0 °C − flour 25.0 °C − friction 14.0 °C)');
+    expect(mixes.blocks[i].lines).toContain('divide 300 × 90.0 g');
+  });
+});
+
+describe('chartModel', () => {
+  const m = chartModel(sheet);
+
+  it('has a row per build and per mix, and hour ticks that cover the bars', () => {
+    expect(m.rows).toHaveLength(sheet.preferments.length + sheet.soakers.length + sheet.mixes.length);
+    expect(Math.abs(m.from % 60)).toBe(0);
+    expect(m.ticks[0].minute).toBeGreaterThanOrEqual(m.from);
+    expect(m.ticks[m.ticks.length - 1].minute).toBeLessThanOrEqual(m.to);
+    expect(m.ticks[0].day).toBe('9 Jul');
+    expect(m.ticks.filter((t) => t.day).map((t) => t.day)).toEqual(['9 Jul', '10 Jul']);
+    expect(m.readyBy).toBe(5 * 60);
+  });
+});
+
+describe('renderSheetHtml', () => {
+  const html = renderSheetHtml(sheet);
+
+  it('sets the paper through @page', () => {
+    expect(html).toContain('@page { size: A4 portrait;');
+    expect(renderSheetHtml(sheet, { paper: 'letter' })).toContain('@page { size: letter portrait;');
+  });
+
+  it('has a tick box beside every weight and every weight the presented sheet has', () => {
+    const p = presentSheet(sheet);
+    const weighed = p.sections.flatMap((s) => s.blocks.flatMap((b) => b.table?.tick.filter(Boolean) ?? []));
+    expect((html.match(/aria-label="tick box"/g) ?? []).length).toBe(weighed.length);
+    for (const l of sheet.totals) expect(html).toContain(escapeHtml(formatGrams(l.grams)));
+  });
+
+  it('draws the timeline as inline SVG and boxes the cautions', () => {
+    expect(html).toMatch(/<svg[^>]*viewBox="0 0 760 \d+"/);
+    expect((html.match(/<rect /g) ?? []).length).toBeGreaterThan(sheet.timeline.filter((e) => e.minutes > 0).length / 2);
+    expect(html).toMatch(/<section class="box cautions"><h2>Cautions<\/h2><ul><li>Allergens in today&#39;s products/);
+  });
+
+  it('escapes text from the files', () => {
+    const tricky = { ...sheet, notes: '<script>alert(1)</script> & "quotes"' };
+    const out = renderSheetHtml(tricky);
+    expect(out).not.toContain('<script>');
+    expect(out).toContain('&lt;script&gt;alert(1)&lt;/script&gt; &amp; &quot;quotes&quot;');
+  });
+
+  it('embeds the font rules it is given and asks for no ligatures', () => {
+    const out = renderSheetHtml(sheet, { fontFaceCss: "@font-face{font-family:'JetBrains Mono';src:url(data:font/woff2;base64,AAAA)}" });
+    expect(out).toContain("@font-face{font-family:'JetBrains Mono'");
+    expect(out).toContain('font-variant-ligatures: none');
+  });
+});

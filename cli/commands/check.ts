@@ -40,13 +40,21 @@ export function classify(path: string, catalogPath?: string): FileKind {
 
 const isYaml = (name: string) => /\.ya?ml$/i.test(name);
 
+function readFolder(dir: string) {
+  try {
+    return readdirSync(dir, { withFileTypes: true }).sort((a, b) => a.name.localeCompare(b.name));
+  } catch (e) {
+    throw new UsageError(`cannot read the folder ${dir}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
+  }
+}
+
+/** .yaml/.yml files under `dir`, skipping hidden entries; a linked file counts, a linked folder is not followed. */
 function walk(dir: string, out: string[]): void {
-  const entries = readdirSync(dir, { withFileTypes: true }).sort((a, b) => a.name.localeCompare(b.name));
-  for (const e of entries) {
+  for (const e of readFolder(dir)) {
     if (e.name.startsWith('.') || e.name === 'node_modules') continue;
     const p = join(dir, e.name);
     if (e.isDirectory()) walk(p, out);
-    else if (e.isFile() && isYaml(e.name)) out.push(p);
+    else if (isYaml(e.name) && (e.isFile() || (e.isSymbolicLink() && statSync(p, { throwIfNoEntry: false })?.isFile()))) out.push(p);
   }
 }
 
@@ -126,15 +134,25 @@ export function collectCheck(options: Pick<CheckOptions, 'paths' | 'catalog'>): 
     return c;
   };
 
+  // Statuses of the formulas checked in this run, so plans need not read them again.
+  const statusOf = new Map<string, { status?: string }>();
   const formulaDirs = new Map<string, Map<string, KnownFormula>>();
   const formulasIn = (dir: string) => {
     let m = formulaDirs.get(dir);
     if (!m) {
       m = new Map();
-      const names = readdirSync(dir, { withFileTypes: true })
-        .filter((e) => e.isFile() && isYaml(e.name) && e.name !== CATALOG_FILE && !e.name.startsWith('.'))
-        .map((e) => e.name);
+      let names: string[] = [];
+      try {
+        names = readdirSync(dir).filter((n) => isYaml(n) && n !== CATALOG_FILE && !n.startsWith('.') && statSync(join(dir, n), { throwIfNoEntry: false })?.isFile());
+      } catch {
+        // An unreadable folder holds no formulas we can name; each order then says so.
+      }
       for (const name of names) {
+        const checked = statusOf.get(resolve(join(dir, name)));
+        if (checked) {
+          m.set(fileStem(name), { status: checked.status });
+          continue;
+        }
         const r = readForCheck(join(dir, name));
         let status: string | undefined;
         if ('text' in r) {
@@ -150,7 +168,10 @@ export function collectCheck(options: Pick<CheckOptions, 'paths' | 'catalog'>): 
     return m;
   };
 
-  for (const file of files) {
+  // Catalogs, then formulas, then plans: each kind needs what the one before it reads.
+  const order = { catalog: 0, formula: 1, plan: 2 } as const;
+  const byKind = [...files].sort((a, b) => order[classify(a, options.catalog)] - order[classify(b, options.catalog)]);
+  for (const file of byKind) {
     const kind = classify(file, options.catalog);
     if (kind === 'catalog') {
       findings.push(...loadCatalog(file).findings);
@@ -173,7 +194,9 @@ export function collectCheck(options: Pick<CheckOptions, 'paths' | 'catalog'>): 
           if (!checkedSet.has(resolve(catalogPath))) noCatalog += ` (run \`panform check ${catalogPath}\`)`;
         }
       }
-      findings.push(...checkFileText({ kind: 'formula', file, text: r.text, catalog, noCatalog }).findings);
+      const res = checkFileText({ kind: 'formula', file, text: r.text, catalog, noCatalog });
+      findings.push(...res.findings);
+      if (res.kind === 'formula' && res.value) statusOf.set(resolve(file), { status: res.value.status });
     } else {
       const dir = formulasDirForPlan(file);
       const shown = relative(process.cwd(), dir) || '.';

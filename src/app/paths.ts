@@ -10,7 +10,9 @@ export const paths = {
   home: { path: '/', getHref: () => '/' },
   signIn: { path: '/sign-in', getHref: (next?: string) => `/sign-in${q({ next: next && next !== '/' ? next : undefined })}` },
   forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
-  resetPassword: { path: '/reset', getHref: (token: string) => `/reset${q({ token })}` },
+  // The server's reset e-mail links here (server/routes/session.ts RESET_PAGE); /reset is kept as a short alias.
+  resetPassword: { path: '/reset-password', getHref: (token: string) => `/reset-password${q({ token })}` },
+  resetPasswordShort: { path: '/reset', getHref: (token: string) => `/reset${q({ token })}` },
   formulas: {
     path: '/formulas',
     getHref: (filters: { q?: string; category?: string; tag?: string; status?: string } = {}) => `/formulas${q(filters)}`,

@@ -35,6 +35,7 @@ export function createAppRouter(queryClient: QueryClient) {
         { path: paths.signIn.path, lazy: () => import('./routes/sign-in.tsx').then(convert(queryClient)) },
         { path: paths.forgotPassword.path, lazy: () => import('./routes/forgot-password.tsx').then(convert(queryClient)) },
         { path: paths.resetPassword.path, lazy: () => import('./routes/reset-password.tsx').then(convert(queryClient)) },
+        { path: paths.resetPasswordShort.path, lazy: () => import('./routes/reset-password.tsx').then(convert(queryClient)) },
         {
           id: 'app',
           Component: AppShell,

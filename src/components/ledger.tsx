@@ -3,6 +3,8 @@ import type { ReactNode } from 'react';
 
 export interface LedgerRow {
   key: string;
+  /** The ingredient's name, for finding the row (tests, print). */
+  ingredient?: string;
   label: ReactNode;
   /** Baker's percent or another small figure, shown before the weight. */
   percent?: ReactNode;
@@ -49,7 +51,7 @@ export function Ledger({
       </thead>
       <tbody>
         {rows.map((r) => (
-          <tr key={r.key} className="border-b border-dashed border-line align-top" data-ingredient={typeof r.key === 'string' ? r.key : undefined}>
+          <tr key={r.key} className="border-b border-dashed border-line align-top" data-ingredient={r.ingredient}>
             <th scope="row" className={`py-1.5 pr-2 text-left font-normal print:py-0.5 ${r.emphasis ? 'font-semibold italic text-crust' : ''}`}>
               {r.label}
               {r.note && <span className="block text-sm text-muted print:inline print:pl-1 print:text-[8pt]">{r.note}</span>}

@@ -34,12 +34,21 @@ function round1(x: number): string {
   return String(Number(x.toFixed(1)));
 }
 
-/** "2026-12-03" → "Thursday 3 December 2026" (the date is a calendar day, not an instant). */
-export function longDate(isoDay: string): string {
+const WEEKDAYS = ['Sunday', 'Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday'];
+const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
+
+/** The weekday, day, month and year of a calendar day "YYYY-MM-DD" (a day, not an instant: no time zone). */
+export function dayParts(isoDay: string): { weekday: string; day: number; month: string; year: number } | null {
   const [y, m, d] = isoDay.split('-').map(Number);
-  if (!y || !m || !d) return isoDay;
+  if (!y || !m || !d) return null;
   const date = new Date(Date.UTC(y, m - 1, d));
-  return date.toLocaleDateString('en-GB', { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+  return { weekday: WEEKDAYS[date.getUTCDay()], day: d, month: MONTHS[m - 1], year: y };
+}
+
+/** "2026-12-03" → "Thursday 3 December 2026". */
+export function longDate(isoDay: string): string {
+  const p = dayParts(isoDay);
+  return p ? `${p.weekday} ${p.day} ${p.month} ${p.year}` : isoDay;
 }
 
 export function shortDateTime(iso: string): string {

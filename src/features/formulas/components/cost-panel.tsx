@@ -12,7 +12,7 @@ export function CostPanel({ scaled, catalog, currency }: { scaled: ScaleResult; 
       <dl className="grid grid-cols-3 gap-2">
         <div>
           <dt className="text-sm text-muted">Per piece</dt>
-          <dd className="figure text-2xl font-bold text-crust">{cost.perPiece === null ? '—' : money(cost.perPiece)}</dd>
+          <dd className="figure text-2xl font-bold text-crust" data-testid="cost-per-piece">{cost.perPiece === null ? '—' : money(cost.perPiece)}</dd>
         </div>
         <div>
           <dt className="text-sm text-muted">Per kg of dough</dt>

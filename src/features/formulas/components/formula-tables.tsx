@@ -19,6 +19,7 @@ export function OverallTable({ scaled }: { scaled: ScaleResult }) {
       testId="overall"
       rows={scaled.overall.map((l, i) => ({
         key: `${l.ingredient}-${i}`,
+        ingredient: l.ingredient,
         label: l.ingredient,
         percent: percent(l.percent, 2),
         weight: grams(l.grams),
@@ -54,6 +55,7 @@ export function BuildTable({ build, formula }: { build: ScaledBuild; formula: Fo
         percentHeading={build.kind === 'soaker' ? '% of all flour' : '% of its flour'}
         rows={build.ingredients.map((l, i) => ({
           key: `${l.ingredient}-${i}`,
+        ingredient: l.ingredient,
           label: l.ingredient,
           percent: percent(l.percent, 2),
           weight: grams(l.weigh),
@@ -77,6 +79,7 @@ export function FinalDoughTable({ scaled }: { scaled: ScaleResult }) {
       showPercent={false}
       rows={scaled.finalDough.map((l, i) => ({
         key: `${l.ingredient}-${i}`,
+        ingredient: l.ingredient,
         label: l.ingredient,
         weight: grams(l.grams),
         emphasis: l.source !== 'ingredient',

@@ -31,7 +31,7 @@ export function ProcessSteps({ steps }: { steps: Step[] }) {
         if (s.steam) details.push('with steam');
         return (
           <li key={i} className="grid grid-cols-[2.25rem_1fr] gap-3 rounded-xl border border-line bg-page/50 p-3 print:break-inside-avoid print:grid-cols-[1.2rem_1fr] print:gap-1 print:border-0 print:p-0 print:pb-0.5">
-            <span aria-hidden="true" className="figure grid h-9 w-9 place-items-center rounded-full bg-crust text-on-crust font-bold print:h-auto print:w-auto print:bg-transparent print:text-ink">
+            <span aria-hidden="true" className="figure grid h-9 w-9 place-items-center rounded-full bg-crust text-on-crust font-bold print:h-auto print:w-auto print:place-items-start print:bg-transparent print:text-ink">
               {i + 1}
             </span>
             <div>

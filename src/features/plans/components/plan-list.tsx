@@ -1,6 +1,6 @@
 import { Link } from 'react-router';
 import type { PlanSummary } from '#shared/api';
-import { longDate } from '../../../lib/format.ts';
+import { dayParts, longDate } from '../../../lib/format.ts';
 
 export function PlanList({ plans, hrefOf }: { plans: PlanSummary[]; hrefOf: (date: string) => string }) {
   if (plans.length === 0) {
@@ -31,15 +31,13 @@ export function PlanList({ plans, hrefOf }: { plans: PlanSummary[]; hrefOf: (dat
 }
 
 function DayStamp({ date }: { date: string }) {
-  const [y, m, d] = date.split('-').map(Number);
-  const when = new Date(Date.UTC(y, (m ?? 1) - 1, d ?? 1));
-  const month = when.toLocaleDateString('en-GB', { month: 'short', timeZone: 'UTC' });
-  const day = when.toLocaleDateString('en-GB', { weekday: 'short', timeZone: 'UTC' });
+  const p = dayParts(date);
+  if (!p) return null;
   return (
     <div aria-hidden="true" className="grid h-20 w-20 shrink-0 place-content-center rounded-xl bg-crust text-center text-on-crust">
-      <span className="text-sm uppercase tracking-wider">{day}</span>
-      <span className="figure text-3xl font-bold leading-none">{d}</span>
-      <span className="text-sm uppercase tracking-wider">{month}</span>
+      <span className="text-sm uppercase tracking-wider">{p.weekday.slice(0, 3)}</span>
+      <span className="figure text-3xl font-bold leading-none">{p.day}</span>
+      <span className="text-sm uppercase tracking-wider">{p.month.slice(0, 3)}</span>
     </div>
   );
 }

@@ -78,6 +78,7 @@ export function BuildCard({ build, date }: { build: SheetBuild; date: string }) 
         showPercent={false}
         rows={build.ingredients.map((l, i) => ({
           key: `${l.ingredient}-${i}`,
+          ingredient: l.ingredient,
           label: l.ingredient,
           weight: grams(l.grams),
           note: l.seed ? 'seed culture' : undefined,
@@ -113,6 +114,7 @@ export function MixCard({ mix, date }: { mix: SheetMix; date: string }) {
         showPercent={false}
         rows={mix.ingredients.map((l, i) => ({
           key: `${l.ingredient}-${i}`,
+          ingredient: l.ingredient,
           label: l.ingredient,
           weight: grams(l.grams),
           emphasis: l.kind === 'preferment' || l.kind === 'soaker',
@@ -129,7 +131,7 @@ export function PickList({ sheet }: { sheet: Sheet }) {
       testId="pick-list"
       showPercent={false}
       weightHeading="Get out"
-      rows={sheet.totals.map((l) => ({ key: l.ingredient, label: l.ingredient, weight: weight(l.grams), note: l.kind }))}
+      rows={sheet.totals.map((l) => ({ key: l.ingredient, ingredient: l.ingredient, label: l.ingredient, weight: weight(l.grams), note: l.kind }))}
     />
   );
 }

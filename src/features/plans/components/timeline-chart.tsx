@@ -2,6 +2,7 @@
 // On screen the lane names stay put while the hours scroll; on paper one picture fits the page.
 import { useLayoutEffect, useRef, useState, type ReactNode } from 'react';
 import type { Sheet, TimelineEntry } from '#shared/sheet/types';
+import { dayParts } from '../../../lib/format.ts';
 
 const STEP_WORD: Record<string, string> = {
   build: 'build',
@@ -284,5 +285,6 @@ function clock(m: number): string {
 function dayName(m: number, planDate: string): string {
   const offset = Math.floor(m / 1440);
   const d = new Date(Date.UTC(+planDate.slice(0, 4), +planDate.slice(5, 7) - 1, +planDate.slice(8, 10) + offset));
-  return d.toLocaleDateString('en-GB', { weekday: 'short', day: 'numeric', month: 'short', timeZone: 'UTC' });
+  const p = dayParts(d.toISOString().slice(0, 10));
+  return p ? `${p.weekday.slice(0, 3)} ${p.day} ${p.month.slice(0, 3)}` : '';
 }

@@ -111,6 +111,8 @@ interface TableStyle {
   /** Column that may wrap when the table is too wide (the last left-aligned one). */
   wrapColumn?: number;
   maxWidth?: number;
+  /** Smallest width per column, so that the weights and tick boxes of one section line up. */
+  minWidths?: number[];
 }
 
 const TICK_W = 22;
@@ -122,7 +124,8 @@ function drawTable(w: Writer, t: SheetTable, s: TableStyle): void {
   const sizeOf = (i: number) => (bold(i) ? s.weightSize : s.size);
   const widths = Array.from({ length: cols }, (_, i) => {
     const cells = [t.head[i], ...t.rows.map((r) => r[i]), ...(t.footer ? [t.footer[i]] : [])];
-    return Math.max(...cells.map((c) => w.widthOf(c ?? '', sizeOf(i), bold(i) || (t.footer !== undefined && c === t.footer[i])))) + 2 * s.pad;
+    const widest = Math.max(...cells.map((c) => w.widthOf(c ?? '', sizeOf(i), bold(i) || (t.footer !== undefined && c === t.footer[i])))) + 2 * s.pad;
+    return Math.max(widest, s.minWidths?.[i] ?? 0);
   });
   const avail = Math.min(s.maxWidth ?? w.width, w.width) - (tick ? TICK_W : 0);
   let total = widths.reduce((a, b) => a + b, 0);
@@ -172,8 +175,9 @@ function drawTable(w: Writer, t: SheetTable, s: TableStyle): void {
     const h = s.size * 1.2 + 2 * s.pad;
     if (w.y + h > w.bottom) w.newPage();
     w.doc.moveTo(w.left, w.y).lineTo(w.left + tableW, w.y).lineWidth(0.8).strokeColor(INK).stroke();
-    t.footer.forEach((c, i) => w.text(c, xs[i] + s.pad, w.y + s.pad, { size: s.size, bold: true, width: widths[i] - 2 * s.pad, align: t.align[i] }));
-    w.y += h;
+    const fh = Math.max(...t.footer.map((_, i) => sizeOf(i))) * 1.2 + 2 * s.pad;
+    t.footer.forEach((c, i) => w.text(c, xs[i] + s.pad, w.y + s.pad, { size: sizeOf(i), bold: true, width: widths[i] - 2 * s.pad, align: t.align[i] }));
+    w.y += Math.max(h, fh);
   }
 }
 
@@ -302,14 +306,14 @@ export async function renderSheetPdf(sheet: Sheet, options: PdfOptions = {}): Pr
           ? { size: 7.5, weightSize: 7.5, pad: 2, wrapColumn: 4 }
           : s.key === 'formulas'
             ? { size: 9, weightSize: 9, pad: 3 }
-            : { size: 10.5, weightSize: 12, pad: 3.5, maxWidth: 360 };
+            : { size: 10.5, weightSize: 12, pad: 3.5, maxWidth: 380, minWidths: s.key === 'totals' ? [190, 90, 100] : [230, 100] };
       if (b.title || b.lines.length > 0) {
         // Keep a block's title with the start of its table.
-        const head = (b.title ? 16 : 0) + b.lines.reduce((a, l) => a + w.heightOf(l, 8.5, w.width - 8) + 1, 0);
+        const head = (b.title ? 16 : 0) + b.lines.reduce((a, l) => a + w.heightOf(l, 9.5, w.width - 8) + 1, 0);
         const rows = b.table ? Math.min(b.table.rows.length, 14) + 2 : 0;
         w.ensure(head + rows * (style.weightSize * 1.2 + 2 * style.pad) + 8);
         if (b.title) w.paragraph(b.title, 11.5, { bold: true, gap: 2 });
-        for (const l of b.lines) w.paragraph(l, 8.5, { colour: MUTED, indent: 8 });
+        for (const l of b.lines) w.paragraph(l, 9.5, { indent: 8 });
       }
       if (b.table) drawTable(w, b.table, style);
       w.y += 12;

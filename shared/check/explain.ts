@@ -96,19 +96,32 @@ type SchemaNode = {
   patternProperties?: Record<string, SchemaNode>;
   items?: SchemaNode;
   anyOf?: SchemaNode[];
+  enum?: unknown[];
 };
+
+/** The schema of the value at `path`, following objects, records and lists. */
+function schemaAt(kind: SchemaKind, path: string[]): SchemaNode | undefined {
+  let node: SchemaNode | undefined = SCHEMAS[kind] as unknown as SchemaNode;
+  for (const seg of path) {
+    if (!node) return undefined;
+    if (node.properties && Object.hasOwn(node.properties, seg)) node = node.properties[seg];
+    else if (node.patternProperties) node = Object.values(node.patternProperties)[0];
+    else if (node.items) node = node.items;
+    else return undefined;
+  }
+  return node;
+}
 
 /** The field names the schema allows in the object at `path`. */
 export function fieldsAt(kind: SchemaKind, path: string[]): string[] {
-  let node: SchemaNode | undefined = SCHEMAS[kind] as unknown as SchemaNode;
-  for (const seg of path) {
-    if (!node) return [];
-    if (node.properties && seg in node.properties) node = node.properties[seg];
-    else if (node.patternProperties) node = Object.values(node.patternProperties)[0];
-    else if (node.items) node = node.items;
-    else return [];
-  }
+  const node = schemaAt(kind, path);
   return node?.properties ? Object.keys(node.properties).filter((k) => k !== '$schema') : [];
+}
+
+/** The values the schema allows at `path`, when it is a list of choices. */
+export function choicesAt(kind: SchemaKind, path: string[]): string[] {
+  const node = schemaAt(kind, path);
+  return Array.isArray(node?.enum) ? node.enum.map(String) : [];
 }
 
 /** Rewrites the schema's findings about quantities and codes into messages that say what to write. */
@@ -129,14 +142,15 @@ export function explainSchemaFindings(kind: SchemaKind, findings: Finding[], dat
       const fields = fieldsAt(kind, path.slice(0, -1));
       return { ...f, message: `${f.message}${didYouMean(unknownField[1], fields)}${fields.length ? ` (fields here: ${fields.join(', ')})` : ''}` };
     }
-    const oneOf = /must be one of: (.*)$/.exec(f.message);
-    if (oneOf && typeof v === 'string') {
-      const allowed = oneOf[1].split(', ');
+    const oneOf = /must be one of:/.test(f.message);
+    const allowed = oneOf ? choicesAt(kind, path) : [];
+    if (oneOf && typeof v === 'string' && allowed.length > 0) {
+      const list = allowed.join(', ');
       if (path.includes('allergens') || path.includes('may_contain')) {
         const hint = /gluten/i.test(v) ? '; cereals containing gluten are written by grain: wheat, rye, barley, oats, spelt, khorasan' : didYouMean(v, allowed);
-        return { ...f, message: `unknown allergen code ${quote(v)} in ${path.slice(0, -1).join('.')}${hint} (codes: ${oneOf[1]})` };
+        return { ...f, message: `unknown allergen code ${quote(v)} in ${path.slice(0, -1).join('.')}${hint} (codes: ${list})` };
       }
-      return { ...f, message: `${where} is ${quote(v)}, not one of: ${oneOf[1]}${didYouMean(v, allowed)}` };
+      return { ...f, message: `${where} is ${quote(v)}, not one of: ${list}${didYouMean(v, allowed)}` };
     }
     return f;
   });

@@ -198,6 +198,7 @@ describe('checkFileText on formula arithmetic and units', () => {
       ['15:28 error process.0.hours is "16-12": range runs backwards; expected the smaller number first (e.g. "10-14")'],
     ],
     ['a negative loss', BASE.replace('loss: 2 %', 'loss: -2 %'), ['6:7 error loss is -2 %; it cannot be negative']],
+    ['a misspelt status', BASE.replace('status: active', 'status: activ'), ['3:9 error status is "activ", not one of: draft, active, retired; did you mean "active"?']],
     ['a flour listed under ingredients', withLines('  rye flour: 5\n'), ['14:3 error "rye flour" is a flour (catalog kind flour); list it under flour so the flours sum to 100 %']],
     ['an ingredient listed under flour', BASE.replace('  bread flour: 100\n', '  bread flour: 100\n  fine salt: 0\n'), [
       '10:3 error "fine salt" is listed under flour but the catalog\'s kind is salt; only flours go under flour',

@@ -1,7 +1,109 @@
-// Placeholder until its issue lands: the command is listed but says it is not built yet.
+// `panform serve`: the viewer and its API for the bakery's network. Opens the database (PGlite in
+// a folder, or PostgreSQL from DATABASE_URL), applies the migrations, and listens until Ctrl+C.
+import { resolve } from 'node:path';
 import { Command } from 'commander';
-import { InputError } from '../errors.ts';
+import { InputError, UsageError } from '../errors.ts';
 
-export const command = new Command('serve').description('(not built yet)').action(() => {
-  throw new InputError('panform serve is not built yet');
-});
+interface RawOptions {
+  port?: string;
+  data?: string;
+  host?: string;
+  demo?: boolean;
+}
+
+export interface ServeOptions {
+  port?: number;
+  dataDir?: string;
+  host?: string;
+  demo: boolean;
+}
+
+export function toServeOptions(raw: RawOptions): ServeOptions {
+  let port: number | undefined;
+  if (raw.port !== undefined) {
+    if (!/^[0-9]+$/.test(raw.port.trim()) || Number(raw.port) > 65535) {
+      throw new UsageError(`--port must be a whole number from 0 to 65535; got "${raw.port}"`, 'e.g. --port 8080');
+    }
+    port = Number(raw.port);
+  }
+  return { port, dataDir: raw.data, host: raw.host, demo: raw.demo === true };
+}
+
+export const DEMO_ACCOUNTS_FILE = 'var/demo-accounts.txt';
+
+async function serve(opts: ServeOptions): Promise<void> {
+  const [{ readEnv, EnvError, redactUrl }, { openDatabase, migrateDatabase, DatabaseLockedError }, { startServer }] = await Promise.all([
+    import('#server/env'),
+    import('#server/db/client'),
+    import('#server/start'),
+  ]);
+  let env;
+  try {
+    env = readEnv(process.env, { port: opts.port, dataDir: opts.dataDir });
+  } catch (e) {
+    if (e instanceof EnvError) throw new InputError(e.message, [], 'fix the variables above (or unset them for the defaults) and start again');
+    throw e;
+  }
+  const out = process.stdout;
+  let handle;
+  try {
+    handle = env.databaseUrl && !opts.dataDir ? await openDatabase({ url: env.databaseUrl }) : await openDatabase({ dataDir: env.dataDir });
+  } catch (e) {
+    if (e instanceof DatabaseLockedError) {
+      throw new InputError(e.message, [], e.lock?.port ? `Panform is probably already serving at http://localhost:${e.lock.port}` : 'stop that process first, or give another folder with --data');
+    }
+    throw new InputError(`cannot open the database ${env.databaseUrl && !opts.dataDir ? redactUrl(env.databaseUrl) : env.dataDir}: ${(e as Error).message}`);
+  }
+  let running;
+  try {
+    await migrateDatabase(handle);
+    if (opts.demo) {
+      const { seedDemo, findDemoFormulas, formatAccounts } = await import('#server/demo');
+      const accountsFile = resolve(DEMO_ACCOUNTS_FILE);
+      const demo = await seedDemo(handle, { formulasDir: findDemoFormulas(), accountsFile });
+      if (demo.loaded) {
+        const s = demo.loaded;
+        out.write(`Loaded the demo bakery: ${s.formulas.added.length} formulas, ${s.catalog.added.length} catalog entries, ${s.plans.added.length} plans.\n`);
+      }
+      if (demo.accounts) {
+        out.write(`Demo accounts (shown once; also in ${DEMO_ACCOUNTS_FILE}, readable only by you):\n${formatAccounts(demo.accounts)}\n`);
+      }
+    }
+    running = await startServer({ handle, env, host: opts.host, handleSignals: true });
+  } catch (e) {
+    await handle.close();
+    if ((e as NodeJS.ErrnoException).code === 'EADDRINUSE') {
+      throw new InputError(`port ${env.port} is already in use`, [], 'stop what uses it, or pick another with --port N (or PORT=N)');
+    }
+    if ((e as NodeJS.ErrnoException).code === 'EACCES') {
+      throw new InputError(`not allowed to listen on port ${env.port}`, [], 'ports below 1024 need special rights; pick another with --port N');
+    }
+    throw e;
+  }
+  const where = handle.kind === 'postgres' ? 'PostgreSQL (DATABASE_URL)' : handle.dataDir;
+  out.write(`Panform is serving on ${running.url} (data: ${where}).\n`);
+  if (env.publicUrl !== running.url) out.write(`Links in e-mails point to ${env.publicUrl} (PANFORM_PUBLIC_URL).\n`);
+  out.write('Press Ctrl+C to stop.\n');
+  await running.closed;
+  out.write('Panform stopped; the database is closed.\n');
+}
+
+export const command = new Command('serve')
+  .description('serve the viewer and its API (PORT, default 3000; data from PANFORM_DATA or DATABASE_URL)')
+  .option('--port <n>', 'port to listen on (default PORT or 3000)')
+  .option('--data <dir>', 'PGlite data folder (default PANFORM_DATA or var/data)')
+  .option('--host <address>', 'interface to listen on (default: all)')
+  .option('--demo', 'on an empty database: load ./formulas and create one demo account per role')
+  .addHelpText(
+    'after',
+    `
+Example:
+  $ panform serve --port 8080 --data /srv/panform/data
+  $ npm start                      # panform serve --demo: the demo bakery on http://localhost:3000
+
+Environment: PORT, PANFORM_DATA, DATABASE_URL, SMTP_URL, PANFORM_PUBLIC_URL, SESSION_DAYS,
+TRUST_PROXY, NODE_ENV, PANFORM_OUTBOX, MAIL_FROM (see README "Running the viewer").`,
+  )
+  .action(async (raw: RawOptions) => {
+    await serve(toServeOptions(raw));
+  });

@@ -9,6 +9,7 @@ import { ScaleError } from '#shared/scale';
 import { requirePermission } from '../auth/guards.ts';
 import type { ServerContext } from '../context.ts';
 import { forbidden, HttpError, invalid, notFound } from '../http/errors.ts';
+import { queryString } from '../http/query.ts';
 import type { PlanEntry, Snapshot } from './data.ts';
 import { visibleCatalog } from './formulas.ts';
 
@@ -78,8 +79,16 @@ export function plansRouter(ctx: ServerContext): Router {
     const user = requirePermission(req, 'read:plan');
     const snapshot = await ctx.data.snapshot();
     const { sheet } = planFor(snapshot, req.params.date, user.role);
-    const { renderSheetPdf } = await import('../../cli/print/sheet-pdf.ts');
-    const pdf = await renderSheetPdf(sheet);
+    const paper = queryString(req, 'paper') ?? 'a4';
+    if (paper !== 'a4' && paper !== 'letter') throw invalid(`paper must be a4 or letter; got "${paper}"`, [{ path: 'paper', message: 'unknown paper size' }]);
+    // Rendering takes a while: each PDF is made once per load.
+    const key = `pdf:${sheet.date}:${paper}`;
+    let pdf = snapshot.memo.get(key) as Buffer | undefined;
+    if (!pdf) {
+      const { renderSheetPdf } = await import('../print/pdf.ts');
+      pdf = await renderSheetPdf(sheet, { paper });
+      snapshot.memo.set(key, pdf);
+    }
     // The browser's PDF viewer is blocked by the page CSP (object-src 'none'), and a PDF runs no
     // page scripts: this response goes without one. nosniff stays.
     res.removeHeader('Content-Security-Policy');

@@ -1,13 +1,19 @@
 // A Panform server for tests: in-memory PGlite, migrated, the demo formulas loaded, one account
 // per role, listening on a random loopback port. The clock is a number the test moves forward.
+import { createHash } from 'node:crypto';
+import { closeSync, existsSync, mkdirSync, openSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import type { AddressInfo } from 'node:net';
+import { join } from 'node:path';
+import { PGlite } from '@electric-sql/pglite';
+import { drizzle } from 'drizzle-orm/pglite';
+import * as schema from '../../server/db/schema.ts';
 import type { Server } from 'node:http';
 import { resolve } from 'node:path';
 import { appInternals, createApp, type AppOptions } from '../../server/app.ts';
 import type { ScryptParams } from '../../server/auth/password.ts';
 import { createUser } from '../../server/auth/users.ts';
 import type { OutgoingMail } from '../../server/context.ts';
-import { migrateDatabase, openDatabase, type DatabaseHandle } from '../../server/db/client.ts';
+import { migrateDatabase, openDatabase, type Database, type DatabaseHandle } from '../../server/db/client.ts';
 import { readEnv } from '../../server/env.ts';
 import { loadFolder } from '../../server/load/index.ts';
 import { ROLES, type Role } from '#shared/permissions';
@@ -29,15 +35,94 @@ export interface TestServer {
   close(): Promise<void>;
 }
 
-/** One database per test file (creating it takes seconds); apps can be made more than once over it. */
+/**
+ * One database per test file. Creating a PGlite database (initdb in WASM) takes from seconds to
+ * most of a minute on a busy machine; so the migrated database with the demo data and the test
+ * accounts is made once, kept as a dump in node_modules/.cache (keyed by everything that shapes
+ * it), and each file starts from a copy of that dump.
+ */
 export async function openTestDatabase(): Promise<DatabaseHandle> {
-  const handle = await openDatabase({ memory: true });
-  await migrateDatabase(handle);
-  await loadFolder(handle, resolve('formulas'), { git: false });
-  for (const role of ROLES) {
-    await createUser(handle.db, { email: emailOf(role), name: `Test ${role}`, role, password: PASSWORD }, TEST_SCRYPT);
+  const dumpFile = join(CACHE_DIR, `db-${cacheKey()}.tar`);
+  if (!existsSync(dumpFile)) await withBuildLock(dumpFile, () => buildDump(dumpFile));
+  const client = new PGlite({ loadDataDir: new Blob([readFileSync(dumpFile)]) });
+  await client.waitReady;
+  const db = drizzle({ client, schema });
+  let closed = false;
+  return {
+    db: db as unknown as Database,
+    kind: 'pglite',
+    dataDir: null,
+    lock: null,
+    async close() {
+      if (closed) return;
+      closed = true;
+      await client.close();
+    },
+  };
+}
+
+async function buildDump(dumpFile: string): Promise<void> {
+  const fresh = await openDatabase({ memory: true });
+  try {
+    await migrateDatabase(fresh);
+    await loadFolder(fresh, resolve('formulas'), { git: false });
+    for (const role of ROLES) {
+      await createUser(fresh.db, { email: emailOf(role), name: `Test ${role}`, role, password: PASSWORD }, TEST_SCRYPT);
+    }
+    const client = (fresh.db as unknown as { $client: PGlite }).$client;
+    const dump = await client.dumpDataDir('none');
+    for (const old of readdirSync(CACHE_DIR)) if (/^db-.*\.tar$/.test(old)) rmSync(join(CACHE_DIR, old), { force: true });
+    const tmp = `${dumpFile}.${process.pid}.tmp`;
+    writeFileSync(tmp, Buffer.from(await dump.arrayBuffer()));
+    renameSync(tmp, dumpFile);
+  } finally {
+    await fresh.close();
   }
-  return handle;
+}
+
+/** Test files run in parallel: the first builds the dump, the others wait for it. */
+async function withBuildLock(dumpFile: string, build: () => Promise<void>): Promise<void> {
+  mkdirSync(CACHE_DIR, { recursive: true });
+  const lock = join(CACHE_DIR, 'build.lock');
+  for (;;) {
+    if (existsSync(dumpFile)) return;
+    let fd: number | undefined;
+    try {
+      fd = openSync(lock, 'wx');
+    } catch {
+      // Someone else builds; a lock older than 10 minutes is left from a killed run.
+      const age = Date.now() - (statSync(lock, { throwIfNoEntry: false })?.mtimeMs ?? Date.now());
+      if (age > 10 * 60_000) rmSync(lock, { force: true });
+      await new Promise((r) => setTimeout(r, 250));
+      continue;
+    }
+    try {
+      closeSync(fd);
+      if (!existsSync(dumpFile)) await build();
+    } finally {
+      rmSync(lock, { force: true });
+    }
+    return;
+  }
+}
+
+const CACHE_DIR = resolve('node_modules/.cache/panform-tests');
+const HARNESS_VERSION = '1';
+
+/** A hash of what the prepared database depends on: migrations, demo files, loader and core code. */
+function cacheKey(): string {
+  const h = createHash('sha256').update(HARNESS_VERSION);
+  const walk = (dir: string) => {
+    for (const name of readdirSync(dir).sort()) {
+      const p = join(dir, name);
+      if (statSync(p).isDirectory()) walk(p);
+      else h.update(p).update(readFileSync(p));
+    }
+  };
+  for (const dir of ['drizzle', 'formulas', 'server/load', 'server/db', 'shared/schema']) walk(resolve(dir));
+  for (const f of ['model', 'scale', 'parse', 'units']) h.update(readFileSync(resolve(`shared/${f}.ts`)));
+  h.update(readFileSync(resolve('server/auth/users.ts'))).update(readFileSync(resolve('server/auth/password.ts')));
+  return h.digest('hex').slice(0, 16);
 }
 
 export async function startTestServer(handle: DatabaseHandle, opts: Partial<AppOptions> & { envVars?: Record<string, string> } = {}): Promise<TestServer> {

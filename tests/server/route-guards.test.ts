@@ -96,7 +96,7 @@ beforeAll(async () => {
   writeFileSync(file, readFileSync(file, 'utf8').replace(/^title: (.*)$/m, 'title: $1 (revised)'));
   await loadFolder(handle, folder, { git: false });
   t = await startTestServer(handle);
-});
+}, 180_000);
 afterAll(async () => {
   await t?.close();
   await handle?.close();

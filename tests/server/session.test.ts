@@ -6,7 +6,7 @@ import { emailOf, getJson, openTestDatabase, PASSWORD, sendJson, sessionCookie, 
 let handle: DatabaseHandle;
 beforeAll(async () => {
   handle = await openTestDatabase();
-});
+}, 180_000);
 afterAll(async () => {
   await handle?.close();
 });

@@ -1,0 +1,195 @@
+// What each role receives from the formula, plan and catalog routes: bench never gets a cost, a
+// price, a draft or a retired formula; scaling on the server follows the shared arithmetic.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { FormulaDetail, FormulaListResponse, PlanDetail, PlanListResponse } from '#shared/api';
+import type { DatabaseHandle } from '../../server/db/client.ts';
+import { getJson, openTestDatabase, startTestServer, type TestServer } from './harness.ts';
+
+let handle: DatabaseHandle;
+let t: TestServer;
+const cookie: Record<string, string> = {};
+beforeAll(async () => {
+  handle = await openTestDatabase();
+  t = await startTestServer(handle);
+  for (const role of ['admin', 'author', 'reviewer', 'bench'] as const) cookie[role] = await t.signIn(role);
+}, 180_000);
+afterAll(async () => {
+  await t?.close();
+  await handle?.close();
+});
+
+const NOT_ACTIVE = ['spelt-porridge-loaf', 'malted-grain-loaf'];
+
+/** Every key path in a JSON value whose key names a cost or a price and holds something (`cost: null` says only "not for you"). */
+function costKeys(value: unknown, path = '$'): string[] {
+  if (Array.isArray(value)) return value.flatMap((v, i) => costKeys(v, `${path}[${i}]`));
+  if (value && typeof value === 'object') {
+    return Object.entries(value).flatMap(([k, v]) => [...(/cost|price/i.test(k) && v !== null ? [`${path}.${k}`] : []), ...costKeys(v, `${path}.${k}`)]);
+  }
+  return [];
+}
+
+async function get<T>(path: string, role: string): Promise<T> {
+  const r = await getJson(`${t.url}${path}`, cookie[role]);
+  expect(r.status, `${path} as ${role}`).toBe(200);
+  return r.body as T;
+}
+
+describe('a bench account', () => {
+  it('never receives a cost, a price, a draft or a retired formula from anything it can open', async () => {
+    const seen: { path: string; body: unknown }[] = [];
+    const fetchAs = async (path: string) => {
+      const body = await get<unknown>(path, 'bench');
+      seen.push({ path, body });
+      return body;
+    };
+    const list = (await fetchAs('/api/formulas')) as FormulaListResponse;
+    expect(list.formulas.length).toBeGreaterThan(5);
+    for (const f of list.formulas) {
+      await fetchAs(`/api/formulas/${f.id}`);
+      await fetchAs(`/api/formulas/${f.id}?pieces=7&piece=450g`);
+      await fetchAs(`/api/formulas/${f.id}?mix=12kg`);
+    }
+    await fetchAs('/api/formulas?q=wheat');
+    const plans = (await fetchAs('/api/plans')) as PlanListResponse;
+    for (const p of plans.plans) await fetchAs(`/api/plans/${p.date}`);
+    await fetchAs('/api/catalog');
+    await fetchAs('/api/me');
+    for (const { path, body } of seen) {
+      expect(costKeys(body), path).toEqual([]);
+      const text = JSON.stringify(body);
+      for (const id of NOT_ACTIVE) expect(text, path).not.toContain(id);
+      expect(text, path).not.toMatch(/"status":"(draft|retired)"/);
+    }
+  });
+
+  it('is refused history, changes and the drafts themselves', async () => {
+    for (const path of ['/api/changes', '/api/formulas/harbour-ciabatta/revisions', '/api/formulas/spelt-porridge-loaf', '/api/formulas/malted-grain-loaf', '/api/formulas?status=draft']) {
+      const r = await getJson(`${t.url}${path}`, cookie.bench);
+      expect(r.status, path).toBe(403);
+      expect(r.body).toMatchObject({ error: 'forbidden' });
+    }
+  });
+});
+
+describe('roles with read:cost', () => {
+  it.each(['admin', 'author'])('%s receives the cost and catalog prices', async (role) => {
+    const d = await get<FormulaDetail>('/api/formulas/harbour-ciabatta', role);
+    expect(d.cost).not.toBeNull();
+    expect(d.cost!.total).toBeGreaterThan(0);
+    expect(Object.values(d.catalog).some((c) => typeof c.costPerKg === 'number')).toBe(true);
+  });
+
+  it('reviewer sees drafts and history but no cost', async () => {
+    const d = await get<FormulaDetail>('/api/formulas/spelt-porridge-loaf', 'reviewer');
+    expect(d.formula.status).toBe('draft');
+    expect(costKeys(d)).toEqual([]);
+    const list = await get<FormulaListResponse>('/api/formulas', 'reviewer');
+    expect(list.formulas.map((f) => f.id)).toEqual(expect.arrayContaining(NOT_ACTIVE));
+  });
+});
+
+describe('GET /api/formulas', () => {
+  it('filters by status, category, tag and a search over ids, titles, tags and ingredients', async () => {
+    const drafts = await get<FormulaListResponse>('/api/formulas?status=draft', 'author');
+    expect(drafts.formulas.map((f) => f.id)).toEqual(['spelt-porridge-loaf']);
+    const all = await get<FormulaListResponse>('/api/formulas', 'author');
+    const category = all.formulas.find((f) => f.id === 'harbour-ciabatta')!.category;
+    const byCategory = await get<FormulaListResponse>(`/api/formulas?category=${encodeURIComponent(category)}`, 'author');
+    expect(byCategory.formulas.every((f) => f.category === category)).toBe(true);
+    expect(byCategory.formulas.map((f) => f.id)).toContain('harbour-ciabatta');
+    const tag = all.formulas.find((f) => f.id === 'harbour-ciabatta')!.tags[0];
+    const byTag = await get<FormulaListResponse>(`/api/formulas?tag=${encodeURIComponent(tag)}`, 'author');
+    expect(byTag.formulas.every((f) => f.tags.includes(tag))).toBe(true);
+    const search = await get<FormulaListResponse>('/api/formulas?q=CIABATTA', 'author');
+    expect(search.formulas.map((f) => f.id)).toEqual(['harbour-ciabatta']);
+    const byIngredient = await get<FormulaListResponse>('/api/formulas?q=poolish', 'author');
+    expect(byIngredient.formulas.map((f) => f.id)).toContain('harbour-ciabatta');
+    const none = await get<FormulaListResponse>('/api/formulas?q=ciabatta%20rye%20zzz', 'author');
+    expect(none.formulas).toEqual([]);
+    expect(all.categories.length).toBeGreaterThan(1);
+  });
+
+  it('offers bench only the categories and tags of active formulas', async () => {
+    const bench = await get<FormulaListResponse>('/api/formulas', 'bench');
+    expect(bench.formulas.every((f) => f.status === 'active')).toBe(true);
+    expect(new Set(bench.categories)).toEqual(new Set(bench.formulas.map((f) => f.category)));
+  });
+});
+
+describe('GET /api/formulas/:id', () => {
+  it('gives the reference batch by default and scales by pieces with the shared arithmetic', async () => {
+    const ref = await get<FormulaDetail>('/api/formulas/harbour-ciabatta', 'bench');
+    expect(ref.scaled.pieces).toBe(ref.formula.yield.pieces);
+    expect(ref.reference.mixedDough).toBeCloseTo(ref.scaled.mixedDough, 9);
+    const d = await get<FormulaDetail>('/api/formulas/harbour-ciabatta?pieces=60&piece=320g', 'bench');
+    // product brief "Arithmetic conventions": D = N·P, M = D / (1 − loss), F = M / (total % / 100)
+    const divided = 60 * 320;
+    const mixed = divided / (1 - d.formula.loss / 100);
+    expect(d.scaled.dividedDough).toBeCloseTo(divided, 9);
+    expect(d.scaled.mixedDough).toBeCloseTo(mixed, 9);
+    expect(d.scaled.flour).toBeCloseTo(mixed / (d.scaled.totalPercent / 100), 9);
+    expect(d.reference.mixedDough).toBeCloseTo(ref.scaled.mixedDough, 9);
+  });
+
+  it('scales by mixed dough weight without loss', async () => {
+    const d = await get<FormulaDetail>('/api/formulas/harbour-ciabatta?mix=25%20kg', 'bench');
+    // product brief: with --mix no loss is applied
+    expect(d.scaled.mixedDough).toBe(25_000);
+    expect(d.scaled.dividedDough).toBe(25_000);
+    expect(d.scaled.loss).toBe(0);
+  });
+
+  it('lists the allergens with the caution to check local labelling rules', async () => {
+    const d = await get<FormulaDetail>('/api/formulas/tidewater-milk-buns', 'bench');
+    expect(d.allergens.codes).toEqual(expect.arrayContaining(['wheat', 'milk']));
+    expect(d.cautions.join(' ')).toMatch(/local food-safety and labelling rules/);
+    expect(d.cautions.join(' ')).toMatch(/Hot oven/);
+  });
+
+  it.each([
+    ['pieces=abc', 'pieces'],
+    ['pieces=0', 'pieces'],
+    ['pieces=1.5', 'pieces'],
+    ['pieces=1&pieces=2', 'pieces'],
+    ['piece=banana', 'piece'],
+    ['mix=-3kg', 'mix'],
+    ['mix=0', 'mix'],
+    ['pieces=10&mix=5kg', 'pieces'],
+  ])('refuses ?%s with 422 naming the parameter', async (query, param) => {
+    const r = await getJson(`${t.url}/api/formulas/harbour-ciabatta?${query}`, cookie.bench);
+    expect(r.status).toBe(422);
+    expect(r.body).toMatchObject({ error: 'invalid', issues: [{ path: param }] });
+  });
+});
+
+describe('plans and the catalog', () => {
+  it('builds the sheet of a stored plan', async () => {
+    const d = await get<PlanDetail>('/api/plans/2026-12-03', 'bench');
+    expect(d.plan.date).toBe('2026-12-03');
+    expect(d.sheet.mixes.length).toBeGreaterThan(0);
+    expect(d.sheet.totals.length).toBeGreaterThan(0);
+  });
+
+  it('sends the sheet as a PDF', async () => {
+    const res = await fetch(`${t.url}/api/plans/2026-12-03/sheet.pdf`, { headers: { cookie: cookie.bench } });
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-type')).toBe('application/pdf');
+    expect(res.headers.get('content-disposition')).toMatch(/inline; filename="panform-sheet-2026-12-03.pdf"/);
+    const bytes = Buffer.from(await res.arrayBuffer());
+    expect(bytes.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+  });
+
+  it('answers 422 for a date that is not a date and 404 for a day without a plan', async () => {
+    expect((await getJson(`${t.url}/api/plans/tomorrow`, cookie.bench)).status).toBe(422);
+    expect((await getJson(`${t.url}/api/plans/2031-02-03`, cookie.bench)).status).toBe(404);
+  });
+
+  it('strips prices from the catalog for roles without read:cost', async () => {
+    const bench = await get<{ catalog: Record<string, object> }>('/api/catalog', 'bench');
+    const admin = await get<{ catalog: Record<string, object> }>('/api/catalog', 'admin');
+    expect(Object.keys(bench.catalog)).toEqual(Object.keys(admin.catalog));
+    expect(costKeys(bench)).toEqual([]);
+    expect(costKeys(admin).length).toBeGreaterThan(0);
+  });
+});

@@ -171,6 +171,18 @@ export function checkFormula(input: FormulaCheckInput): Finding[] {
     }
   });
 
+  // Each build is one line of the final dough, by its name: two with one name cannot be told apart.
+  const buildNames = new Map<string, string>();
+  const builds = [
+    ...f.preferments.map((p, i) => ({ name: p.name, at: pointer('preferments', String(i), 'name') })),
+    ...f.soakers.map((s, i) => ({ name: s.name, at: pointer('soakers', String(i), 'name') })),
+  ];
+  for (const b of builds) {
+    if (buildNames.has(b.name)) out.error(b.at, `two pre-ferments or soakers are named ${quote(b.name)}; give each its own name (each is one line of the final dough)`);
+    else if (overall.has(b.name)) out.error(b.at, `the build ${quote(b.name)} has the name of an ingredient of the formula; give it its own name (it is one line of the final dough)`);
+    buildNames.set(b.name, b.at);
+  }
+
   const takenSoFar = new Map<string, { percent: number; from: Set<string> }>();
   const reported = new Set<string>();
   for (const t of takes) {

@@ -277,6 +277,13 @@ describe('checkFileText on formula arithmetic and units', () => {
     ]);
   });
 
+  it('reports two builds with one name', () => {
+    const text = withLines('soakers:\n  - { name: soak, ingredients: { water: 10 } }\n  - { name: soak, ingredients: { water: 10 } }\n');
+    expect(lines(checkFormula('loaf.yaml', text))).toEqual([
+      '16:13 error two pre-ferments or soakers are named "soak"; give each its own name (each is one line of the final dough)',
+    ]);
+  });
+
   it('takes a soaker out of the overall formula in percent of the total flour', () => {
     const ok = withLines('soakers:\n  - name: soak\n    ingredients: { water: 70 }\n');
     expect(checkFormula('loaf.yaml', ok)).toEqual([]);

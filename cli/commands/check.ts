@@ -109,7 +109,7 @@ function readForCheck(path: string): { text: string } | { finding: Finding } {
 export function collectCheck(options: Pick<CheckOptions, 'paths' | 'catalog'>): CheckReport {
   const paths = options.paths.length > 0 ? options.paths : [DEFAULT_PATH];
   if (options.catalog !== undefined && !statSync(options.catalog, { throwIfNoEntry: false })?.isFile()) {
-    throw new UsageError(`--catalog ${options.catalog}: no such file`);
+    throw new UsageError(`--catalog ${options.catalog}: no such file`, 'give the path of an ingredient catalog, e.g. --catalog formulas/ingredients.yaml');
   }
   const files = listFiles(paths);
   if (options.catalog !== undefined && !files.some((f) => resolve(f) === resolve(options.catalog!))) files.push(options.catalog);

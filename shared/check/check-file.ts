@@ -37,7 +37,7 @@ export function fileStem(file: string): string {
 /** Schema findings explained; a value the model refused located where it is written. */
 function parseFindings<T>(kind: SchemaKind, parsed: Parsed<T>, file: string, text: string): Finding[] {
   if (parsed.ok) return [];
-  if (parsed.raw === undefined || parsed.source === null) return parsed.findings.map((f) => nameDuplicateKey(f, text));
+  if (parsed.raw === undefined || parsed.source === null) return parsed.findings.map((f) => explainYamlError(nameDuplicateKey(f, text)));
   const explained = explainSchemaFindings(kind, parsed.findings, parsed.raw);
   const atTop = explained.length === 1 && explained[0].line === 1 && explained[0].col === 1 && explained[0].pointer === undefined;
   if (atTop) {
@@ -55,6 +55,12 @@ function nameDuplicateKey(f: Finding, text: string): Finding {
   if (!m) return f;
   const key = m[1].replace(/^["']|["']$/g, '');
   return { ...f, message: `duplicate key ${JSON.stringify(key)}: it appears twice in the same block; keep one` };
+}
+
+/** The YAML parser's own words, marked as such so a baker knows it is the file's layout at fault. */
+function explainYamlError(f: Finding): Finding {
+  if (/^(duplicate key|the file is empty|this is not a text file|cannot be read as YAML)/.test(f.message) || /yaml/i.test(f.message)) return f;
+  return { ...f, message: `not valid YAML: ${f.message}` };
 }
 
 export function checkFileText(req: CheckRequest): CheckResult {

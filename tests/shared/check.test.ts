@@ -39,7 +39,7 @@ const withLines = (extra: string, base = BASE) => base + extra;
 
 describe('checkFileText on each class of broken formula file', () => {
   it.each([
-    ['bad-yaml.yaml', ['6:1 error Flow map in block collection must be sufficiently indented and end with a }']],
+    ['bad-yaml.yaml', ['6:1 error not valid YAML: Flow map in block collection must be sufficiently indented and end with a }']],
     ['duplicate-key.yaml', ['13:3 error duplicate key "water": it appears twice in the same block; keep one']],
     ['empty.yaml', ['1:1 error the file is empty']],
     ['binary.yaml', ['1:1 error this is not a text file (binary content)']],

@@ -2,6 +2,7 @@
 // and the viewer (Vite). Run by `npm run build` and by `prepare` on `npm install`.
 import { build } from 'esbuild';
 import { renameSync, rmSync } from 'node:fs';
+import { generateValidatorsModule } from './standalone-validators.mjs';
 
 const onlyCli = process.argv.includes('--cli');
 // Build beside the old bundle and swap only on success, so a failed build never leaves the
@@ -19,6 +20,16 @@ await build({
   sourcemap: false,
   logLevel: 'warning',
   chunkNames: 'chunks/[name]-[hash]',
+  // The schema validators as standalone code generated now, so the CLI starts without loading
+  // and running the ajv compiler (and TypeBox) every time (scripts/standalone-validators.mjs).
+  plugins: [
+    {
+      name: 'standalone-validators',
+      setup(b) {
+        b.onLoad({ filter: /shared[\\/]schema[\\/]validators\.ts$/ }, () => ({ contents: generateValidatorsModule(), loader: 'js' }));
+      },
+    },
+  ],
 });
 rmSync('dist/cli', { recursive: true, force: true });
 renameSync(next, 'dist/cli');

@@ -1,9 +1,10 @@
 // Reads the text of a formula, catalog or plan file: YAML with source positions, then the
 // JSON Schema (ajv), then normalization. Every problem is a located Finding; nothing throws for
 // bad input. Pure: the caller reads the file and passes its text in.
-import { Ajv, type ErrorObject, type ValidateFunction } from 'ajv';
+import type { ErrorObject } from 'ajv';
 import { isMap, isPair, isScalar, isSeq, LineCounter, parseDocument, type Document, type Node } from 'yaml';
-import { SCHEMAS, type CatalogFile, type FormulaFile, type PlanFile, type SchemaKind } from './schema/shapes.ts';
+import type { CatalogFile, FormulaFile, PlanFile, SchemaKind } from './schema/shapes.ts';
+import { validatorFor } from './schema/validators.ts';
 import { normalizeCatalog, normalizeFormula, normalizePlan, type Catalog, type Formula, type Plan } from './model.ts';
 import { QuantityError } from './units.ts';
 
@@ -27,19 +28,6 @@ export interface SourceMap {
 export type Parsed<T> =
   | { ok: true; value: T; raw: unknown; findings: Finding[]; source: SourceMap }
   | { ok: false; findings: Finding[]; source: SourceMap | null; raw?: unknown };
-
-let ajv: Ajv | undefined;
-const validators = new Map<SchemaKind, ValidateFunction>();
-
-function validatorFor(kind: SchemaKind): ValidateFunction {
-  let v = validators.get(kind);
-  if (!v) {
-    ajv ??= new Ajv({ allErrors: true, strict: false, allowUnionTypes: true });
-    v = ajv.compile(SCHEMAS[kind]);
-    validators.set(kind, v);
-  }
-  return v;
-}
 
 function looksBinary(text: string): boolean {
   if (text.includes('\u0000')) return true;
@@ -190,6 +178,12 @@ function firstLine(s: string): string {
   return s.split('\n')[0].trim();
 }
 
+/** A finding is one line: a key written as a YAML collection would otherwise spread over several. */
+function oneLine(s: string): string {
+  const flat = s.replace(/\s*\n\s*/g, ' ');
+  return flat.length > 200 ? `${flat.slice(0, 199)}…` : flat;
+}
+
 /** Validates data against one of the file schemas; findings are located with `source`. */
 export function validateAgainstSchema(kind: SchemaKind, data: unknown, file: string, source: SourceMap): Finding[] {
   if (data === null || typeof data !== 'object' || Array.isArray(data)) {
@@ -200,7 +194,7 @@ export function validateAgainstSchema(kind: SchemaKind, data: unknown, file: str
   return pruneAjvErrors(v.errors ?? []).map((e) => {
     const d = describeAjvError(e);
     const p = source.locate(d.pointer, d.at);
-    return { file, line: p.line, col: p.col, severity: 'error', message: d.message, pointer: d.pointer };
+    return { file, line: p.line, col: p.col, severity: 'error', message: oneLine(d.message), pointer: d.pointer };
   });
 }
 

@@ -1,13 +1,18 @@
 // Thousands of corrupted files (byte flips, truncation, deleted or doubled lines, swapped units,
 // broken numbers, stray indentation, random unicode) made from the demo bakery's files and from
-// generated formulas. Whatever the damage, reading a file gives either a valid value or located
-// findings (file:line:col and a one-line message), and never throws. Run count: PANFORM_FUZZ_RUNS.
+// generated formulas. Whatever the damage, reading a file (shared/parse.ts) and checking it
+// (shared/check, what `panform check` runs) give either a valid value or located findings
+// (file:line:col and a one-line message): never a throw, and never the check's own "internal
+// error" finding, which would mean a check crashed. Run count: PANFORM_FUZZ_RUNS.
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { join, relative } from 'node:path';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { parseCatalogText, parseFormulaText, parsePlanText, type Finding, type Parsed } from '#shared/parse';
-import { applyMutation, catalogText, formulaArb, fuzzRuns, mutationArb } from './generators.ts';
+import { checkFileText, type CheckRequest } from '#shared/check/check-file';
+import type { KnownFormula } from '#shared/check/plan';
+import type { Catalog } from '#shared/model';
+import { applyMutation, catalogText, formulaArb, fuzzRuns, fuzzTimeout, mutationArb } from './generators.ts';
 
 const RUNS = fuzzRuns(1000);
 
@@ -39,7 +44,7 @@ function demoSamples(): Sample[] {
     if (!existsSync(dir)) return;
     for (const f of readdirSync(dir).sort()) {
       if (!/\.ya?ml$/.test(f)) continue;
-      out.push({ name: join(dir, f), kind: kind(f), text: readFileSync(join(dir, f), 'utf8') });
+      out.push({ name: relative(process.cwd(), join(dir, f)), kind: kind(f), text: readFileSync(join(dir, f), 'utf8') });
     }
   };
   read(root, (f) => (f === 'ingredients.yaml' ? 'catalog' : 'formula'));
@@ -48,6 +53,23 @@ function demoSamples(): Sample[] {
 }
 
 const samples = demoSamples();
+
+function readDemoCatalog(): Catalog {
+  const s = samples.find((x) => x.kind === 'catalog' && x.name.endsWith(join('formulas', 'ingredients.yaml'))) ?? samples[0];
+  const parsed = parseCatalogText(s.text, s.name);
+  if (!parsed.ok) throw new Error(`the catalog ${s.name} does not parse`);
+  return parsed.value;
+}
+const catalog = readDemoCatalog();
+const knownFormulas: ReadonlyMap<string, KnownFormula> = new Map(
+  samples.filter((s) => s.kind === 'formula').map((s) => [s.name.split('/').pop()!.replace(/\.yaml$/, ''), { status: 'active' }]),
+);
+
+function checkRequest(kind: Kind, text: string, file: string, withCatalog: boolean): CheckRequest {
+  if (kind === 'formula') return { kind, file, text, catalog: withCatalog ? catalog : null };
+  if (kind === 'catalog') return { kind, file, text };
+  return { kind, file, text, formulas: knownFormulas, formulasDir: 'formulas' };
+}
 
 function parseAs(kind: Kind, text: string, file: string): Parsed<unknown> {
   if (kind === 'formula') return parseFormulaText(text, file);
@@ -66,7 +88,7 @@ function assertLocated(f: Finding, file: string, text: string): void {
   if (/\bundefined\b|\[object Object\]/.test(f.message)) throw new Error(`message leaks a programming value: ${where}`);
 }
 
-function assertReadable(kind: Kind, text: string, file: string): void {
+function assertReadable(kind: Kind, text: string, file: string, withCatalog = true): void {
   let parsed: Parsed<unknown>;
   try {
     parsed = parseAs(kind, text, file);
@@ -79,6 +101,20 @@ function assertReadable(kind: Kind, text: string, file: string): void {
     expect(parsed.findings.length).toBeGreaterThan(0);
   }
   for (const f of parsed.findings) assertLocated(f, file, text);
+
+  let checked;
+  try {
+    checked = checkFileText(checkRequest(kind, text, file, withCatalog));
+  } catch (e) {
+    throw new Error(`checking a corrupted ${kind} threw ${(e as Error).name}: ${(e as Error).message}\n--- text ---\n${text}`);
+  }
+  for (const f of checked.findings) {
+    assertLocated(f, file, text);
+    if (/internal error/.test(f.message)) throw new Error(`a check crashed on a corrupted ${kind}: ${f.message}\n--- text ---\n${text}`);
+  }
+  if (!parsed.ok && !checked.findings.some((f) => f.severity === 'error')) {
+    throw new Error(`the file does not parse but the check reports no error\n--- text ---\n${text}`);
+  }
 }
 
 const sampleArb = fc.constantFrom(...samples);
@@ -102,17 +138,24 @@ describe('reading corrupted files', () => {
     expect(parsed.findings.map((f) => `${f.line}:${f.col} ${f.message}`)).toEqual([`${to.startsWith('loss') ? 8 : 7}:${to.startsWith('loss') ? 7 : 10} ${message}`]);
   });
 
-  it('reports located findings and never throws for randomly damaged demo files', () => {
+  it('reports a key written as a YAML collection in a one-line finding', () => {
+    const text = `id: a\ntitle: A\nstatus: draft\ncategory: lean\nyield: { pieces: 1, piece: 20 g }\nflour: { rye flour: 100 }\ningredients: { water: 40 }\n? { kind: biga,\n    share: 10 % }\n: 1\n`;
+    const parsed = parseFormulaText(text, 'a.yaml');
+    expect(parsed.ok).toBe(false);
+    expect(parsed.findings.map((f) => f.message)).toEqual(['unknown field "{ kind: biga, share: 10 % }" in the file']);
+  });
+
+  it('reports located findings and never throws for randomly damaged demo files', { timeout: fuzzTimeout(RUNS) }, () => {
     fc.assert(
-      fc.property(sampleArb, fc.array(mutationArb, { minLength: 1, maxLength: 4 }), (s, mutations) => {
+      fc.property(sampleArb, fc.array(mutationArb, { minLength: 1, maxLength: 4 }), fc.boolean(), (s, mutations, withCatalog) => {
         const text = mutations.reduce(applyMutation, s.text);
-        assertReadable(s.kind, text, s.name);
+        assertReadable(s.kind, text, s.name, withCatalog);
       }),
       { numRuns: RUNS },
     );
   });
 
-  it('reports located findings and never throws for randomly damaged generated formulas', () => {
+  it('reports located findings and never throws for randomly damaged generated formulas', { timeout: fuzzTimeout(RUNS) }, () => {
     fc.assert(
       fc.property(formulaArb, fc.array(mutationArb, { minLength: 1, maxLength: 3 }), (g, mutations) => {
         assertReadable('formula', mutations.reduce(applyMutation, g.text), 'fuzz/formula.yaml');
@@ -121,7 +164,7 @@ describe('reading corrupted files', () => {
     );
   });
 
-  it('reports located findings and never throws for any text at all, read as each kind of file', () => {
+  it('reports located findings and never throws for any text at all, read as each kind of file', { timeout: fuzzTimeout(RUNS) }, () => {
     fc.assert(
       fc.property(fc.string({ unit: 'binary', maxLength: 300 }), fc.constantFrom<Kind>('formula', 'catalog', 'plan'), (text, kind) => {
         assertReadable(kind, text, 'fuzz/any.yaml');

@@ -12,6 +12,11 @@ export function fuzzRuns(defaultRuns: number): number {
   return Number.isInteger(n) && n > 0 ? n : defaultRuns;
 }
 
+/** A test's time limit for `runs` runs: generous, so a busy machine slows the suite but never fails it. */
+export function fuzzTimeout(runs: number): number {
+  return Math.max(120_000, runs * 100);
+}
+
 export const FLOURS = ['bread flour', 'whole wheat flour', 'rye flour', 'spelt flour', 'durum flour'] as const;
 
 /**

@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { parseCatalogText, parseFormulaText } from '#shared/parse';
 import { scaleFormula, sum, type ScaleResult } from '#shared/scale';
 import type { Catalog, Formula } from '#shared/model';
-import { catalogText, formulaArb, fuzzRuns } from './generators.ts';
+import { catalogText, formulaArb, fuzzRuns, fuzzTimeout } from './generators.ts';
 
 const RUNS = fuzzRuns(1000);
 
@@ -48,7 +48,7 @@ const batchArb = fc.record({
 });
 
 describe('scaleFormula on generated formulas', () => {
-  it('parses every generated formula file without a finding', () => {
+  it('parses every generated formula file without a finding', { timeout: fuzzTimeout(RUNS) }, () => {
     fc.assert(
       fc.property(formulaArb, (g) => {
         const parsed = parseFormulaText(g.text, 'fuzz/formula.yaml');
@@ -59,7 +59,7 @@ describe('scaleFormula on generated formulas', () => {
     );
   });
 
-  it('makes the overall lines, the final dough and the pieces add up to the mixed and divided dough', () => {
+  it('makes the overall lines, the final dough and the pieces add up to the mixed and divided dough', { timeout: fuzzTimeout(RUNS) }, () => {
     fc.assert(
       fc.property(formulaArb, fc.integer({ min: 1, max: 2000 }), (g, pieces) => {
         const f = parse(g.text);
@@ -81,7 +81,7 @@ describe('scaleFormula on generated formulas', () => {
     );
   });
 
-  it('returns the original weights when a batch is scaled by k and then by 1/k', () => {
+  it('returns the original weights when a batch is scaled by k and then by 1/k', { timeout: fuzzTimeout(RUNS) }, () => {
     fc.assert(
       fc.property(formulaArb, batchArb, (g, { mix, k }) => {
         const f = parse(g.text);
@@ -105,7 +105,7 @@ describe('scaleFormula on generated formulas', () => {
     );
   });
 
-  it('gives back the overall formula, ingredient by ingredient, from the final dough plus the builds', () => {
+  it('gives back the overall formula, ingredient by ingredient, from the final dough plus the builds', { timeout: fuzzTimeout(RUNS) }, () => {
     fc.assert(
       fc.property(formulaArb, fc.integer({ min: 100, max: 200_000 }), (g, mix) => {
         const f = parse(g.text);
@@ -128,7 +128,7 @@ describe('scaleFormula on generated formulas', () => {
     );
   });
 
-  it('keeps hydration, effective hydration and pre-fermented flour the same at every batch size', () => {
+  it('keeps hydration, effective hydration and pre-fermented flour the same at every batch size', { timeout: fuzzTimeout(RUNS) }, () => {
     fc.assert(
       fc.property(formulaArb, batchArb, fc.integer({ min: 1, max: 500 }), (g, { mix, k }, pieces) => {
         const f = parse(g.text);

@@ -181,7 +181,7 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', () 
       ['[data-testid="overall"] tr[data-ingredient="fine salt"] [data-weight]', salt] as const,
     );
     await screenshot(page, 'formula-scaled-by-dough', { width: 1280, height: 800 });
-  });
+  }, 90_000);
 
   it('works out the water temperature and the ice with shared/temperature', async () => {
     const formula = readFormula('harbour-ciabatta');
@@ -225,11 +225,11 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', () 
     expect(pdf.status()).toBe(200);
     expect(pdf.headers()['content-type']).toContain('application/pdf');
     await screenshot(page, 'plan-tablet-light', { width: 1280, height: 800 });
-    await screenshot(page, 'plan-portrait-dark', { width: 800, height: 1280, scheme: 'dark' });
+    await screenshot(page, 'plan-portrait-dark', { width: 800, height: 1280, scheme: 'dark', fullPage: false });
     await page.getByRole('radio', { name: 'Close up' }).click();
     await screenshot(page, 'plan-timeline-close-up', { width: 1280, height: 800, fullPage: false });
     await printPreview(page, 'plan-2026-12-03');
-  });
+  }, 120_000);
 
   it('answers bench staff with a 403 page for changes and a not-found page for drafts and unknown pages', async () => {
     await page.goto(`${base}/changes`);
@@ -267,7 +267,7 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', () 
     expect(await page.getByRole('heading', { name: 'Ingredient cost' }).count()).toBe(0);
     expect(await page.getByRole('link', { name: 'Changes' }).count()).toBeGreaterThan(0);
     await screenshot(page, 'formula-draft-reviewer', { width: 1280, height: 800 });
-  });
+  }, 90_000);
 
   it('lists changes and compares two revisions side by side in baker\'s terms', async () => {
     await page.goto(`${base}/changes`);
@@ -283,7 +283,7 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', () 
     await screenshot(page, 'changes-diff-tablet-light', { width: 1280, height: 800 });
     await screenshot(page, 'changes-diff-portrait-dark', { width: 800, height: 1280, scheme: 'dark' });
     await signOut(page, base);
-  });
+  }, 90_000);
 
   it('shows the cost per piece to the technical baker, as shared computeCost works it out', async () => {
     await signIn(page, base, 'author');
@@ -294,7 +294,7 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', () 
     expect(await page.getByTestId('cost-per-piece').textContent()).toBe(formatMoney(cost.perPiece!, ''));
     await screenshot(page, 'formula-author-cost', { width: 1280, height: 800 });
     await signOut(page, base);
-  });
+  }, 90_000);
 
   it('raised no error in the page', () => {
     expect(pageErrors).toEqual([]);

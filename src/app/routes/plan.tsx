@@ -31,6 +31,8 @@ export default function PlanRoute() {
 function PlanPage({ detail }: { detail: PlanDetail }) {
   const { sheet } = detail;
   const builds = [...sheet.preferments, ...sheet.soakers].sort((a, b) => (a.mixFrom ?? a.mixUntil).localeCompare(b.mixFrom ?? b.mixUntil));
+  const titles = new Map(sheet.formulas.map((f) => [f.formula, f.title]));
+  const titleOf = (id: string) => titles.get(id) ?? id;
   const mixes = [...sheet.mixes].sort((a, b) => a.start.localeCompare(b.start));
   return (
     <article data-plan={sheet.date}>
@@ -70,7 +72,7 @@ function PlanPage({ detail }: { detail: PlanDetail }) {
           <Panel title="Builds to make ahead" id="builds">
             <div className="grid gap-3 lg:grid-cols-2 print:grid-cols-2">
               {builds.map((b) => (
-                <BuildCard key={`${b.formula}-${b.name}-${b.batch}`} build={b} date={sheet.date} />
+                <BuildCard key={`${b.formula}-${b.name}-${b.batch}`} build={b} date={sheet.date} titleOf={titleOf} />
               ))}
             </div>
           </Panel>

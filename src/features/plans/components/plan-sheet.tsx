@@ -46,7 +46,7 @@ function WaterLine({ temperature, ice, tapWater, water }: { temperature: number 
   );
 }
 
-export function BuildCard({ build, date }: { build: SheetBuild; date: string }) {
+export function BuildCard({ build, date, titleOf }: { build: SheetBuild; date: string; titleOf: (id: string) => string }) {
   return (
     <article className="break-inside-avoid rounded-xl border border-line bg-page/50 p-3 print:rounded-none print:border-0 print:border-t print:p-0 print:pt-1" data-testid="sheet-build">
       <header className="flex flex-wrap items-baseline justify-between gap-2">
@@ -54,7 +54,7 @@ export function BuildCard({ build, date }: { build: SheetBuild; date: string }) 
           {build.name}
           {build.batches > 1 && <span className="font-sans text-base font-normal text-muted"> · batch {build.batch} of {build.batches}</span>}
         </h3>
-        <span className="text-muted">for {build.formulas.join(', ')}</span>
+        <span className="text-muted">for {build.formulas.map(titleOf).join(', ')}</span>
       </header>
       <p className="my-1 rounded-lg bg-sage-soft px-2 py-1 text-sage print:bg-transparent print:p-0">
         <span className="font-semibold">Mix </span>

@@ -114,7 +114,7 @@ export function generatePlanYaml(date, ids) {
 
 /**
  * Writes a formulas folder into `dir`: ingredients.yaml, `count` formulas and, when `plan` is set,
- * plans/2026-12-03.yaml ordering the first three. Returns the formula ids.
+ * plans/2026-12-03.yaml ordering the first three active ones. Returns the formula ids.
  */
 export function writeGeneratedFolder(dir, count, { plan = true, variant = 0 } = {}) {
   mkdirSync(dir, { recursive: true });
@@ -127,7 +127,7 @@ export function writeGeneratedFolder(dir, count, { plan = true, variant = 0 } = 
   }
   if (plan && count > 0) {
     mkdirSync(join(dir, 'plans'), { recursive: true });
-    writeFileSync(join(dir, 'plans', '2026-12-03.yaml'), generatePlanYaml('2026-12-03', ids.slice(0, 3)));
+    writeFileSync(join(dir, 'plans', '2026-12-03.yaml'), generatePlanYaml('2026-12-03', ids.filter((_, i) => i % 3 !== 2).slice(0, 3)));
   }
   return ids;
 }

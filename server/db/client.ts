@@ -8,7 +8,7 @@
 //
 // Always `await handle.close()`: an open PGlite keeps the Node process alive.
 import { randomBytes } from 'node:crypto';
-import { closeSync, existsSync, mkdirSync, openSync, readFileSync, renameSync, unlinkSync, writeFileSync, writeSync } from 'node:fs';
+import { closeSync, existsSync, mkdirSync, openSync, readFileSync, renameSync, rmSync, statSync, unlinkSync, writeFileSync, writeSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { PgDatabase, PgQueryResultHKT } from 'drizzle-orm/pg-core';
@@ -59,17 +59,49 @@ export interface HeldLock {
   release(): void;
 }
 
-/** The data directory is held by another live process. */
+/** The data directory is held by another live process (lock null: held by another user). */
 export class DatabaseLockedError extends Error {
   constructor(
     readonly dataDir: string,
-    readonly lock: LockInfo,
+    readonly lock: LockInfo | null,
   ) {
     super(
-      `the database in ${dataDir} is in use by another Panform process (pid ${lock.pid}${lock.port ? `, serving on port ${lock.port}` : ''})`,
+      lock
+        ? `the database in ${dataDir} is in use by another Panform process (pid ${lock.pid}${lock.port ? `, serving on port ${lock.port}` : ''})`
+        : `the database in ${dataDir} is in use by a Panform process of another user`,
     );
     this.name = 'DatabaseLockedError';
   }
+}
+
+function removeStaleLock(path: string, seen: LockInfo | null): void {
+  const mutex = `${path}.takeover`;
+  try {
+    mkdirSync(mutex);
+  } catch (e) {
+    if ((e as NodeJS.ErrnoException).code !== 'EEXIST') throw e;
+    // Someone else is clearing it; a mutex left by a process that died mid-way is removed.
+    const age = Date.now() - (statSync(mutex, { throwIfNoEntry: false })?.mtimeMs ?? Date.now());
+    if (age > 10_000) rmSync(mutex, { recursive: true, force: true });
+    else sleepSync(50);
+    return;
+  }
+  try {
+    let now: LockInfo | null = null;
+    try {
+      now = JSON.parse(readFileSync(path, 'utf8')) as LockInfo;
+    } catch {
+      now = null;
+    }
+    const same = seen === null ? now === null || !lockAlive(now, path) : now !== null && now.token === seen.token && !lockAlive(now, path);
+    if (same) rmSync(path, { force: true });
+  } finally {
+    rmSync(mutex, { recursive: true, force: true });
+  }
+}
+
+function sleepSync(ms: number): void {
+  Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, ms);
 }
 
 /** Where the database is, from options and environment, without opening anything. */
@@ -80,6 +112,19 @@ export function resolveTarget(opts: OpenOptions = {}): { kind: 'memory' } | { ki
   if (opts.dataDir) return { kind: 'pglite', dataDir: resolve(opts.dataDir) };
   if (env.DATABASE_URL) return { kind: 'postgres', url: env.DATABASE_URL };
   return { kind: 'pglite', dataDir: resolve(env.PANFORM_DATA || DEFAULT_DATA_DIR) };
+}
+
+/** Lock files this process holds. */
+const heldHere = new Set<string>();
+
+/**
+ * Whether the process that wrote a lock still runs. A lock carrying this process's own pid that
+ * this process does not hold was left by an earlier run that had the same pid (a container
+ * restarted): stale.
+ */
+function lockAlive(lock: LockInfo, path: string): boolean {
+  if (lock.pid === process.pid) return heldHere.has(path);
+  return pidAlive(lock.pid);
 }
 
 function pidAlive(pid: number): boolean {
@@ -101,7 +146,7 @@ export function readLiveLock(dataDir: string): LockInfo | null {
   } catch {
     return null;
   }
-  if (!info || typeof info.pid !== 'number' || !pidAlive(info.pid)) return null;
+  if (!info || typeof info.pid !== 'number' || !lockAlive(info, path)) return null;
   return info;
 }
 
@@ -110,7 +155,7 @@ export function acquireLock(dataDir: string): HeldLock {
   mkdirSync(dataDir, { recursive: true });
   const path = join(dataDir, LOCK_FILE);
   const info: LockInfo = { pid: process.pid, port: null, token: randomBytes(32).toString('hex'), startedAt: new Date().toISOString() };
-  for (let attempt = 0; attempt < 5; attempt++) {
+  for (let attempt = 0; attempt < 6; attempt++) {
     let fd: number;
     try {
       fd = openSync(path, 'wx', 0o600);
@@ -119,19 +164,21 @@ export function acquireLock(dataDir: string): HeldLock {
       let existing: LockInfo | null = null;
       try {
         existing = JSON.parse(readFileSync(path, 'utf8')) as LockInfo;
-      } catch {
-        // An unreadable or half-written lock: treat as stale only if it stays so (writer may be mid-write).
-        existing = null;
+      } catch (re) {
+        const code = (re as NodeJS.ErrnoException).code;
+        if (code === 'ENOENT') continue; // released meanwhile: try again
+        // Another user's lock (mode 600): held, by someone we cannot ask.
+        if (code === 'EACCES' || code === 'EPERM') throw new DatabaseLockedError(dataDir, null);
+        // Half-written by a process taking it right now: wait a moment before calling it stale.
+        if (attempt < 3) {
+          sleepSync(50);
+          continue;
+        }
       }
-      if (existing && typeof existing.pid === 'number' && pidAlive(existing.pid)) throw new DatabaseLockedError(dataDir, existing);
-      // Stale: move it aside atomically so two processes taking over do not both win.
-      const aside = `${path}.stale-${process.pid}-${randomBytes(4).toString('hex')}`;
-      try {
-        renameSync(path, aside);
-        unlinkSync(aside);
-      } catch {
-        // someone else moved it first; try again
-      }
+      // Stale. Only one process at a time may clear a stale lock (a directory made atomically is
+      // the mutex); it clears it only if it is still the same stale lock, so two processes taking
+      // over at once cannot remove each other's fresh lock.
+      removeStaleLock(path, existing);
       continue;
     }
     try {
@@ -139,6 +186,7 @@ export function acquireLock(dataDir: string): HeldLock {
     } finally {
       closeSync(fd);
     }
+    heldHere.add(path);
     let released = false;
     return {
       path,
@@ -152,6 +200,7 @@ export function acquireLock(dataDir: string): HeldLock {
       release() {
         if (released) return;
         released = true;
+        heldHere.delete(path);
         try {
           const now = JSON.parse(readFileSync(path, 'utf8')) as LockInfo;
           if (now.pid === info.pid && now.token === info.token) unlinkSync(path);

@@ -5,7 +5,6 @@ import type { DatabaseHandle } from '../db/client.ts';
 import { checkLoadInput, type CheckResult, type ExtraCheck } from './check.ts';
 import { readLoadInput, LoadPathError, type LoadInput } from './read.ts';
 import { writeLoad, type LoadSummary, type WriteOptions } from './write.ts';
-import { tradeChecks } from './trade-checks.ts';
 
 export type { LoadSummary, LoadProgress, KindSummary } from './write.ts';
 export type { LoadInput, LoadFile, FileKind } from './read.ts';
@@ -25,7 +24,7 @@ export class LoadCheckError extends Error {
 export interface LoadOptions extends WriteOptions {
   /** Skip reading git commits and authors. */
   git?: boolean;
-  /** Extra checks beside the built-in ones (default: the trade checks). */
+  /** Checks beyond those of `panform check` (none by default). */
   checks?: ExtraCheck[];
 }
 
@@ -41,7 +40,7 @@ export async function prepareLoad(
     throw new LoadPathError(`no formula, catalog or plan files in ${list.join(', ')}`);
   }
   opts.onProgress?.({ phase: 'check', done: 0, total: input.files.length });
-  const checked = checkLoadInput(input, opts.checks ?? [tradeChecks]);
+  const checked = checkLoadInput(input, opts.checks ?? [], { folderFormulas: input.folderFormulas });
   opts.onProgress?.({ phase: 'check', done: input.files.length, total: input.files.length });
   return { input, checked };
 }

@@ -32,6 +32,11 @@ export interface LoadInput {
   complete: boolean;
   /** HEAD of the repository holding the files, where known. */
   gitCommit: string | null;
+  /**
+   * For a load of single files: the formula ids on disk in the folders they belong to, so a
+   * plan's orders can name formulas that are not part of this load.
+   */
+  folderFormulas?: Map<string, { status?: string }>;
 }
 
 const isYaml = (name: string) => /\.ya?ml$/i.test(name);
@@ -116,7 +121,14 @@ export async function readLoadInput(paths: string[], opts: { git?: boolean } = {
       gitAuthor: g?.author ?? null,
     };
   });
-  return { files, complete, gitCommit: git?.head ?? null };
+  let folderFormulas: Map<string, { status?: string }> | undefined;
+  if (!complete) {
+    folderFormulas = new Map();
+    for (const root of new Set(list.map((f) => f.root))) {
+      for (const f of folderFiles(root)) if (f.kind === 'formula') folderFormulas.set(basename(f.absPath).replace(/\.ya?ml$/i, ''), {});
+    }
+  }
+  return { files, complete, gitCommit: git?.head ?? null, folderFormulas };
 }
 
 interface GitInfo {

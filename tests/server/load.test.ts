@@ -4,10 +4,9 @@ import fc from 'fast-check';
 import { asc, eq } from 'drizzle-orm';
 import { afterAll, describe, expect, it } from 'vitest';
 import { generateCatalogYaml, generateFormulaYaml, generatePlanYaml, writeGeneratedFolder } from '../../bench/generate-formulas.mjs';
-import type { DatabaseHandle } from '../../server/db/client.ts';
-import { catalogTable, formulaRevisionsTable, formulasTable, loadsTable, plansTable } from '../../server/db/schema.ts';
+import { formulaRevisionsTable, formulasTable } from '../../server/db/schema.ts';
 import { loadFolder, LoadCheckError, contentHash } from '../../server/load/index.ts';
-import { forEachDatabase, truncateAll } from '../setup/databases.ts';
+import { forEachDatabase, readLoadedState, truncateAll } from '../setup/databases.ts';
 
 const tmpDirs: string[] = [];
 afterAll(() => {
@@ -19,21 +18,6 @@ function tempFolder(count: number, plan = true): { dir: string; ids: string[] } 
   const dir = join(root, 'formulas');
   const ids = writeGeneratedFolder(dir, count, { plan });
   return { dir, ids };
-}
-
-async function readState(h: DatabaseHandle) {
-  const formulas = await h.db
-    .select({ id: formulasTable.id, source: formulasTable.source, revision: formulasTable.revision, status: formulasTable.status, removedAt: formulasTable.removedAt, hash: formulasTable.contentHash })
-    .from(formulasTable)
-    .orderBy(asc(formulasTable.id));
-  const revisions = await h.db
-    .select({ id: formulaRevisionsTable.formulaId, revision: formulaRevisionsTable.revision, hash: formulaRevisionsTable.contentHash })
-    .from(formulaRevisionsTable)
-    .orderBy(asc(formulaRevisionsTable.formulaId), asc(formulaRevisionsTable.revision));
-  const catalog = await h.db.select({ name: catalogTable.name }).from(catalogTable).orderBy(asc(catalogTable.name));
-  const plans = await h.db.select({ date: plansTable.date, source: plansTable.source }).from(plansTable).orderBy(asc(plansTable.date));
-  const loads = await h.db.select({ id: loadsTable.id }).from(loadsTable);
-  return { formulas, revisions, catalog: catalog.map((c) => c.name), plans, loads: loads.length };
 }
 
 const opts = { git: false } as const;
@@ -65,7 +49,7 @@ forEachDatabase('loading a formulas folder', (setup) => {
     expect(second.formulas.unchanged).toEqual(ids);
     expect(second.formulas.added).toEqual([]);
     expect(second.formulas.changed).toEqual([]);
-    const state = await readState(h);
+    const state = await readLoadedState(h);
     expect(state.revisions).toHaveLength(3);
     expect(state.formulas.every((f) => f.revision === 1)).toBe(true);
     expect(state.loads).toBe(2);
@@ -92,7 +76,7 @@ forEachDatabase('loading a formulas folder', (setup) => {
     const h = await setup.fresh();
     const { dir } = tempFolder(3);
     await loadFolder(h, dir, opts);
-    const before = await readState(h);
+    const before = await readLoadedState(h);
     writeFileSync(join(dir, 'generated-0000.yaml'), generateFormulaYaml(0, 2)); // a good change ...
     writeFileSync(join(dir, 'broken-loaf.yaml'), 'id: broken-loaf\ntitle: Broken\nstatus: active\n'); // ... and a bad file
     const err = await loadFolder(h, dir, opts).catch((e: unknown) => e);
@@ -100,7 +84,7 @@ forEachDatabase('loading a formulas folder', (setup) => {
     const findings = (err as LoadCheckError).findings;
     expect(findings.length).toBeGreaterThan(0);
     expect(findings.every((f) => f.file === 'formulas/broken-loaf.yaml' && f.line >= 1)).toBe(true);
-    expect(await readState(h)).toEqual(before);
+    expect(await readLoadedState(h)).toEqual(before);
   });
 
   it('keeps a formula whose file disappeared, marked removed and retired, and restores it without a new revision', async () => {
@@ -132,7 +116,7 @@ forEachDatabase('loading a formulas folder', (setup) => {
     expect(summary.complete).toBe(false);
     expect(summary.formulas.changed).toEqual(['generated-0000']);
     expect(summary.formulas.removed).toEqual([]);
-    const state = await readState(h);
+    const state = await readLoadedState(h);
     expect(state.formulas.filter((f) => f.removedAt === null)).toHaveLength(3);
   });
 
@@ -184,7 +168,7 @@ forEachDatabase('loading a formulas folder', (setup) => {
             lastLoaded.set(fid, hash);
           }
           everLoaded = new Set([...everLoaded, ...files.keys()]);
-          const state = await readState(h);
+          const state = await readLoadedState(h);
           const live = state.formulas.filter((f) => f.removedAt === null);
           expect(live.map((f) => [f.id, f.source])).toEqual([...files].sort(([a], [b]) => a.localeCompare(b)));
           const removed = state.formulas.filter((f) => f.removedAt !== null);
@@ -213,11 +197,11 @@ forEachDatabase('loading a formulas folder', (setup) => {
             else rmSync(join(dir, 'plans', '2026-12-03.yaml'), { force: true });
           } else if (o.t === 'bad') {
             if (files.size === 0) continue;
-            const before = await readState(h);
+            const before = await readLoadedState(h);
             writeFileSync(join(dir, 'bad-one.yaml'), 'id: bad-one\nyield: twelve\n');
             await expect(loadFolder(h, dir, opts)).rejects.toBeInstanceOf(LoadCheckError);
             rmSync(join(dir, 'bad-one.yaml'));
-            expect(await readState(h)).toEqual(before);
+            expect(await readLoadedState(h)).toEqual(before);
           } else {
             // A plan naming a formula that is gone fails the check: drop it first, as a baker would.
             const planPath = join(dir, 'plans', '2026-12-03.yaml');

@@ -119,7 +119,9 @@ function stripDatabase(url: string): string {
 }
 
 /** Runs `body` once per available database setup, each in its own describe block. */
-export function forEachDatabase(title: string, body: (setup: DatabaseSetup) => void): void {
+export function forEachDatabase(title: string, body: (setup: DatabaseSetup) => void, options: { warm?: boolean } = {}): void {
+  // Open the suite's shared database before the tests (default), for suites that call fresh().
+  const warm = options.warm ?? true;
   describe(`${title} (PGlite)`, () => {
     const handles: DatabaseHandle[] = [];
     const dirs: string[] = [];
@@ -137,6 +139,7 @@ export function forEachDatabase(title: string, body: (setup: DatabaseSetup) => v
     let shared: Promise<DatabaseHandle> | null = null;
     let used = false;
     beforeAll(async () => {
+      if (!warm) return;
       shared ??= open({ memory: true });
       await shared;
     }, SETUP_TIMEOUT);
@@ -206,6 +209,7 @@ export function forEachDatabase(title: string, body: (setup: DatabaseSetup) => v
     let shared: Promise<DatabaseHandle> | null = null;
     let used = false;
     beforeAll(async () => {
+      if (!warm) return;
       shared ??= createDatabase(base).then((url) => open({ url }));
       await shared;
     }, SETUP_TIMEOUT);
@@ -245,4 +249,29 @@ export async function truncateAll(h: DatabaseHandle): Promise<void> {
   await h.db.execute(
     sql.raw('truncate table formulas, formula_revisions, catalog, plans, loads, sessions, password_resets, users restart identity cascade'),
   );
+}
+
+/** What a load left in the database, in a comparable shape (ids, texts, revisions, catalog names, plans). */
+export async function readLoadedState(h: DatabaseHandle) {
+  const { asc } = await import('drizzle-orm');
+  const { catalogTable, formulaRevisionsTable, formulasTable, loadsTable, plansTable } = await import('../../server/db/schema.ts');
+  const formulas = await h.db
+    .select({
+      id: formulasTable.id,
+      source: formulasTable.source,
+      revision: formulasTable.revision,
+      status: formulasTable.status,
+      removedAt: formulasTable.removedAt,
+      hash: formulasTable.contentHash,
+    })
+    .from(formulasTable)
+    .orderBy(asc(formulasTable.id));
+  const revisions = await h.db
+    .select({ id: formulaRevisionsTable.formulaId, revision: formulaRevisionsTable.revision, hash: formulaRevisionsTable.contentHash })
+    .from(formulaRevisionsTable)
+    .orderBy(asc(formulaRevisionsTable.formulaId), asc(formulaRevisionsTable.revision));
+  const catalog = await h.db.select({ name: catalogTable.name }).from(catalogTable).orderBy(asc(catalogTable.name));
+  const plans = await h.db.select({ date: plansTable.date, source: plansTable.source }).from(plansTable).orderBy(asc(plansTable.date));
+  const loads = await h.db.select({ id: loadsTable.id }).from(loadsTable);
+  return { formulas, revisions, catalog: catalog.map((c) => c.name), plans, loads: loads.length };
 }

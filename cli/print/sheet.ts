@@ -1,10 +1,9 @@
 // The batch sheet as terminal text: the presented sections (shared/sheet/present.ts) as plain
-// cli-table3 tables, a "[ ]" beside every weight to tick off.
-import type { PresentedSheet } from '#shared/sheet/present';
+// box tables in the look of table.ts, a "[ ]" beside every weight to tick off; and as CSV.
+import type { Align, PresentedSheet } from '#shared/sheet/present';
 import type { Sheet } from '#shared/sheet/types';
 import { roundGrams } from '#shared/units';
 import { renderCsv } from './csv.ts';
-import { renderTable } from './table.ts';
 
 export function renderSheetText(p: PresentedSheet): string {
   const out: string[] = [p.title, ...p.subtitle.map((s) => `  ${s}`), ''];
@@ -16,17 +15,41 @@ export function renderSheetText(p: PresentedSheet): string {
       if (b.table) {
         const tk = b.table.tick.some(Boolean);
         out.push(
-          renderTable({
-            head: tk ? [...b.table.head, ''] : b.table.head,
-            rows: b.table.rows.map((r, i) => (tk ? [...r, b.table!.tick[i] ? '[ ]' : ''] : r).map((cell) => wrap(cell, WRAP))),
-            align: tk ? [...b.table.align, 'left'] : b.table.align,
-            footer: b.table.footer ? (tk ? [...b.table.footer, ''] : b.table.footer) : undefined,
-          }),
+          boxTable(
+            tk ? [...b.table.head, ''] : b.table.head,
+            b.table.rows.map((r, i) => (tk ? [...r, b.table!.tick[i] ? '[ ]' : ''] : r).map((cell) => wrap(cell, WRAP))),
+            tk ? [...b.table.align, 'left'] : b.table.align,
+            b.table.footer ? (tk ? [...b.table.footer, ''] : b.table.footer) : undefined,
+          ),
         );
       }
       out.push('');
     }
   }
+  return out.join('\n');
+}
+
+/**
+ * A table drawn like renderTable (table.ts) draws it, without cli-table3: a 40-order plan has a
+ * timeline of several hundred rows, and cli-table3's per-cell ANSI handling made printing it the
+ * slowest part of `panform sheet`. The sheet's cells hold no colour codes and no wide characters.
+ */
+export function boxTable(head: string[], rows: string[][], align: Align[], footer?: string[]): string {
+  const all = [head, ...rows, ...(footer ? [footer] : [])];
+  const widths = head.map((_, i) => Math.max(...all.map((r) => Math.max(...(r[i] ?? '').split('\n').map((l) => l.length)))));
+  const rule = (l: string, m: string, r: string) => `${l}${widths.map((w) => '─'.repeat(w + 2)).join(m)}${r}`;
+  const line = (cells: string[]) => {
+    const split = cells.map((c) => (c ?? '').split('\n'));
+    const height = Math.max(...split.map((c) => c.length));
+    const lines: string[] = [];
+    for (let k = 0; k < height; k++) {
+      lines.push(`│${split.map((c, i) => ` ${align[i] === 'right' ? (c[k] ?? '').padStart(widths[i]) : (c[k] ?? '').padEnd(widths[i])} `).join('│')}│`);
+    }
+    return lines.join('\n');
+  };
+  const out = [rule('┌', '┬', '┐'), line(head), rule('├', '┼', '┤'), ...rows.map(line)];
+  if (footer) out.push(rule('├', '┼', '┤'), line(footer));
+  out.push(rule('└', '┴', '┘'));
   return out.join('\n');
 }
 

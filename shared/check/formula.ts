@@ -188,6 +188,8 @@ export function checkFormula(input: FormulaCheckInput): Finding[] {
   for (const t of takes) {
     const have = overall.get(t.ingredient);
     if (have === undefined) {
+      // Without a catalog a pre-ferment line may be a seed culture, which is not in the overall formula.
+      if (!catalog && t.from.startsWith('pre-ferment')) continue;
       out.error(
         t.at,
         `${quote(t.ingredient)} is in ${t.from} but not in the overall formula; pre-ferments and soakers are taken out of the overall formula, so add it under ${item(t.ingredient).kind === 'flour' ? 'flour' : 'ingredients'}`,

@@ -258,6 +258,12 @@ describe('checkFileText on formula arithmetic and units', () => {
     expect(lines(checkFormula('loaf.yaml', text, cat ?? catalog))).toEqual(expected);
   });
 
+  it('without a catalog, does not take a seed culture for a missing overall ingredient', () => {
+    expect(lines(checkFormula('loaf.yaml', LEVAIN, null))).toEqual([
+      '1:1 warning no ingredient catalog (ingredients.yaml beside the formula or in its parent folder, or --catalog); ingredient names and kinds were not checked',
+    ]);
+  });
+
   it('names both amounts when two pre-ferments together take more water than the formula has', () => {
     const text = withLines(`preferments:
   - name: poolish

@@ -115,12 +115,15 @@ export function buildSheet(input: SheetInput): Sheet {
   // ---- timeline -----------------------------------------------------------------------------
   const placed = scheduleJobs(planned.map((p) => ({ chain: p.chain, mixer: p.mixer.name })), readyBy);
   const timeline: TimelineEntry[] = [];
+  const ordersOf = new Map<string, number>();
+  for (const o of plan.orders) ordersOf.set(o.formula, (ordersOf.get(o.formula) ?? 0) + 1);
   planned.forEach((p, i) => {
     p.start = placed[i].start;
     const firstMix = p.chain.steps.find((s) => s.step.step === 'mix')!;
     p.mixStart = p.start + firstMix.offset;
     p.mixEnd = p.mixStart + firstMix.minutes;
-    const label = `${p.formula.title} ${p.mixNumber}/${p.of}`;
+    // A formula ordered more than once gets the order's number, so its rows can be told apart.
+    const label = `${p.formula.title}${ordersOf.get(p.formula.id)! > 1 ? ` (order ${p.order + 1})` : ''} ${p.mixNumber}/${p.of}`;
     for (const s of p.chain.steps) {
       const from = p.start + s.offset;
       const to = from + s.minutes;

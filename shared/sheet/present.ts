@@ -94,7 +94,7 @@ function addIceRows(rows: string[][], tick: boolean[], ice: number, tapWater: nu
   tick.push(true);
 }
 
-function mixBlock(m: SheetMix, sheet: Sheet): SheetBlock {
+function mixBlock(m: SheetMix, sheet: Sheet, repeated: boolean): SheetBlock {
   const lines: string[] = [];
   lines.push(`${m.mixer} · mix at ${span(m.start, m.end, sheet.date)}${m.customer ? ` · for ${m.customer}` : ''}`);
   if (m.waterTemperature !== null && m.doughTemperature !== null) {
@@ -115,7 +115,7 @@ function mixBlock(m: SheetMix, sheet: Sheet): SheetBlock {
     if (l.kind === 'water' && m.ice > 0) addIceRows(rows, tick, m.ice, m.tapWater, sheet.conditions.tapWater);
   }
   return {
-    title: `${m.title} · mix ${m.mixNumber} of ${m.of} · ${g(m.dough)}`,
+    title: `${m.title}${repeated ? ` (order ${m.order + 1})` : ''} · mix ${m.mixNumber} of ${m.of} · ${g(m.dough)}`,
     lines,
     table: { head: ['ingredient', 'weigh'], rows, align: ['left', 'right'], tick, footer: ['dough', g(m.dough)] },
   };
@@ -139,7 +139,9 @@ export function presentSheet(sheet: Sheet): PresentedSheet {
   if (sheet.soakers.length > 0) {
     sections.push({ key: 'soakers', title: 'Soakers', blocks: sheet.soakers.map((b) => buildBlock(b, sheet)) });
   }
-  sections.push({ key: 'mixes', title: 'Mixes', blocks: sheet.mixes.map((m) => mixBlock(m, sheet)) });
+  const orders = new Map<string, Set<number>>();
+  for (const m of sheet.mixes) orders.set(m.formula, (orders.get(m.formula) ?? new Set()).add(m.order));
+  sections.push({ key: 'mixes', title: 'Mixes', blocks: sheet.mixes.map((m) => mixBlock(m, sheet, orders.get(m.formula)!.size > 1)) });
 
   const timelineRows = sheet.timeline.map((e) => {
     const what: string[] = [];

@@ -119,7 +119,7 @@ export type TimelineStep = StepKind | 'build' | 'soak';
 
 export interface TimelineEntry {
   formula: string;
-  /** For builds: the build's name; for mixes: "<title> <n>/<of>". */
+  /** For builds: the build's name; for mixes: "<title> <n>/<of>" (with "(order k)" when a formula is ordered twice). */
   label: string;
   step: TimelineStep;
   /** Order index and mix number; null for builds. */

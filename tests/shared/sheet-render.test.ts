@@ -123,3 +123,15 @@ describe('renderSheetHtml', () => {
     expect(out).toContain('font-variant-ligatures: none');
   });
 });
+
+describe('a formula ordered twice', () => {
+  it('tells the orders apart on the mixes and the timeline', () => {
+    const input = sheetInput(FIXTURE_PLANS[0]);
+    input.plan = { ...input.plan, orders: [...input.plan.orders, { formula: 'straight-rolls', pieces: 20, customer: 'school kitchen' }] };
+    const twice = buildSheet(input);
+    const titles = presentSheet(twice).sections.find((s) => s.key === 'mixes')!.blocks.map((b) => b.title);
+    expect(titles.filter((t) => t.startsWith('Straight rolls'))).toEqual(['Straight rolls (order 1) · mix 1 of 1 · 27\u202f551 g', 'Straight rolls (order 5) · mix 1 of 1 · 1\u202f837 g']);
+    expect(new Set(twice.timeline.filter((e) => e.formula === 'straight-rolls').map((e) => e.label))).toEqual(new Set(['Straight rolls (order 1) 1/1', 'Straight rolls (order 5) 1/1']));
+    expect(chartModel(twice).rows.filter((r) => r.label.startsWith('Straight rolls'))).toHaveLength(2);
+  });
+});

@@ -10,6 +10,7 @@ import { parseCatalogText, parseFormulaText } from '#shared/parse';
 import { scaleFormula, type ScaleTarget } from '#shared/scale';
 import { planWater } from '#shared/temperature';
 import { formatGrams, formatTemperature } from '#shared/units';
+import { appInternals } from '../../server/app.ts';
 import type { DatabaseHandle } from '../../server/db/client.ts';
 import { loadFolder } from '../../server/load/index.ts';
 import { emailOf, openTestDatabase, PASSWORD, startTestServer, type TestServer } from '../server/harness.ts';
@@ -293,6 +294,32 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', () 
     const cost = computeCost(scaleFormula(formula, catalog, { by: 'pieces', pieces: 60 }), catalog);
     expect(await page.getByTestId('cost-per-piece').textContent()).toBe(formatMoney(cost.perPiece!, ''));
     await screenshot(page, 'formula-author-cost', { width: 1280, height: 800 });
+    await signOut(page, base);
+  }, 90_000);
+
+  it('sets a new password from the e-mailed link, then signs in with it', async () => {
+    await page.context().clearCookies();
+    await page.goto(`${base}/sign-in`);
+    await page.getByRole('link', { name: 'Forgot the password?' }).click();
+    await page.waitForURL(/\/forgot-password$/);
+    await page.getByLabel('E-mail').fill(emailOf('admin'));
+    await page.getByRole('button', { name: 'Send the link' }).click();
+    await page.getByRole('status').waitFor();
+    await screenshot(page, 'forgot-password', { width: 1280, height: 800, fullPage: false });
+    await appInternals(server.app).idle();
+    const mail = server.outbox.find((m) => m.to === emailOf('admin'));
+    const link = /\/reset-password\?token=\S+/.exec(mail?.text ?? '')?.[0];
+    expect(link).toBeDefined();
+    await page.goto(`${base}${link}`);
+    await page.getByLabel('New password').fill('flour and water 2026');
+    await page.getByLabel('The same again').fill('flour and water 2026');
+    await screenshot(page, 'reset-password', { width: 800, height: 1280, scheme: 'dark', fullPage: false });
+    await page.getByRole('button', { name: 'Set the new password' }).click();
+    await page.waitForURL(/\/sign-in\?reset=done/);
+    await page.getByLabel('E-mail').fill(emailOf('admin'));
+    await page.getByLabel('Password').fill('flour and water 2026');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(/\/formulas$/);
     await signOut(page, base);
   }, 90_000);
 

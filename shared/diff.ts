@@ -122,16 +122,20 @@ function formatMinutes(r: NumberRange | undefined): string | null {
 
 const temp = (c: number | undefined) => (c === undefined ? null : `${formatNumber(c)} °C`);
 
+const VESSEL_TEXT: Record<string, string> = { deck: 'on the deck', tray: 'on trays', pot: 'in pots', tin: 'in tins', stone: 'on the stone' };
+
+/** A step in a line, e.g. "bake 45 min at 230 °C, in pots, covered 20 min (note)". */
 export function describeStep(s: Step): string {
-  const parts: string[] = [s.step];
+  const head: string[] = [s.step];
   const m = formatMinutes(s.minutes);
-  if (m) parts.push(m);
-  if (s.temperature !== undefined) parts.push(`at ${temp(s.temperature)}`);
+  if (m) head.push(m);
+  if (s.temperature !== undefined) head.push(`at ${temp(s.temperature)}`);
+  const parts: string[] = [head.join(' ')];
   if (s.folds) parts.push(`${s.folds.count} fold${s.folds.count === 1 ? '' : 's'} every ${formatNumber(s.folds.every)} min`);
-  if (s.vessel) parts.push(`on ${s.vessel}`);
+  if (s.vessel) parts.push(VESSEL_TEXT[s.vessel] ?? s.vessel);
   if (s.covered !== undefined) parts.push(`covered ${formatNumber(s.covered)} min`);
   if (s.steam !== undefined) parts.push(s.steam ? 'with steam' : 'no steam');
-  let text = parts.join(', ').replace(/^(\S+), /, '$1 ');
+  let text = parts.join(', ');
   if (s.note) text += ` (${s.note})`;
   return text;
 }

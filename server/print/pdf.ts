@@ -6,7 +6,7 @@
 //
 // The fonts are read from @fontsource/jetbrains-mono unless passed in as TrueType bytes.
 import PDFDocument from 'pdfkit';
-import { chartModel, colourOf, LEGEND, type ChartModel } from '#shared/sheet/chart';
+import { chartModel, colourOf, LEGEND, productionRange, type ChartModel } from '#shared/sheet/chart';
 import { presentSheet, type SheetSection, type SheetTable } from '#shared/sheet/present';
 import type { Sheet } from '#shared/sheet/types';
 import { readJetBrainsMonoTtf } from './fonts.ts';
@@ -295,6 +295,14 @@ export async function renderSheetPdf(sheet: Sheet, options: PdfOptions = {}): Pr
   const model = chartModel(sheet);
   sectionTitle(w, 'Timeline chart', 24 + model.rows.length * 11 + 42);
   chart(w, model);
+  const morning = productionRange(sheet);
+  if (morning) {
+    const zoom = chartModel(sheet, morning);
+    w.ensure(40 + zoom.rows.length * 11 + 42);
+    w.y += 6;
+    w.paragraph('The production morning, closer', 11.5, { bold: true, gap: 2 });
+    chart(w, zoom);
+  }
 
   for (const s of p.sections) {
     if (s.key === 'cautions' || s.key === 'warnings') continue;

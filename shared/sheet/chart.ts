@@ -63,7 +63,17 @@ export function colourOf(step: TimelineStep): string {
   return STEP_COLOURS[step] ?? STEP_COLOURS.other;
 }
 
-export function chartModel(sheet: Sheet): ChartModel {
+export interface ChartRange {
+  /** Minutes from the plan date's midnight. */
+  from: number;
+  to: number;
+}
+
+/**
+ * The timeline chart. Without a range it covers everything from the first build window to the
+ * last bake out; with one, only the rows that have a bar in it.
+ */
+export function chartModel(sheet: Sheet, range?: ChartRange): ChartModel {
   const rows = new Map<string, ChartRow>();
   for (const e of sheet.timeline) {
     const key = e.window ? `b:${e.label}:${e.formula}` : `m:${e.order}:${e.mixNumber}`;
@@ -78,11 +88,17 @@ export function chartModel(sheet: Sheet): ChartModel {
     });
   }
   const all = sheet.timeline;
-  const from = Math.min(...all.map((e) => e.startMinute));
-  // The chart ends at the last bake out (plus a quarter hour); cooling runs off the edge.
-  const lastBake = Math.max(-Infinity, ...all.filter((e) => e.step === 'bake').map((e) => e.endMinute));
   const lastEnd = Math.max(...all.map((e) => e.endMinute));
-  const to = Number.isFinite(lastBake) ? Math.min(lastEnd, lastBake + 15) : lastEnd;
+  let from: number;
+  let to: number;
+  if (range) {
+    ({ from, to } = range);
+  } else {
+    from = Math.min(...all.map((e) => e.startMinute));
+    // The chart ends at the last bake out (plus a quarter hour); cooling runs off the edge.
+    const lastBake = Math.max(-Infinity, ...all.filter((e) => e.step === 'bake').map((e) => e.endMinute));
+    to = Number.isFinite(lastBake) ? Math.min(lastEnd, lastBake + 15) : lastEnd;
+  }
   const start = Math.floor(from / 60) * 60;
   const end = Math.ceil(Math.max(to, from + 60) / 60) * 60;
   const hours = (end - start) / 60;
@@ -96,7 +112,23 @@ export function chartModel(sheet: Sheet): ChartModel {
     lastDay = day;
   }
   const readyBy = minuteOf(sheet.readyBy, sheet.date);
-  return { from: start, to: end, rows: [...rows.values()], ticks, readyBy, clipped: lastEnd > end };
+  const shown = [...rows.values()].filter((r) => r.bars.some((b) => b.to > start && b.from < end));
+  return { from: start, to: end, rows: shown, ticks, readyBy, clipped: lastEnd > end };
+}
+
+/**
+ * The production morning, when the whole timeline is too long to read in one chart (more than
+ * 14 hours): from the first mix on the plan's date to the last bake out. Undefined otherwise.
+ */
+export function productionRange(sheet: Sheet): ChartRange | undefined {
+  const whole = chartModel(sheet);
+  if (whole.to - whole.from <= 14 * 60) return undefined;
+  const mixes = sheet.timeline.filter((e) => e.step === 'mix' && e.startMinute >= 0);
+  const bakes = sheet.timeline.filter((e) => e.step === 'bake');
+  if (mixes.length === 0 || bakes.length === 0) return undefined;
+  const from = Math.min(...mixes.map((e) => e.startMinute));
+  const to = Math.max(...bakes.map((e) => e.endMinute)) + 15;
+  return to - from < whole.to - whole.from - 60 ? { from, to } : undefined;
 }
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];

@@ -3,7 +3,7 @@
 // cautions in a box at the top. Self-contained: no script, no external file; the caller may pass
 // @font-face rules that embed JetBrains Mono (server/print/fonts.ts), else the page names the
 // font and falls back to the system's monospace. Pure; no I/O.
-import { chartModel, colourOf, LEGEND, type ChartModel } from './chart.ts';
+import { chartModel, colourOf, LEGEND, productionRange, type ChartModel } from './chart.ts';
 import { presentSheet, type SheetBlock, type SheetSection, type SheetTable } from './present.ts';
 import type { Sheet } from './types.ts';
 
@@ -162,10 +162,14 @@ export function renderSheetHtml(sheet: Sheet, options: HtmlOptions = {}): string
   body.push(`<header><h1>${escapeHtml(p.title)}</h1><ul class="sub">${p.subtitle.map((s) => `<li>${escapeHtml(s)}</li>`).join('')}</ul></header>`);
   body.push(box(byKey('cautions'), 'cautions'));
   body.push(box(byKey('warnings'), 'warnings'));
+  const morning = productionRange(sheet);
+  const zoom = morning ? chartModel(sheet, morning) : undefined;
   body.push(
     `<section class="chart"><h2>Timeline</h2><figure class="chart">${timelineSvg(model)}<figcaption>Bars are steps; dashed bars are windows to mix a build in; the red dashed line is the first bake out.${
       model.clipped ? ' Cooling after the last bake runs past the right edge.' : ''
-    }</figcaption></figure></section>`,
+    }</figcaption></figure>${
+      zoom ? `<h3>The production morning, closer</h3><figure class="chart">${timelineSvg(zoom)}</figure>` : ''
+    }</section>`,
   );
   for (const s of p.sections) {
     if (s.key === 'cautions' || s.key === 'warnings') continue;

@@ -2,7 +2,7 @@
 // chart model and the HTML page.
 import { describe, expect, it } from 'vitest';
 import { buildSheet } from '#shared/sheet/build';
-import { chartModel } from '#shared/sheet/chart';
+import { chartModel, productionRange } from '#shared/sheet/chart';
 import { escapeHtml, renderSheetHtml } from '#shared/sheet/html';
 import { longDate, presentSheet } from '#shared/sheet/present';
 import { localDateTime, minuteOf, shortTime } from '#shared/sheet/time';
@@ -89,6 +89,21 @@ describe('chartModel', () => {
   });
 });
 
+describe('productionRange', () => {
+  it('zooms on the plan day from its first mix to the last bake out when the whole timeline is long', () => {
+    const whole = chartModel(sheet);
+    expect(whole.to - whole.from).toBeGreaterThan(14 * 60);
+    const r = productionRange(sheet)!;
+    // first mix on 10 July: poolish bread at 02:37; last bake out + 15 min
+    expect(r.from).toBe(2 * 60 + 37);
+    const lastBake = Math.max(...sheet.timeline.filter((e) => e.step === 'bake').map((e) => e.endMinute));
+    expect(r.to).toBe(lastBake + 15);
+    const zoom = chartModel(sheet, r);
+    expect(zoom.rows.length).toBeLessThan(whole.rows.length);
+    for (const row of zoom.rows) expect(row.bars.some((b) => b.to > zoom.from && b.from < zoom.to)).toBe(true);
+  });
+});
+
 describe('renderSheetHtml', () => {
   const html = renderSheetHtml(sheet);
 
@@ -105,7 +120,8 @@ describe('renderSheetHtml', () => {
   });
 
   it('draws the timeline as inline SVG and boxes the cautions', () => {
-    expect(html).toMatch(/<svg[^>]*viewBox="0 0 760 \d+"/);
+    expect(html.match(/<svg[^>]*viewBox="0 0 760 \d+"/g)).toHaveLength(2);
+    expect(html).toContain('The production morning, closer');
     expect((html.match(/<rect /g) ?? []).length).toBeGreaterThan(sheet.timeline.filter((e) => e.minutes > 0).length / 2);
     expect(html).toMatch(/<section class="box cautions"><h2>Cautions<\/h2><ul><li>Allergens in today&#39;s products/);
   });

@@ -29,7 +29,13 @@ export function FormulaList({ formulas, hrefOf, busy }: { formulas: FormulaSumma
               {f.tags.length > 0 && <> · {f.tags.join(', ')}</>}
             </p>
             <dl className="mt-3 grid grid-cols-3 gap-2 border-t border-dashed border-line pt-3">
-              <Figure term="Hydration" value={percent(f.figures.hydration)} />
+              <Figure
+                term="Hydration"
+                value={percent(f.figures.hydration)}
+                hint={
+                  f.figures.effectiveHydration - f.figures.hydration >= 0.5 ? `${percent(f.figures.effectiveHydration)} counting all water` : undefined
+                }
+              />
               <Figure term="Pre-fermented flour" value={percent(f.figures.prefermentedFlour)} />
               <Figure
                 term="Written batch"
@@ -47,11 +53,12 @@ export function FormulaList({ formulas, hrefOf, busy }: { formulas: FormulaSumma
   );
 }
 
-function Figure({ term, value }: { term: string; value: string }) {
+function Figure({ term, value, hint }: { term: string; value: string; hint?: string }) {
   return (
     <div>
       <dt className="text-sm leading-tight text-muted">{term}</dt>
       <dd className="figure text-lg font-bold">{value}</dd>
+      {hint && <dd className="text-sm leading-tight text-muted">{hint}</dd>}
     </div>
   );
 }

@@ -175,6 +175,7 @@ export function acquireLock(dataDir: string): HeldLock {
           continue;
         }
       }
+      if (existing && typeof existing.pid === 'number' && lockAlive(existing, path)) throw new DatabaseLockedError(dataDir, existing);
       // Stale. Only one process at a time may clear a stale lock (a directory made atomically is
       // the mutex); it clears it only if it is still the same stale lock, so two processes taking
       // over at once cannot remove each other's fresh lock.

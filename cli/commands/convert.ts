@@ -5,7 +5,6 @@ import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { Command } from 'commander';
 import { convert, ConvertError, HAMELMAN_YEAST_FACTORS, yeastFactorsFrom, YEAST_FACTORS_SOURCE, type Conversion, type YeastFactors } from '#shared/convert';
-import { CATALOG_FILE, readCatalog } from '../files.ts';
 import { InputError, UsageError } from '../errors.ts';
 
 interface RawOptions {
@@ -31,8 +30,12 @@ export function toConvertOptions(valueText: string, units: string[], o: RawOptio
   return { value: Number(text), units, json: !!o.json, catalog: o.catalog };
 }
 
-/** The catalog for yeast factors: --catalog, else formulas/ingredients.yaml or ./ingredients.yaml when present. */
-function yeastFactorsFor(opts: ConvertOptions): { factors: YeastFactors; source: string } {
+/**
+ * The catalog for yeast factors: --catalog, else formulas/ingredients.yaml or ./ingredients.yaml
+ * when present. The YAML reader is loaded only here, so weights and temperatures start faster.
+ */
+async function yeastFactorsFor(opts: ConvertOptions): Promise<{ factors: YeastFactors; source: string }> {
+  const { CATALOG_FILE, readCatalog } = await import('../files.ts');
   const path = opts.catalog ?? [join('formulas', CATALOG_FILE), CATALOG_FILE].find((p) => existsSync(p));
   if (!path) return { factors: { ...HAMELMAN_YEAST_FACTORS }, source: YEAST_FACTORS_SOURCE };
   try {
@@ -46,10 +49,9 @@ function yeastFactorsFor(opts: ConvertOptions): { factors: YeastFactors; source:
 
 export type ConvertData = Conversion & { source?: string };
 
-export function collectConvert(opts: ConvertOptions): ConvertData {
+export async function collectConvert(opts: ConvertOptions): Promise<ConvertData> {
+  const y = opts.units.length === 3 ? await yeastFactorsFor(opts) : undefined;
   try {
-    const isYeast = opts.units.length === 3;
-    const y = isYeast ? yeastFactorsFor(opts) : undefined;
     const c = convert({ value: opts.value, units: opts.units, yeastFactors: y?.factors });
     return c.kind === 'yeast' ? { ...c, source: y?.source } : c;
   } catch (e) {
@@ -99,8 +101,8 @@ Yeast: one factor per type against fresh yeast (Hamelman, Bread, Wiley 2004: fre
 active dry 0.4, instant 0.33); every pair is derived from them. A catalog entry of kind yeast
 may set its own \`yeast_factor\`.`,
   )
-  .action((valueText: string, units: string[], raw: RawOptions) => {
+  .action(async (valueText: string, units: string[], raw: RawOptions) => {
     const opts = toConvertOptions(valueText, units, raw);
-    const data = collectConvert(opts);
+    const data = await collectConvert(opts);
     process.stdout.write(opts.json ? `${JSON.stringify(data, null, 2)}\n` : convertText(data));
   });

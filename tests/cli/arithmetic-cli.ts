@@ -4,7 +4,7 @@
 import { execFile } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import { build, type Plugin } from 'esbuild';
 
 export const ROOT = fileURLToPath(new URL('../..', import.meta.url));
@@ -34,10 +34,22 @@ const tolerateMissingDynamicImports: Plugin = {
   },
 };
 
+/** The build's own step: schema validators as standalone code (scripts/standalone-validators.mjs). */
+async function standaloneValidators(): Promise<Plugin> {
+  const mod = (await import(pathToFileURL(join(ROOT, 'scripts', 'standalone-validators.mjs')).href)) as { generateValidatorsModule(): string };
+  return {
+    name: 'standalone-validators',
+    setup(b) {
+      b.onLoad({ filter: /shared[\\/]schema[\\/]validators\.ts$/ }, () => ({ contents: mod.generateValidatorsModule(), loader: 'js' }));
+    },
+  };
+}
+
 export async function buildCli(): Promise<BuiltCli> {
+  const validators = await standaloneValidators();
   // Inside node_modules so the bundle's bare imports (commander, yaml ...) resolve as in dist/.
   const outdir = mkdtempSync(join(ROOT, 'node_modules', '.cache-panform-cli-'));
-  await build({
+  const built = build({
     entryPoints: [join(ROOT, 'cli/index.ts')],
     outdir,
     bundle: true,
@@ -48,8 +60,14 @@ export async function buildCli(): Promise<BuiltCli> {
     packages: 'external',
     logLevel: 'silent',
     chunkNames: 'chunks/[name]-[hash]',
-    plugins: [tolerateMissingDynamicImports],
+    plugins: [tolerateMissingDynamicImports, validators],
   });
+  try {
+    await built;
+  } catch (e) {
+    rmSync(outdir, { recursive: true, force: true });
+    throw e;
+  }
   const entry = join(outdir, 'index.js');
   return {
     run(args, opts = {}) {

@@ -2,7 +2,8 @@
 // shared/parse.ts. Errors carry the file's location and a suggestion.
 import { existsSync, readFileSync, statSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
-import { parseCatalogText, parseFormulaText, parsePlanText, type Finding } from '#shared/parse';
+import { parseCatalogText, parsePlanText } from '#shared/parse';
+import { checkFileText } from '#shared/check/check-file';
 import type { Catalog, Formula, Plan } from '#shared/model';
 import { InputError } from './errors.ts';
 
@@ -55,22 +56,26 @@ export function resolveFormulaPath(arg: string, dir?: string): string {
   throw new InputError(`unknown formula: ${arg}`, [], `give a formula file's path or an id with a file in ${dir ?? 'formulas/'} (try \`panform check\` to list problems)`);
 }
 
-export function readFormula(path: string): Formula {
-  const parsed = parseFormulaText(readText(path), path);
-  if (!parsed.ok) throw new InputError(`${path} has errors; fix them first (\`panform check ${path}\`)`, parsed.findings);
-  const expected = basename(path).replace(/\.ya?ml$/, '');
-  if (parsed.value.id !== expected) {
-    const where = parsed.source.locate('/id');
-    const f: Finding = { file: path, line: where.line, col: where.col, severity: 'error', message: `id "${parsed.value.id}" must equal the file name "${expected}"` };
-    throw new InputError(`${path} has errors`, [f]);
+/**
+ * A formula, refused with its located findings when `panform check` would report an error
+ * (schema or trade checks: flours not summing to 100, a pre-ferment taking more than the
+ * formula has, an id that is not the file name ...). Warnings do not stop it.
+ */
+export function readFormula(path: string, catalog?: Catalog): Formula {
+  const text = readText(path);
+  const cat = catalog ?? readCatalogFor(path).catalog;
+  const result = checkFileText({ kind: 'formula', file: path, text, catalog: cat });
+  const errors = result.findings.filter((f) => f.severity === 'error');
+  if (errors.length > 0 || result.kind !== 'formula' || !result.value) {
+    throw new InputError(`${path} has errors; fix them first (\`panform check ${path}\`)`, errors);
   }
-  return parsed.value;
+  return result.value;
 }
 
 export function readFormulaWithCatalog(arg: string, opts: { catalog?: string; dir?: string } = {}): { formula: Formula; catalog: Catalog; path: string } {
   const path = resolveFormulaPath(arg, opts.dir);
-  const formula = readFormula(path);
   const { catalog } = readCatalogFor(path, opts.catalog);
+  const formula = readFormula(path, catalog);
   return { formula, catalog, path: resolve(path) };
 }
 

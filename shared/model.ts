@@ -183,7 +183,8 @@ export function defaultWaterContent(kind: IngredientKind): number {
 }
 
 export function normalizeCatalog(c: CatalogFile): Catalog {
-  const out: Catalog = {};
+  // No prototype: an ingredient may be called anything, "constructor" included.
+  const out: Catalog = Object.create(null) as Catalog;
   for (const [name, e] of Object.entries(c)) {
     out[name] = {
       name,
@@ -234,8 +235,7 @@ export function normalizePlan(p: PlanFile): Plan {
 
 /** What the catalog says of an ingredient, or a guess from its name when it is not listed. */
 export function lookupIngredient(catalog: Catalog, name: string): CatalogItem {
-  const found = catalog[name];
-  if (found) return found;
+  if (Object.hasOwn(catalog, name)) return catalog[name];
   const kind: IngredientKind = name === 'water' ? 'water' : /flour/.test(name) ? 'flour' : 'other';
   return { name, kind, water: defaultWaterContent(kind), allergens: [] };
 }

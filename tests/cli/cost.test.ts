@@ -51,10 +51,10 @@ describe('panform cost', () => {
   });
 
   it('lists the missing prices by name and marks the totals incomplete', async () => {
-    const r = await runPanform('cost', fixture('sea-lettuce-roll'), '--pieces', '10');
+    const r = await runPanform('cost', fixture('dulse-roll'), '--pieces', '10');
     expect(r.code).toBe(0);
     expect(r.stdout).toMatch(/^fresh yeast .* no price .*—$/m);
-    expect(r.stdout).toContain('No price for: fresh yeast, sea lettuce.');
+    expect(r.stdout).toContain('No price for: fresh yeast, dulse flakes.');
     expect(r.stdout).toMatch(/^total\s+\d+\.\d\d {2}\(incomplete: prices missing\)$/m);
   });
 

@@ -10,7 +10,10 @@
 // - a levain seeded with a mature culture: the seed (a catalog `culture` with a hydration and the
 //   flour it is fed with) is written in percent of the build's flour; its flour and water count as
 //   flour and water of the build, and so of the formula. The build then asks for less fresh flour
-//   and water: fresh = the listed line − the seed's part.
+//   and water: fresh = the listed line − the seed's part. The seed is not taken from the overall
+//   formula (listing it there too is refused: it would count twice).
+// - hydration: water lines / F; effective hydration adds the catalog water % of every non-flour
+//   line (flour's own moisture is not counted); pre-fermented flour: pre-ferment flour / F.
 // Weights stay unrounded here; rounding is for display only (units.ts).
 import { lookupIngredient, type Catalog, type CatalogItem, type Formula, type Line } from './model.ts';
 import type { IngredientKind } from './schema/shapes.ts';

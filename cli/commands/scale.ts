@@ -222,13 +222,13 @@ export function collectScale(formulaArg: string, opts: ScaleOptions): ScaleData 
   return { result, formula, water };
 }
 
-/** What `--json` prints: the scale result with grams unrounded, and the water when asked for. */
+/** What `--json` prints: the scale result with grams unrounded, and `mixingWater` (temperature, ice) when conditions are given. */
 export function scaleJson(data: ScaleData, opts: ScaleOptions): unknown {
   const { result, water } = data;
   return {
     ...result,
     units: { weight: 'g', temperature: '°C', friction: '°C-degrees' },
-    water: water && {
+    mixingWater: water && {
       waterTemperature: water.waterTemperature,
       factors: water.factors,
       ice: water.ice,

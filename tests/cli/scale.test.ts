@@ -27,7 +27,8 @@ interface Json {
   preferments: { name: string; grams: number; ingredients: { ingredient: string; grams: number; weigh: number; seed?: boolean }[] }[];
   soakers: { name: string; grams: number; ingredients: { ingredient: string; grams: number }[] }[];
   finalDough: { ingredient: string; grams: number }[];
-  water: { waterTemperature: number; factors: number; ice: number | null; tapWater: number | null } | null;
+  water: number;
+  mixingWater: { waterTemperature: number; factors: number; ice: number | null; tapWater: number | null } | null;
 }
 
 async function json(args: string[]): Promise<Json> {
@@ -44,6 +45,8 @@ describe('panform scale --json', () => {
       expect(j).toHaveProperty(key);
     }
     expect(j.formula).toBe('worksheet-baguette');
+    expect(j.water).toBeCloseTo(0.67 * (28470 / 1.7), 9); // all the water, g
+    expect(j.mixingWater).toBeNull();
     expect(j.dividedDough).toBe(28470); // trade-references §7 example 1: 73 × 390 g
     expect(j.flour).toBeCloseTo(28470 / 1.7, 9); // §7 example 1: 16 747.06 g, unrounded
     expect(j.overall[0]).toEqual({ ingredient: 'bread flour', percent: 100, grams: j.flour, kind: 'flour' });
@@ -99,27 +102,27 @@ describe('panform scale --json', () => {
   it('works out the water and ice for the final dough', async () => {
     const j = await json([fixture('brief-straight'), '--mix', '1680', '--room', '30', '--flour-temp', '28', '--friction', '13', '--tap', '20']);
     // 3·25 − (30 + 28 + 13) = 4 °C (by hand, dough_temperature 25 °C in the formula); 650 g of water in the final dough.
-    expect(j.water!.waterTemperature).toBe(4);
-    expect(j.water!.factors).toBe(3);
-    expect(j.water!.ice).toBeCloseTo((650 * 16) / (20 + 334 / 4.18), 6); // trade-references §2 formula, L = 334, c = 4.18
-    expect(j.water!.ice! + j.water!.tapWater!).toBeCloseTo(650, 9);
+    expect(j.mixingWater!.waterTemperature).toBe(4);
+    expect(j.mixingWater!.factors).toBe(3);
+    expect(j.mixingWater!.ice).toBeCloseTo((650 * 16) / (20 + 334 / 4.18), 6); // trade-references §2 formula, L = 334, c = 4.18
+    expect(j.mixingWater!.ice! + j.mixingWater!.tapWater!).toBeCloseTo(650, 9);
   });
 
   it('counts each pre-ferment in the water temperature', async () => {
     const j = await json([fixture('two-preferments'), '--room', '22', '--flour-temp', '20', '--friction', '11', '--preferment-temp', '20', '--preferment-temp', '18']);
-    expect(j.water!.factors).toBe(5);
-    expect(j.water!.waterTemperature).toBe(5 * 25 - (22 + 20 + 11 + 20 + 18)); // 34 °C, by hand
+    expect(j.mixingWater!.factors).toBe(5);
+    expect(j.mixingWater!.waterTemperature).toBe(5 * 25 - (22 + 20 + 11 + 20 + 18)); // 34 °C, by hand
   });
 
   it('uses the pre-ferments\' ripening temperatures when none is given', async () => {
     const j = await json([fixture('two-preferments'), '--room', '22', '--flour-temp', '20', '--friction', '11']);
-    expect(j.water!.waterTemperature).toBe(5 * 25 - (22 + 20 + 11 + 20 + 18)); // ripen at 20 and 18 °C in the fixture
+    expect(j.mixingWater!.waterTemperature).toBe(5 * 25 - (22 + 20 + 11 + 20 + 18)); // ripen at 20 and 18 °C in the fixture
   });
 
   it('reads bare temperatures as °F with --fahrenheit, friction as a difference', async () => {
     const c = await json([fixture('brief-straight'), '--ddt', '25', '--room', '22', '--flour-temp', '20', '--friction', '11.11111111111111']);
     const f = await json([fixture('brief-straight'), '--ddt', '77', '--room', '71.6', '--flour-temp', '68', '--friction', '20', '--fahrenheit']);
-    expect(f.water!.waterTemperature).toBeCloseTo(c.water!.waterTemperature, 9); // trade-references §1: 20 °F friction = 11.11 °C
+    expect(f.mixingWater!.waterTemperature).toBeCloseTo(c.mixingWater!.waterTemperature, 9); // trade-references §1: 20 °F friction = 11.11 °C
   });
 });
 

@@ -88,7 +88,7 @@ export function createApp(opts: AppOptions): Express {
     scrypt,
     dummyHash: hashPassword(randomPassword(), scrypt),
     sendMail: mailer,
-    data: new DataCache(handle.db),
+    data: new DataCache(handle.db, now),
     background(task) {
       const p = task()
         .catch((e: unknown) => log(`panform serve: background task failed: ${(e as Error)?.stack ?? String(e)}`))
@@ -139,7 +139,18 @@ export function createApp(opts: AppOptions): Express {
   // The local load channel authenticates with its own token header (a custom header forces a
   // CORS preflight, so browsers cannot forge it) and takes larger bodies: mounted before the
   // session, CSRF and body-size rules of the rest of the API.
-  if (opts.internalLoadRouter) app.use('/api/internal/load', opts.internalLoadRouter);
+  if (opts.internalLoadRouter) {
+    const loadRouter = opts.internalLoadRouter;
+    app.use(
+      '/api/internal/load',
+      (_req: Request, res: Response, next: NextFunction) => {
+        // After a load, the next API request reads the new formulas.
+        res.on('finish', () => context.data.invalidate());
+        next();
+      },
+      loadRouter,
+    );
+  }
 
   const api = Router();
   api.use(sessionRouter(context));

@@ -2,8 +2,11 @@
 //
 // Everything in these tables changes only through a load, and every load adds a row to `loads`
 // in the same transaction. So one tiny query (the newest load id) tells whether the snapshot is
-// still current; the formulas are read and normalized again only after a load. Revision history
-// is not cached: it is read from the database when asked for.
+// still current; the formulas are read and normalized again only after a load. That query is
+// asked at most every CHECK_MS: the embedded database answers on the server's only thread, and a
+// query per request would cost more than building the answer. A load through this server's
+// load channel invalidates at once (server/app.ts); one by another process shows within CHECK_MS.
+// Revision history is not cached: it is read from the database when asked for.
 import { desc, max } from 'drizzle-orm';
 import type { FormulaFigures } from '#shared/api';
 import { normalizeCatalog, normalizeFormula, normalizePlan, type Catalog, type Formula, type Plan } from '#shared/model';
@@ -73,11 +76,23 @@ function ingredientNames(f: Formula): string[] {
   return [...names];
 }
 
+/** How long a snapshot is served before the database is asked whether a load happened. */
+export const CHECK_MS = 2_000;
+
 export class DataCache {
   private current: Snapshot | null = null;
   private refreshing: Promise<Snapshot> | null = null;
+  private checkedAt = -Infinity;
 
-  constructor(private readonly db: Database) {}
+  constructor(
+    private readonly db: Database,
+    private readonly now: () => number = Date.now,
+  ) {}
+
+  /** Makes the next request ask the database (after a load by this process). */
+  invalidate(): void {
+    this.checkedAt = -Infinity;
+  }
 
   /** The newest load's id (0 before the first load). */
   async version(): Promise<number> {
@@ -86,7 +101,10 @@ export class DataCache {
   }
 
   async snapshot(): Promise<Snapshot> {
+    const t = this.now();
+    if (this.current && t - this.checkedAt < CHECK_MS) return this.current;
     const v = await this.version();
+    this.checkedAt = t;
     if (this.current && this.current.version === v) return this.current;
     // One rebuild at a time; concurrent requests wait for it.
     this.refreshing ??= this.read(v).finally(() => {

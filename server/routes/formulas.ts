@@ -1,6 +1,7 @@
 // Formulas (read-only): list with search and filters, one formula with its tables and figures for
 // the reference batch or a scaled one, its revision history and the diff between two revisions,
 // and the newest changes across formulas.
+import { createHash } from 'node:crypto';
 import { and, desc, eq, inArray } from 'drizzle-orm';
 import { Router, type Request } from 'express';
 import type {
@@ -8,6 +9,7 @@ import type {
 } from '#shared/api';
 import { AllergenError, allergenSummary, formulaIngredientNames } from '#shared/allergens';
 import { computeCost } from '#shared/cost';
+import { diffFormulas } from '#shared/diff';
 import { normalizeFormula, type Catalog, type CatalogItem, type Formula } from '#shared/model';
 import { canSeeFormulaStatus, roleHasPermission, type Role } from '#shared/permissions';
 import { scaleFormula, ScaleError, type ScaleTarget } from '#shared/scale';
@@ -23,6 +25,8 @@ import { pickFigures, type FormulaEntry, type Snapshot } from './data.ts';
 import { formulaCautions } from './formula-cautions.ts';
 
 const MAX_PIECES = 100_000;
+/** Answers kept per load; beyond this (many different scalings) they are computed each time. */
+const MEMO_LIMIT = 2_000;
 /** 10 t of dough: far beyond any mixer, small enough to keep the arithmetic meaningful. */
 const MAX_GRAMS = 10_000_000;
 
@@ -188,7 +192,16 @@ export function formulasRouter(ctx: ServerContext): Router {
     const snapshot = await ctx.data.snapshot();
     const entry = visibleFormula(snapshot, req.params.id, user.role);
     const target = readScaleTarget(req, usable(entry));
-    res.json(formulaDetail(entry, snapshot.catalog, user.role, target));
+    // The answer depends only on the loaded data, the target and whether costs are shown: it is
+    // made once per load and served from memory (the viewer and many benches ask the same).
+    const key = `detail:${entry.id}:${roleHasPermission(user.role, 'read:cost') ? 'cost' : 'plain'}:${JSON.stringify(target)}`;
+    let cached = snapshot.memo.get(key) as { body: string; etag: string } | undefined;
+    if (!cached) {
+      const body = JSON.stringify(formulaDetail(entry, snapshot.catalog, user.role, target));
+      cached = { body, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
+      if (snapshot.memo.size < MEMO_LIMIT) snapshot.memo.set(key, cached);
+    }
+    res.set('ETag', cached.etag).type('application/json').send(cached.body);
   });
 
   r.get('/formulas/:id/revisions', async (req, res) => {
@@ -233,7 +246,6 @@ export function formulasRouter(ctx: ServerContext): Router {
     } catch (e) {
       throw new HttpError(500, { error: 'internal', message: `a stored revision of "${entry.id}" cannot be read: ${(e as Error).message}` });
     }
-    const { diffFormulas } = await import('#shared/diff');
     const body: RevisionDiffResponse = { formula: entry.id, from, to, diff: diffFormulas(before, after, snapshot.catalog) };
     res.json(body);
   });

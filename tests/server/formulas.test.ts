@@ -1,7 +1,12 @@
 // What each role receives from the formula, plan and catalog routes: bench never gets a cost, a
 // price, a draft or a retired formula; scaling on the server follows the shared arithmetic.
+import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { FormulaDetail, FormulaListResponse, PlanDetail, PlanListResponse } from '#shared/api';
+import type { ChangeListResponse, FormulaDetail, FormulaListResponse, PlanDetail, PlanListResponse, RevisionDiffResponse, RevisionListResponse } from '#shared/api';
+import { loadFolder } from '../../server/load/index.ts';
+import { CHECK_MS } from '../../server/routes/data.ts';
 import type { DatabaseHandle } from '../../server/db/client.ts';
 import { getJson, openTestDatabase, startTestServer, type TestServer } from './harness.ts';
 
@@ -191,5 +196,37 @@ describe('plans and the catalog', () => {
     expect(Object.keys(bench.catalog)).toEqual(Object.keys(admin.catalog));
     expect(costKeys(bench)).toEqual([]);
     expect(costKeys(admin).length).toBeGreaterThan(0);
+  });
+});
+
+describe('history', () => {
+  it('lists revisions, diffs two of them in baker\'s terms, and shows the change after a load', async () => {
+    const before = await get<FormulaDetail>('/api/formulas/harbour-ciabatta', 'reviewer');
+    const folder = mkdtempSync(join(tmpdir(), 'panform-history-'));
+    try {
+      cpSync(resolve('formulas'), folder, { recursive: true });
+      const file = join(folder, 'harbour-ciabatta.yaml');
+      writeFileSync(file, readFileSync(file, 'utf8').replace(/^  water: 78$/m, '  water: 80'));
+      await loadFolder(handle, folder, { git: false });
+    } finally {
+      rmSync(folder, { recursive: true, force: true });
+    }
+    // A load by another process is seen once the server next checks (server/routes/data.ts CHECK_MS).
+    t.clock.now += CHECK_MS;
+    const after = await get<FormulaDetail>('/api/formulas/harbour-ciabatta', 'reviewer');
+    expect(after.revision).toBe(before.revision + 1);
+    // hydration is overall water / flour: two more points of water (product brief "Arithmetic conventions")
+    expect(after.reference.hydration - before.reference.hydration).toBeCloseTo(2, 9);
+
+    const revisions = await get<RevisionListResponse>('/api/formulas/harbour-ciabatta/revisions', 'reviewer');
+    expect(revisions.revisions.map((r) => r.revision)).toEqual([after.revision, before.revision]);
+    const diff = await get<RevisionDiffResponse>('/api/formulas/harbour-ciabatta/diff', 'reviewer');
+    expect(diff).toMatchObject({ formula: 'harbour-ciabatta', from: before.revision, to: after.revision });
+    expect(diff.diff.ingredients).toEqual(expect.arrayContaining([expect.objectContaining({ ingredient: 'water' })]));
+    const changes = await get<ChangeListResponse>('/api/changes', 'reviewer');
+    expect(changes.changes[0]).toMatchObject({ formula: 'harbour-ciabatta', revision: after.revision });
+
+    expect((await getJson(`${t.url}/api/formulas/harbour-ciabatta/diff?from=1&to=99`, cookie.reviewer)).status).toBe(404);
+    expect((await getJson(`${t.url}/api/formulas/harbour-ciabatta/diff?from=x`, cookie.reviewer)).status).toBe(422);
   });
 });

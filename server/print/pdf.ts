@@ -54,9 +54,18 @@ class Writer {
     return this;
   }
 
+  private readonly widths = new Map<string, number>();
+
+  /** Width at 1 pt, measured once per string and face: layouts with features set are not cached by pdfkit. */
   widthOf(s: string, size: number, bold = false): number {
-    this.font(size, bold);
-    return this.doc.widthOfString(clean(s), { features: FEATURES });
+    const key = `${bold ? 'b' : 'r'}${s}`;
+    let unit = this.widths.get(key);
+    if (unit === undefined) {
+      this.font(1000, bold);
+      unit = this.doc.widthOfString(clean(s), { features: FEATURES }) / 1000;
+      this.widths.set(key, unit);
+    }
+    return unit * size;
   }
 
   heightOf(s: string, size: number, width: number, bold = false): number {

@@ -99,8 +99,11 @@ describe('panform sheet --format csv', () => {
   });
 });
 
+// Building a PDF or starting Chromium takes seconds on a busy machine; these limits only stop a hung run.
+const SLOW = { timeout: 180_000 };
+
 describe('panform sheet --format pdf', () => {
-  it.each(PLANS)('writes a PDF that shows every weight the text format shows (%s)', async (plan) => {
+  it.each(PLANS)('writes a PDF that shows every weight the text format shows (%s)', SLOW, async (plan) => {
     const out = join(dir, `${plan.replace(/\W+/g, '-')}.pdf`);
     const r = await cli.run(['sheet', plan, '--format', 'pdf', '--out', out]);
     expect(r.code).toBe(0);
@@ -128,7 +131,7 @@ describe('panform sheet --format pdf', () => {
     expect(info).toMatch(/Page size:\s+595\.28 x 841\.89 pts \(A4\)/);
   });
 
-  it('prints on Letter paper with --paper letter', async () => {
+  it('prints on Letter paper with --paper letter', SLOW, async () => {
     const out = join(dir, 'letter.pdf');
     expect((await cli.run(['sheet', HOT_PLAN, '--format', 'pdf', '--paper', 'letter', '--out', out])).code).toBe(0);
     if (!existsSync('/usr/bin/pdfinfo')) return;
@@ -137,7 +140,7 @@ describe('panform sheet --format pdf', () => {
 });
 
 describe('panform sheet --format html', () => {
-  it('writes a self-contained page with the font, @page size, tick boxes and the chart', async () => {
+  it('writes a self-contained page with the font, @page size, tick boxes and the chart', SLOW, async () => {
     const out = join(dir, 'sheet.html');
     expect((await cli.run(['sheet', HOT_PLAN, '--format', 'html', '--out', out])).code).toBe(0);
     const html = readFileSync(out, 'utf8');
@@ -150,7 +153,7 @@ describe('panform sheet --format html', () => {
     expect((html.match(/aria-label="tick box"/g) ?? []).length).toBe(ticks);
   });
 
-  it.runIf(existsSync(CHROMIUM))('looks right in headless Chromium: the font loads, nothing runs off the page, the chart draws', async () => {
+  it.runIf(existsSync(CHROMIUM))('looks right in headless Chromium: the font loads, nothing runs off the page, the chart draws', SLOW, async () => {
     const out = join(dir, 'look.html');
     expect((await cli.run(['sheet', DEMO_PLAN, '--format', 'html', '--out', out])).code).toBe(0);
     const { chromium } = await import('playwright-core');
@@ -196,7 +199,7 @@ describe('panform sheet --format html', () => {
 });
 
 describe('panform sheet --mail', () => {
-  it('sends the PDF sheet into the local outbox when no SMTP server is set', async () => {
+  it('sends the PDF sheet into the local outbox when no SMTP server is set', SLOW, async () => {
     const outbox = join(dir, 'outbox');
     const saved = { outbox: process.env.PANFORM_OUTBOX, smtp: process.env.SMTP_URL };
     process.env.PANFORM_OUTBOX = outbox;

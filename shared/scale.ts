@@ -238,7 +238,8 @@ export function scaleFormula(f: Formula, catalog: Catalog, target: ScaleTarget):
   for (const [ingredient, grams] of taken) {
     const have = overallByName.get(ingredient);
     if (have === undefined) {
-      throw new ScaleError(`${f.id}: "${ingredient}" is in a pre-ferment or soaker but not in the overall formula`);
+      const hint = catalog[ingredient] === undefined ? `; if it is a levain's seed, list it in the catalog with kind culture` : '';
+      throw new ScaleError(`${f.id}: "${ingredient}" is in a pre-ferment or soaker but not in the overall formula${hint}`);
     }
     if (grams > have * (1 + 1e-9) + EPSILON) {
       throw new ScaleError(

@@ -318,6 +318,15 @@ describe('scaleFormula: what cannot be scaled', () => {
     expect(() => scaleFormula(f, catalog, { by: 'flour', grams: 1000 })).toThrow(/"sunflower seeds" is in a pre-ferment or soaker but not in the overall formula/);
   });
 
+  it('suggests the catalog when an unknown build ingredient may be a seed', () => {
+    const f = formula({
+      flour: [{ ingredient: 'bread flour', percent: 100 }],
+      ingredients: [{ ingredient: 'water', percent: 70 }],
+      preferments: [{ name: 'levain', kind: 'levain', share: 10, ingredients: [{ ingredient: 'bread flour', percent: 100 }, { ingredient: 'water', percent: 100 }, { ingredient: 'old starter', percent: 20 }] }],
+    });
+    expect(() => scaleFormula(f, catalog, { by: 'flour', grams: 1000 })).toThrow(/"old starter" is in a pre-ferment or soaker but not in the overall formula; if it is a levain's seed, list it in the catalog with kind culture/);
+  });
+
   it.each([
     [{ by: 'pieces', pieces: 0 }, /pieces must be a whole number of at least 1; got 0/],
     [{ by: 'pieces', pieces: 2.5 }, /whole number/],

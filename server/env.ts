@@ -19,6 +19,8 @@ export interface Env {
   mailFrom: string;
   /** The address people open the viewer at (no trailing slash); links in e-mails use it. */
   publicUrl: string;
+  /** False when publicUrl is the default (http://localhost:PORT), to be fixed once the port is known. */
+  publicUrlSet: boolean;
   sessionDays: number;
   /** Express "trust proxy": false, true, a hop count, or addresses/subnets. */
   trustProxy: TrustProxy;
@@ -102,6 +104,7 @@ export function readEnv(source: Record<string, string | undefined> = process.env
   }
 
   let publicUrl = `http://localhost:${port}`;
+  const publicUrlSet = present(source.PANFORM_PUBLIC_URL);
   if (present(source.PANFORM_PUBLIC_URL)) {
     const u = parseUrl(source.PANFORM_PUBLIC_URL.trim());
     if (!u || (u.protocol !== 'http:' && u.protocol !== 'https:') || u.search || u.hash) {
@@ -139,7 +142,7 @@ export function readEnv(source: Record<string, string | undefined> = process.env
   }
 
   if (issues.length > 0) throw new EnvError(issues);
-  return { port, dataDir, databaseUrl, smtpUrl, outbox, mailFrom, publicUrl, sessionDays, trustProxy, nodeEnv };
+  return { port, dataDir, databaseUrl, smtpUrl, outbox, mailFrom, publicUrl, publicUrlSet, sessionDays, trustProxy, nodeEnv };
 }
 
 /** A URL with its password hidden, for messages. */

@@ -1,7 +1,7 @@
 // Listening, and shutting down cleanly: stop taking connections, let requests in flight finish
 // (a few seconds at most), let background mail go out, then close the database (an open PGlite
 // would keep the process alive and its lock file in place).
-import type { Server } from 'node:http';
+import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import type { Router } from 'express';
 import { appInternals, createApp, type AppOptions } from './app.ts';
@@ -13,6 +13,8 @@ export interface RunningServer {
   port: number;
   /** The local address to open, e.g. http://localhost:3000. */
   url: string;
+  /** The address links in e-mails use (PANFORM_PUBLIC_URL, else the local one). */
+  publicUrl: string;
   /** Stops the server and closes the database; safe to call more than once. */
   close(): Promise<void>;
   /** Resolves once the server has shut down (by close() or a signal). */
@@ -39,16 +41,34 @@ async function internalLoadRouter(handle: DatabaseHandle): Promise<Router | unde
 
 export async function startServer(opts: StartOptions): Promise<RunningServer> {
   const { handle, env, host, handleSignals = false, graceMs = 5_000, ...appOptions } = opts;
-  const app = createApp({ handle, env, internalLoadRouter: appOptions.internalLoadRouter ?? (await internalLoadRouter(handle)), ...appOptions });
-  const server = await new Promise<Server>((resolve, reject) => {
-    const s = app.listen(env.port, host ?? '::');
-    s.once('listening', () => resolve(s));
-    s.once('error', reject);
+  const loadRouter = appOptions.internalLoadRouter ?? (await internalLoadRouter(handle));
+  // Listen first, then build the app: with PORT=0 the default public address needs the real
+  // port. From 'listening' to attaching the app everything is synchronous, so no request can
+  // arrive in between.
+  const server = createServer();
+  await new Promise<void>((resolve, reject) => {
+    server.once('error', reject);
+    const onListening = () => {
+      server.off('error', reject);
+      resolve();
+    };
+    // Without a host, Node listens on every interface (IPv6 and IPv4 where available).
+    if (host === undefined) server.listen(env.port, onListening);
+    else server.listen(env.port, host, onListening);
   });
+  const port = (server.address() as AddressInfo).port;
+  const finalEnv: Env = env.publicUrlSet ? env : { ...env, port, publicUrl: `http://localhost:${port}` };
+  let app: ReturnType<typeof createApp>;
+  try {
+    app = createApp({ handle, env: finalEnv, ...appOptions, internalLoadRouter: loadRouter });
+  } catch (e) {
+    server.close();
+    throw e;
+  }
+  server.on('request', app);
   // Slow clients must not hold connections forever.
   server.headersTimeout = 20_000;
   server.requestTimeout = 60_000;
-  const port = (server.address() as AddressInfo).port;
   handle.lock?.setPort(port);
 
   let resolveClosed!: () => void;
@@ -80,5 +100,5 @@ export async function startServer(opts: StartOptions): Promise<RunningServer> {
     process.on('SIGINT', onSignal);
     process.on('SIGTERM', onSignal);
   }
-  return { server, port, url: `http://localhost:${port}`, close, closed };
+  return { server, port, url: `http://localhost:${port}`, publicUrl: finalEnv.publicUrl, close, closed };
 }

@@ -82,7 +82,7 @@ async function serve(opts: ServeOptions): Promise<void> {
   }
   const where = handle.kind === 'postgres' ? 'PostgreSQL (DATABASE_URL)' : handle.dataDir;
   out.write(`Panform is serving on ${running.url} (data: ${where}).\n`);
-  if (env.publicUrl !== running.url) out.write(`Links in e-mails point to ${env.publicUrl} (PANFORM_PUBLIC_URL).\n`);
+  if (running.publicUrl !== running.url) out.write(`Links in e-mails point to ${running.publicUrl} (PANFORM_PUBLIC_URL).\n`);
   out.write('Press Ctrl+C to stop.\n');
   await running.closed;
   out.write('Panform stopped; the database is closed.\n');

@@ -1,6 +1,6 @@
 // One way out of the CLI: commands throw, cli/index.ts prints and exits.
 //   exit 0 success, 1 a finding or bad input, 2 misuse of the command line.
-import type { Finding } from '#shared/parse';
+import type { Finding } from '#shared/findings';
 
 export class ExitError extends Error {
   constructor(

@@ -2,7 +2,7 @@
 // starts without loading the others' dependencies (the database, the PDF library, the server).
 import { Command, CommanderError } from 'commander';
 import { ExitError } from './errors.ts';
-import { formatFinding } from '#shared/parse';
+import { formatFinding } from '#shared/findings';
 
 type CommandModule = { command: Command };
 const COMMANDS: Record<string, () => Promise<CommandModule>> = {

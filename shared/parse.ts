@@ -8,17 +8,8 @@ import { validatorFor } from './schema/validators.ts';
 import { normalizeCatalog, normalizeFormula, normalizePlan, type Catalog, type Formula, type Plan } from './model.ts';
 import { QuantityError } from './units.ts';
 
-export type Severity = 'error' | 'warning';
-
-export interface Finding {
-  file: string;
-  line: number;
-  col: number;
-  severity: Severity;
-  message: string;
-  /** A JSON pointer into the document, where known. */
-  pointer?: string;
-}
+import type { Finding } from './findings.ts';
+export { formatFinding, sortFindings, type Finding, type Severity } from './findings.ts';
 
 export interface SourceMap {
   /** Position of the value at a JSON pointer (or of its nearest existing parent). */
@@ -223,10 +214,3 @@ export function parsePlanText(text: string, file: string): Parsed<Plan> {
   return parseKind<PlanFile, Plan>('plan', text, file, normalizePlan);
 }
 
-export function formatFinding(f: Finding): string {
-  return `${f.file}:${f.line}:${f.col} ${f.severity} ${f.message}`;
-}
-
-export function sortFindings(fs: Finding[]): Finding[] {
-  return [...fs].sort((a, b) => a.file.localeCompare(b.file) || a.line - b.line || a.col - b.col || a.message.localeCompare(b.message));
-}

@@ -36,7 +36,7 @@ export const PRACTICE = {
 } as const;
 
 /** Grams of each yeast type that replace 1 g of fresh yeast (Hamelman, Bread, Wiley 2004). */
-export const YEAST_FACTORS = { fresh: 1, 'active-dry': 0.4, instant: 0.33 } as const;
+export { HAMELMAN_YEAST_FACTORS as YEAST_FACTORS } from '../convert.ts';
 
 export function outside(value: number, band: Band): boolean {
   return value < band.min - 1e-9 || value > band.max + 1e-9;

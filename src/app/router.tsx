@@ -1,27 +1,21 @@
 // The router: one table, pages loaded lazily (each its own chunk), loaders prefetching with the
 // same query options the pages read.
 import type { QueryClient } from '@tanstack/react-query';
-import { createBrowserRouter, redirect, type LoaderFunctionArgs, type RouteObject } from 'react-router';
+import { createBrowserRouter, redirect, type RouteObject } from 'react-router';
 import { NotFoundView } from '../components/error-view.tsx';
 import { Loading } from '../components/spinner.tsx';
 import { requireMe } from './guards.ts';
+import { createLoaders } from './loaders.ts';
 import { AppShell } from './shell.tsx';
 import { paths } from './paths.ts';
 import { RootErrorBoundary, RouteErrorBoundary } from './route-error.tsx';
 
-/** What a lazy route module exports. */
-export interface RouteModule {
-  default: React.ComponentType;
-  clientLoader?: (queryClient: QueryClient) => (args: LoaderFunctionArgs) => unknown;
-}
-
-const convert = (queryClient: QueryClient) => (m: RouteModule) => ({
-  Component: m.default,
-  loader: m.clientLoader?.(queryClient),
-  ErrorBoundary: RouteErrorBoundary,
-});
+/** A lazily loaded page: its component, with the route's error boundary. */
+const page = (load: () => Promise<{ default: React.ComponentType }>) => () =>
+  load().then((m) => ({ Component: m.default, ErrorBoundary: RouteErrorBoundary }));
 
 export function createAppRouter(queryClient: QueryClient) {
+  const loaders = createLoaders(queryClient);
   const routes: RouteObject[] = [
     {
       path: '/',
@@ -32,10 +26,10 @@ export function createAppRouter(queryClient: QueryClient) {
         </main>
       ),
       children: [
-        { path: paths.signIn.path, lazy: () => import('./routes/sign-in.tsx').then(convert(queryClient)) },
-        { path: paths.forgotPassword.path, lazy: () => import('./routes/forgot-password.tsx').then(convert(queryClient)) },
-        { path: paths.resetPassword.path, lazy: () => import('./routes/reset-password.tsx').then(convert(queryClient)) },
-        { path: paths.resetPasswordShort.path, lazy: () => import('./routes/reset-password.tsx').then(convert(queryClient)) },
+        { path: paths.signIn.path, loader: loaders.signIn, lazy: page(() => import('./routes/sign-in.tsx')) },
+        { path: paths.forgotPassword.path, lazy: page(() => import('./routes/forgot-password.tsx')) },
+        { path: paths.resetPassword.path, lazy: page(() => import('./routes/reset-password.tsx')) },
+        { path: paths.resetPasswordShort.path, lazy: page(() => import('./routes/reset-password.tsx')) },
         {
           id: 'app',
           Component: AppShell,
@@ -43,13 +37,13 @@ export function createAppRouter(queryClient: QueryClient) {
           loader: ({ request }) => requireMe(queryClient, request),
           children: [
             { index: true, loader: () => redirect(paths.formulas.getHref()) },
-            { path: paths.formulas.path, lazy: () => import('./routes/formulas.tsx').then(convert(queryClient)) },
-            { path: paths.formula.path, lazy: () => import('./routes/formula.tsx').then(convert(queryClient)) },
-            { path: paths.plans.path, lazy: () => import('./routes/plans.tsx').then(convert(queryClient)) },
-            { path: paths.plan.path, lazy: () => import('./routes/plan.tsx').then(convert(queryClient)) },
-            { path: paths.changes.path, lazy: () => import('./routes/changes.tsx').then(convert(queryClient)) },
-            { path: paths.formulaChanges.path, lazy: () => import('./routes/formula-changes.tsx').then(convert(queryClient)) },
-            { path: paths.account.path, lazy: () => import('./routes/account.tsx').then(convert(queryClient)) },
+            { path: paths.formulas.path, loader: loaders.formulas, lazy: page(() => import('./routes/formulas.tsx')) },
+            { path: paths.formula.path, loader: loaders.formula, lazy: page(() => import('./routes/formula.tsx')) },
+            { path: paths.plans.path, loader: loaders.plans, lazy: page(() => import('./routes/plans.tsx')) },
+            { path: paths.plan.path, loader: loaders.plan, lazy: page(() => import('./routes/plan.tsx')) },
+            { path: paths.changes.path, loader: loaders.changes, lazy: page(() => import('./routes/changes.tsx')) },
+            { path: paths.formulaChanges.path, loader: loaders.formulaChanges, lazy: page(() => import('./routes/formula-changes.tsx')) },
+            { path: paths.account.path, lazy: page(() => import('./routes/account.tsx')) },
             { path: '*', Component: NotFoundView },
           ],
         },

@@ -1,5 +1,6 @@
 // The signed-in frame: the header with the places a role may go, and the page below it.
 import { NavLink, Outlet, useNavigation } from 'react-router';
+import type { Permission } from '#shared/permissions';
 import { Logo } from '../components/logo.tsx';
 import { useMe } from '../features/auth/api/get-me.ts';
 import { paths } from './paths.ts';
@@ -9,7 +10,7 @@ const shortRole: Record<string, string> = { bench: 'Bench', reviewer: 'Head bake
 export function AppShell() {
   const me = useMe().data;
   const navigation = useNavigation();
-  const can = (p: string) => me?.permissions.includes(p as never) ?? false;
+  const can = (p: Permission) => me?.permissions.includes(p) ?? false;
   const links = [
     { to: paths.formulas.getHref(), label: 'Formulas', show: true },
     { to: paths.plans.getHref(), label: 'Bake days', show: can('read:plan') },

@@ -1,17 +1,8 @@
-import type { QueryClient } from '@tanstack/react-query';
-import type { LoaderFunctionArgs } from 'react-router';
 import { PageHeading } from '../../components/panel.tsx';
 import { QueryState } from '../../components/query-state.tsx';
-import { getChangesQueryOptions, useChanges } from '../../features/changes/api/get-changes.ts';
+import { useChanges } from '../../features/changes/api/get-changes.ts';
 import { ChangeList } from '../../features/changes/components/change-list.tsx';
-import { requirePermission } from '../guards.ts';
 import { paths } from '../paths.ts';
-
-export const clientLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
-  await requirePermission(queryClient, request, 'read:history');
-  void queryClient.prefetchQuery(getChangesQueryOptions());
-  return null;
-};
 
 export default function ChangesRoute() {
   const query = useChanges();

@@ -1,24 +1,16 @@
-import type { QueryClient } from '@tanstack/react-query';
-import { useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router';
+import { useParams, useSearchParams } from 'react-router';
 import type { RevisionSummary } from '#shared/api';
 import { ButtonLink } from '../../components/button.tsx';
 import { PanelBoundary } from '../../components/error-boundary.tsx';
 import { PageHeading, Panel } from '../../components/panel.tsx';
 import { QueryState } from '../../components/query-state.tsx';
 import { useRevisionDiff } from '../../features/changes/api/get-revision-diff.ts';
-import { getRevisionsQueryOptions, useRevisions } from '../../features/changes/api/get-revisions.ts';
+import { useRevisions } from '../../features/changes/api/get-revisions.ts';
 import { RevisionDiffView } from '../../features/changes/components/revision-diff.tsx';
 import { RevisionList } from '../../features/changes/components/revision-list.tsx';
 import { RevisionPicker } from '../../features/changes/components/revision-picker.tsx';
 import { useFormula } from '../../features/formulas/api/get-formula.ts';
-import { requirePermission } from '../guards.ts';
 import { paths } from '../paths.ts';
-
-export const clientLoader = (queryClient: QueryClient) => async ({ request, params }: LoaderFunctionArgs) => {
-  await requirePermission(queryClient, request, 'read:history');
-  if (params.id) void queryClient.prefetchQuery(getRevisionsQueryOptions(params.id));
-  return null;
-};
 
 export default function FormulaChangesRoute() {
   const { id = '' } = useParams();

@@ -1,6 +1,5 @@
-import type { QueryClient } from '@tanstack/react-query';
 import { useMemo } from 'react';
-import { useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router';
+import { useParams, useSearchParams } from 'react-router';
 import type { FormulaDetail, Me } from '#shared/api';
 import { scaleFormula, type ScaleResult, type ScaleTarget } from '#shared/scale';
 import { Button, ButtonLink } from '../../components/button.tsx';
@@ -8,7 +7,7 @@ import { PanelBoundary } from '../../components/error-boundary.tsx';
 import { Badge, Notice, PageHeading, Panel, statusTone, statusWord } from '../../components/panel.tsx';
 import { QueryState } from '../../components/query-state.tsx';
 import { useMe } from '../../features/auth/api/get-me.ts';
-import { getFormulaQueryOptions, useFormula } from '../../features/formulas/api/get-formula.ts';
+import { useFormula } from '../../features/formulas/api/get-formula.ts';
 import { AllergensPanel } from '../../features/formulas/components/allergens-panel.tsx';
 import { Cautions, cautionsFor } from '../../features/formulas/components/cautions.tsx';
 import { CostPanel } from '../../features/formulas/components/cost-panel.tsx';
@@ -20,11 +19,6 @@ import { searchFromTarget, targetFromSearch } from '../../features/formulas/scal
 import { getErrorMessage } from '../../lib/errors.ts';
 import { pieceWeight, shortDateTime, weight } from '../../lib/format.ts';
 import { paths } from '../paths.ts';
-
-export const clientLoader = (queryClient: QueryClient) => ({ params }: LoaderFunctionArgs) => {
-  if (params.id) void queryClient.prefetchQuery(getFormulaQueryOptions(params.id));
-  return null;
-};
 
 export default function FormulaRoute() {
   const { id = '' } = useParams();

@@ -1,31 +1,18 @@
-import type { QueryClient } from '@tanstack/react-query';
 import { useCallback } from 'react';
-import { useSearchParams, type LoaderFunctionArgs } from 'react-router';
+import { useSearchParams } from 'react-router';
 import { PageHeading } from '../../components/panel.tsx';
 import { QueryState } from '../../components/query-state.tsx';
 import { useMe } from '../../features/auth/api/get-me.ts';
-import { getFormulasQueryOptions, useFormulas, type FormulaFilters as Filters } from '../../features/formulas/api/get-formulas.ts';
+import { filtersFromSearch, useFormulas, type FormulaFilters as Filters } from '../../features/formulas/api/get-formulas.ts';
 import { FormulaFilters } from '../../features/formulas/components/formula-filters.tsx';
 import { FormulaList } from '../../features/formulas/components/formula-list.tsx';
 import { paths } from '../paths.ts';
-
-const filtersFrom = (params: URLSearchParams): Filters => ({
-  q: params.get('q') ?? undefined,
-  category: params.get('category') ?? undefined,
-  tag: params.get('tag') ?? undefined,
-  status: params.get('status') ?? undefined,
-});
-
-export const clientLoader = (queryClient: QueryClient) => ({ request }: LoaderFunctionArgs) => {
-  void queryClient.prefetchQuery(getFormulasQueryOptions(filtersFrom(new URL(request.url).searchParams)));
-  return null;
-};
 
 export default function FormulasRoute() {
   const [params, setParams] = useSearchParams();
   const me = useMe().data;
   const canSeeDrafts = me?.permissions.includes('read:formula:draft') ?? false;
-  const filters = filtersFrom(params);
+  const filters = filtersFromSearch(params);
   if (!canSeeDrafts) filters.status = undefined;
   const query = useFormulas(filters);
 

@@ -1,22 +1,14 @@
-import type { QueryClient } from '@tanstack/react-query';
-import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { useParams } from 'react-router';
 import type { PlanDetail } from '#shared/api';
 import { Button, buttonClass } from '../../components/button.tsx';
 import { PanelBoundary } from '../../components/error-boundary.tsx';
 import { Notice, PageHeading, Panel } from '../../components/panel.tsx';
 import { QueryState } from '../../components/query-state.tsx';
-import { getPlanQueryOptions, usePlan } from '../../features/plans/api/get-plan.ts';
+import { usePlan } from '../../features/plans/api/get-plan.ts';
 import { BuildCard, Conditions, FormulaTotals, MixCard, PickList } from '../../features/plans/components/plan-sheet.tsx';
 import { TimelineChart } from '../../features/plans/components/timeline-chart.tsx';
 import { longDate } from '../../lib/format.ts';
 import { paths } from '../paths.ts';
-import { requirePermission } from '../guards.ts';
-
-export const clientLoader = (queryClient: QueryClient) => async ({ request, params }: LoaderFunctionArgs) => {
-  await requirePermission(queryClient, request, 'read:plan');
-  if (params.date) void queryClient.prefetchQuery(getPlanQueryOptions(params.date));
-  return null;
-};
 
 export default function PlanRoute() {
   const { date = '' } = useParams();

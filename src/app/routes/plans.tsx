@@ -1,17 +1,8 @@
-import type { QueryClient } from '@tanstack/react-query';
 import { PageHeading } from '../../components/panel.tsx';
 import { QueryState } from '../../components/query-state.tsx';
-import { getPlansQueryOptions, usePlans } from '../../features/plans/api/get-plans.ts';
+import { usePlans } from '../../features/plans/api/get-plans.ts';
 import { PlanList } from '../../features/plans/components/plan-list.tsx';
 import { paths } from '../paths.ts';
-import { requirePermission } from '../guards.ts';
-import type { LoaderFunctionArgs } from 'react-router';
-
-export const clientLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
-  await requirePermission(queryClient, request, 'read:plan');
-  void queryClient.prefetchQuery(getPlansQueryOptions());
-  return null;
-};
 
 export default function PlansRoute() {
   const query = usePlans();

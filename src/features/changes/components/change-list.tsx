@@ -18,7 +18,7 @@ export function ChangeList({ changes, hrefOf }: { changes: Change[]; hrefOf: (c:
             <span className="min-w-0 flex-1">
               <span className="block text-xl font-semibold">{c.title}</span>
               <span className="block text-muted">
-                {shortDateTime(c.loadedAt)}
+                {c.revision === 1 ? 'first version' : `changed since r${c.revision - 1}`} · {shortDateTime(c.loadedAt)}
                 {c.gitAuthor && <> · {c.gitAuthor}</>}
                 {c.gitCommit && <span className="figure"> · {c.gitCommit.slice(0, 8)}</span>}
               </span>

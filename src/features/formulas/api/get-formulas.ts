@@ -9,6 +9,16 @@ export interface FormulaFilters {
   status?: string;
 }
 
+/** The filters as the formulas page keeps them in its URL. */
+export function filtersFromSearch(params: URLSearchParams): FormulaFilters {
+  return {
+    q: params.get('q') ?? undefined,
+    category: params.get('category') ?? undefined,
+    tag: params.get('tag') ?? undefined,
+    status: params.get('status') ?? undefined,
+  };
+}
+
 export function getFormulas(filters: FormulaFilters, signal?: AbortSignal): Promise<FormulaListResponse> {
   return apiRequest<FormulaListResponse>(withQuery('/api/formulas', { ...filters }), { signal });
 }

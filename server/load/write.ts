@@ -153,6 +153,7 @@ export async function writeLoad(
     const revisionRows: (typeof formulaRevisionsTable.$inferInsert)[] = [];
     const figureOnly: { id: string; figures: FormulaFigures; path: string }[] = [];
     const loadedIds = new Set<string>();
+    const changedIds = new Set<string>();
     for (const f of checked.formulas) {
       const id = f.value.id;
       loadedIds.add(id);
@@ -163,6 +164,7 @@ export async function writeLoad(
       else if (contentChanged) formulas.changed.push(id);
       else formulas.unchanged.push(id);
       if (contentChanged) {
+        changedIds.add(id);
         revisionRows.push({
           formulaId: id,
           revision,
@@ -198,7 +200,25 @@ export async function writeLoad(
       }
     }
     for (const part of chunks(revisionRows)) await tx.insert(formulaRevisionsTable).values(part);
-    for (const part of chunks(formulaRows)) {
+    // A changed formula's current row copies its new revision inside the database, so the content,
+    // text and figures cross into it once, not twice (a load of many formulas is bound by that).
+    const fromRevision = formulaRows.filter((r) => changedIds.has(r.id));
+    for (const part of chunks(fromRevision)) {
+      const meta = JSON.stringify(part.map((r) => ({ id: r.id, title: r.title, status: r.status, category: r.category, tags: r.tags, path: r.path })));
+      await tx.execute(sql`
+        insert into formulas (id, title, status, category, tags, content, source, content_hash, figures, revision, path, removed_at, updated_at)
+        select m.id, m.title, m.status, m.category, m.tags, r.content, r.source, r.content_hash, r.figures, r.revision, m.path, null, r.loaded_at
+        from jsonb_to_recordset(${meta}::jsonb) as m(id text, title text, status text, category text, tags jsonb, path text)
+        join formula_revisions r on r.formula_id = m.id and r.load_id = ${loadId}
+        on conflict (id) do update set
+          title = excluded.title, status = excluded.status, category = excluded.category, tags = excluded.tags,
+          content = excluded.content, source = excluded.source, content_hash = excluded.content_hash,
+          figures = excluded.figures, revision = excluded.revision, path = excluded.path,
+          removed_at = excluded.removed_at, updated_at = excluded.updated_at`);
+      progress(part.length);
+    }
+    // Back in the folder unchanged after being removed: no new revision, the row as it is.
+    for (const part of chunks(formulaRows.filter((r) => !changedIds.has(r.id)))) {
       await tx
         .insert(formulasTable)
         .values(part)

@@ -2,7 +2,8 @@
 // transaction. While `panform serve` holds the PGlite data directory, the load is handed to the
 // server over the local load channel (its port and token are in the directory's lock file).
 import { Command } from 'commander';
-import { resolve } from 'node:path';
+import { existsSync } from 'node:fs';
+import { join, resolve } from 'node:path';
 import { userInfo } from 'node:os';
 import { formatFinding, type Finding } from '#shared/parse';
 import { InputError, UsageError } from '../errors.ts';
@@ -131,6 +132,10 @@ export async function collectLoad(options: LoadCommandOptions): Promise<LoadRepo
   const target = resolveTarget({ dataDir: options.data });
   const database = target.kind === 'postgres' ? hidePassword(target.url) : target.kind === 'pglite' ? target.dataDir : 'memory';
   let handle: Awaited<ReturnType<typeof openDatabase>>;
+  if (options.progress) {
+    const fresh = target.kind === 'pglite' && !existsSync(join(target.dataDir, 'PG_VERSION'));
+    process.stderr.write(`${checked.formulas.length} formulas checked; opening ${database}${fresh ? ' (a new database takes a few seconds to create)' : ''}\n`);
+  }
   try {
     handle = await openDatabase({ dataDir: options.data });
   } catch (e) {

@@ -27,6 +27,8 @@ export function ensureViewerBuilt(root = process.cwd()): void {
   if (!viewerBuildIsStale(root)) return;
   execFileSync(process.execPath, [resolve(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'error'], {
     cwd: root,
+    // vitest runs with NODE_ENV=test, which would make Vite build React's development runtime.
+    env: { ...process.env, NODE_ENV: 'production' },
     stdio: ['ignore', 'ignore', 'pipe'],
     timeout: 240_000,
   });

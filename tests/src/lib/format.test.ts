@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { hoursRange, longDate, minutes, minutesRange, pieceWeight, weight } from '../../../src/lib/format.ts';
+import { hoursRange, longDate, minutes, minutesRange, pieceWeight, shortDateTime, weight } from '../../../src/lib/format.ts';
 
 describe('weight', () => {
   it.each([
@@ -42,5 +42,16 @@ describe('minutes and ranges', () => {
 describe('longDate', () => {
   it('names the calendar day without shifting it by the time zone', () => {
     expect(longDate('2026-12-03')).toBe('Thursday 3 December 2026');
+  });
+});
+
+describe('shortDateTime', () => {
+  it('writes an instant in local time, day first', () => {
+    const local = new Date(2026, 11, 2, 4, 7);
+    expect(shortDateTime(local.toISOString())).toBe('2 Dec 2026, 04:07');
+  });
+
+  it('leaves text that is no date as it is', () => {
+    expect(shortDateTime('yesterday')).toBe('yesterday');
   });
 });

@@ -245,7 +245,7 @@ async function startPanformServer(state, work) {
   }
   const env = { ...process.env, PANFORM_DATA: state.dataDir, NODE_ENV: 'production' };
   delete env.DATABASE_URL;
-  const add = timedRun(NODE, [PANFORM, 'user', 'add', BENCH_USER.email, '--role', BENCH_USER.role, '--name', 'Bench runner', '--password-stdin'], {
+  const add = timedRun(NODE, [PANFORM, 'user', 'add', BENCH_USER.email, '--role', BENCH_USER.role, '--name', 'Bench runner', '--password-stdin', '--data', state.dataDir], {
     env,
     input: `${BENCH_USER.password}\n`,
     check: false,
@@ -261,8 +261,8 @@ async function startPanformServer(state, work) {
   if (PLACEHOLDER.test(`${probe.stdout}${probe.stderr}`) || /not built yet/.test(probe.stdout)) {
     throw Object.assign(new Error('panform serve is not built yet'), { unavailable: true });
   }
-  const server = await startChild(NODE, [PANFORM, 'serve', '--port', String(port)], {
-    env: { ...env, PORT: String(port), HOST: '127.0.0.1' },
+  const server = await startChild(NODE, [PANFORM, 'serve', '--port', String(port), '--host', '127.0.0.1', '--data', state.dataDir], {
+    env,
     name: 'panform serve',
     ready: async (h) => {
       if (PLACEHOLDER.test(h.output())) throw Object.assign(new Error('panform serve is not built yet'), { unavailable: true });
@@ -281,7 +281,8 @@ async function startPanformServer(state, work) {
   const headers = { cookie: `${cookie.name}=${cookie.value}` };
   const list = await (await fetch(`${base}/api/formulas`, { headers })).json();
   const ids = (list.formulas ?? []).map((f) => f.id);
-  const formulaId = ids.includes('harbour-ciabatta') ? 'harbour-ciabatta' : ids[0];
+  // A formula with a pre-ferment (poolish), so the detail carries a build and a final dough.
+  const formulaId = ids.includes('generated-0001') ? 'generated-0001' : ids[0];
   if (!formulaId) throw new Error(`GET /api/formulas listed no formulas: ${JSON.stringify(list).slice(0, 300)}`);
   const detail = await fetch(`${base}/api/formulas/${formulaId}`, { headers });
   if (detail.status !== 200) throw new Error(`GET /api/formulas/${formulaId} answered ${detail.status}`);

@@ -1,8 +1,9 @@
 // Inputs for the bench, written into a temporary folder: a copy of the demo bakery with a
-// 40-order plan, and a folder of 1,000 formulas.
+// 40-order plan, and a folder of 1,000 generated formulas.
 import { copyFileSync, existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { parse, stringify } from 'yaml';
+import { writeGeneratedFolder } from '../generate-formulas.mjs';
 
 export const DEMO_DIR = 'formulas';
 
@@ -58,22 +59,9 @@ export function writeBigPlan(dir, orders = 40) {
 }
 
 /**
- * `total` formulas in `dir`: the demo formulas and generated variants of them (each with its own
- * id, title and a little more water), with the demo catalog and plans. Variants stay valid: only
- * water goes up, so every pre-ferment and soaker still fits in the overall formula.
+ * `total` generated formulas in `dir` (bench/generate-formulas.mjs: every shape, valid, within
+ * common bakery ranges) with their catalog and a plan. Returns the number of formulas.
  */
 export function writeManyFormulas(dir, total = 1000) {
-  copyDemo(dir, { plans: true });
-  const demos = demoFormulas();
-  for (let i = 0; i < total - demos.length; i++) {
-    const base = demos[i % demos.length].data;
-    const data = structuredClone(base);
-    delete data.$schema;
-    data.id = `${base.id}-v${String(i + 1).padStart(4, '0')}`;
-    data.title = `${base.title} (variant ${i + 1})`;
-    if (typeof data.ingredients?.water === 'number') data.ingredients.water = Math.round((data.ingredients.water + (i % 7) * 0.5) * 100) / 100;
-    data.tags = [...new Set([...(data.tags ?? []), `batch-${i % 20}`])];
-    writeFileSync(join(dir, `${data.id}.yaml`), stringify(data));
-  }
-  return readdirSync(dir).filter((f) => f.endsWith('.yaml') && f !== 'ingredients.yaml').length;
+  return writeGeneratedFolder(dir, total, { plan: true }).length;
 }

@@ -60,7 +60,9 @@ async function serve(opts: ServeOptions): Promise<void> {
     if (opts.demo) {
       const { seedDemo, findDemoFormulas, formatAccounts } = await import('#server/demo');
       const accountsFile = resolve(DEMO_ACCOUNTS_FILE);
-      const demo = await seedDemo(handle, { formulasDir: findDemoFormulas(), accountsFile });
+      const formulasDir = findDemoFormulas();
+      if (!formulasDir) out.write('No ./formulas folder with an ingredients.yaml here: starting without the demo formulas.\n');
+      const demo = await seedDemo(handle, { formulasDir, accountsFile });
       if (demo.loaded) {
         const s = demo.loaded;
         out.write(`Loaded the demo bakery: ${s.formulas.added.length} formulas, ${s.catalog.added.length} catalog entries, ${s.plans.added.length} plans.\n`);
@@ -72,6 +74,11 @@ async function serve(opts: ServeOptions): Promise<void> {
     running = await startServer({ handle, env, host: opts.host, handleSignals: true });
   } catch (e) {
     await handle.close();
+    const { LoadCheckError, LoadPathError } = await import('#server/load/index');
+    if (e instanceof LoadCheckError) {
+      throw new InputError(`the demo formulas could not be loaded: ${e.message}`, e.findings, 'fix them (`panform check formulas`) and start again');
+    }
+    if (e instanceof LoadPathError) throw new InputError(`the demo formulas could not be loaded: ${e.message}`);
     if ((e as NodeJS.ErrnoException).code === 'EADDRINUSE') {
       throw new InputError(`port ${env.port} is already in use`, [], 'stop what uses it, or pick another with --port N (or PORT=N)');
     }

@@ -54,14 +54,20 @@ export function plansRouter(ctx: ServerContext): Router {
   const r = Router();
 
   r.get('/plans', async (req, res) => {
-    requirePermission(req, 'read:plan');
+    const user = requirePermission(req, 'read:plan');
     const snapshot = await ctx.data.snapshot();
+    // A role sees the ids of the formulas it may open (a plan ordering a draft is a mistake the
+    // check reports; its id still stays out of a bench's view).
+    const visible = (id: string) => {
+      const f = snapshot.formulas.get(id);
+      return !f || canSeeFormulaStatus(user.role, f.status);
+    };
     const body: PlanListResponse = {
       plans: snapshot.plans.map((p) => ({
         date: p.date,
         readyBy: p.plan?.readyBy ?? '',
         orders: p.plan?.orders.length ?? 0,
-        formulas: [...new Set(p.plan?.orders.map((o) => o.formula) ?? [])],
+        formulas: [...new Set(p.plan?.orders.map((o) => o.formula) ?? [])].filter(visible),
       })),
     };
     res.json(body);

@@ -1,6 +1,6 @@
 // Signing in and out, who am I, and password reset by e-mail link.
 import { createHash, randomBytes } from 'node:crypto';
-import { and, eq, gt, isNull } from 'drizzle-orm';
+import { and, eq, gt, isNull, lt } from 'drizzle-orm';
 import { Router, type Request, type Response } from 'express';
 import type { Me } from '#shared/api';
 import { permissionsOf } from '#shared/permissions';
@@ -92,6 +92,8 @@ export function sessionRouter(ctx: ServerContext): Router {
       ctx.limiters.resetAccount.fail(email);
       const token = randomBytes(32).toString('base64url');
       const expiresAt = new Date(ctx.now() + RESET_TTL_MS);
+      // Links that can no longer work are of no use to keep.
+      await ctx.db.delete(passwordResetsTable).where(lt(passwordResetsTable.expiresAt, new Date(ctx.now() - RESET_TTL_MS)));
       await ctx.db.insert(passwordResetsTable).values({ tokenHash: sha256(token), userId: user.id, expiresAt });
       const link = `${ctx.env.publicUrl}${RESET_PAGE}?token=${encodeURIComponent(token)}`;
       await ctx.sendMail({

@@ -17,6 +17,7 @@ import { ScaleControl } from '../../features/formulas/components/scale-control.t
 import { WaterTemperatureHelper } from '../../features/formulas/components/water-temperature.tsx';
 import { searchFromTarget, targetFromSearch } from '../../features/formulas/scale-target.ts';
 import { getErrorMessage } from '../../lib/errors.ts';
+import { useAfterFirstPaint } from '../../lib/use-after-first-paint.ts';
 import { pieceWeight, shortDateTime, weight } from '../../lib/format.ts';
 import { paths } from '../paths.ts';
 
@@ -37,6 +38,7 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
   const target = targetFromSearch(params, formula);
   const canSeeCost = me?.permissions.includes('read:cost') ?? false;
   const canSeeHistory = me?.permissions.includes('read:history') ?? false;
+  const restReady = useAfterFirstPaint();
 
   const targetKey = JSON.stringify(target);
   const { scaled, problem } = useMemo((): { scaled: ScaleResult; problem: string | null } => {
@@ -100,12 +102,14 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
           <Panel title="Key figures" id="figures" className="order-4 print:mb-2">
             <DerivedFigures scaled={scaled} formula={formula} />
           </Panel>
-          <PanelBoundary title="Water for the mix" resetKeys={[formula.id]}>
-            <Panel title="Water for the mix" className="order-5 print:hidden" id="water">
-              <WaterTemperatureHelper formula={formula} scaled={scaled} />
-            </Panel>
-          </PanelBoundary>
-          {canSeeCost && (
+          {restReady && (
+            <PanelBoundary title="Water for the mix" resetKeys={[formula.id]}>
+              <Panel title="Water for the mix" className="order-5 print:hidden" id="water">
+                <WaterTemperatureHelper formula={formula} scaled={scaled} />
+              </Panel>
+            </PanelBoundary>
+          )}
+          {restReady && canSeeCost && (
             <PanelBoundary title="Cost" resetKeys={[formula.id]}>
               <Panel title="Ingredient cost" className="order-6 print:hidden" id="cost">
                 <CostPanel scaled={scaled} catalog={catalog} currency={currency} />
@@ -132,20 +136,24 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
               </div>
             </Panel>
           )}
-          <Panel title="How it is made" id="process" className="order-7">
-            <ProcessSteps steps={formula.process} />
-            {formula.notes && <p className="mt-3 text-muted">{formula.notes}</p>}
-          </Panel>
-          <div className="order-8 grid gap-4 print:grid-cols-2">
-            <PanelBoundary title="Allergens" resetKeys={[formula.id]}>
-              <Panel title="Allergens" id="allergens">
-                <AllergensPanel summary={detail.allergens} />
-              </Panel>
-            </PanelBoundary>
-            <Panel title="Take care" id="cautions">
-              <Cautions items={cautionsFor(formula, detail.cautions)} />
+          {restReady && (
+            <Panel title="How it is made" id="process" className="order-7">
+              <ProcessSteps steps={formula.process} />
+              {formula.notes && <p className="mt-3 text-muted">{formula.notes}</p>}
             </Panel>
-          </div>
+          )}
+          {restReady && (
+            <div className="order-8 grid gap-4 print:grid-cols-2">
+              <PanelBoundary title="Allergens" resetKeys={[formula.id]}>
+                <Panel title="Allergens" id="allergens">
+                  <AllergensPanel summary={detail.allergens} />
+                </Panel>
+              </PanelBoundary>
+              <Panel title="Take care" id="cautions">
+                <Cautions items={cautionsFor(formula, detail.cautions)} />
+              </Panel>
+            </div>
+          )}
         </div>
       </div>
     </article>

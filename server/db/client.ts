@@ -152,7 +152,8 @@ export function readLiveLock(dataDir: string): LockInfo | null {
 
 /** Takes the lock of a data directory, taking over a stale one. Throws DatabaseLockedError. */
 export function acquireLock(dataDir: string): HeldLock {
-  mkdirSync(dataDir, { recursive: true });
+  // A new data directory is private to its owner: it holds password hashes and sessions.
+  mkdirSync(dataDir, { recursive: true, mode: 0o700 });
   const path = join(dataDir, LOCK_FILE);
   const info: LockInfo = { pid: process.pid, port: null, token: randomBytes(32).toString('hex'), startedAt: new Date().toISOString() };
   for (let attempt = 0; attempt < 6; attempt++) {

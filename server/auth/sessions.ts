@@ -32,6 +32,7 @@ export interface Session {
 }
 
 interface Cached {
+  tokenHash: string;
   session: Session | null;
   until: number;
 }
@@ -63,13 +64,14 @@ export class SessionStore {
   /** The live session for a token, or null (unknown, expired, or its user removed). */
   async find(token: string): Promise<Session | null> {
     if (!token || token.length > 200) return null;
-    const tokenHash = hashToken(token);
     const t = this.now();
-    const hit = this.cache.get(tokenHash);
+    // Keyed by the token itself: a hit costs no hashing.
+    const hit = this.cache.get(token);
     if (hit && hit.until > t) {
       if (hit.session && hit.session.expiresAt.getTime() <= t) return null;
       return hit.session;
     }
+    const tokenHash = hashToken(token);
     const rows = await this.db
       .select({
         expiresAt: sessionsTable.expiresAt,
@@ -88,12 +90,12 @@ export class SessionStore {
         ? { tokenHash, expiresAt: row.expiresAt, user: { id: row.id, email: row.email, name: row.name, role: row.role } }
         : null;
     if (this.cache.size > 10_000) this.cache.clear();
-    this.cache.set(tokenHash, { session, until: t + CACHE_MS });
+    this.cache.set(token, { tokenHash, session, until: t + CACHE_MS });
     return session;
   }
 
   async destroy(tokenHash: string): Promise<void> {
-    this.cache.delete(tokenHash);
+    for (const [k, v] of this.cache) if (v.tokenHash === tokenHash) this.cache.delete(k);
     await this.db.delete(sessionsTable).where(eq(sessionsTable.tokenHash, tokenHash));
   }
 

@@ -166,12 +166,12 @@ export async function readGitInfo(absPaths: string[]): Promise<GitInfo | null> {
   const pathspecs = [...new Set([...rel.keys()].map((r) => (r.includes('/') ? r.slice(0, r.lastIndexOf('/')) : '.')))];
   const dirty = new Set<string>();
   try {
-    const status = await run('git', ['status', '--porcelain=v1', '-z', '--untracked-files=all', '--', ...pathspecs], {
+    const status = await run('git', ['-c', 'core.quotePath=false', 'status', '--porcelain=v1', '-z', '--untracked-files=all', '--', ...pathspecs], {
       cwd: top,
       maxBuffer: 64 * 1024 * 1024,
     });
     for (const entry of status.stdout.split('\0')) if (entry.length > 3) dirty.add(entry.slice(3));
-    const log = await run('git', ['log', '--format=%x01%H%x00%an', '--name-only', '--no-renames', '--', ...pathspecs], {
+    const log = await run('git', ['-c', 'core.quotePath=false', 'log', '--format=%x01%H%x00%an', '--name-only', '--no-renames', '--', ...pathspecs], {
       cwd: top,
       maxBuffer: 256 * 1024 * 1024,
     });

@@ -235,3 +235,37 @@ describe('loadFolder paths', () => {
     await expect(prepareLoad(root, opts)).rejects.toBeInstanceOf(LoadPathError);
   });
 });
+
+describe('readLoadInput', () => {
+  it('records the last commit and author of each committed file, and none for a file changed since', async () => {
+    const { execFileSync } = await import('node:child_process');
+    const { readLoadInput } = await import('../../server/load/index.ts');
+    const root = mkdtempSync('/tmp/panform-load-git-');
+    tmpDirs.push(root);
+    const dir = join(root, 'formulas');
+    writeGeneratedFolder(dir, 2, { plan: false });
+    const git = (...args: string[]) =>
+      execFileSync('git', ['-c', 'user.name=Ines Marlow', '-c', 'user.email=ines@tidewater.example', ...args], { cwd: root, encoding: 'utf8' }).trim();
+    git('init', '-q');
+    git('add', '.');
+    git('commit', '-qm', 'first formulas');
+    const head = git('rev-parse', 'HEAD');
+    writeFileSync(join(dir, 'generated-0001.yaml'), generateFormulaYaml(1, 1));
+    const input = await readLoadInput([dir]);
+    expect(input.gitCommit).toBe(head);
+    const byPath = Object.fromEntries(input.files.map((f) => [f.path, [f.gitCommit, f.gitAuthor]]));
+    expect(byPath).toEqual({
+      'formulas/ingredients.yaml': [head, 'Ines Marlow'],
+      'formulas/generated-0000.yaml': [head, 'Ines Marlow'],
+      'formulas/generated-0001.yaml': [null, null],
+    });
+  });
+
+  it('records no git information outside a repository', async () => {
+    const { readLoadInput } = await import('../../server/load/index.ts');
+    const { dir } = tempFolder(1, false);
+    const input = await readLoadInput([dir]);
+    expect(input.gitCommit).toBeNull();
+    expect(input.files.every((f) => f.gitCommit === null && f.gitAuthor === null)).toBe(true);
+  });
+});

@@ -110,11 +110,13 @@ async function progressBar(enabled: boolean): Promise<{ update: (p: LoadProgress
 
 /** Checks, then loads; returns what changed. */
 export async function collectLoad(options: LoadCommandOptions): Promise<LoadReport> {
-  const paths = (options.paths.length > 0 ? options.paths : [DEFAULT_PATH]).map((p) => resolve(p));
+  const given = options.paths.length > 0 ? options.paths : [DEFAULT_PATH];
+  // The server's working folder may differ: it gets absolute paths.
+  const paths = given.map((p) => resolve(p));
   const { prepareLoad, applyLoad, LoadPathError } = await import('../../server/load/index.ts');
   let prepared: Awaited<ReturnType<typeof prepareLoad>>;
   try {
-    prepared = await prepareLoad(paths);
+    prepared = await prepareLoad(given);
   } catch (e) {
     if (e instanceof LoadPathError) {
       throw new UsageError(e.message, options.paths.length === 0 ? 'run panform load in the project folder, or give the folder or files to load' : undefined);

@@ -1,13 +1,13 @@
-// Every route on the /api router, read from the router itself, must answer 401 without a session
-// (unless listed as public) and follow the role matrix. A route added without an entry here, or
-// without a guard, fails this suite.
+// Every route under /api, read from the app's routers themselves, must answer 401 without a
+// session (unless listed as public) and follow the role matrix. A route added without an entry
+// here, or without a guard, fails this suite.
 import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { appInternals } from '../../server/app.ts';
 import type { DatabaseHandle } from '../../server/db/client.ts';
 import { loadFolder } from '../../server/load/index.ts';
+import { createInternalLoadRouter } from '../../server/routes/internal-load.ts';
 import { ROLES, type Role } from '#shared/permissions';
 import { openTestDatabase, startTestServer, type TestServer } from './harness.ts';
 
@@ -25,59 +25,65 @@ interface Case {
 const all = (status: number, anonymous = 401): Expect => ({ anonymous, admin: status, author: status, reviewer: status, bench: status });
 const staffOnly = (bench: number, others = 200): Expect => ({ anonymous: 401, admin: others, author: others, reviewer: others, bench });
 
-/** Cases for each route on the router ("METHOD /path" as the router writes it). */
+/** Cases for each route under /api ("METHOD /full/path" as the routers write it). */
 const MATRIX: Record<string, Case[]> = {
-  'POST /session': [
+  'POST /api/session': [
     { label: 'wrong password', method: 'POST', path: '/api/session', body: { email: 'nobody@tidewater.example', password: 'wrong wrong' }, expect: all(401, 401) },
   ],
-  'DELETE /session': [{ label: 'sign out', method: 'DELETE', path: '/api/session', expect: all(204) }],
-  'GET /me': [{ label: 'me', method: 'GET', path: '/api/me', expect: all(200) }],
-  'POST /password-reset': [
+  'DELETE /api/session': [{ label: 'sign out', method: 'DELETE', path: '/api/session', expect: all(204) }],
+  'GET /api/me': [{ label: 'me', method: 'GET', path: '/api/me', expect: all(200) }],
+  'POST /api/password-reset': [
     { label: 'reset request', method: 'POST', path: '/api/password-reset', body: { email: 'nobody@tidewater.example' }, expect: all(202, 202) },
   ],
-  'POST /password-reset/confirm': [
+  'POST /api/password-reset/confirm': [
     { label: 'bad token', method: 'POST', path: '/api/password-reset/confirm', body: { token: 'nope', password: 'long enough password' }, expect: all(422, 422) },
   ],
-  'GET /formulas': [
+  'GET /api/formulas': [
     { label: 'list', method: 'GET', path: '/api/formulas', expect: all(200) },
     { label: 'list drafts', method: 'GET', path: '/api/formulas?status=draft', expect: staffOnly(403) },
     { label: 'list retired', method: 'GET', path: '/api/formulas?status=retired', expect: staffOnly(403) },
   ],
-  'GET /formulas/:id': [
+  'GET /api/formulas/:id': [
     { label: 'active', method: 'GET', path: '/api/formulas/harbour-ciabatta', expect: all(200) },
     { label: 'draft', method: 'GET', path: '/api/formulas/spelt-porridge-loaf', expect: staffOnly(403) },
     { label: 'retired', method: 'GET', path: '/api/formulas/malted-grain-loaf', expect: staffOnly(403) },
     { label: 'unknown', method: 'GET', path: '/api/formulas/no-such-bread', expect: all(404) },
   ],
-  'GET /formulas/:id/revisions': [
+  'GET /api/formulas/:id/revisions': [
     { label: 'active', method: 'GET', path: '/api/formulas/harbour-ciabatta/revisions', expect: staffOnly(403) },
     { label: 'draft', method: 'GET', path: '/api/formulas/spelt-porridge-loaf/revisions', expect: staffOnly(403) },
   ],
-  'GET /formulas/:id/diff': [
+  'GET /api/formulas/:id/diff': [
     { label: 'two revisions', method: 'GET', path: '/api/formulas/harbour-ciabatta/diff?from=1&to=2', expect: staffOnly(403) },
   ],
-  'GET /changes': [{ label: 'changes', method: 'GET', path: '/api/changes', expect: staffOnly(403) }],
-  'GET /plans': [{ label: 'plans', method: 'GET', path: '/api/plans', expect: all(200) }],
-  'GET /plans/:date': [
+  'GET /api/changes': [{ label: 'changes', method: 'GET', path: '/api/changes', expect: staffOnly(403) }],
+  'GET /api/plans': [{ label: 'plans', method: 'GET', path: '/api/plans', expect: all(200) }],
+  'GET /api/plans/:date': [
     { label: 'a plan', method: 'GET', path: '/api/plans/2026-12-03', expect: all(200) },
     { label: 'no plan', method: 'GET', path: '/api/plans/2030-01-01', expect: all(404) },
   ],
-  'GET /plans/:date/sheet.pdf': [{ label: 'pdf', method: 'GET', path: '/api/plans/2026-12-03/sheet.pdf', expect: all(200) }],
-  'GET /catalog': [{ label: 'catalog', method: 'GET', path: '/api/catalog', expect: all(200) }],
+  'GET /api/plans/:date/sheet.pdf': [{ label: 'pdf', method: 'GET', path: '/api/plans/2026-12-03/sheet.pdf', expect: all(200) }],
+  'GET /api/catalog': [{ label: 'catalog', method: 'GET', path: '/api/catalog', expect: all(200) }],
+  // The local load channel has its own guard (loopback and the lock file's token), not sessions.
+  'POST /api/internal/load/': [{ label: 'load without its token', method: 'POST', path: '/api/internal/load', body: { folder: '/tmp' }, expect: all(401) }],
 };
 
 interface RouteLayer {
+  rawPath?: string;
   route?: { path: string; methods: Record<string, boolean> };
   handle?: { stack?: RouteLayer[] };
 }
 
-/** "METHOD /path" for every route on a router, descending into routers mounted with use(). */
-function routesOf(stack: RouteLayer[]): string[] {
+/** "METHOD /full/path" for every route of the app, descending into mounted routers. */
+function routesOf(stack: RouteLayer[], prefix = ''): string[] {
   const out: string[] = [];
   for (const layer of stack) {
     if (layer.route) {
-      for (const m of Object.keys(layer.route.methods)) if (m !== '_all') out.push(`${m.toUpperCase()} ${layer.route.path}`);
-    } else if (layer.handle?.stack) out.push(...routesOf(layer.handle.stack));
+      for (const m of Object.keys(layer.route.methods)) if (m !== '_all') out.push(`${m.toUpperCase()} ${prefix}${layer.route.path}`);
+    } else if (layer.handle?.stack) {
+      const mount = typeof layer.rawPath === 'string' && layer.rawPath !== '/' ? layer.rawPath : '';
+      out.push(...routesOf(layer.handle.stack, prefix + mount));
+    }
   }
   return out;
 }
@@ -95,7 +101,7 @@ beforeAll(async () => {
   const file = join(folder, 'harbour-ciabatta.yaml');
   writeFileSync(file, readFileSync(file, 'utf8').replace(/^title: (.*)$/m, 'title: $1 (revised)'));
   await loadFolder(handle, folder, { git: false });
-  t = await startTestServer(handle);
+  t = await startTestServer(handle, { internalLoadRouter: createInternalLoadRouter({ handle, dataDir: folder, token: 'the-lock-file-token' }) });
 }, 180_000);
 afterAll(async () => {
   await t?.close();
@@ -112,9 +118,9 @@ async function call(c: Case, cookie: string | undefined): Promise<number> {
   return res.status;
 }
 
-describe('the /api router', () => {
+describe('the /api routes', () => {
   it('has a role-matrix entry for every route, and every entry is a route', () => {
-    const routes = routesOf(appInternals(t.app).api.stack as unknown as RouteLayer[]);
+    const routes = routesOf((t.app as unknown as { router: { stack: RouteLayer[] } }).router.stack).filter((r) => / \/api(\/|$)/.test(r));
     expect(routes.length).toBeGreaterThan(10);
     expect(routes.filter((r) => !(r in MATRIX))).toEqual([]);
     expect(Object.keys(MATRIX).filter((k) => !routes.includes(k))).toEqual([]);

@@ -50,6 +50,14 @@ export class FailureLimiter {
     }
   }
 
+  /** Takes back the newest hit (an attempt counted in advance that turned out fine). */
+  forgive(key: string): void {
+    const list = this.hits.get(key);
+    if (!list) return;
+    list.pop();
+    if (list.length === 0) this.hits.delete(key);
+  }
+
   reset(key: string): void {
     this.hits.delete(key);
   }

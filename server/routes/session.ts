@@ -49,15 +49,18 @@ export function sessionRouter(ctx: ServerContext): Router {
     if (wait > 0) {
       throw rateLimited(`too many failed sign-ins; try again in ${Math.ceil(wait / 60_000)} min`, wait / 1000);
     }
+    // Every attempt counts as a failure until it has succeeded: many guesses sent at once cannot
+    // all pass the check above while the first ones are still being verified.
+    ctx.limiters.account.fail(email);
+    ctx.limiters.address.fail(address);
     const user = await findUserByEmail(ctx.db, email);
     // Verify against a dummy hash for unknown addresses so the answer takes as long either way.
     const ok = await verifyPassword(body.password, user?.passwordHash ?? (await ctx.dummyHash));
     if (!user || !ok) {
-      ctx.limiters.account.fail(email);
-      ctx.limiters.address.fail(address);
       throw new HttpError(401, { error: 'unauthenticated', message: 'that e-mail address and password do not match an account' });
     }
     ctx.limiters.account.reset(email);
+    ctx.limiters.address.forgive(address);
     const { token } = await ctx.sessions.create(user.id);
     setSessionCookie(res, req, token, ctx.sessions.lifetimeMs);
     res.status(200).json(me(toUserInfo(user)));

@@ -117,6 +117,21 @@ describe('limits on failed sign-ins', () => {
     }
   });
 
+  it('counts guesses sent all at once: no more than 5 are tried', async () => {
+    t = await startTestServer(handle);
+    const answers = await Promise.all(
+      Array.from({ length: 12 }, (_, i) => sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('reviewer'), password: `parallel guess ${i}` })),
+    );
+    const statuses = answers.map((a) => a.status).sort();
+    expect(statuses.filter((s) => s === 401)).toHaveLength(5);
+    expect(statuses.filter((s) => s === 429)).toHaveLength(7);
+  });
+
+  it('does not count successful sign-ins against the address', async () => {
+    t = await startTestServer(handle);
+    for (let i = 0; i < 25; i++) expect((await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('admin'), password: PASSWORD })).status).toBe(200);
+  });
+
   it('counts the client address from X-Forwarded-For only behind a trusted proxy', async () => {
     t = await startTestServer(handle, { limits: { account: { max: 100, windowMs: 60_000 }, address: { max: 2, windowMs: 60_000 }, resetAddress: { max: 10, windowMs: 60_000 }, resetAccount: { max: 3, windowMs: 60_000 } } });
     // Untrusted: a forged X-Forwarded-For does not give a fresh address.

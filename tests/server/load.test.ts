@@ -1,4 +1,5 @@
-import { mkdtempSync, mkdirSync, rmSync, unlinkSync, writeFileSync, existsSync } from 'node:fs';
+import { mkdtempSync, mkdirSync, readFileSync, rmSync, unlinkSync, writeFileSync, existsSync } from 'node:fs';
+import { parse as parseYaml } from 'yaml';
 import { join } from 'node:path';
 import fc from 'fast-check';
 import { asc, eq } from 'drizzle-orm';
@@ -137,12 +138,14 @@ forEachDatabase('loading a formulas folder', (setup) => {
     const h = await setup.fresh();
     const POOL = 4;
     const op = fc.oneof(
-      fc.record({ t: fc.constant('write' as const), i: fc.integer({ min: 0, max: POOL - 1 }), v: fc.integer({ min: 0, max: 2 }) }),
-      fc.record({ t: fc.constant('delete' as const), i: fc.integer({ min: 0, max: POOL - 1 }) }),
-      fc.record({ t: fc.constant('plan' as const), on: fc.boolean() }),
-      fc.record({ t: fc.constant('bad' as const) }),
-      fc.record({ t: fc.constant('load' as const) }),
+      { weight: 4, arbitrary: fc.record({ t: fc.constant('write' as const), i: fc.integer({ min: 0, max: POOL - 1 }), v: fc.integer({ min: 0, max: 2 }) }) },
+      { weight: 2, arbitrary: fc.record({ t: fc.constant('delete' as const), i: fc.integer({ min: 0, max: POOL - 1 }) }) },
+      { weight: 1, arbitrary: fc.record({ t: fc.constant('plan' as const), on: fc.boolean() }) },
+      { weight: 1, arbitrary: fc.record({ t: fc.constant('bad' as const) }) },
+      { weight: 1, arbitrary: fc.record({ t: fc.constant('catalog' as const), extra: fc.boolean() }) },
+      { weight: 3, arbitrary: fc.record({ t: fc.constant('load' as const) }) },
     );
+    let checkedLoads = 0;
     const runs = Number(process.env.PANFORM_FUZZ_RUNS ?? 0) > 0 ? Math.min(50, Number(process.env.PANFORM_FUZZ_RUNS)) : 6;
     await fc.assert(
       fc.asyncProperty(fc.array(op, { minLength: 1, maxLength: 10 }), async (ops) => {
@@ -152,8 +155,9 @@ forEachDatabase('loading a formulas folder', (setup) => {
         const dir = join(root, 'formulas');
         mkdirSync(join(dir, 'plans'), { recursive: true });
         writeFileSync(join(dir, 'ingredients.yaml'), generateCatalogYaml());
+        writeFileSync(join(dir, 'generated-0000.yaml'), generateFormulaYaml(0));
         // The model: what the files hold now, and what the database should hold after a good load.
-        const files = new Map<string, string>();
+        const files = new Map<string, string>([['generated-0000', generateFormulaYaml(0)]]);
         const lastLoaded = new Map<string, string>(); // id → hash of the last loaded text
         const revisions = new Map<string, number>();
         let everLoaded = new Set<string>();
@@ -162,6 +166,7 @@ forEachDatabase('loading a formulas folder', (setup) => {
           const hasFiles = files.size > 0;
           if (!hasFiles) return; // a folder with no formulas keeps only the catalog; covered elsewhere
           await loadFolder(h, dir, opts);
+          checkedLoads++;
           for (const [fid, text] of files) {
             const hash = contentHash(text);
             if (lastLoaded.get(fid) !== hash) revisions.set(fid, (revisions.get(fid) ?? 0) + 1);
@@ -180,8 +185,10 @@ forEachDatabase('loading a formulas folder', (setup) => {
             );
             expect(f.revision).toBe(revisions.get(f.id));
           }
-          const planOnDisk = existsSync(join(dir, 'plans', '2026-12-03.yaml'));
-          expect(state.plans.map((p) => p.date)).toEqual(planOnDisk ? ['2026-12-03'] : []);
+          const planPath = join(dir, 'plans', '2026-12-03.yaml');
+          expect(state.plans).toEqual(existsSync(planPath) ? [{ date: '2026-12-03', source: readFileSync(planPath, 'utf8') }] : []);
+          const catalogNames = Object.keys(parseYaml(readFileSync(join(dir, 'ingredients.yaml'), 'utf8')) as object).sort();
+          expect(state.catalog).toEqual(catalogNames);
         };
         for (const o of ops) {
           if (o.t === 'write') {
@@ -195,6 +202,8 @@ forEachDatabase('loading a formulas folder', (setup) => {
             const planned = [...files.keys()].slice(0, 2);
             if (o.on && planned.length > 0) writeFileSync(join(dir, 'plans', '2026-12-03.yaml'), generatePlanYaml('2026-12-03', planned));
             else rmSync(join(dir, 'plans', '2026-12-03.yaml'), { force: true });
+          } else if (o.t === 'catalog') {
+            writeFileSync(join(dir, 'ingredients.yaml'), generateCatalogYaml() + (o.extra ? 'rolled oats: { kind: inclusion }\n' : ''));
           } else if (o.t === 'bad') {
             if (files.size === 0) continue;
             const before = await readLoadedState(h);
@@ -224,6 +233,7 @@ forEachDatabase('loading a formulas folder', (setup) => {
       }),
       { numRuns: runs },
     );
+    expect(checkedLoads).toBeGreaterThanOrEqual(runs);
   });
 });
 

@@ -16,6 +16,8 @@ export default defineConfig({
       { find: /^react-router\/dom$/, replacement: fileURLToPath(new URL('node_modules/react-router/dist/production/dom-export.mjs', import.meta.url)) },
     ],
   },
+  // Files copied as they are into the build (src/public/early-fetch.js).
+  publicDir: 'src/public',
   build: { outDir: 'dist/web', emptyOutDir: true, sourcemap: false, chunkSizeWarningLimit: 600 },
   server: { proxy: { '/api': 'http://127.0.0.1:3000' } },
   test: {

@@ -5,7 +5,8 @@
 // - 50 clients reading formulas and plans for a few seconds get no error (the bench runs the long
 //   version: 200 clients for 30 s, `npm run bench`);
 // - the server stops cleanly and starts again on the same directory, also after being killed.
-// The CLI runs from source through tsx, as a separate process, like a baker's terminal would.
+// The CLI is built as shipped (cli-build.ts) and runs as a separate process, like a baker's
+// terminal would start it.
 import { spawn, type ChildProcess } from 'node:child_process';
 import { cpSync, existsSync, mkdtempSync, rmSync, unlinkSync, writeFileSync } from 'node:fs';
 import { createServer } from 'node:net';
@@ -20,10 +21,11 @@ import { LOCK_FILE, migrateDatabase, openDatabase } from '../../server/db/client
 import { loadFolder } from '../../server/load/index.ts';
 import { readLoadedState } from '../setup/databases.ts';
 import { TEST_SCRYPT } from '../server/harness.ts';
+import { buildCliForTests, type CliBuild } from './cli-build.ts';
 import { fuzzRuns } from './generators.ts';
 
 const ROOT = process.cwd();
-const CLI = ['--import', 'tsx', join(ROOT, 'cli', 'index.ts')];
+let cli: CliBuild;
 const USER = { email: 'night-shift@tidewater.example', password: 'proof-box-at-26-degrees', role: 'bench' as const };
 /** Kills per run of the suite: 4, or more with PANFORM_FUZZ_RUNS (npm run test:large). */
 const KILLS = process.env.PANFORM_FUZZ_RUNS ? Math.min(25, Math.max(4, Math.round(fuzzRuns(1000) / 1000))) : 4;
@@ -42,7 +44,7 @@ let dbPhaseMs = 2000;
 const children = new Set<ChildProcess>();
 
 function run(args: string[], opts: { env?: NodeJS.ProcessEnv } = {}) {
-  const child = spawn(process.execPath, [...CLI, ...args], {
+  const child = spawn(process.execPath, [cli.entry, ...args], {
     cwd: ROOT,
     env: { ...process.env, NO_COLOR: '1', DATABASE_URL: '', ...opts.env },
     stdio: ['ignore', 'pipe', 'pipe'],
@@ -107,6 +109,7 @@ async function waitFor(what: string, test: () => boolean | Promise<boolean>, tim
 }
 
 beforeAll(async () => {
+  cli = await buildCliForTests(ROOT);
   work = mkdtempSync(join(tmpdir(), 'panform-faults-'));
   folderA = join(work, 'formulas-a');
   folderB = join(work, 'formulas-b');
@@ -146,6 +149,7 @@ beforeAll(async () => {
 afterAll(async () => {
   for (const c of children) c.kill('SIGKILL');
   if (work) rmSync(work, { recursive: true, force: true });
+  cli?.dispose();
 });
 
 describe('a load killed at a random moment', () => {

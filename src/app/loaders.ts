@@ -24,8 +24,9 @@ export function safeNext(next: string | null): string {
 export function createLoaders(queryClient: QueryClient) {
   return {
     signIn: (async ({ request }) => {
-      // Already signed in: go on to where the person was heading.
-      const me = await queryClient.fetchQuery(getMeQueryOptions()).catch(() => null);
+      // Already signed in: go on to where the person was heading. Always asked afresh: a cached
+      // answer may be from a session that has since ended.
+      const me = await queryClient.fetchQuery({ ...getMeQueryOptions(), staleTime: 0 }).catch(() => null);
       if (me) throw redirect(safeNext(new URL(request.url).searchParams.get('next')));
       return null;
     }) satisfies Loader,

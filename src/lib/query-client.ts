@@ -1,8 +1,15 @@
-import { QueryClient } from '@tanstack/react-query';
+import { QueryCache, QueryClient } from '@tanstack/react-query';
 import { statusOf } from './api-client.ts';
 
 export function createQueryClient(): QueryClient {
-  return new QueryClient({
+  const client: QueryClient = new QueryClient({
+    queryCache: new QueryCache({
+      // The session ended under us (signed out elsewhere, server restarted): forget who we
+      // thought was signed in, so the next page's guard asks the server again.
+      onError: (error, query) => {
+        if (statusOf(error) === 401 && query.queryKey[0] !== 'me') client.removeQueries({ queryKey: ['me'] });
+      },
+    }),
     defaultOptions: {
       queries: {
         staleTime: 30_000,
@@ -16,4 +23,5 @@ export function createQueryClient(): QueryClient {
       },
     },
   });
+  return client;
 }

@@ -162,6 +162,21 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
     await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
   });
 
+  it('notices a session that ended while the page was open, and signs in again without looping', async () => {
+    await page.goto(`${base}/formulas`);
+    await page.locator('[data-formula="harbour-ciabatta"]').waitFor();
+    await page.context().clearCookies();
+    await page.locator('[data-formula="harbour-ciabatta"]').click();
+    await page.getByRole('heading', { name: 'Signed out' }).waitFor();
+    await page.getByRole('link', { name: 'Sign in' }).click();
+    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+    await page.getByLabel('E-mail').fill(emailOf('bench'));
+    await page.getByLabel('Password').fill(PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(/\/formulas\/harbour-ciabatta$/);
+    await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
+  });
+
   it('scales a formula by pieces and by dough weight in the browser, as shared scaleFormula does, and keeps the target in the URL', async () => {
     const formula = readFormula('harbour-ciabatta');
     const expectFor = (target: ScaleTarget) => scaleFormula(formula, catalog, target);

@@ -24,7 +24,7 @@ export function renderUnavailable() {
 
 /**
  * @param {{ baseUrl: string, cookie: { name: string, value: string }, path: string, selector: string, runs: number, onCleanup: (fn: () => Promise<void>) => void }} o
- * @returns {Promise<{ times: number[] }>}
+ * @returns {Promise<{ times: number[], breakdowns: object[] }>}
  */
 export async function measureRender({ baseUrl, cookie, path, selector, runs, onCleanup }) {
   const { chromium } = await import('playwright-core');
@@ -37,6 +37,7 @@ export async function measureRender({ baseUrl, cookie, path, selector, runs, onC
   };
   onCleanup(close);
   const times = [];
+  const breakdowns = [];
   try {
     for (let i = 0; i < runs; i++) {
       const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
@@ -56,10 +57,28 @@ export async function measureRender({ baseUrl, cookie, path, selector, runs, onC
         { polling: 'raf', timeout: 30_000 },
       );
       times.push(Number(await handle.jsonValue()));
+      // Where the time went, from the page's own timings: the document, its scripts, the API calls.
+      breakdowns.push(
+        await page.evaluate(() => {
+          const nav = performance.getEntriesByType('navigation')[0];
+          const res = performance.getEntriesByType('resource');
+          const span = (kind) => {
+            const xs = res.filter(kind);
+            return xs.length ? { start: Math.min(...xs.map((r) => r.startTime)), end: Math.max(...xs.map((r) => r.responseEnd)), count: xs.length } : null;
+          };
+          return {
+            documentEnd: nav ? nav.responseEnd : null,
+            domContentLoaded: nav ? nav.domContentLoadedEventEnd : null,
+            scripts: span((r) => r.initiatorType === 'script' || r.name.endsWith('.js')),
+            api: span((r) => r.name.includes('/api/')),
+            apiCalls: res.filter((r) => r.name.includes('/api/')).map((r) => ({ path: new URL(r.name).pathname, start: Math.round(r.startTime), end: Math.round(r.responseEnd) })),
+          };
+        }),
+      );
       await context.close();
     }
   } finally {
     await close();
   }
-  return { times };
+  return { times, breakdowns };
 }

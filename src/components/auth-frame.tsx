@@ -5,6 +5,7 @@ import { Logo } from './logo.tsx';
 export function AuthFrame({ title, children }: { title: string; children: ReactNode }) {
   return (
     <main id="main" className="grid min-h-dvh place-items-center px-4 py-8">
+      <title>{`${title} · Panform`}</title>
       <div className="w-full max-w-md">
         <div className="mb-6 flex items-center justify-center gap-3">
           <Logo className="h-12 w-12" />

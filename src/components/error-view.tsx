@@ -8,6 +8,7 @@ import { buttonClass } from './button.tsx';
 function Plate({ code, title, children }: { code: string; title: string; children: React.ReactNode }) {
   return (
     <div className="mx-auto max-w-xl py-10 text-center">
+      <title>{`${title} · Panform`}</title>
       <p className="font-mono text-6xl font-bold text-crust" aria-hidden="true">
         {code}
       </p>

@@ -34,6 +34,8 @@ export function Panel({
 export function PageHeading({ title, kicker, children }: { title: ReactNode; kicker?: ReactNode; children?: ReactNode }) {
   return (
     <header className="mb-5 flex flex-wrap items-end justify-between gap-3 print:mb-2">
+      {/* React hoists <title> into the document head: tabs, history and printouts name the page. */}
+      {typeof title === 'string' && <title>{`${title} · Panform`}</title>}
       <div>
         {kicker && <p className="text-sm font-semibold uppercase tracking-[0.14em] text-muted print:text-xs">{kicker}</p>}
         <h1 className="text-3xl font-bold sm:text-4xl print:text-2xl">{title}</h1>

@@ -182,6 +182,7 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
     const expectFor = (target: ScaleTarget) => scaleFormula(formula, catalog, target);
     await page.goto(`${base}/formulas/harbour-ciabatta`);
     await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
+    expect(await page.title()).toBe('Harbour ciabatta · Panform');
     const written = expectFor({ by: 'pieces', pieces: formula.yield.pieces });
     expect(await weightIn(page, 'overall', 'bread flour')).toBe(formatGrams(written.overall.find((l) => l.ingredient === 'bread flour')!.grams));
     await screenshot(page, 'formula-bench-tablet-light', { width: 1280, height: 800 });

@@ -1,6 +1,6 @@
 // End to end: the built viewer served by the real server (in-memory PGlite with the demo bakery),
 // driven in headless Chromium. Screenshots of every page land in test-results/screenshots/.
-import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { cpSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -329,6 +329,22 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
     const cost = computeCost(scaleFormula(formula, catalog, { by: 'pieces', pieces: 60 }), catalog);
     expect(await page.getByTestId('cost-per-piece').textContent()).toBe(formatMoney(cost.perPiece!, ''));
     await screenshot(page, 'formula-author-cost', { width: 1280, height: 800 });
+  });
+
+  it('opens every demo formula and bake day without a failing panel', async () => {
+    const ids = readdirSync(resolve('formulas'))
+      .filter((f) => f.endsWith('.yaml') && f !== 'ingredients.yaml')
+      .map((f) => f.replace(/\.yaml$/, ''));
+    const dates = readdirSync(resolve('formulas/plans')).map((f) => f.replace(/\.yaml$/, ''));
+    const broken: string[] = [];
+    for (const path of [...ids.map((id) => `/formulas/${id}`), ...dates.map((d) => `/plans/${d}`)]) {
+      await page.goto(`${base}${path}`);
+      await page.locator('[data-testid="overall"], [data-testid="timeline"]').first().waitFor();
+      await page.getByRole('heading', { name: 'Take care' }).waitFor();
+      const text = (await page.locator('main').textContent()) ?? '';
+      if (/could not be shown|Something went wrong|Cannot scale/.test(text)) broken.push(path);
+    }
+    expect(broken).toEqual([]);
     await signOut(page, base);
   });
 

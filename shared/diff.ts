@@ -3,7 +3,7 @@
 // title and status; and the figures of each version's reference batch side by side. Pure.
 import type { FormulaFigures } from './api.ts';
 import type { Catalog, Formula, Line, Preferment, Soaker, Step } from './model.ts';
-import { scaleFormula } from './scale.ts';
+import { referenceFigures } from './figures.ts';
 import type { NumberRange } from './units.ts';
 
 export type ChangeKind = 'added' | 'removed' | 'changed';
@@ -245,19 +245,7 @@ function diffSteps(before: Step[], after: Step[]): StepChange[] {
 function figuresOf(f: Formula | null, catalog: Catalog, problems: string[], side: string): FormulaFigures | null {
   if (!f) return null;
   try {
-    const r = scaleFormula(f, catalog, { by: 'pieces', pieces: f.yield.pieces });
-    return {
-      totalPercent: r.totalPercent,
-      hydration: r.hydration,
-      effectiveHydration: r.effectiveHydration,
-      prefermentedFlour: r.prefermentedFlour,
-      finalDoughHydration: r.finalDoughHydration,
-      flour: r.flour,
-      mixedDough: r.mixedDough,
-      dividedDough: r.dividedDough,
-      pieces: r.pieces,
-      pieceGrams: r.pieceGrams,
-    };
+    return referenceFigures(f, catalog);
   } catch (e) {
     problems.push(`${side}: the reference batch cannot be computed: ${(e as Error).message}`);
     return null;

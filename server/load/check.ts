@@ -5,7 +5,8 @@ import { createHash } from 'node:crypto';
 import type { FormulaFigures } from '#shared/api';
 import type { Catalog, Formula, Plan } from '#shared/model';
 import { parseCatalogText, parseFormulaText, parsePlanText, sortFindings, type Finding } from '#shared/parse';
-import { scaleFormula, ScaleError } from '#shared/scale';
+import { ScaleError } from '#shared/scale';
+import { referenceFigures } from '#shared/figures';
 import { checkCatalog } from '#shared/check/catalog';
 import { checkFileText, fileStem } from '#shared/check/check-file';
 import { checkFormula } from '#shared/check/formula';
@@ -45,23 +46,6 @@ export type ExtraCheck = (parsed: { catalog: CheckedCatalog | null; formulas: Ch
 /** The hash that decides whether a file changed: SHA-256 of its text, line endings and BOM normalized. */
 export function contentHash(text: string): string {
   return createHash('sha256').update(text.replace(/^\uFEFF/, '').replace(/\r\n?/g, '\n')).digest('hex');
-}
-
-/** Figures of a formula's reference batch (its own yield). Throws ScaleError when it cannot be scaled. */
-export function referenceFigures(formula: Formula, catalog: Catalog): FormulaFigures {
-  const r = scaleFormula(formula, catalog, { by: 'pieces', pieces: formula.yield.pieces });
-  return {
-    totalPercent: r.totalPercent,
-    hydration: r.hydration,
-    effectiveHydration: r.effectiveHydration,
-    prefermentedFlour: r.prefermentedFlour,
-    finalDoughHydration: r.finalDoughHydration,
-    flour: r.flour,
-    mixedDough: r.mixedDough,
-    dividedDough: r.dividedDough,
-    pieces: r.pieces,
-    pieceGrams: r.pieceGrams,
-  };
 }
 
 /** What a plan's orders may name beside the formulas in the load (a load of single files). */

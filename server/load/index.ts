@@ -9,7 +9,8 @@ import { writeLoad, type LoadSummary, type WriteOptions } from './write.ts';
 export type { LoadSummary, LoadProgress, KindSummary } from './write.ts';
 export type { LoadInput, LoadFile, FileKind } from './read.ts';
 export { readLoadInput, LoadPathError } from './read.ts';
-export { checkLoadInput, contentHash, referenceFigures } from './check.ts';
+export { checkLoadInput, contentHash } from './check.ts';
+export { referenceFigures } from '#shared/figures';
 export { writeLoad } from './write.ts';
 
 /** The files have errors: nothing was loaded. */

@@ -44,12 +44,15 @@ export function BuildTable({ build, formula }: { build: ScaledBuild; formula: Fo
         {build.name} <span className="font-sans text-base font-normal text-muted">({kindWord[build.kind] ?? build.kind})</span>
       </h3>
       <p className="mb-1 text-muted print:text-[8.5pt]">
-        {build.share !== undefined && <>{percent(build.share)} of the flour · </>}
-        {percent(build.hydration)} water to flour
-        {hours && <> · {build.kind === 'soaker' ? 'soak' : 'ripen'} {hoursRange(hours)}</>}
-        {hold !== undefined && <> at {celsius(hold, 0)}</>}
-        {off !== undefined && <> · off the mixer at {celsius(off, 0)}</>}
-        {hot && <> · made with boiling water</>}
+        {[
+          build.share !== undefined ? `${percent(build.share)} of the flour` : null,
+          build.flour > 0 ? `${percent(build.hydration)} water to flour` : null,
+          hours ? `${build.kind === 'soaker' ? 'soak' : 'ripen'} ${hoursRange(hours)}${hold !== undefined ? ` at ${celsius(hold, 0)}` : ''}` : null,
+          off !== undefined ? `off the mixer at ${celsius(off, 0)}` : null,
+          hot ? 'made with boiling water' : null,
+        ]
+          .filter(Boolean)
+          .join(' · ')}
       </p>
       <Ledger
         percentHeading={build.kind === 'soaker' ? '% of all flour' : '% of its flour'}

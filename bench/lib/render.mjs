@@ -43,19 +43,32 @@ export async function measureRender({ baseUrl, cookie, path, selector, runs, onC
       const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
       await context.addCookies([{ name: cookie.name, value: cookie.value, url: baseUrl }]);
       const page = await context.newPage();
+      const errors = [];
+      page.on('pageerror', (e) => errors.push(String(e?.message ?? e)));
+      page.on('console', (m) => {
+        if (m.type() === 'error') errors.push(m.text());
+      });
       await page.goto(`${baseUrl}${path}`, { waitUntil: 'commit' });
       // Resolves in the page as soon as the table is laid out and visible; returns the page's clock,
       // whose origin is the start of this navigation.
-      const handle = await page.waitForFunction(
-        (sel) => {
-          const el = document.querySelector(sel);
-          if (!el) return false;
-          const box = el.getBoundingClientRect();
-          return box.width > 0 && box.height > 0 ? performance.now() : false;
-        },
-        selector,
-        { polling: 'raf', timeout: 30_000 },
-      );
+      const handle = await page
+        .waitForFunction(
+          (sel) => {
+            const el = document.querySelector(sel);
+            if (!el) return false;
+            const box = el.getBoundingClientRect();
+            return box.width > 0 && box.height > 0 ? performance.now() : false;
+          },
+          selector,
+          { polling: 'raf', timeout: 30_000 },
+        )
+        .catch(async (e) => {
+          // Say what the page showed instead, so a failure can be acted on.
+          const text = await page.evaluate(() => document.body?.innerText ?? '').catch(() => '');
+          throw new Error(
+            `${selector} did not appear on ${page.url()} (${String(e?.message ?? e).split('\n')[0]}); the page said: ${JSON.stringify(text.slice(0, 300))}${errors.length ? `; errors: ${errors.slice(0, 3).join(' | ')}` : ''}`,
+          );
+        });
       times.push(Number(await handle.jsonValue()));
       // Where the time went, from the page's own timings: the document, its scripts, the API calls.
       breakdowns.push(

@@ -1,4 +1,3 @@
-import { useNavigate } from 'react-router';
 import { Button } from '../../components/button.tsx';
 import { PageHeading, Panel } from '../../components/panel.tsx';
 import { QueryState } from '../../components/query-state.tsx';
@@ -11,7 +10,6 @@ import { paths } from '../paths.ts';
 export default function AccountRoute() {
   const query = useMe();
   const signOut = useSignOut();
-  const navigate = useNavigate();
   return (
     <>
       <PageHeading title="Account" kicker="Who is signed in" />
@@ -35,7 +33,15 @@ export default function AccountRoute() {
                 tone="primary"
                 className="mt-5 w-full"
                 disabled={signOut.isPending}
-                onClick={() => signOut.mutate(undefined, { onSettled: () => void navigate(paths.signIn.getHref(), { replace: true }) })}
+                onClick={() => {
+                  // A full page load after signing out: nothing of this person's stays in memory
+                  // on a shared tablet.
+                  // When it fails, the message below says why and the person stays signed in.
+                  signOut.mutateAsync().then(
+                    () => window.location.replace(paths.signIn.getHref()),
+                    () => undefined,
+                  );
+                }}
               >
                 {signOut.isPending ? 'Signing out…' : 'Sign out'}
               </Button>

@@ -145,6 +145,14 @@ describe('reading corrupted files', () => {
     expect(parsed.findings.map((f) => f.message)).toEqual(['unknown field "{ kind: biga, share: 10 % }" in the file']);
   });
 
+  it('checks a percentage written as a block of keys without printing a programming value', () => {
+    // What a stray indent under `flour:` makes of the next line.
+    const text = `id: a\ntitle: A\nstatus: draft\ncategory: lean\nyield: { pieces: 1, piece: 20 g }\nflour:\n  bread flour:\n    water: 40\ningredients: { water: 40 }\n`;
+    const r = checkFileText({ kind: 'formula', file: 'a.yaml', text, catalog });
+    expect(r.findings.length).toBeGreaterThan(0);
+    for (const f of r.findings) expect(f.message).not.toMatch(/\[object Object\]/);
+  });
+
   it('reports located findings and never throws for randomly damaged demo files', { timeout: fuzzTimeout(RUNS) }, () => {
     fc.assert(
       fc.property(sampleArb, fc.array(mutationArb, { minLength: 1, maxLength: 4 }), fc.boolean(), (s, mutations, withCatalog) => {

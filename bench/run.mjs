@@ -37,12 +37,13 @@ function readOptions(argv) {
   const quick = flag('quick');
   const only = value('only', null);
   const groups = only ? only.split(',').map((s) => s.trim()) : GROUPS.filter((g) => g !== 'soak' || !quick);
-  for (const g of groups) if (!GROUPS.includes(g)) throw new Error(`unknown group "${g}"; choose from ${GROUPS.join(', ')}`);
+  const usage = (message) => Object.assign(new Error(message), { usage: true });
+  for (const g of groups) if (!GROUPS.includes(g)) throw usage(`unknown group "${g}"; choose from ${GROUPS.join(', ')}`);
   if (flag('no-soak') && groups.includes('soak')) groups.splice(groups.indexOf('soak'), 1);
   if (flag('soak') && !groups.includes('soak')) groups.push('soak');
   const num = (name, fallback) => {
     const n = Number(value(name, fallback));
-    if (!(n > 0)) throw new Error(`--${name} must be a positive number`);
+    if (!(n > 0)) throw usage(`--${name} must be a positive number`);
     return n;
   };
   return {
@@ -527,7 +528,10 @@ let code = 1;
 try {
   code = await main();
 } catch (e) {
-  process.stderr.write(`bench: ${e?.stack ?? e}\n`);
+  if (e?.usage) {
+    process.stderr.write(`bench: ${e.message} (see npm run bench -- --help)\n`);
+    code = 2;
+  } else process.stderr.write(`bench: ${e?.stack ?? e}\n`);
 } finally {
   await cleanupAll();
 }

@@ -4,8 +4,8 @@
 import { execFile } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
-import { build, type Plugin } from 'esbuild';
+import { fileURLToPath } from 'node:url';
+import { buildCliBundle } from '../../scripts/cli-bundle.mjs';
 
 export const ROOT = fileURLToPath(new URL('../..', import.meta.url));
 
@@ -20,50 +20,11 @@ export interface BuiltCli {
   dispose(): void;
 }
 
-// Other commands are built in parallel by other people and may import files that do not exist
-// yet; a dynamic import that cannot be resolved is left for run time (where only that command
-// would fail) instead of failing the whole build. Static imports still must resolve.
-const tolerateMissingDynamicImports: Plugin = {
-  name: 'tolerate-missing-dynamic-imports',
-  setup(b) {
-    b.onResolve({ filter: /.*/ }, async (args) => {
-      if (args.kind !== 'dynamic-import' || (args.pluginData as { again?: boolean } | undefined)?.again) return undefined;
-      const r = await b.resolve(args.path, { kind: args.kind, importer: args.importer, resolveDir: args.resolveDir, pluginData: { again: true } });
-      return r.errors.length > 0 ? { path: args.path, external: true } : r;
-    });
-  },
-};
-
-/** The build's own step: schema validators as standalone code (scripts/standalone-validators.mjs). */
-async function standaloneValidators(): Promise<Plugin> {
-  const mod = (await import(pathToFileURL(join(ROOT, 'scripts', 'standalone-validators.mjs')).href)) as { generateValidatorsModule(): string };
-  return {
-    name: 'standalone-validators',
-    setup(b) {
-      b.onLoad({ filter: /shared[\\/]schema[\\/]validators\.ts$/ }, () => ({ contents: mod.generateValidatorsModule(), loader: 'js' }));
-    },
-  };
-}
-
 export async function buildCli(): Promise<BuiltCli> {
-  const validators = await standaloneValidators();
-  // Inside node_modules so the bundle's bare imports (commander, yaml ...) resolve as in dist/.
+  // Inside node_modules so the bundle's bare imports (pdfkit, express ...) resolve as in dist/.
   const outdir = mkdtempSync(join(ROOT, 'node_modules', '.cache-panform-cli-'));
-  const built = build({
-    entryPoints: [join(ROOT, 'cli/index.ts')],
-    outdir,
-    bundle: true,
-    splitting: true,
-    format: 'esm',
-    platform: 'node',
-    target: 'node20',
-    packages: 'external',
-    logLevel: 'silent',
-    chunkNames: 'chunks/[name]-[hash]',
-    plugins: [tolerateMissingDynamicImports, validators],
-  });
   try {
-    await built;
+    await buildCliBundle({ root: ROOT, outdir, logLevel: 'silent' });
   } catch (e) {
     rmSync(outdir, { recursive: true, force: true });
     throw e;

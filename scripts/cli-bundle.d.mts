@@ -1,0 +1,3 @@
+import type { BuildResult, Plugin } from 'esbuild';
+export declare const EXTERNAL: string[];
+export declare function buildCliBundle(opts: { root?: string; outdir: string; logLevel?: 'silent' | 'warning' | 'error'; plugins?: Plugin[] }): Promise<BuildResult>;

@@ -57,7 +57,11 @@ function valueAt(data: unknown, path: string[]): unknown {
 }
 
 function show(v: unknown): string {
-  return typeof v === 'string' ? quote(v) : String(v);
+  if (typeof v === 'string') return quote(v);
+  if (Array.isArray(v)) return 'a list';
+  if (v === null || v === undefined) return 'empty';
+  if (typeof v === 'object') return 'a block of keys';
+  return String(v);
 }
 
 /** One message for a refused quantity, or undefined to keep the schema's own message. */

@@ -11,7 +11,8 @@
 // - An ingredient that the catalog does not list has unknown allergens: it is reported in
 //   `unlisted`, never taken as allergen-free.
 // This supports, and does not replace, the bakery's own labelling review under local law.
-import { ALLERGEN_CODES, type AllergenCode } from './schema/shapes.ts';
+import { ALLERGEN_CODES } from './schema/vocabulary.ts';
+import type { AllergenCode } from './schema/shapes.ts';
 import type { Catalog, Formula } from './model.ts';
 
 export const ALLERGEN_CAUTION =

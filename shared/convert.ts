@@ -8,7 +8,7 @@
 // yeast may set its own `yeast_factor`.
 import type { Catalog } from './model.ts';
 import type { YeastType } from './schema/shapes.ts';
-import { YEAST_TYPES } from './schema/shapes.ts';
+import { YEAST_TYPES } from './schema/vocabulary.ts';
 import { celsiusToFahrenheit, convertMass, fahrenheitToCelsius, MASS_UNITS, type MassUnit, type TemperatureUnit } from './units.ts';
 
 export type YeastFactors = Record<YeastType, number>;

@@ -49,13 +49,13 @@ export function toSheetOptions(plan: string, flags: SheetFlags): SheetOptions {
 export async function collectSheet(planPath: string, catalogPath?: string): Promise<Sheet> {
   const plan = readPlan(planPath);
   const dir = formulasDirForPlan(planPath);
+  const { catalog } = readCatalogFor(planPath, catalogPath);
   const formulas: Record<string, Formula> = {};
   for (const o of plan.orders) {
     if (formulas[o.formula]) continue;
     const path = resolveFormulaPath(o.formula, dir);
-    formulas[o.formula] = readFormula(path);
+    formulas[o.formula] = readFormula(path, catalog);
   }
-  const { catalog } = readCatalogFor(planPath, catalogPath);
   const [{ buildSheet }, { SheetError }] = await Promise.all([import('#shared/sheet/build'), import('#shared/sheet/types')]);
   try {
     return buildSheet({ plan, formulas, catalog });

@@ -14,7 +14,7 @@ import { normalizeFormula, type Catalog, type CatalogItem, type Formula } from '
 import { canSeeFormulaStatus, roleHasPermission, type Role } from '#shared/permissions';
 import { scaleFormula, ScaleError, type ScaleTarget } from '#shared/scale';
 import type { FormulaFile } from '#shared/schema/shapes';
-import { FORMULA_STATUSES } from '#shared/schema/shapes';
+import { FORMULA_STATUSES } from '#shared/schema/vocabulary';
 import { parseMassArgument, QuantityError } from '#shared/units';
 import { requirePermission } from '../auth/guards.ts';
 import type { ServerContext } from '../context.ts';

@@ -2,7 +2,14 @@
 // unit it saw and which it accepts. Pure.
 import { decodePointer, type Finding, type SourceMap } from '../parse.ts';
 import { parseRange, QuantityError } from '../units.ts';
-import { SCHEMAS, type SchemaKind } from '../schema/shapes.ts';
+import type { SchemaKind } from '../schema/shapes.ts';
+// The generated JSON Schema (kept equal to shapes.ts by the drift test): plain data, so the
+// checks load no schema builder.
+import formulaSchema from '../schema/formula.schema.json';
+import catalogSchema from '../schema/catalog.schema.json';
+import planSchema from '../schema/plan.schema.json';
+
+const SCHEMAS: Record<SchemaKind, unknown> = { formula: formulaSchema, catalog: catalogSchema, plan: planSchema };
 import { FindingList, pointer, quote } from './report.ts';
 import { didYouMean } from './suggest.ts';
 

@@ -1,17 +1,15 @@
 // The one source of truth for the shapes of Panform's files. The JSON Schemas in
 // shared/schema/*.schema.json are generated from these definitions (`npm run schema`), and
 // tests/shared/schema-drift.test.ts fails when the committed files and these shapes differ.
-import { Type, type Static, type TSchema } from '@sinclair/typebox';
+import { Type, type Static } from '@sinclair/typebox';
+import {
+  ALLERGEN_CODES, BAKE_VESSELS, CLOCK_PATTERN, DATE_PATTERN, FORMULA_STATUSES, ID_PATTERN, INGREDIENT_KINDS, MASS_PATTERN,
+  PERCENT_PATTERN, PREFERMENT_KINDS, RANGE_PATTERN, STEP_KINDS, TEMPERATURE_PATTERN, YEAST_TYPES,
+} from './vocabulary.ts';
+
+export * from './vocabulary.ts';
 
 // ---- quantities written with their unit, as a baker writes them -------------------------
-export const MASS_PATTERN = '^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$';
-export const TEMPERATURE_PATTERN = '^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$';
-export const PERCENT_PATTERN = '^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$';
-export const RANGE_PATTERN = '^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$';
-export const CLOCK_PATTERN = '^([01][0-9]|2[0-3]):[0-5][0-9]$';
-export const ID_PATTERN = '^[a-z0-9]+(-[a-z0-9]+)*$';
-export const DATE_PATTERN = '^[0-9]{4}-[0-9]{2}-[0-9]{2}$';
-
 export const Mass = Type.String({
   pattern: MASS_PATTERN,
   description: 'A weight with its unit: g, kg, oz or lb, e.g. "320 g" or "2 lb".',
@@ -31,22 +29,6 @@ export const Range = Type.Union([Type.Number({ minimum: 0 }), Type.String({ patt
 export const PercentTable = Type.Record(Type.String({ minLength: 1 }), Type.Number(), {
   description: "Ingredient name (as in the catalog) → baker's percent.",
 });
-
-export const FORMULA_STATUSES = ['draft', 'active', 'retired'] as const;
-export const PREFERMENT_KINDS = ['poolish', 'biga', 'levain', 'sponge', 'old-dough', 'other'] as const;
-export const STEP_KINDS = [
-  'autolyse', 'mix', 'bulk', 'fold', 'divide', 'preshape', 'rest', 'shape', 'proof', 'retard', 'bake', 'cool', 'other',
-] as const;
-export const BAKE_VESSELS = ['deck', 'tray', 'pot', 'tin', 'stone'] as const;
-export const INGREDIENT_KINDS = [
-  'flour', 'water', 'salt', 'yeast', 'sugar', 'fat', 'dairy', 'egg', 'seed', 'inclusion', 'culture', 'improver', 'other',
-] as const;
-export const YEAST_TYPES = ['fresh', 'active-dry', 'instant'] as const;
-export const ALLERGEN_CODES = [
-  'wheat', 'rye', 'barley', 'oats', 'spelt', 'khorasan', 'crustaceans', 'eggs', 'fish', 'peanuts', 'soybeans', 'milk',
-  'almonds', 'hazelnuts', 'walnuts', 'cashews', 'pecans', 'brazil-nuts', 'pistachios', 'macadamia', 'celery', 'mustard',
-  'sesame', 'sulphites', 'lupin', 'molluscs',
-] as const;
 
 export const AllergenCode = Type.Unsafe<(typeof ALLERGEN_CODES)[number]>({
   type: 'string',

@@ -19,7 +19,7 @@
 import { lookupIngredient, type Catalog, type Formula, type Mixer, type Order } from '../model.ts';
 import { scaleFormula, ScaleError, sum, type ScaledBuild, type ScaleResult } from '../scale.ts';
 import type { AllergenCode, IngredientKind } from '../schema/shapes.ts';
-import { INGREDIENT_KINDS } from '../schema/shapes.ts';
+import { INGREDIENT_KINDS } from '../schema/vocabulary.ts';
 import { ALLERGEN_NAMES, AllergenError, allergenSummary, sortCodes, type AllergenSummary } from '../allergens.ts';
 import { computeIce, computeWaterTemperature, HOT_WATER_CELSIUS } from '../temperature.ts';
 import { formatTemperature } from '../units.ts';

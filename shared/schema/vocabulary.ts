@@ -1,0 +1,27 @@
+// The words and patterns of Panform's files, without the schema library: code that only needs
+// to know the allowed statuses, kinds or allergen codes imports them from here, so computing
+// a batch never loads the schema builder. shapes.ts builds the schemas from these.
+export const MASS_PATTERN = '^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$';
+export const TEMPERATURE_PATTERN = '^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$';
+export const PERCENT_PATTERN = '^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$';
+export const RANGE_PATTERN = '^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$';
+export const CLOCK_PATTERN = '^([01][0-9]|2[0-3]):[0-5][0-9]$';
+export const ID_PATTERN = '^[a-z0-9]+(-[a-z0-9]+)*$';
+export const DATE_PATTERN = '^[0-9]{4}-[0-9]{2}-[0-9]{2}$';
+
+export const FORMULA_STATUSES = ['draft', 'active', 'retired'] as const;
+export const PREFERMENT_KINDS = ['poolish', 'biga', 'levain', 'sponge', 'old-dough', 'other'] as const;
+export const STEP_KINDS = [
+  'autolyse', 'mix', 'bulk', 'fold', 'divide', 'preshape', 'rest', 'shape', 'proof', 'retard', 'bake', 'cool', 'other',
+] as const;
+export const BAKE_VESSELS = ['deck', 'tray', 'pot', 'tin', 'stone'] as const;
+export const INGREDIENT_KINDS = [
+  'flour', 'water', 'salt', 'yeast', 'sugar', 'fat', 'dairy', 'egg', 'seed', 'inclusion', 'culture', 'improver', 'other',
+] as const;
+export const YEAST_TYPES = ['fresh', 'active-dry', 'instant'] as const;
+export const ALLERGEN_CODES = [
+  'wheat', 'rye', 'barley', 'oats', 'spelt', 'khorasan', 'crustaceans', 'eggs', 'fish', 'peanuts', 'soybeans', 'milk',
+  'almonds', 'hazelnuts', 'walnuts', 'cashews', 'pecans', 'brazil-nuts', 'pistachios', 'macadamia', 'celery', 'mustard',
+  'sesame', 'sulphites', 'lupin', 'molluscs',
+] as const;
+

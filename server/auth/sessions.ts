@@ -39,6 +39,8 @@ interface Cached {
 
 export class SessionStore {
   private readonly cache = new Map<string, Cached>();
+  /** Look-ups under way: a burst of requests with one uncached token asks the database once. */
+  private readonly inflight = new Map<string, Promise<Session | null>>();
 
   constructor(
     private readonly db: Database,
@@ -71,6 +73,14 @@ export class SessionStore {
       if (hit.session && hit.session.expiresAt.getTime() <= t) return null;
       return hit.session;
     }
+    const pending = this.inflight.get(token);
+    if (pending) return pending;
+    const lookup = this.lookup(token, t).finally(() => this.inflight.delete(token));
+    this.inflight.set(token, lookup);
+    return lookup;
+  }
+
+  private async lookup(token: string, t: number): Promise<Session | null> {
     const tokenHash = hashToken(token);
     const rows = await this.db
       .select({

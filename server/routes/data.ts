@@ -83,6 +83,7 @@ export class DataCache {
   private current: Snapshot | null = null;
   private refreshing: Promise<Snapshot> | null = null;
   private checkedAt = -Infinity;
+  private checking: Promise<number> | null = null;
 
   constructor(
     private readonly db: Database,
@@ -103,7 +104,11 @@ export class DataCache {
   async snapshot(): Promise<Snapshot> {
     const t = this.now();
     if (this.current && t - this.checkedAt < CHECK_MS) return this.current;
-    const v = await this.version();
+    // Requests arriving while the newest load is being asked for share that one question.
+    this.checking ??= this.version().finally(() => {
+      this.checking = null;
+    });
+    const v = await this.checking;
     this.checkedAt = t;
     if (this.current && this.current.version === v) return this.current;
     // One rebuild at a time; concurrent requests wait for it.

@@ -3,9 +3,10 @@
 import { Command } from 'commander';
 import { computeCost, formatMoney, type CostResult } from '#shared/cost';
 import { ScaleError, scaleFormula, type ScaleTarget } from '#shared/scale';
-import { formatGrams, formatPercent, parseMassArgument, QuantityError } from '#shared/units';
-import { InputError, UsageError } from '../errors.ts';
+import { formatGrams, formatPercent } from '#shared/units';
+import { InputError } from '../errors.ts';
 import { readFormulaWithCatalog } from '../files.ts';
+import { parseTargetFlags } from '../target-flags.ts';
 
 interface RawOptions {
   pieces?: string;
@@ -24,32 +25,8 @@ export interface CostOptions {
   json: boolean;
 }
 
-function parseWeightFlag(flag: string, text: string): number {
-  let g: number;
-  try {
-    g = parseMassArgument(text);
-  } catch (e) {
-    if (e instanceof QuantityError) throw new UsageError(`${flag}: ${e.message}`, `expected ${e.expected}, or a bare number of grams`);
-    throw e;
-  }
-  if (!(g > 0) || !Number.isFinite(g)) throw new UsageError(`${flag} must be a weight above 0; got ${text.trim()}`);
-  return g;
-}
-
 export function toCostOptions(o: RawOptions): CostOptions {
-  if (o.mix !== undefined && o.pieces !== undefined) {
-    throw new UsageError('--pieces and --mix cannot be used together', 'give --pieces N [--piece W] or --mix W');
-  }
-  if (o.piece !== undefined && o.pieces === undefined) throw new UsageError('--piece needs --pieces', 'e.g. --pieces 18 --piece 900g');
-  let target: ScaleTarget | null = null;
-  if (o.pieces !== undefined) {
-    if (!/^\s*\d+\s*$/.test(o.pieces) || Number(o.pieces) < 1) {
-      throw new UsageError(`--pieces must be a whole number of at least 1; got ${o.pieces.trim()}`);
-    }
-    target = { by: 'pieces', pieces: Number(o.pieces), pieceGrams: o.piece === undefined ? undefined : parseWeightFlag('--piece', o.piece) };
-  } else if (o.mix !== undefined) {
-    target = { by: 'mix', grams: parseWeightFlag('--mix', o.mix) };
-  }
+  const target = parseTargetFlags(o);
   return { target, catalog: o.catalog, currency: o.currency ?? '', json: o.json ?? false };
 }
 

@@ -6,11 +6,12 @@ import type { Formula } from '#shared/model';
 import { ScaleError, scaleFormula, type ScaleResult, type ScaleTarget } from '#shared/scale';
 import { planWater, TemperatureError, type WaterPlan } from '#shared/temperature';
 import {
-  DEFAULT_RESOLUTION, parseMassArgument, parseResolution, parseTemperatureArgument, parseTemperatureDeltaArgument, QuantityError,
+  DEFAULT_RESOLUTION, parseResolution, parseTemperatureArgument, parseTemperatureDeltaArgument, QuantityError,
   type Resolution, type TemperatureUnit, type UnitSystem,
 } from '#shared/units';
 import { InputError, UsageError } from '../errors.ts';
 import { readFormulaWithCatalog } from '../files.ts';
+import { parseTargetFlags } from '../target-flags.ts';
 
 interface RawOptions {
   pieces?: string;
@@ -75,18 +76,6 @@ function usage(flag: string, e: unknown): never {
   throw e;
 }
 
-function parseWeightFlag(flag: string, text: string): number {
-  if (/^\s*-/.test(text)) throw new UsageError(`${flag} must be a weight above 0; got ${text.trim()}`, 'e.g. "900 g", "28.47 kg", "2 lb" or a bare number of grams');
-  let g: number;
-  try {
-    g = parseMassArgument(text);
-  } catch (e) {
-    usage(flag, e);
-  }
-  if (!(g > 0) || !Number.isFinite(g)) throw new UsageError(`${flag} must be a weight above 0; got ${text.trim()}`);
-  return g;
-}
-
 function parseTemperatureFlag(flag: string, text: string, unit: TemperatureUnit, delta = false): number {
   try {
     return delta ? parseTemperatureDeltaArgument(text, unit) : parseTemperatureArgument(text, unit);
@@ -96,26 +85,8 @@ function parseTemperatureFlag(flag: string, text: string, unit: TemperatureUnit,
 }
 
 export function toScaleOptions(o: RawOptions): ScaleOptions {
-  const given = (['pieces', 'mix', 'flour'] as const).filter((k) => o[k] !== undefined);
-  if (given.length > 1) {
-    throw new UsageError(`--${given[0]} and --${given[1]} cannot be used together`, 'give one of --pieces N [--piece W], --mix W or --flour W');
-  }
-  if (o.piece !== undefined && o.pieces === undefined) {
-    throw new UsageError('--piece needs --pieces', 'e.g. --pieces 18 --piece 900g');
-  }
   if (o.json && o.csv) throw new UsageError('--json and --csv cannot be used together');
-
-  let target: ScaleTarget | null = null;
-  if (o.pieces !== undefined) {
-    if (!/^\s*\d+\s*$/.test(o.pieces) || Number(o.pieces) < 1) {
-      throw new UsageError(`--pieces must be a whole number of at least 1; got ${o.pieces.trim()}`);
-    }
-    target = { by: 'pieces', pieces: Number(o.pieces), pieceGrams: o.piece === undefined ? undefined : parseWeightFlag('--piece', o.piece) };
-  } else if (o.mix !== undefined) {
-    target = { by: 'mix', grams: parseWeightFlag('--mix', o.mix) };
-  } else if (o.flour !== undefined) {
-    target = { by: 'flour', grams: parseWeightFlag('--flour', o.flour) };
-  }
+  const target = parseTargetFlags(o);
 
   let resolution = DEFAULT_RESOLUTION;
   if (o.resolution !== undefined) {

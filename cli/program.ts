@@ -28,7 +28,8 @@ export async function buildProgram(only?: string): Promise<Command> {
     .showSuggestionAfterError(true)
     .configureOutput({ outputError: (str, write) => write(str) })
     .exitOverride();
-  const names = only && COMMANDS[only] ? [only] : Object.keys(COMMANDS);
+  // A command loads only itself; `--version` needs none; help and mistakes list them all.
+  const names = only && COMMANDS[only] ? [only] : only === '--version' || only === '-V' ? [] : Object.keys(COMMANDS);
   const modules = await Promise.all(names.map((n) => COMMANDS[n]()));
   for (const m of modules) program.addCommand(m.command.exitOverride());
   program.addHelpText('after', '\nRun `panform <command> --help` for the options and an example of each command.');

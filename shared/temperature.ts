@@ -19,6 +19,10 @@ export const LATENT_HEAT_OF_FUSION_OF_ICE = 334;
 export const SPECIFIC_HEAT_OF_WATER = 4.18;
 /** Above this the water is hot enough to scald and to harm yeast (common practice). */
 export const HOT_WATER_CELSIUS = 50;
+/** Above this the water is too warm to pour onto yeast, though the dough is fine (common practice). */
+export const WARM_WATER_CELSIUS = 40;
+/** What the bench is told about water that is warm but not scalding. */
+export const WARM_WATER_ADVICE = 'too warm to pour straight onto yeast or a culture: mix the water into the flour first';
 
 /** Target water that cannot be reached, or inputs that make no sense. */
 export class TemperatureError extends Error {
@@ -170,6 +174,8 @@ export function planWater(i: WaterPlanInputs, unit: 'C' | 'F' = 'C'): WaterPlan 
     warnings.push(
       `the water would have to be ${t(w.water)}: hot enough to scald and to harm the yeast; check the inputs, or warm the flour or the room instead`,
     );
+  } else if (w.water > WARM_WATER_CELSIUS) {
+    warnings.push(`the water will be ${t(w.water)}, ${WARM_WATER_ADVICE}`);
   }
   let ice: number | null = null;
   let tapWater: number | null = null;

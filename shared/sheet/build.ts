@@ -21,7 +21,7 @@ import { scaleFormula, ScaleError, sum, type ScaledBuild, type ScaleResult } fro
 import type { AllergenCode, IngredientKind } from '../schema/shapes.ts';
 import { INGREDIENT_KINDS } from '../schema/vocabulary.ts';
 import { ALLERGEN_NAMES, AllergenError, allergenSummary, sortCodes, type AllergenSummary } from '../allergens.ts';
-import { computeIce, computeWaterTemperature, HOT_WATER_CELSIUS } from '../temperature.ts';
+import { computeIce, computeWaterTemperature, HOT_WATER_CELSIUS, WARM_WATER_ADVICE, WARM_WATER_CELSIUS } from '../temperature.ts';
 import { formatTemperature } from '../units.ts';
 import { processChain, scheduleJobs, type Chain } from './schedule.ts';
 import { clockMinutes, localDateTime, minuteOf } from './time.ts';
@@ -293,6 +293,8 @@ function grams(g: number): string {
 function iceFor(water: number, tap: number, target: number, what: string, warnings: string[]): number {
   if (target > HOT_WATER_CELSIUS) {
     warnings.push(`${what}: the water would have to be ${formatTemperature(target)}, hot enough to scald and to harm the yeast; check the conditions, or warm the flour or the room instead`);
+  } else if (target > WARM_WATER_CELSIUS) {
+    warnings.push(`${what}: the water will be ${formatTemperature(target)}, ${WARM_WATER_ADVICE}`);
   }
   if (water <= 0 || target >= tap) return 0;
   if (target < 0) {

@@ -337,6 +337,16 @@ describe.each(ALL_PLANS)('buildSheet on %s', (path) => {
 });
 
 describe('the demo plans', () => {
+  it.runIf(DEMO_PLANS.length > 1)('tells the bench when a mix water is too warm to pour onto yeast (the cold old dough of the wharf rolls)', () => {
+    // The old dough counts at its 4 °C ripening temperature, so the final mix needs 43 °C water:
+    // above the 40 °C that common practice pours onto yeast, below the 50 °C that scalds.
+    const sheet = buildSheet(sheetInput(DEMO_PLANS[1]));
+    const mix = mixesOf(sheet, 'wharf-rolls')[0];
+    expect(mix.waterTemperature).toBeCloseTo(43, 6);
+    expect(sheet.warnings).toContainEqual(expect.stringMatching(/^wharf-rolls mix 1\/1: the water will be 43\.0 °C, too warm to pour straight onto yeast/));
+    expect(sheet.warnings.join(' ')).not.toMatch(/wharf-rolls.*scald/);
+  });
+
   it.runIf(DEMO_PLANS.length > 0)('combine the poolish of two formulas that share it into one build', () => {
     const sheet = buildSheet(sheetInput(DEMO_PLANS[0]));
     const combined = sheet.preferments.filter((b) => b.formulas.length > 1);

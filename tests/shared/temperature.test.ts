@@ -176,6 +176,20 @@ describe('planWater', () => {
     expect(p.waterTemperature).toBe(57);
     expect(p.warnings.join(' ')).toMatch(/scald/);
   });
+
+  // Common practice: water above about 40 °C is not poured straight onto yeast or a culture;
+  // above 50 °C it scalds. Each band gets its own word, and neither below 40 °C.
+  it.each([
+    [{ ddt: 26, room: 20, flour: 18, friction: 1 }, 39, null],
+    [{ ddt: 26, room: 18, flour: 15, friction: 4 }, 41, /too warm to pour straight onto yeast or a culture/],
+    [{ ddt: 26, room: 12, flour: 12, friction: 4 }, 50, /too warm to pour straight onto yeast/],
+    [{ ddt: 26, room: 12, flour: 11, friction: 4 }, 51, /scald/],
+  ])('gives water of the right warmth its own caution (%j → %i °C)', (inputs, water, caution) => {
+    const p = planWater({ ...inputs, preferments: [] });
+    expect(p.waterTemperature).toBe(water);
+    if (caution === null) expect(p.warnings).toEqual([]);
+    else expect(p.warnings).toEqual([expect.stringMatching(caution)]);
+  });
 });
 
 describe('unit invariance of the water temperature method', () => {

@@ -227,6 +227,36 @@ export function migrationsFolder(): string {
   throw new Error('cannot find the drizzle/ migrations folder next to the Panform installation');
 }
 
+/**
+ * A handle around a driver's database: `close()` runs once, closes the client and then releases
+ * the data directory's lock, if any.
+ */
+export function makeHandle(parts: {
+  db: unknown;
+  kind: DatabaseHandle['kind'];
+  dataDir?: string | null;
+  lock?: HeldLock | null;
+  closeClient: () => Promise<void>;
+}): DatabaseHandle {
+  const lock = parts.lock ?? null;
+  let closed = false;
+  return {
+    db: parts.db as Database,
+    kind: parts.kind,
+    dataDir: parts.dataDir ?? null,
+    lock,
+    async close() {
+      if (closed) return;
+      closed = true;
+      try {
+        await parts.closeClient();
+      } finally {
+        lock?.release();
+      }
+    },
+  };
+}
+
 export async function openDatabase(opts: OpenOptions = {}): Promise<DatabaseHandle> {
   const target = resolveTarget(opts);
   if (target.kind === 'postgres') {
@@ -234,37 +264,13 @@ export async function openDatabase(opts: OpenOptions = {}): Promise<DatabaseHand
     const pool = new pg.default.Pool({ connectionString: target.url, max: 10 });
     // An idle client losing its connection must not crash the process.
     pool.on('error', () => {});
-    const db = drizzle({ client: pool, schema });
-    let closed = false;
-    return {
-      db: db as unknown as Database,
-      kind: 'postgres',
-      dataDir: null,
-      lock: null,
-      async close() {
-        if (closed) return;
-        closed = true;
-        await pool.end();
-      },
-    };
+    return makeHandle({ db: drizzle({ client: pool, schema }), kind: 'postgres', closeClient: () => pool.end() });
   }
   const [{ PGlite }, { drizzle }] = await Promise.all([import('@electric-sql/pglite'), import('drizzle-orm/pglite')]);
   if (target.kind === 'memory') {
     const client = new PGlite();
     await client.waitReady;
-    const db = drizzle({ client, schema });
-    let closed = false;
-    return {
-      db: db as unknown as Database,
-      kind: 'pglite',
-      dataDir: null,
-      lock: null,
-      async close() {
-        if (closed) return;
-        closed = true;
-        await client.close();
-      },
-    };
+    return makeHandle({ db: drizzle({ client, schema }), kind: 'pglite', closeClient: () => client.close() });
   }
   const lock = acquireLock(target.dataDir);
   let client: InstanceType<typeof PGlite>;
@@ -275,23 +281,7 @@ export async function openDatabase(opts: OpenOptions = {}): Promise<DatabaseHand
     lock.release();
     throw e;
   }
-  const db = drizzle({ client, schema });
-  let closed = false;
-  return {
-    db: db as unknown as Database,
-    kind: 'pglite',
-    dataDir: target.dataDir,
-    lock,
-    async close() {
-      if (closed) return;
-      closed = true;
-      try {
-        await client.close();
-      } finally {
-        lock.release();
-      }
-    },
-  };
+  return makeHandle({ db: drizzle({ client, schema }), kind: 'pglite', dataDir: target.dataDir, lock, closeClient: () => client.close() });
 }
 
 /** Applies the committed migrations in drizzle/ with the migrator for the handle's driver. */

@@ -13,7 +13,7 @@ import { appInternals, createApp, type AppOptions } from '../../server/app.ts';
 import type { ScryptParams } from '../../server/auth/password.ts';
 import { createUser } from '../../server/auth/users.ts';
 import type { OutgoingMail } from '../../server/context.ts';
-import { migrateDatabase, openDatabase, type Database, type DatabaseHandle } from '../../server/db/client.ts';
+import { makeHandle, migrateDatabase, openDatabase, type Database, type DatabaseHandle } from '../../server/db/client.ts';
 import { readEnv } from '../../server/env.ts';
 import { loadFolder } from '../../server/load/index.ts';
 import { ROLES, type Role } from '#shared/permissions';
@@ -46,19 +46,7 @@ export async function openTestDatabase(): Promise<DatabaseHandle> {
   if (!existsSync(dumpFile)) await withBuildLock(dumpFile, () => buildDump(dumpFile));
   const client = new PGlite({ loadDataDir: new Blob([readFileSync(dumpFile)]) });
   await client.waitReady;
-  const db = drizzle({ client, schema });
-  let closed = false;
-  return {
-    db: db as unknown as Database,
-    kind: 'pglite',
-    dataDir: null,
-    lock: null,
-    async close() {
-      if (closed) return;
-      closed = true;
-      await client.close();
-    },
-  };
+  return makeHandle({ db: drizzle({ client, schema }), kind: 'pglite', closeClient: () => client.close() });
 }
 
 async function buildDump(dumpFile: string): Promise<void> {

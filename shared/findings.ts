@@ -1,5 +1,6 @@
 // A located problem in a file, as `panform check` prints it: `path:line:col severity message`.
 // Kept apart from the YAML reader so that printing a finding loads nothing else.
+import { compareText } from './text.ts';
 
 export type Severity = 'error' | 'warning';
 
@@ -18,5 +19,5 @@ export function formatFinding(f: Finding): string {
 }
 
 export function sortFindings(fs: Finding[]): Finding[] {
-  return [...fs].sort((a, b) => a.file.localeCompare(b.file) || a.line - b.line || a.col - b.col || a.message.localeCompare(b.message));
+  return [...fs].sort((a, b) => compareText(a.file, b.file) || a.line - b.line || a.col - b.col || compareText(a.message, b.message));
 }

@@ -9,6 +9,7 @@ import type { Catalog } from '#shared/model';
 import { formatFinding, parseYamlText, sortFindings, type Finding } from '#shared/parse';
 import { ExitError, UsageError } from '../errors.ts';
 import { CATALOG_FILE, findCatalogPath, formulasDirForPlan } from '../files.ts';
+import { compareText } from '#shared/text';
 
 export interface CheckOptions {
   paths: string[];
@@ -42,7 +43,7 @@ const isYaml = (name: string) => /\.ya?ml$/i.test(name);
 
 function readFolder(dir: string) {
   try {
-    return readdirSync(dir, { withFileTypes: true }).sort((a, b) => a.name.localeCompare(b.name));
+    return readdirSync(dir, { withFileTypes: true }).sort((a, b) => compareText(a.name, b.name));
   } catch (e) {
     throw new UsageError(`cannot read the folder ${dir}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
   }

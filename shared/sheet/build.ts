@@ -38,6 +38,7 @@ import {
   type SheetMix,
   type TimelineEntry,
 } from './types.ts';
+import { compareText } from '../text.ts';
 
 const EPSILON = 1e-9;
 
@@ -163,7 +164,7 @@ export function buildSheet(input: SheetInput): Sheet {
       ...(b.holdTemperature !== null ? { temperature: b.holdTemperature } : {}),
     });
   }
-  timeline.sort((a, b) => a.startMinute - b.startMinute || a.endMinute - b.endMinute || a.label.localeCompare(b.label));
+  timeline.sort((a, b) => a.startMinute - b.startMinute || a.endMinute - b.endMinute || compareText(a.label, b.label));
 
   // ---- mixes ---------------------------------------------------------------------------------
   const mixes: SheetMix[] = planned.map((p) => {
@@ -314,7 +315,7 @@ class PickList {
   lines(): PickLine[] {
     const out = [...this.grams].map(([ingredient, gs]) => ({ ingredient, grams: sum(gs), kind: lookupIngredient(this.catalog, ingredient).kind }));
     const rank = (k: IngredientKind) => INGREDIENT_KINDS.indexOf(k);
-    return out.sort((a, b) => rank(a.kind) - rank(b.kind) || b.grams - a.grams || a.ingredient.localeCompare(b.ingredient));
+    return out.sort((a, b) => rank(a.kind) - rank(b.kind) || b.grams - a.grams || compareText(a.ingredient, b.ingredient));
   }
 }
 
@@ -421,7 +422,7 @@ function makeBuilds(
     });
   }
   const key = (b: SheetBuild) => b.mixFrom ?? b.mixUntil;
-  return out.sort((a, b) => key(a).localeCompare(key(b)) || a.mixUntil.localeCompare(b.mixUntil));
+  return out.sort((a, b) => compareText(key(a), key(b)) || compareText(a.mixUntil, b.mixUntil));
 }
 
 interface BuildSpec {
@@ -447,7 +448,7 @@ function specOf(f: Formula, what: 'preferment' | 'soaker', index: number): Build
 function buildKey(f: Formula, what: 'preferment' | 'soaker', index: number): string {
   const spec = specOf(f, what, index);
   const src = what === 'preferment' ? f.preferments[index].ingredients : f.soakers[index].ingredients;
-  const lines = [...src].sort((a, b) => a.ingredient.localeCompare(b.ingredient)).map((l) => [l.ingredient, l.percent]);
+  const lines = [...src].sort((a, b) => compareText(a.ingredient, b.ingredient)).map((l) => [l.ingredient, l.percent]);
   // Soakers are percent of the formula's total flour, so identical percentages are the same soaker per gram of flour.
   return JSON.stringify([what, spec.kind, lines, spec.hours ?? null, spec.holdTemperature, spec.temperature, spec.hot]);
 }

@@ -1,4 +1,6 @@
-// The `panform` entry (compiled to dist/cli/index.js; bin/panform.js starts it).
+// Every command as ES modules (compiled to dist/cli/index.js; cli/launch.ts starts it for the
+// commands that quick.cjs does not run).
+import { COMMANDS } from './command-table.ts';
 import { runCli } from './program.ts';
 
-process.exitCode = await runCli(process.argv);
+process.exitCode = await runCli(process.argv, COMMANDS);

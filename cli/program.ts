@@ -1,27 +1,10 @@
-// The command table and the one error handler. Only the command named on the command line is imported, so a command
-// starts without loading the others' dependencies (the database, the PDF library, the server).
+// The program and the one error handler; cli/command-table.ts says where each command lives.
 import { Command, CommanderError } from 'commander';
 import { ExitError } from './errors.ts';
 import { formatFinding } from '#shared/findings';
+import type { CommandTable } from './command-table.ts';
 
-type CommandModule = { command: Command };
-const COMMANDS: Record<string, () => Promise<CommandModule>> = {
-  check: () => import('./commands/check.ts'),
-  scale: () => import('./commands/scale.ts'),
-  temp: () => import('./commands/temp.ts'),
-  convert: () => import('./commands/convert.ts'),
-  sheet: () => import('./commands/sheet.ts'),
-  diff: () => import('./commands/diff.ts'),
-  load: () => import('./commands/load.ts'),
-  user: () => import('./commands/user.ts'),
-  serve: () => import('./commands/serve.ts'),
-  init: () => import('./commands/init.ts'),
-  cost: () => import('./commands/cost.ts'),
-  label: () => import('./commands/label.ts'),
-  'git-setup': () => import('./commands/git-setup.ts'),
-};
-
-export async function buildProgram(only?: string): Promise<Command> {
+export async function buildProgram(only: string | undefined, table: CommandTable): Promise<Command> {
   const program = new Command('panform')
     .description("Dough formulas in baker's percent: check, scale, convert, compare and print batch sheets.")
     .version('0.1.0')
@@ -29,8 +12,8 @@ export async function buildProgram(only?: string): Promise<Command> {
     .configureOutput({ outputError: (str, write) => write(str) })
     .exitOverride();
   // A command loads only itself; `--version` needs none; help and mistakes list them all.
-  const names = only && COMMANDS[only] ? [only] : only === '--version' || only === '-V' ? [] : Object.keys(COMMANDS);
-  const modules = await Promise.all(names.map((n) => COMMANDS[n]()));
+  const names = only && Object.hasOwn(table, only) ? [only] : only === '--version' || only === '-V' ? [] : Object.keys(table);
+  const modules = await Promise.all(names.map((n) => table[n]()));
   for (const m of modules) program.addCommand(m.command.exitOverride());
   program.addHelpText('after', '\nRun `panform <command> --help` for the options and an example of each command.');
   return program;
@@ -54,8 +37,17 @@ export function reportError(e: unknown): number {
   return 70;
 }
 
-export async function runCli(argv: string[]): Promise<number> {
-  const program = await buildProgram(argv[2]);
+/** `panform sheet plan.yaml | head`: the reader has gone, so stop quietly as other tools do. */
+function stopWhenReaderCloses(stream: NodeJS.WriteStream): void {
+  stream.on('error', (e: NodeJS.ErrnoException) => {
+    if (e.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+    throw e;
+  });
+}
+
+export async function runCli(argv: string[], table: CommandTable): Promise<number> {
+  stopWhenReaderCloses(process.stdout);
+  const program = await buildProgram(argv[2], table);
   try {
     await program.parseAsync(argv);
     return typeof process.exitCode === 'number' ? process.exitCode : 0;

@@ -1,6 +1,7 @@
 // How the CLI is bundled: one definition, used by scripts/build.mjs for dist/cli and by the
 // tests that run the CLI as shipped from a private folder.
 import { build } from 'esbuild';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { generateValidatorsModule } from './standalone-validators.mjs';
 
@@ -21,23 +22,76 @@ const standaloneValidators = {
   },
 };
 
-/** Bundles cli/index.ts into `outdir` (code-split: each command loads only what it needs). */
-export function buildCliBundle({ root = process.cwd(), outdir, logLevel = 'warning', plugins = [] }) {
-  return build({
+// commander loads child_process (and with it the network modules) at start, for subcommands that
+// are separate programs; Panform has none. In the quick bundle it gets child_process on first use.
+const lazyChildProcess = {
+  name: 'lazy-child-process',
+  setup(b) {
+    b.onResolve({ filter: /^(node:)?child_process$/ }, (args) =>
+      /[\\/]commander[\\/]/.test(args.importer) ? { path: 'child_process', namespace: 'lazy-child-process' } : undefined,
+    );
+    b.onLoad({ filter: /.*/, namespace: 'lazy-child-process' }, () => ({
+      contents: "module.exports = new Proxy({}, { get: (_, key) => require('node:child_process')[key] });",
+      loader: 'js',
+    }));
+  },
+};
+
+/**
+ * Builds the CLI into `outdir`:
+ * - index.js + chunks/: every command as ES modules, code-split (each command loads only what it
+ *   needs);
+ * - quick.cjs: the quick commands (cli/quick.ts) as one CommonJS file, which launch.cjs compiles
+ *   with a V8 code cache;
+ * - launch.cjs: cli/launch.ts, which picks one of the two;
+ * - panform.cjs: runs launch.cjs from this folder (what bin/panform.js loads, and what tests run).
+ */
+export async function buildCliBundle({ root = process.cwd(), outdir, logLevel = 'warning', plugins = [] }) {
+  const common = {
     absWorkingDir: root,
-    entryPoints: [join(root, 'cli', 'index.ts')],
-    outdir,
     bundle: true,
-    splitting: true,
-    format: 'esm',
     platform: 'node',
     target: 'node20',
     external: EXTERNAL,
-    // Bundled CommonJS packages call require() for Node's built-ins.
-    banner: { js: "import { createRequire as __panformCreateRequire } from 'node:module'; const require = __panformCreateRequire(import.meta.url);" },
     sourcemap: false,
     logLevel,
-    chunkNames: 'chunks/[name]-[hash]',
     plugins: [...plugins, standaloneValidators],
-  });
+  };
+  await Promise.all([
+    build({
+      ...common,
+      entryPoints: [join(root, 'cli', 'index.ts')],
+      outdir,
+      splitting: true,
+      format: 'esm',
+      // Bundled CommonJS packages call require() for Node's built-ins.
+      banner: { js: "import { createRequire as __panformCreateRequire } from 'node:module'; const require = __panformCreateRequire(import.meta.url);" },
+      chunkNames: 'chunks/[name]-[hash]',
+    }),
+    build({
+      ...common,
+      entryPoints: [join(root, 'cli', 'quick.ts')],
+      plugins: [...common.plugins, lazyChildProcess],
+      write: false,
+      outfile: join(outdir, 'quick.cjs'),
+      format: 'cjs',
+      // Code run from a vm.Script has no loader for import(): the external packages these commands
+      // load on demand (pdfkit, nodemailer) are CommonJS and are required instead.
+      supported: { 'dynamic-import': false },
+      define: { 'import.meta.url': '__panformModuleUrl' },
+      // Smaller and plain ASCII: less to read and hash before the code cache is used (a file with
+      // one non-ASCII character is read as a two-byte string). Names are kept for messages.
+      minifyWhitespace: true,
+      minifySyntax: true,
+      charset: 'ascii',
+      banner: { js: "var __panformModuleUrl = require('node:url').pathToFileURL(__filename).href;" },
+    }).then((r) => {
+      // esbuild leaves non-ASCII characters in regular expressions, where a \uXXXX escape means the same.
+      const text = r.outputFiles[0].text.replace(/[^\x00-\x7f]/g, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`);
+      mkdirSync(outdir, { recursive: true });
+      writeFileSync(join(outdir, 'quick.cjs'), text);
+    }),
+    build({ ...common, entryPoints: [join(root, 'cli', 'launch.ts')], outfile: join(outdir, 'launch.cjs'), format: 'cjs' }),
+  ]);
+  writeFileSync(join(outdir, 'panform.cjs'), "'use strict';\n// Runs the CLI built in this folder (scripts/cli-bundle.mjs).\nrequire('./launch.cjs').launch(__dirname);\n");
 }

@@ -1,6 +1,6 @@
 // Builds the CLI the way scripts/build.mjs does, into a private folder per test file, so that
 // tests running in parallel never see another file's build half-written; then runs it as
-// `node index.js <args>` (what bin/panform.js starts).
+// `node panform.cjs <args>` (what bin/panform.js loads).
 import { execFile } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
@@ -16,6 +16,8 @@ export interface CliRun {
 }
 
 export interface BuiltCli {
+  /** The folder the CLI was built into. */
+  dir: string;
   run(args: string[], opts?: { cwd?: string; input?: string }): Promise<CliRun>;
   dispose(): void;
 }
@@ -29,8 +31,9 @@ export async function buildCli(): Promise<BuiltCli> {
     rmSync(outdir, { recursive: true, force: true });
     throw e;
   }
-  const entry = join(outdir, 'index.js');
+  const entry = join(outdir, 'panform.cjs');
   return {
+    dir: outdir,
     run(args, opts = {}) {
       return new Promise((resolve) => {
         const child = execFile(process.execPath, [entry, ...args], { cwd: opts.cwd ?? ROOT, env: { ...process.env, NO_COLOR: '1' } }, (err, stdout, stderr) => {

@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 // End to end: the built CLI, as a baker runs it (`node bin/panform.js check`).
 const ROOT = new URL('../../', import.meta.url).pathname;
-const ENTRY = join(ROOT, 'dist/cli/index.js');
+const ENTRY = join(ROOT, 'dist/cli/panform.cjs');
 
 function run(args: string[], cwd = ROOT) {
   const r = spawnSync(process.execPath, [join(ROOT, 'bin/panform.js'), 'check', ...args], { cwd, encoding: 'utf8' });

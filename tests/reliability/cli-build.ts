@@ -20,5 +20,5 @@ export async function buildCliForTests(root = process.cwd()): Promise<CliBuild> 
     rmSync(outdir, { recursive: true, force: true });
     throw e;
   }
-  return { entry: join(outdir, 'index.js'), dispose: () => rmSync(outdir, { recursive: true, force: true }) };
+  return { entry: join(outdir, 'panform.cjs'), dispose: () => rmSync(outdir, { recursive: true, force: true }) };
 }

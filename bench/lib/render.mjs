@@ -1,7 +1,10 @@
 // Formula page render time in headless Chromium (Debian's /usr/bin/chromium through
 // playwright-core): a signed-in browser opens /formulas/<id>?pieces=N and the time is taken from
 // the start of navigation (the page's own time origin) to the scaled table on screen. Each run
-// uses a fresh browser context, so nothing is cached between runs.
+// uses a fresh browser context. With `warmPaths`, the context first opens those pages (other
+// formulas), as the bench tablet has opened Panform before: the viewer's files are then in the
+// HTTP cache and Chromium keeps their compiled code; the measured load is still a full page load
+// of a formula not opened before.
 import { existsSync } from 'node:fs';
 
 export const CHROMIUM = '/usr/bin/chromium';
@@ -23,10 +26,10 @@ export function renderUnavailable() {
 }
 
 /**
- * @param {{ baseUrl: string, cookie: { name: string, value: string }, path: string, selector: string, runs: number, onCleanup: (fn: () => Promise<void>) => void }} o
+ * @param {{ baseUrl: string, cookie: { name: string, value: string }, path: string, selector: string, runs: number, warmPaths?: string[], onCleanup: (fn: () => Promise<void>) => void }} o
  * @returns {Promise<{ times: number[], breakdowns: object[] }>}
  */
-export async function measureRender({ baseUrl, cookie, path, selector, runs, onCleanup }) {
+export async function measureRender({ baseUrl, cookie, path, selector, runs, warmPaths = [], onCleanup }) {
   const { chromium } = await import('playwright-core');
   const browser = await chromium.launch({ executablePath: CHROMIUM, headless: true, args: FLAGS });
   let closed = false;
@@ -48,6 +51,12 @@ export async function measureRender({ baseUrl, cookie, path, selector, runs, onC
       page.on('console', (m) => {
         if (m.type() === 'error') errors.push(m.text());
       });
+      for (const warm of warmPaths) {
+        await page.goto(`${baseUrl}${warm}`, { waitUntil: 'commit' });
+        await page.waitForSelector(selector, { state: 'visible', timeout: 30_000 });
+        // Chromium writes a script's compiled code to the cache after the page has settled.
+        await page.waitForTimeout(300);
+      }
       await page.goto(`${baseUrl}${path}`, { waitUntil: 'commit' });
       // Resolves in the page as soon as the table is laid out and visible; returns the page's clock,
       // whose origin is the start of this navigation.

@@ -4,7 +4,6 @@ import { existsSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import express, { Router, type Express, type NextFunction, type Request, type Response } from 'express';
-import helmet from 'helmet';
 import { csrfProtection } from './auth/csrf.ts';
 import { DEFAULT_SCRYPT, hashPassword, randomPassword, type ScryptParams } from './auth/password.ts';
 import { createLimiters, DEFAULT_LIMITS, type Clock, type Limiters, type SignInLimits } from './auth/rate-limit.ts';
@@ -13,6 +12,7 @@ import type { OutgoingMail, ServerContext } from './context.ts';
 import type { DatabaseHandle } from './db/client.ts';
 import type { Env } from './env.ts';
 import { errorMiddleware, notFound } from './http/errors.ts';
+import { securityHeaders } from './http/security-headers.ts';
 import { DataCache } from './routes/data.ts';
 import { formulasRouter } from './routes/formulas.ts';
 import { plansRouter } from './routes/plans.ts';
@@ -111,7 +111,7 @@ export function createApp(opts: AppOptions): Express {
   // icons), fetches to this origin, and PDFs of this origin in a frame for print preview.
   // Inline styles are allowed because React sets style attributes; inline scripts are not.
   app.use(
-    helmet({
+    securityHeaders({
       contentSecurityPolicy: {
         useDefaults: false,
         directives: {

@@ -1,4 +1,5 @@
-// Builds the CLI + server bundle (esbuild, scripts/cli-bundle.mjs) and the viewer (Vite).
+// Builds the CLI + server bundle (esbuild, scripts/cli-bundle.mjs) and the viewer (Vite: the
+// browser's build in dist/web, the server's first-render build in dist/ssr).
 // Run by `npm run build` and by `prepare` on `npm install`; `--cli` builds the CLI alone.
 import { renameSync, rmSync } from 'node:fs';
 import { buildCliBundle } from './cli-bundle.mjs';
@@ -21,5 +22,7 @@ if (process.exitCode !== 1) {
   if (!onlyCli) {
     const { build: viteBuild } = await import('vite');
     await viteBuild({ logLevel: 'warn' });
+    // The viewer's server build: the first render of a formula page (src/ssr, server/ssr.ts).
+    await viteBuild({ logLevel: 'warn', build: { ssr: 'src/ssr/entry-server.tsx', outDir: 'dist/ssr', emptyOutDir: true, copyPublicDir: false } });
   }
 }

@@ -13,6 +13,7 @@ import type { DatabaseHandle } from './db/client.ts';
 import type { Env } from './env.ts';
 import { errorMiddleware, notFound } from './http/errors.ts';
 import { securityHeaders } from './http/security-headers.ts';
+import { createPageRenderer } from './ssr.ts';
 import { DataCache } from './routes/data.ts';
 import { formulasRouter } from './routes/formulas.ts';
 import { plansRouter } from './routes/plans.ts';
@@ -193,18 +194,24 @@ export function createApp(opts: AppOptions): Express {
     );
   }
   // Every other GET is a page of the single-page viewer: its index.html, never cached, so a new
-  // build is picked up at once.
-  app.use((req: Request, res: Response, next: NextFunction) => {
+  // build is picked up at once. A signed-in visitor's formula page comes rendered (server/ssr.ts):
+  // per person, so private.
+  const pages = webDir ? createPageRenderer(webDir, context, log) : null;
+  app.use(async (req: Request, res: Response, next: NextFunction) => {
     if (req.method !== 'GET' && req.method !== 'HEAD') {
       next();
       return;
     }
-    if (!webDir) {
+    if (!webDir || !pages) {
       res.status(503).type('text/plain').send('The Panform viewer is not built. Run `npm run build`, then start the server again.\n');
       return;
     }
-    res.setHeader('Cache-Control', 'no-cache');
-    res.sendFile(join(webDir, 'index.html'));
+    const token = readCookie(req.headers.cookie, SESSION_COOKIE);
+    const session = token ? await sessions.find(token) : null;
+    const url = new URL(req.originalUrl, 'http://panform.local');
+    const html = await pages.page(url.pathname, url.search, session?.user ?? null);
+    res.setHeader('Cache-Control', 'private, no-cache');
+    res.type('html').send(html);
   });
   app.use(errorMiddleware(log));
 

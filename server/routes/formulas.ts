@@ -146,6 +146,30 @@ function revisionSummary(r: {
   };
 }
 
+/**
+ * GET /api/formulas/:id's answer (JSON text and its ETag). It depends only on the loaded data,
+ * the target and whether costs are shown: made once per load and served from memory (the viewer
+ * and many benches ask the same). The server's first render of a formula page uses it too.
+ */
+export async function formulaDetailAnswer(
+  ctx: ServerContext,
+  role: Role,
+  id: string,
+  targetFor: (formula: Formula) => ScaleTarget = (formula) => ({ by: 'pieces', pieces: formula.yield.pieces }),
+): Promise<{ body: string; etag: string }> {
+  const snapshot = await ctx.data.snapshot();
+  const entry = visibleFormula(snapshot, id, role);
+  const target = targetFor(usable(entry));
+  const key = `detail:${entry.id}:${roleHasPermission(role, 'read:cost') ? 'cost' : 'plain'}:${JSON.stringify(target)}`;
+  let cached = snapshot.memo.get(key) as { body: string; etag: string } | undefined;
+  if (!cached) {
+    const body = JSON.stringify(formulaDetail(entry, snapshot.catalog, role, target));
+    cached = { body, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
+    if (snapshot.memo.size < MEMO_LIMIT) snapshot.memo.set(key, cached);
+  }
+  return cached;
+}
+
 export function formulasRouter(ctx: ServerContext): Router {
   const r = Router();
 
@@ -189,19 +213,8 @@ export function formulasRouter(ctx: ServerContext): Router {
 
   r.get('/formulas/:id', async (req, res) => {
     const user = requirePermission(req, 'read:formula:active');
-    const snapshot = await ctx.data.snapshot();
-    const entry = visibleFormula(snapshot, req.params.id, user.role);
-    const target = readScaleTarget(req, usable(entry));
-    // The answer depends only on the loaded data, the target and whether costs are shown: it is
-    // made once per load and served from memory (the viewer and many benches ask the same).
-    const key = `detail:${entry.id}:${roleHasPermission(user.role, 'read:cost') ? 'cost' : 'plain'}:${JSON.stringify(target)}`;
-    let cached = snapshot.memo.get(key) as { body: string; etag: string } | undefined;
-    if (!cached) {
-      const body = JSON.stringify(formulaDetail(entry, snapshot.catalog, user.role, target));
-      cached = { body, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
-      if (snapshot.memo.size < MEMO_LIMIT) snapshot.memo.set(key, cached);
-    }
-    res.set('ETag', cached.etag).type('application/json').send(cached.body);
+    const answer = await formulaDetailAnswer(ctx, user.role, req.params.id, (formula) => readScaleTarget(req, formula));
+    res.set('ETag', answer.etag).type('application/json').send(answer.body);
   });
 
   r.get('/formulas/:id/revisions', async (req, res) => {

@@ -18,7 +18,8 @@ export const RESET_TTL_MS = 60 * 60 * 1000;
 /** The viewer's page that takes the token from the e-mail's link. */
 export const RESET_PAGE = '/reset-password';
 
-const me = (user: Me['user']): Me => ({ user, permissions: permissionsOf(user.role) });
+/** GET /api/me's answer (the server's first render of a page uses it too). */
+export const me = (user: Me['user']): Me => ({ user, permissions: permissionsOf(user.role) });
 
 const sha256 = (s: string) => createHash('sha256').update(s).digest('hex');
 

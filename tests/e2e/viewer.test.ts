@@ -131,6 +131,29 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
     expect(await page.getByRole('link', { name: 'Changes' }).count()).toBe(0);
   });
 
+  it('sends a formula page rendered, and takes it over without a mismatch', async () => {
+    // Signed in as bench from the test before: the server's HTML already holds the weights.
+    const cookie = (await page.context().cookies()).map((c) => `${c.name}=${c.value}`).join('; ');
+    const res = await fetch(`${base}/formulas/harbour-ciabatta?pieces=24`, { headers: { cookie } });
+    expect(res.headers.get('cache-control')).toBe('private, no-cache');
+    const html = await res.text();
+    expect(html).toMatch(/<script type="application\/json" id="panform-state">/);
+    expect(html).toMatch(/data-testid="overall"/);
+    expect(html).toMatch(/<h1[^>]*>Harbour ciabatta<\/h1>/);
+    expect(html).not.toMatch(/<script>/);
+    // Signed out: the plain page, nothing of anyone's.
+    const plain = await (await fetch(`${base}/formulas/harbour-ciabatta`)).text();
+    expect(plain).not.toMatch(/panform-state/);
+
+    const before = pageErrors.length;
+    await page.goto(`${base}/formulas/harbour-ciabatta?pieces=24`);
+    await page.locator('[data-testid="overall"] tbody tr').first().waitFor();
+    await page.getByRole('button', { name: 'One piece more' }).click();
+    await page.waitForURL(/pieces=25/);
+    expect(await page.getByLabel('Pieces').inputValue()).toBe('25');
+    expect(pageErrors.slice(before)).toEqual([]);
+  });
+
   it('can be used from the keyboard, with a visible focus ring', async () => {
     await page.goto(`${base}/formulas`);
     await page.locator('[data-formula]').first().waitFor();

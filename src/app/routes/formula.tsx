@@ -18,6 +18,7 @@ import { WaterTemperatureHelper } from '../../features/formulas/components/water
 import { searchFromTarget, targetFromSearch } from '../../features/formulas/scale-target.ts';
 import { getErrorMessage } from '../../lib/errors.ts';
 import { useAfterFirstPaint } from '../../lib/use-after-first-paint.ts';
+import { useHydrated } from '../../lib/use-hydrated.ts';
 import { pieceWeight, shortDateTime, weight } from '../../lib/format.ts';
 import { paths } from '../paths.ts';
 
@@ -39,6 +40,7 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
   const canSeeCost = me?.permissions.includes('read:cost') ?? false;
   const canSeeHistory = me?.permissions.includes('read:history') ?? false;
   const restReady = useAfterFirstPaint();
+  const hydrated = useHydrated();
 
   const targetKey = JSON.stringify(target);
   const { scaled, problem } = useMemo((): { scaled: ScaleResult; problem: string | null } => {
@@ -69,7 +71,7 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
         }
         title={formula.title}
       >
-        <Button tone="primary" onClick={() => window.print()}>
+        <Button tone="primary" onClick={() => window.print()} disabled={!hydrated}>
           Print
         </Button>
         {canSeeHistory && (
@@ -85,7 +87,8 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
         <span className="font-semibold">Batch: </span>
         <span className="figure font-bold">{batchLine}</span>
         {scaled.loss > 0 && <span className="text-muted"> · {scaled.loss} % loss allowed</span>}
-        <span className="hidden print:inline text-muted"> · revision {detail.revision}, loaded {shortDateTime(detail.updatedAt)}</span>
+        {/* In the reader's time zone, so not in the server's first render. */}
+        {restReady && <span className="hidden print:inline text-muted"> · revision {detail.revision}, loaded {shortDateTime(detail.updatedAt)}</span>}
       </p>
 
       {/* Below lg the two columns dissolve (display: contents) so `order` can put the batch first and the tables next. */}

@@ -1,5 +1,5 @@
-// The e2e tests drive the built viewer (dist/web). Build it when it is missing or older than its
-// sources. Only the Vite half of scripts/build.mjs runs here: the CLI half deletes and rewrites
+// The e2e tests drive the built viewer (dist/web, and dist/ssr for the server's first render of
+// a formula page). Build them when missing or older than their sources. Only the Vite half of scripts/build.mjs runs here: the CLI half deletes and rewrites
 // dist/cli, which other suites may be running at the same moment.
 import { execFileSync } from 'node:child_process';
 import { existsSync, readdirSync, statSync } from 'node:fs';
@@ -18,18 +18,22 @@ function newestMtime(path: string): number {
 
 export function viewerBuildIsStale(root = process.cwd()): boolean {
   const built = resolve(root, 'dist/web/index.html');
-  if (!existsSync(built)) return true;
+  if (!existsSync(built) || !existsSync(resolve(root, 'dist/ssr/entry-server.js'))) return true;
   const builtAt = statSync(built).mtimeMs;
   return SOURCES.some((s) => newestMtime(resolve(root, s)) > builtAt);
 }
 
 export function ensureViewerBuilt(root = process.cwd()): void {
   if (!viewerBuildIsStale(root)) return;
-  execFileSync(process.execPath, [resolve(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'error'], {
-    cwd: root,
-    // vitest runs with NODE_ENV=test, which would make Vite build React's development runtime.
-    env: { ...process.env, NODE_ENV: 'production' },
-    stdio: ['ignore', 'ignore', 'pipe'],
-    timeout: 240_000,
-  });
+  const vite = (args: string[]) =>
+    execFileSync(process.execPath, [resolve(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'error', ...args], {
+      cwd: root,
+      // vitest runs with NODE_ENV=test, which would make Vite build React's development runtime.
+      env: { ...process.env, NODE_ENV: 'production' },
+      stdio: ['ignore', 'ignore', 'pipe'],
+      timeout: 240_000,
+    });
+  vite([]);
+  // As scripts/build.mjs builds it.
+  vite(['--ssr', 'src/ssr/entry-server.tsx', '--outDir', 'dist/ssr', '--emptyOutDir', '--copyPublicDir', 'false']);
 }

@@ -4,6 +4,7 @@ import type { ScaleTarget } from '#shared/scale';
 import { readNumber, TextField } from '../../../components/field.tsx';
 import { pieceWeight } from '../../../lib/format.ts';
 import { isWrittenBatch, writtenBatch } from '../scale-target.ts';
+import { useHydrated } from '../../../lib/use-hydrated.ts';
 
 type Mode = 'pieces' | 'mix';
 
@@ -21,6 +22,7 @@ export function ScaleControl({ formula, target, onChange }: { formula: Formula; 
   const [piece, setPiece] = useState(trim(pieceNow));
   const [mixKg, setMixKg] = useState(mixNow === null ? '' : trim(mixNow / 1000));
   const groupId = useId();
+  const hydrated = useHydrated();
 
   // Follow the URL when it changes from outside (back button, reset).
   useEffect(() => setPieces(String(piecesNow)), [piecesNow]);
@@ -66,7 +68,7 @@ export function ScaleControl({ formula, target, onChange }: { formula: Formula; 
   );
 
   return (
-    <div className="space-y-3 print:hidden" data-testid="scale-control">
+    <fieldset disabled={!hydrated} className="m-0 min-w-0 space-y-3 border-0 p-0 print:hidden" data-testid="scale-control">
       <div role="radiogroup" aria-labelledby={groupId} className="flex gap-1 rounded-xl border-2 border-line bg-sunk p-1">
         <span id={groupId} className="sr-only">
           Scale by
@@ -137,7 +139,7 @@ export function ScaleControl({ formula, target, onChange }: { formula: Formula; 
           Back to the written batch ({formula.yield.pieces} × {pieceWeight(formula.yield.pieceGrams)})
         </button>
       )}
-    </div>
+    </fieldset>
   );
 }
 

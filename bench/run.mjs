@@ -396,7 +396,7 @@ async function benchRender(opts, work, state) {
       const scripts = median(breakdowns.map((b) => b.scripts?.end).filter((x) => typeof x === 'number'));
       return {
         m: median(times),
-        text: `${ms(median(times))} (runs: ${times.map((t) => Math.round(t)).join(', ')} ms; document ${ms(at('documentEnd'))}, scripts ${ms(scripts)}, API ${ms(api)})`,
+        text: `${ms(median(times))} (runs: ${times.map((t) => Math.round(t)).join(', ')} ms; document ${ms(at('documentEnd'))}, scripts ${ms(scripts)}, API ${Number.isFinite(api) ? ms(api) : 'not asked'})`,
         extra: { medianMs: median(times), times, documentMs: at('documentEnd'), scriptsMs: scripts, apiMs: api },
       };
     };

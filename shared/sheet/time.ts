@@ -10,14 +10,31 @@ function midnightUtc(date: string): number {
   return Date.UTC(y, m - 1, d);
 }
 
+const MINUTES_PER_DAY = 1440;
+const two = (n: number) => (n < 10 ? `0${n}` : String(n));
+
+/** "2026-12-03" shifted by whole days ("2026-12-02" for -1), on the UTC calendar. */
+function shiftDate(date: string, days: number): string {
+  if (days === 0) return date;
+  return new Date(midnightUtc(date) + days * MINUTES_PER_DAY * MS_PER_MINUTE).toISOString().slice(0, 10);
+}
+
 /** "2026-12-03", 250 → "2026-12-03T04:10"; -120 → "2026-12-02T22:00". Minutes are rounded to whole minutes. */
 export function localDateTime(date: string, minute: number): LocalDateTime {
-  return new Date(midnightUtc(date) + Math.round(minute) * MS_PER_MINUTE).toISOString().slice(0, 16);
+  // Plain arithmetic on the same day (a sheet asks this hundreds of times); the calendar only
+  // for another day.
+  const total = Math.round(minute);
+  const days = Math.floor(total / MINUTES_PER_DAY);
+  const m = total - days * MINUTES_PER_DAY;
+  return `${shiftDate(date, days)}T${two(Math.floor(m / 60))}:${two(m % 60)}`;
 }
 
 /** "2026-12-03T04:10" → minutes from midnight of `date` (negative the day before). */
 export function minuteOf(t: LocalDateTime, date: string): number {
-  return Math.round((Date.parse(`${t}:00Z`) - midnightUtc(date)) / MS_PER_MINUTE);
+  const clock = clockMinutes(t.slice(11, 16));
+  const day = t.slice(0, 10);
+  if (day === date) return clock;
+  return Math.round((midnightUtc(day) - midnightUtc(date)) / MS_PER_MINUTE) + clock;
 }
 
 /** "06:00" → 360. */

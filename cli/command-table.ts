@@ -1,22 +1,25 @@
 // Which module each command lives in. Only the command named on the command line is imported, so
 // a command starts without loading the others' dependencies (the database, the PDF library, the
-// server). The quick ones are listed in cli/quick-commands.ts.
+// server). The quick ones (QUICK_COMMANDS in scripts/cli-bundle.mjs) also ship as one CommonJS
+// bundle each, which cli/launch.ts starts from a V8 code cache.
 import type { Command } from 'commander';
-import { QUICK_COMMANDS } from './quick-commands.ts';
 
 export type CommandModule = { command: Command };
 export type CommandTable = Record<string, () => Promise<CommandModule>>;
 
-const OTHER_COMMANDS: CommandTable = {
+/** Every command, in the order `panform --help` lists them. */
+export const COMMANDS: CommandTable = {
+  check: () => import('./commands/check.ts'),
+  scale: () => import('./commands/scale.ts'),
+  temp: () => import('./commands/temp.ts'),
+  convert: () => import('./commands/convert.ts'),
+  sheet: () => import('./commands/sheet.ts'),
   diff: () => import('./commands/diff.ts'),
   load: () => import('./commands/load.ts'),
   user: () => import('./commands/user.ts'),
   serve: () => import('./commands/serve.ts'),
   init: () => import('./commands/init.ts'),
+  cost: () => import('./commands/cost.ts'),
+  label: () => import('./commands/label.ts'),
   'git-setup': () => import('./commands/git-setup.ts'),
 };
-
-/** Every command, in the order `panform --help` lists them. */
-export const COMMANDS: CommandTable = Object.fromEntries(
-  ['check', 'scale', 'temp', 'convert', 'sheet', 'diff', 'load', 'user', 'serve', 'init', 'cost', 'label', 'git-setup'].map((n) => [n, QUICK_COMMANDS[n] ?? OTHER_COMMANDS[n]]),
-);

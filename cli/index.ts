@@ -1,5 +1,5 @@
 // Every command as ES modules (compiled to dist/cli/index.js; cli/launch.ts starts it for the
-// commands that quick.cjs does not run).
+// commands that have no quick bundle).
 import { COMMANDS } from './command-table.ts';
 import { runCli } from './program.ts';
 

@@ -1,27 +1,27 @@
 // How `panform` starts (compiled to dist/cli/launch.cjs; bin/panform.js calls it).
 //
-// The quick commands live in one CommonJS bundle, quick.cjs. Node 20 keeps no compiled code
-// between runs, and compiling that bundle is a good part of a quick command's start, so this
-// compiles it with V8's code cache: the first run of each command writes the cache beside the
-// bundle (cache/<command>.v8), later runs start from it. V8 refuses a cache made by another Node
-// version, other flags or another bundle (a rebuild), and the run then compiles as usual and
-// writes a fresh one. Every other command (and help, and a mistyped name) goes to the ES module
-// build, index.js.
-import { mkdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+// Each quick command (check, scale, temp, convert, sheet, cost, label, and --version) lives in a
+// CommonJS bundle of its own, quick-<command>.cjs, holding only that command's code. Node 20 keeps
+// no compiled code between runs, and compiling is a good part of a quick command's start, so this
+// compiles the bundle with V8's code cache: the first run writes the cache beside the bundle
+// (cache/<command>.v8), later runs start from it. V8 refuses a cache made by another Node
+// version, other flags or another bundle (a rebuild); the run then compiles as usual and writes a
+// fresh one. Every other command (and help, and a mistyped name) goes to the ES module build,
+// index.js.
+import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { Script } from 'node:vm';
 
 interface QuickBundle {
-  handles(name: string | undefined): boolean;
   run(argv: string[]): Promise<number>;
 }
 
-/** The cache file for a command: one per command, since each compiles different code. */
-export function cacheFileFor(dir: string, name: string | undefined): string {
-  const safe = name && /^[a-z][a-z-]*$/.test(name) ? name : 'other';
-  return join(dir, 'cache', `${safe}.v8`);
+/** The quick bundle's name for the first command-line word, if that word could have one. */
+export function quickName(word: string | undefined): string | null {
+  if (word === '--version' || word === '-V') return 'version';
+  return word !== undefined && /^[a-z][a-z-]*$/.test(word) ? word : null;
 }
 
 function readCache(file: string): Buffer | undefined {
@@ -60,14 +60,14 @@ function loadQuick(file: string, cacheFile: string): { bundle: QuickBundle; scri
 }
 
 export async function launch(dir: string, argv: string[] = process.argv): Promise<void> {
-  const name = argv[2];
-  const cacheFile = cacheFileFor(dir, name);
-  const { bundle, script, fromCache } = loadQuick(join(dir, 'quick.cjs'), cacheFile);
-  if (!bundle.handles(name)) {
-    if (!fromCache) writeCache(cacheFile, script.createCachedData());
+  const name = quickName(argv[2]);
+  const file = name ? join(dir, `quick-${name}.cjs`) : null;
+  if (!name || !file || !existsSync(file)) {
     await import(pathToFileURL(join(dir, 'index.js')).href);
     return;
   }
+  const cacheFile = join(dir, 'cache', `${name}.v8`);
+  const { bundle, script, fromCache } = loadQuick(file, cacheFile);
   // Made at exit, when the command's own code has been compiled too.
   if (!fromCache) process.once('exit', () => writeCache(cacheFile, script.createCachedData()));
   process.exitCode = await bundle.run(argv);

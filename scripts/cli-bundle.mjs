@@ -38,11 +38,28 @@ const lazyChildProcess = {
 };
 
 /**
+ * The quick commands: files in, numbers out, run many times a night. Each also ships as a
+ * CommonJS bundle of its own (quick-<command>.cjs) that cli/launch.ts starts from a V8 code cache;
+ * "version" answers `panform --version`.
+ */
+export const QUICK_COMMANDS = ['check', 'scale', 'temp', 'convert', 'sheet', 'cost', 'label'];
+
+/** The entry of one quick bundle: the program with that command alone. */
+function quickEntry(name) {
+  const table = name === 'version' ? '{}' : `{ ${JSON.stringify(name)}: async () => command }`;
+  return [
+    "import { runCli } from './cli/program.ts';",
+    ...(name === 'version' ? [] : [`import * as command from './cli/commands/${name}.ts';`]),
+    `const table = ${table};`,
+    'export function run(argv) { return runCli(argv, table); }',
+  ].join('\n');
+}
+
+/**
  * Builds the CLI into `outdir`:
  * - index.js + chunks/: every command as ES modules, code-split (each command loads only what it
  *   needs);
- * - quick.cjs: the quick commands (cli/quick.ts) as one CommonJS file, which launch.cjs compiles
- *   with a V8 code cache;
+ * - quick-<command>.cjs: each quick command as one CommonJS file;
  * - launch.cjs: cli/launch.ts, which picks one of the two;
  * - panform.cjs: runs launch.cjs from this folder (what bin/panform.js loads, and what tests run).
  */
@@ -57,23 +74,13 @@ export async function buildCliBundle({ root = process.cwd(), outdir, logLevel = 
     logLevel,
     plugins: [...plugins, standaloneValidators],
   };
-  await Promise.all([
+  const quick = (name) =>
     build({
       ...common,
-      entryPoints: [join(root, 'cli', 'index.ts')],
-      outdir,
-      splitting: true,
-      format: 'esm',
-      // Bundled CommonJS packages call require() for Node's built-ins.
-      banner: { js: "import { createRequire as __panformCreateRequire } from 'node:module'; const require = __panformCreateRequire(import.meta.url);" },
-      chunkNames: 'chunks/[name]-[hash]',
-    }),
-    build({
-      ...common,
-      entryPoints: [join(root, 'cli', 'quick.ts')],
+      stdin: { contents: quickEntry(name), resolveDir: root, sourcefile: `quick-${name}.ts`, loader: 'ts' },
       plugins: [...common.plugins, lazyChildProcess],
       write: false,
-      outfile: join(outdir, 'quick.cjs'),
+      outfile: join(outdir, `quick-${name}.cjs`),
       format: 'cjs',
       // Code run from a vm.Script has no loader for import(): the external packages these commands
       // load on demand (pdfkit, nodemailer) are CommonJS and are required instead.
@@ -89,8 +96,20 @@ export async function buildCliBundle({ root = process.cwd(), outdir, logLevel = 
       // esbuild leaves non-ASCII characters in regular expressions, where a \uXXXX escape means the same.
       const text = r.outputFiles[0].text.replace(/[^\x00-\x7f]/g, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`);
       mkdirSync(outdir, { recursive: true });
-      writeFileSync(join(outdir, 'quick.cjs'), text);
+      writeFileSync(join(outdir, `quick-${name}.cjs`), text);
+    });
+  await Promise.all([
+    build({
+      ...common,
+      entryPoints: [join(root, 'cli', 'index.ts')],
+      outdir,
+      splitting: true,
+      format: 'esm',
+      // Bundled CommonJS packages call require() for Node's built-ins.
+      banner: { js: "import { createRequire as __panformCreateRequire } from 'node:module'; const require = __panformCreateRequire(import.meta.url);" },
+      chunkNames: 'chunks/[name]-[hash]',
     }),
+    ...[...QUICK_COMMANDS, 'version'].map(quick),
     build({ ...common, entryPoints: [join(root, 'cli', 'launch.ts')], outfile: join(outdir, 'launch.cjs'), format: 'cjs' }),
   ]);
   writeFileSync(join(outdir, 'panform.cjs'), "'use strict';\n// Runs the CLI built in this folder (scripts/cli-bundle.mjs).\nrequire('./launch.cjs').launch(__dirname);\n");

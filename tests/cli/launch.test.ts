@@ -1,10 +1,12 @@
 import { existsSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { COMMANDS } from '#cli/command-table';
+import { QUICK_COMMANDS } from '../../scripts/cli-bundle.mjs';
 import { buildCli, type BuiltCli } from './arithmetic-cli.ts';
 
-// cli/launch.ts: the quick commands run from quick.cjs with a V8 code cache per command, the rest
-// from the ES module build. A cache is only ever a speed-up: whatever is in the cache folder (or
+// cli/launch.ts: each quick command runs from its own CommonJS bundle with a V8 code cache, the
+// rest from the ES module build. A cache is only ever a speed-up: whatever is in the cache folder (or
 // when it cannot be written), the command prints the same thing.
 let cli: BuiltCli;
 const scale = ['scale', 'harbour-ciabatta', '--pieces', '24', '--json'];
@@ -35,6 +37,11 @@ describe('the launcher', () => {
       expect(await cli.run(scale)).toEqual(good);
       expect(statSync(join(cacheDir(), 'scale.v8')).size).toBeGreaterThan(1000);
     }
+  });
+
+  it('has a bundle for each quick command, and each is a command of the program', () => {
+    for (const name of [...QUICK_COMMANDS, 'version']) expect(existsSync(join(cli.dir, `quick-${name}.cjs`))).toBe(true);
+    for (const name of QUICK_COMMANDS) expect(Object.keys(COMMANDS)).toContain(name);
   });
 
   it('runs the other commands from the module build', async () => {

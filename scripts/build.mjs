@@ -20,9 +20,7 @@ if (process.exitCode !== 1) {
   rmSync('dist/cli', { recursive: true, force: true });
   renameSync(next, 'dist/cli');
   if (!onlyCli) {
-    const { build: viteBuild } = await import('vite');
-    await viteBuild({ logLevel: 'warn' });
-    // The viewer's server build: the first render of a formula page (src/ssr, server/ssr.ts).
-    await viteBuild({ logLevel: 'warn', build: { ssr: 'src/ssr/entry-server.tsx', outDir: 'dist/ssr', emptyOutDir: true, copyPublicDir: false } });
+    const { buildViewer } = await import('./build-viewer.mjs');
+    await buildViewer();
   }
 }

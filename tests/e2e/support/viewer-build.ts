@@ -25,15 +25,11 @@ export function viewerBuildIsStale(root = process.cwd()): boolean {
 
 export function ensureViewerBuilt(root = process.cwd()): void {
   if (!viewerBuildIsStale(root)) return;
-  const vite = (args: string[]) =>
-    execFileSync(process.execPath, [resolve(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'error', ...args], {
-      cwd: root,
-      // vitest runs with NODE_ENV=test, which would make Vite build React's development runtime.
-      env: { ...process.env, NODE_ENV: 'production' },
-      stdio: ['ignore', 'ignore', 'pipe'],
-      timeout: 240_000,
-    });
-  vite([]);
-  // As scripts/build.mjs builds it.
-  vite(['--ssr', 'src/ssr/entry-server.tsx', '--outDir', 'dist/ssr', '--emptyOutDir', '--copyPublicDir', 'false']);
+  execFileSync(process.execPath, [resolve(root, 'scripts/build-viewer.mjs'), '--quiet'], {
+    cwd: root,
+    // vitest runs with NODE_ENV=test, which would make Vite build React's development runtime.
+    env: { ...process.env, NODE_ENV: 'production' },
+    stdio: ['ignore', 'ignore', 'pipe'],
+    timeout: 240_000,
+  });
 }

@@ -6,18 +6,9 @@
 // HTTP cache and Chromium keeps their compiled code; the measured load is still a full page load
 // of a formula not opened before.
 import { existsSync } from 'node:fs';
+import { CHROMIUM, CHROMIUM_FLAGS as FLAGS } from './chromium.mjs';
 
-export const CHROMIUM = '/usr/bin/chromium';
-const FLAGS = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
+export { CHROMIUM };
 
 /**
  * Runs in each new document before its own scripts: notes the page's clock (origin: the start of

@@ -4,20 +4,10 @@ import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { CHROMIUM, CHROMIUM_FLAGS as FLAGS } from '../../../bench/lib/chromium.mjs';
 
-export const CHROMIUM = '/usr/bin/chromium';
+export { CHROMIUM };
 export const SCREENSHOTS = 'test-results/screenshots';
-
-const FLAGS = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
 
 export function hasChromium(): boolean {
   return existsSync(CHROMIUM);

@@ -55,7 +55,7 @@ export function createPageRenderer(webDir: string, ctx: ServerContext, log: (m: 
     if (!ssr) return null;
     let detail: FormulaDetail;
     try {
-      detail = JSON.parse((await formulaDetailAnswer(ctx, user.role as Role, decodeURIComponent(id))).body) as FormulaDetail;
+      detail = JSON.parse((await formulaDetailAnswer(ctx, user.role as Role, decodeURIComponent(id))).body.toString('utf8')) as FormulaDetail;
     } catch {
       // Not found, not visible to this role, not readable: the viewer shows that page itself.
       return null;

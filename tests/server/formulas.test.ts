@@ -1,6 +1,7 @@
 // What each role receives from the formula, plan and catalog routes: bench never gets a cost, a
 // price, a draft or a retired formula; scaling on the server follows the shared arithmetic.
 import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import http from 'node:http';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -135,6 +136,36 @@ describe('GET /api/formulas/:id', () => {
     expect(d.scaled.mixedDough).toBeCloseTo(mixed, 9);
     expect(d.scaled.flour).toBeCloseTo(mixed / (d.scaled.totalPercent / 100), 9);
     expect(d.reference.mixedDough).toBeCloseTo(ref.scaled.mixedDough, 9);
+  });
+
+  it('sends the kept answer with an ETag, 304 when the client has it, headers only for HEAD', async () => {
+    const url = `${t.url}/api/formulas/harbour-ciabatta`;
+    const first = await fetch(url, { headers: { cookie: cookie.bench } });
+    expect(first.status).toBe(200);
+    expect(first.headers.get('content-type')).toBe('application/json; charset=utf-8');
+    const etag = first.headers.get('etag');
+    expect(etag).toMatch(/^W\/"/);
+    const text = await first.text();
+    expect(Number(first.headers.get('content-length'))).toBe(Buffer.byteLength(text));
+    expect((JSON.parse(text) as FormulaDetail).formula.id).toBe('harbour-ciabatta');
+    // Plain http: fetch adds "cache-control: no-cache" to a conditional request, which asks for a 200.
+    const again = await new Promise<{ status: number; body: string }>((done, fail) => {
+      http
+        .get(url, { headers: { cookie: cookie.bench, 'if-none-match': etag! } }, (res) => {
+          let body = '';
+          res.on('data', (c) => (body += c));
+          res.on('end', () => done({ status: res.statusCode ?? 0, body }));
+        })
+        .on('error', fail);
+    });
+    expect(again).toEqual({ status: 304, body: '' });
+    const head = await fetch(url, { method: 'HEAD', headers: { cookie: cookie.bench } });
+    expect(head.status).toBe(200);
+    expect(head.headers.get('etag')).toBe(etag);
+    expect(await head.text()).toBe('');
+    // Costs shown or not is part of the answer: another role, another ETag.
+    const author = await fetch(url, { headers: { cookie: cookie.author } });
+    expect(author.headers.get('etag')).not.toBe(etag);
   });
 
   it('scales by mixed dough weight without loss', async () => {

@@ -13,10 +13,19 @@ function midnightUtc(date: string): number {
 const MINUTES_PER_DAY = 1440;
 const two = (n: number) => (n < 10 ? `0${n}` : String(n));
 
+const shifted = new Map<string, string>();
+
 /** "2026-12-03" shifted by whole days ("2026-12-02" for -1), on the UTC calendar. */
 function shiftDate(date: string, days: number): string {
   if (days === 0) return date;
-  return new Date(midnightUtc(date) + days * MINUTES_PER_DAY * MS_PER_MINUTE).toISOString().slice(0, 10);
+  const key = `${date}${days}`;
+  let day = shifted.get(key);
+  if (day === undefined) {
+    day = new Date(midnightUtc(date) + days * MINUTES_PER_DAY * MS_PER_MINUTE).toISOString().slice(0, 10);
+    if (shifted.size > 1000) shifted.clear();
+    shifted.set(key, day);
+  }
+  return day;
 }
 
 /** "2026-12-03", 250 → "2026-12-03T04:10"; -120 → "2026-12-02T22:00". Minutes are rounded to whole minutes. */

@@ -8,7 +8,6 @@ import { existsSync, readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { FormulaDetail, Me } from '#shared/api';
-import type { Role } from '#shared/permissions';
 import { roleHasPermission } from '#shared/permissions';
 import type { ServerContext } from './context.ts';
 import { formulaDetailAnswer } from './routes/formulas.ts';
@@ -50,12 +49,12 @@ export function createPageRenderer(webDir: string, ctx: ServerContext, log: (m: 
 
   async function render(path: string, search: string, user: Me['user']): Promise<RenderedPage | null> {
     const id = FORMULA_PAGE.exec(path)?.[1];
-    if (!id || !roleHasPermission(user.role as Role, 'read:formula:active')) return null;
+    if (!id || !roleHasPermission(user.role, 'read:formula:active')) return null;
     const ssr = await load();
     if (!ssr) return null;
     let detail: FormulaDetail;
     try {
-      detail = JSON.parse((await formulaDetailAnswer(ctx, user.role as Role, decodeURIComponent(id))).body.toString('utf8')) as FormulaDetail;
+      detail = JSON.parse((await formulaDetailAnswer(ctx, user.role, decodeURIComponent(id))).body.toString('utf8')) as FormulaDetail;
     } catch {
       // Not found, not visible to this role, not readable: the viewer shows that page itself.
       return null;

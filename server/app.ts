@@ -77,6 +77,11 @@ export function createApp(opts: AppOptions): Express {
   const scrypt = opts.scrypt ?? DEFAULT_SCRYPT;
   const limiters = createLimiters(opts.limits ?? DEFAULT_LIMITS, now);
   const sessions = new SessionStore(handle.db, env.sessionDays, now);
+  /** The session the request's cookie belongs to, if it is still valid. */
+  const sessionOf = (req: Request) => {
+    const token = readCookie(req.headers.cookie, SESSION_COOKIE);
+    return token ? sessions.find(token) : Promise.resolve(null);
+  };
   const pending = new Set<Promise<unknown>>();
   const mailer = opts.sendMail ?? ((m: OutgoingMail) => sendMailDefault(m, { smtpUrl: env.smtpUrl, outbox: env.outbox, from: env.mailFrom }).then(() => undefined));
 
@@ -171,8 +176,7 @@ export function createApp(opts: AppOptions): Express {
     csrfProtection(env.publicUrl),
     express.json({ limit: JSON_LIMIT, strict: true }),
     async (req: Request, _res: Response, next: NextFunction) => {
-      const token = readCookie(req.headers.cookie, SESSION_COOKIE);
-      req.auth = token ? await sessions.find(token) : null;
+      req.auth = await sessionOf(req);
       next();
     },
     api,
@@ -202,12 +206,11 @@ export function createApp(opts: AppOptions): Express {
       next();
       return;
     }
-    if (!webDir || !pages) {
+    if (!pages) {
       res.status(503).type('text/plain').send('The Panform viewer is not built. Run `npm run build`, then start the server again.\n');
       return;
     }
-    const token = readCookie(req.headers.cookie, SESSION_COOKIE);
-    const session = token ? await sessions.find(token) : null;
+    const session = await sessionOf(req);
     const url = new URL(req.originalUrl, 'http://panform.local');
     const html = await pages.page(url.pathname, url.search, session?.user ?? null);
     res.setHeader('Cache-Control', 'private, no-cache');

@@ -163,7 +163,7 @@ const NEEDS_FULL_READER = [
   /^[ ]*(---|\.\.\.|%)/m, // document markers and directives
   /(^|[\s{[,-])[:?](?=[\s,\]}]|$)/m, // an empty or complex key (a lone ":" or "?")
   /(^|[\s{[,-])(~|null|Null|NULL)[ ]*[:,}\]]/m, // a null key: "" to `yaml`, "null" to js-yaml
-  /(^|[\s{[,-])[&!]/m, // anchors and tags
+  /(^|[\s{[,-])[&!][^\s]/m, // anchors and tags ("&name", "!tag"); a lone "&" in a note is plain text
   /[|>][-+]?[0-9]/, // a block scalar with an explicit indentation
 ];
 

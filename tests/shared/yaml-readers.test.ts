@@ -52,6 +52,7 @@ describe('the quick YAML read agrees with the full reader', () => {
     ['prototype keys', '__proto__: {x: 1}\nconstructor: 2\ntoString: 3\n'],
     ['a byte-order mark', '\uFEFFa: 1\n'],
     ['comments', '# top\na: 1 # after\nb: "#not"\n'],
+    ['an ampersand or a bang in a note', 'notes: mix & fold, then rest\nwarn: hot oven !\n'],
   ])('on %s', (_, text) => {
     expect(quickReadYaml(text)).not.toBeNull();
     expectSameMeaning(text);

@@ -53,7 +53,8 @@ export interface InitAnswers {
 /** The prompt functions init uses; tests pass their own. */
 export interface Prompts {
   input(q: { message: string; default?: string; validate?: (v: string) => true | string }): Promise<string>;
-  number(q: { message: string; default?: number; min?: number; max?: number; required?: boolean }): Promise<number | undefined>;
+  /** `step` defaults to 1 (whole numbers only); 'any' takes decimals. */
+  number(q: { message: string; default?: number; min?: number; max?: number; step?: number | 'any'; required?: boolean }): Promise<number | undefined>;
   select<T extends string>(q: { message: string; choices: { name: string; value: T }[]; default?: T }): Promise<T>;
   confirm(q: { message: string; default?: boolean }): Promise<boolean>;
 }
@@ -170,6 +171,7 @@ async function askLines(prompts: Prompts, what: 'flour' | 'ingredient', suggesti
     if (name === '') return lines;
     const percent = await prompts.number({
       message: `${name}: baker's %`,
+      step: 'any',
       default: what === 'flour' ? 100 - sum : undefined,
       min: 0,
       max: what === 'flour' ? 100 - sum : undefined,
@@ -198,7 +200,7 @@ export async function askAnswers(prompts: Prompts, exists: (id: string) => boole
       }
     },
   });
-  const loss = await prompts.number({ message: 'Loss in the bowl and on the bench, %', default: 2, min: 0, max: 99 });
+  const loss = await prompts.number({ message: 'Loss in the bowl and on the bench, %', default: 2, min: 0, max: 99, step: 'any' });
   const ddtText = await prompts.input({ message: 'Desired dough temperature, °C (empty for none)', default: '25', validate: (v) => (v.trim() === '' || Number.isFinite(Number(v)) ? true : 'a number of °C') });
   const flours = await askLines(prompts, 'flour', ['bread flour']);
   const ingredients = await askLines(prompts, 'ingredient', ['water', 'fine salt', 'instant yeast']);
@@ -215,18 +217,18 @@ export async function askAnswers(prompts: Prompts, exists: (id: string) => boole
   });
   let preferment: InitPreferment | null = null;
   if (kind !== 'none') {
-    const share = (await prompts.number({ message: `${kind}: share of the total flour, %`, default: kind === 'levain' ? 20 : 30, min: 0.1, max: 100, required: true })) ?? 0;
-    const hydration = (await prompts.number({ message: `${kind}: water, % of its flour`, default: kind === 'biga' ? 60 : 100, min: 0, required: true })) ?? 0;
+    const share = (await prompts.number({ message: `${kind}: share of the total flour, %`, default: kind === 'levain' ? 20 : 30, min: 0.1, max: 100, step: 'any', required: true })) ?? 0;
+    const hydration = (await prompts.number({ message: `${kind}: water, % of its flour`, default: kind === 'biga' ? 60 : 100, min: 0, step: 'any', required: true })) ?? 0;
     if (kind === 'levain') {
       const name = await prompts.input({ message: 'Seed culture (a catalog entry of kind culture)', default: 'mature levain' });
-      const percent = (await prompts.number({ message: `${name}: % of the levain's flour`, default: 20, min: 0, required: true })) ?? 0;
+      const percent = (await prompts.number({ message: `${name}: % of the levain's flour`, default: 20, min: 0, step: 'any', required: true })) ?? 0;
       preferment = { kind, name: 'levain', share, hydration, seed: { name, percent } };
     } else {
       const yeasts = ingredients.filter((l) => /yeast/i.test(l.name)).map((l) => l.name);
       let yeast: InitLine | undefined;
       if (yeasts.length > 0) {
         const name = yeasts.length === 1 ? yeasts[0] : await prompts.select({ message: `${kind}: which yeast`, choices: yeasts.map((y) => ({ name: y, value: y })) });
-        const percent = (await prompts.number({ message: `${name} in the ${kind}: % of its flour`, default: 0.1, min: 0, required: true })) ?? 0;
+        const percent = (await prompts.number({ message: `${name} in the ${kind}: % of its flour`, default: 0.1, min: 0, step: 'any', required: true })) ?? 0;
         yeast = { name, percent };
       }
       preferment = { kind, name: kind, share, hydration, yeast };

@@ -115,7 +115,11 @@ function scripted(answers: unknown[]): Prompts & { asked: string[] } {
     },
     async number(q) {
       const v = next(q.message);
-      return v === undefined ? q.default : Number(v);
+      const value = v === undefined ? q.default : Number(v);
+      // The rule @inquirer/number applies: without step 'any', only multiples of the step (1) pass.
+      const step = q.step ?? 1;
+      if (value !== undefined && step !== 'any' && !Number.isInteger(value / step)) throw new Error(`${q.message}: ${value} refused, must be a multiple of ${step}`);
+      return value;
     },
     async select(q) {
       const v = next(q.message);
@@ -162,6 +166,30 @@ describe('panform init (questions)', () => {
     const parsed = parseFormulaText(text, r.path);
     expect(parsed.ok).toBe(true);
     expect(r.findings.filter((f) => f.severity === 'error')).toEqual([]);
+  });
+
+  it('takes decimals for percentages, loss and the pre-ferment, including its own 0.1 % yeast default', async () => {
+    const prompts = scripted([
+      'quay-baguette', undefined, 'lean', 20, '350 g',
+      1.5, // loss
+      '', // no dough temperature
+      'bread flour', undefined,
+      'water', 72.5,
+      'fine salt', 1.8,
+      'instant yeast', 0.35,
+      '',
+      'poolish',
+      33.3, // share
+      undefined, // hydration 100
+      undefined, // yeast 0.1 % of the poolish's flour (the default)
+    ]);
+    const r = await runInit({ dir: join(bakery(), 'formulas') }, prompts);
+    const text = readFileSync(r.path, 'utf8');
+    expect(text).toContain('  water: 72.5');
+    expect(text).toContain('  fine salt: 1.8');
+    expect(text).toContain('loss: 1.5 %');
+    expect(text).toContain('    share: 33.3 %');
+    expect(text).toContain('      instant yeast: 0.1');
   });
 
   it('will not take an id that exists already', async () => {

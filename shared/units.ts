@@ -220,6 +220,22 @@ export function formatMass(grams: number, system: UnitSystem, res: Resolution = 
   return lb > 0 ? `${sign}${lb} lb ${ozText} oz` : `${sign}${ozText} oz`;
 }
 
+/**
+ * A weight in its own unit, rounded as a person reads it: grams to the scale's resolution
+ * (1 g, 0.1 g below 100 g), kilograms and pounds to the thousandth (about a gram and half a gram),
+ * ounces to the hundredth (three decimals under 1 oz, as formatMass prints them).
+ */
+export function roundMassIn(value: number, unit: MassUnit): number {
+  if (unit === 'g') return roundGrams(value);
+  const decimals = unit === 'oz' ? (Math.abs(value) < 1 ? 3 : 2) : 3;
+  return Number(value.toFixed(decimals));
+}
+
+/** A temperature or temperature difference to a tenth of a degree, as thermometers show it. */
+export function roundDegrees(value: number): number {
+  return Number(value.toFixed(1));
+}
+
 function groupThousands(s: string): string {
   const [int, frac] = s.split('.');
   const neg = int.startsWith('-');

@@ -5,6 +5,7 @@ import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { Command } from 'commander';
 import { convert, ConvertError, HAMELMAN_YEAST_FACTORS, yeastFactorsFrom, YEAST_FACTORS_SOURCE, type Conversion, type YeastFactors } from '#shared/convert';
+import { roundDegrees, roundMassIn } from '#shared/units';
 import { InputError, UsageError } from '../errors.ts';
 
 interface RawOptions {
@@ -63,20 +64,31 @@ export async function collectConvert(opts: ConvertOptions): Promise<ConvertData>
 const MASS_LABEL = { g: 'g', kg: 'kg', oz: 'oz', lb: 'lb' } as const;
 const YEAST_LABEL = { fresh: 'fresh yeast', 'active-dry': 'active dry yeast', instant: 'instant yeast' } as const;
 
-/** Ten significant digits: shows exact definitions (907.18474 g) without float noise (78.8, not 78.80000000000001). */
-function number(v: number): string {
+/** The number as given: ten significant digits, without float noise (78.8, not 78.80000000000001). */
+function given(v: number): string {
   return String(Number(v.toPrecision(10)));
 }
 
+/** "=" when the rounded figure is the exact one, "≈" when it was rounded for reading. */
+function rounded(exact: number, shown: number): string {
+  return `${Math.abs(exact - shown) < 1e-9 ? '=' : '≈'} ${shown}`;
+}
+
+/** Text for people: results rounded as a scale or a thermometer shows them; --json keeps the full value. */
 export function convertText(c: ConvertData): string {
   switch (c.kind) {
     case 'mass':
-      return `${number(c.value)} ${MASS_LABEL[c.from]} = ${number(c.result)} ${MASS_LABEL[c.to]}\n`;
-    case 'temperature':
-      return `${number(c.value)} °${c.from} = ${number(c.result)} °${c.to}\n  (a temperature difference, such as friction, converts by ×${c.from === 'C' ? '1.8' : '5/9'} alone: ${number(c.value)} °${c.from}-degrees = ${number(c.from === 'C' ? c.value * 1.8 : c.value / 1.8)} °${c.to}-degrees)\n`;
+      return `${given(c.value)} ${MASS_LABEL[c.from]} ${rounded(c.result, roundMassIn(c.result, c.to))} ${MASS_LABEL[c.to]}\n`;
+    case 'temperature': {
+      const delta = c.from === 'C' ? c.value * 1.8 : c.value / 1.8;
+      return (
+        `${given(c.value)} °${c.from} ${rounded(c.result, roundDegrees(c.result))} °${c.to}\n` +
+        `  (a temperature difference, such as friction, converts by ×${c.from === 'C' ? '1.8' : '5/9'} alone: ${given(c.value)} °${c.from}-degrees ${rounded(delta, roundDegrees(delta))} °${c.to}-degrees)\n`
+      );
+    }
     case 'yeast':
       return (
-        `${number(c.value)} ${MASS_LABEL[c.unit]} ${YEAST_LABEL[c.from]} = ${number(c.result)} ${MASS_LABEL[c.unit]} ${YEAST_LABEL[c.to]} (× ${number(c.factor)})\n` +
+        `${given(c.value)} ${MASS_LABEL[c.unit]} ${YEAST_LABEL[c.from]} ${rounded(c.result, roundMassIn(c.result, c.unit))} ${MASS_LABEL[c.unit]} ${YEAST_LABEL[c.to]} (× ${given(c.factor)})\n` +
         `  factors against fresh yeast: fresh ${c.factors.fresh}, active dry ${c.factors['active-dry']}, instant ${c.factors.instant}; from ${c.source ?? YEAST_FACTORS_SOURCE}\n` +
         (c.to === 'active-dry' ? '  dissolve active dry yeast in some of the dough\'s water first\n' : '')
       );
@@ -87,14 +99,14 @@ export const command = new Command('convert')
   .description('Convert weights (g, kg, oz, lb), temperatures (C, F) and yeast (fresh, active-dry, instant).')
   .argument('<value>', 'the number to convert')
   .argument('<units...>', 'from and to units; for yeast: a weight unit, then from and to yeast types')
-  .option('--json', 'print the result as JSON')
+  .option('--json', 'print the result as JSON, unrounded')
   .option('--catalog <file>', 'catalog whose yeast entries set `yeast_factor` (default: formulas/ingredients.yaml or ./ingredients.yaml when present)')
   .addHelpText(
     'after',
     `
 Examples:
-  $ panform convert 2 lb g              # 907.18474 g (1 lb = 453.592 37 g exactly)
-  $ panform convert 26 C F              # 78.8 °F
+  $ panform convert 2 lb g              # ≈ 907 g (1 lb = 453.592 37 g exactly; --json: 907.18474)
+  $ panform convert 78 F C              # ≈ 25.6 °C
   $ panform convert 10 g fresh instant  # 3.3 g instant yeast
 
 Yeast: one factor per type against fresh yeast (Hamelman, Bread, Wiley 2004: fresh 1,

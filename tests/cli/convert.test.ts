@@ -20,8 +20,10 @@ const run = (args: string[], cwd = empty) => cli.run(['convert', ...args], { cwd
 
 describe('panform convert', () => {
   it.each([
-    [['2', 'lb', 'g'], '2 lb = 907.18474 g'], // trade-references §1: 1 lb = 453.592 37 g exactly
-    [['1', 'oz', 'g'], '1 oz = 28.34952313 g'], // §1: 28.349 523 125 g (ten significant digits shown)
+    [['2', 'lb', 'g'], '2 lb ≈ 907 g'], // NIST SP 811 App. B.8: 1 lb = 453.592 37 g exactly; 907.18474 g to the gram
+    [['1', 'oz', 'g'], '1 oz ≈ 28.3 g'], // NIST SP 811 App. B.8: 28.349 523 125 g; 0.1 g below 100 g
+    [['1000', 'g', 'lb'], '1000 g ≈ 2.205 lb'], // NIST SP 811 App. B.8: 1000 / 453.592 37 = 2.204 62 lb
+    [['78', 'F', 'C'], '78 °F ≈ 25.6 °C'], // NIST SP 811 App. B.8: t/°C = (t/°F − 32)/1.8 = 25.555…
     [['26', 'C', 'F'], '26 °C = 78.8 °F'], // §1 fixed point
     [['-40', 'C', 'F'], '-40 °C = -40 °F'], // §1 fixed point: the scales meet
     [['10', 'g', 'fresh', 'instant'], '10 g fresh yeast = 3.3 g instant yeast (× 0.33)'], // §5 Hamelman: × 0.33
@@ -33,9 +35,16 @@ describe('panform convert', () => {
     expect(r.stdout.split('\n')[0]).toBe(line);
   });
 
-  it('prints JSON with --json', async () => {
+  it('prints JSON with --json, unrounded', async () => {
     const r = await run(['2', 'lb', 'g', '--json']);
-    expect(JSON.parse(r.stdout)).toMatchObject({ kind: 'mass', value: 2, from: 'lb', to: 'g', result: 907.18474 });
+    expect(JSON.parse(r.stdout)).toMatchObject({ kind: 'mass', value: 2, from: 'lb', to: 'g', result: 907.18474 }); // NIST SP 811 App. B.8
+    const t = JSON.parse((await run(['78', 'F', 'C', '--json'])).stdout);
+    expect(t.result).toBeCloseTo(25.5555555556, 9); // NIST SP 811 App. B.8: (78 − 32)/1.8
+  });
+
+  it('rounds the temperature difference line too', async () => {
+    const r = await run(['78', 'F', 'C']);
+    expect(r.stdout.split('\n')[1]).toContain('78 °F-degrees ≈ 43.3 °C-degrees'); // NIST SP 811 App. B.8: a difference converts by 5/9 alone
   });
 
   it('takes the yeast factor from the catalog when it sets one', async () => {

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import {
   convertMass, DEFAULT_RESOLUTION, fahrenheitDeltaToCelsius, formatGrams, formatMass, GRAMS_PER_OUNCE, GRAMS_PER_POUND, parseMass,
   parseMassArgument, parseResolution, parseTemperature, parseTemperatureArgument, parseTemperatureDelta, parseTemperatureDeltaArgument,
-  QuantityError, roundGrams, toGrams,
+  QuantityError, roundDegrees, roundGrams, roundMassIn, toGrams,
 } from '#shared/units';
 
 describe('exact weights', () => {
@@ -94,6 +94,26 @@ describe('roundGrams', () => {
 
   it.each(['', '0', '-1', 'one', '1,2,3,4', '1,,100'])('refuses the resolution %j', (text) => {
     expect(() => parseResolution(text)).toThrow(QuantityError);
+  });
+});
+
+describe('roundMassIn', () => {
+  it.each([
+    [907.18474, 'g', 907], // NIST SP 811 App. B.8: 2 lb = 907.184 74 g; 1 g steps at or above 100 g
+    [28.349523125, 'g', 28.3], // NIST SP 811 App. B.8: 1 oz; 0.1 g steps below 100 g
+    [2.20462262, 'lb', 2.205], // NIST SP 811 App. B.8: 1 kg = 2.204 622 6 lb
+    [35.27396195, 'oz', 35.27], // NIST SP 811 App. B.8: 1 kg = 35.273 96 oz
+    [0.35273962, 'oz', 0.353], // 10 g in oz: three decimals under 1 oz
+    [0.45359237, 'kg', 0.454], // NIST SP 811 App. B.8: 1 lb = 0.453 592 37 kg
+  ] as const)('shows %d %s as %d', (value, unit, shown) => {
+    expect(roundMassIn(value, unit)).toBe(shown);
+  });
+});
+
+describe('roundDegrees', () => {
+  it('keeps a tenth of a degree', () => {
+    expect(roundDegrees((78 - 32) / 1.8)).toBe(25.6); // NIST SP 811 App. B.8: 78 °F = 25.555… °C
+    expect(roundDegrees(-40)).toBe(-40); // NIST SP 811 App. B.8: the scales meet at −40
   });
 });
 

@@ -48,9 +48,33 @@ function parseCatalogOrThrow(text: string, file: string): Catalog {
   return parsed.value;
 }
 
-function catalogNear(file: string, explicit?: string): Catalog {
-  const path = explicit ?? findCatalogPath(file);
-  return path ? parseCatalogOrThrow(readText(path), path) : {};
+function readCatalogAt(path: string): Catalog {
+  return parseCatalogOrThrow(readText(path), path);
+}
+
+/**
+ * Each side's catalog: --catalog, else the one beside that file (or in its parent folder), else
+ * the other file's; a file copied out of the project is still read against the project's catalog.
+ * With none anywhere the figures could not be worked out, so that is an error.
+ */
+function catalogsFor(oldPath: string, newPath: string, explicit?: string): { before: Catalog; after: Catalog } {
+  if (explicit) {
+    const c = readCatalogAt(explicit);
+    return { before: c, after: c };
+  }
+  const nearOld = findCatalogPath(oldPath);
+  const nearNew = findCatalogPath(newPath);
+  const oldCatalog = nearOld ?? nearNew;
+  const newCatalog = nearNew ?? nearOld;
+  if (!oldCatalog || !newCatalog) {
+    throw new InputError(
+      `no ingredient catalog (${CATALOG_FILE}) beside ${oldPath} or ${newPath}, nor in their parent folders`,
+      [],
+      'give one with --catalog FILE, e.g. --catalog formulas/ingredients.yaml',
+    );
+  }
+  const after = readCatalogAt(newCatalog);
+  return { before: oldCatalog === newCatalog ? after : readCatalogAt(oldCatalog), after };
 }
 
 /** `git show REV:./name` run in the file's folder; null when the file is not in that revision. */
@@ -133,7 +157,8 @@ export async function collectDiff(options: DiffOptions): Promise<DiffReport> {
   const [oldPath, newPath] = options.paths;
   const before = parseFormulaOrThrow(readText(oldPath), oldPath);
   const after = parseFormulaOrThrow(readText(newPath), newPath);
-  const diff = diffFormulas(before, after, catalogNear(newPath, options.catalog), catalogNear(oldPath, options.catalog));
+  const catalogs = catalogsFor(oldPath, newPath, options.catalog);
+  const diff = diffFormulas(before, after, catalogs.after, catalogs.before);
   return { rev: null, diffs: [{ path: newPath, oldPath, diff }] };
 }
 

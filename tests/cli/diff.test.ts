@@ -56,6 +56,27 @@ describe('panform diff OLD NEW', () => {
     expect(report.diffs[0].diff.figures.rows.find((r) => r.key === 'flour')?.after).toBeCloseTo(5000 / 1.78, 9);
   });
 
+  it('reads a "before" file kept away from the catalog against the other file\'s catalog', async () => {
+    const project = scratch();
+    const away = scratch();
+    writeFileSync(join(project, 'ingredients.yaml'), CATALOG);
+    writeFileSync(join(project, 'test-loaf.yaml'), loaf(75));
+    writeFileSync(join(away, 'old.yaml'), loaf(70));
+    const report = await collectDiff({ paths: [join(away, 'old.yaml'), join(project, 'test-loaf.yaml')], json: false });
+    // total % 100 + 70 + 2 + 1 = 173 before (baker's percent: the sum of all percentages)
+    expect(printDiff(report)).toMatch(/~ total %\s+173\.00 %\s+178\.00 %/);
+  });
+
+  it('says there is no catalog and exits 1 when neither file has one near it', async () => {
+    const a = scratch();
+    const b = scratch();
+    writeFileSync(join(a, 'old.yaml'), loaf(70));
+    writeFileSync(join(b, 'test-loaf.yaml'), loaf(75));
+    const failure = collectDiff({ paths: [join(a, 'old.yaml'), join(b, 'test-loaf.yaml')], json: false });
+    await expect(failure).rejects.toBeInstanceOf(InputError);
+    await expect(failure).rejects.toMatchObject({ code: 1, message: expect.stringMatching(/^no ingredient catalog \(ingredients\.yaml\) beside /) });
+  });
+
   it('refuses one file without --rev, and names the file that cannot be read', async () => {
     const d = scratch();
     writeFileSync(join(d, 'a.yaml'), loaf(70));

@@ -4,7 +4,7 @@
 // Conventions:
 // - Costs are computed on the overall formula (pre-ferments and soakers included: their
 //   ingredients are overall lines). A levain's seed culture is not priced separately: its flour
-//   and water count as the formula's flour and water (README "Arithmetic").
+//   and water count as the formula's flour and water (docs/arithmetic.md).
 // - The batch is the mixed dough, so the loss allowance is paid for: cost per piece = batch / pieces.
 // - cost per kg of dough = batch / mixed dough × 1000.
 // - A line whose ingredient has no price is never counted as zero: its cost is null, its name is

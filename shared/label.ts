@@ -2,7 +2,7 @@
 //
 // Order. Ingredients are listed in descending order of weight as used: the overall formula, with
 // the pre-ferments' and soakers' ingredients merged into it (they are overall lines already). A
-// levain's seed culture counts as flour and water (README "Arithmetic"); when the build has no line
+// levain's seed culture counts as flour and water (docs/arithmetic.md); when the build has no line
 // of the flour the culture is fed with, the seed's flour is moved from the build's flour to that flour.
 // Lines with the same name on the statement (two flours both labelled "wheat flour") are one entry.
 //

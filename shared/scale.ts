@@ -1,6 +1,6 @@
 // Baker's arithmetic: a formula in baker's percent scaled to a batch. Pure; no I/O.
 //
-// Conventions (README "Arithmetic"):
+// Conventions (docs/arithmetic.md):
 // - total % = sum of all overall percentages (flours + ingredients).
 // - pieces: divided dough D = N·P; mixed dough M = D / (1 − loss); flour F = M / (total % / 100).
 // - mix or flour target: no loss is applied.

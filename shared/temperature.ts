@@ -2,7 +2,7 @@
 // add when that water must be colder than the tap, and a mixer's friction worked back from a
 // measured dough. Pure; no I/O.
 //
-// Conventions (README "Arithmetic"):
+// Conventions (docs/arithmetic.md):
 // - water = n·DDT − (room + flour + each pre-ferment + friction), where n counts room, flour,
 //   water and each pre-ferment: 3 without a pre-ferment, 4 with one, 5 with two ...
 //   Friction is a temperature *difference*. Because n counts the water too, the method gives

@@ -109,7 +109,7 @@ Example:
   $ npm start                      # panform serve --demo: the demo bakery on http://localhost:3000
 
 Environment: PORT, PANFORM_DATA, DATABASE_URL, SMTP_URL, PANFORM_PUBLIC_URL, SESSION_DAYS,
-TRUST_PROXY, NODE_ENV, PANFORM_OUTBOX, MAIL_FROM (see README "Running the viewer").`,
+TRUST_PROXY, NODE_ENV, PANFORM_OUTBOX, MAIL_FROM (see docs/operations.md).`,
   )
   .action(async (raw: RawOptions) => {
     await serve(toServeOptions(raw));

@@ -1,7 +1,7 @@
 // Tomorrow's batch sheet from a plan: builds to mix tonight, mixes split by mixer capacity with
 // water temperature and ice, the timeline, the pick list and the cautions. Pure; no I/O, no clock.
 //
-// Conventions (README "Batch sheets"):
+// Conventions (docs/batch-sheet.md):
 // - An order's mixed dough is the formula scaled to its pieces with its loss (scale.ts). It is split
 //   into the fewest EQUAL mixes that fit the mixer: the order's mixer, else the first mixer that
 //   takes the whole order (capacity and minimum), else the biggest. Pieces per mix are whole: when

@@ -1,7 +1,7 @@
 // The timeline: every mix's process steps placed on the plan's clock, scheduled backward from the
 // plan's `ready_by`. Pure; no clock.
 //
-// Rules (README "Batch sheets"):
+// Rules (docs/batch-sheet.md):
 // - Each mix goes through its formula's process steps one after the other, with no gaps; a step's
 //   range uses its midpoint unless the plan says `ranges: short` or `long`; a step without a
 //   duration (divide, say) takes no time on the timeline.

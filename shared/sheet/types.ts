@@ -1,5 +1,5 @@
 // The batch sheet as data: what `panform sheet --format json` prints and what the viewer and the
-// HTML/PDF renderers draw. The JSON keys are a contract (README "Batch sheets"); weights are grams,
+// HTML/PDF renderers draw. The JSON keys are a contract (docs/batch-sheet.md); weights are grams,
 // unrounded; temperatures °C; times are local date-times "YYYY-MM-DDTHH:MM" on the plan's clock.
 import type { AllergenCode, IngredientKind, PrefermentKind, StepKind } from '../schema/shapes.ts';
 import type { Catalog, Formula, Plan } from '../model.ts';

@@ -48,7 +48,7 @@ describe('panform diff OLD NEW', () => {
     const text = printDiff(report);
     expect(text).toContain('test-loaf: Test loaf (changed)');
     expect(text).toMatch(/~ water\s+70 % → 75 %\s+\(\+5\)/);
-    // total % 173 → 178: 100 + 70 + 2 + 1 and 100 + 75 + 2 + 1 (README "Arithmetic")
+    // total % 173 → 178: 100 + 70 + 2 + 1 and 100 + 75 + 2 + 1 (docs/arithmetic.md)
     expect(text).toMatch(/~ total %\s+173\.00 %\s+178\.00 %\s+\+5\.00/);
     expect(text).toMatch(/~ hydration\s+70\.0 %\s+75\.0 %\s+\+5\.0/);
     // Same pieces, no loss: the dough weight stays 10 × 500 g.

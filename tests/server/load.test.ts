@@ -34,7 +34,7 @@ forEachDatabase('loading a formulas folder', (setup) => {
     const [row] = await h.db.select().from(formulasTable).where(eq(formulasTable.id, 'generated-0000'));
     // generated-0000: 6 × 300 g, loss 1 %, total % = 100 + 64 + 1.8 + 0.3 = 166.1 (bench/generate-formulas.mjs, index 0)
     const figures = row.figures as { dividedDough: number; mixedDough: number; flour: number; hydration: number; totalPercent: number };
-    expect(figures.dividedDough).toBeCloseTo(1800, 9); // D = N·P, README "Arithmetic"
+    expect(figures.dividedDough).toBeCloseTo(1800, 9); // D = N·P, docs/arithmetic.md
     expect(figures.mixedDough).toBeCloseTo(1800 / 0.99, 9); // M = D / (1 − loss)
     expect(figures.totalPercent).toBeCloseTo(166.1, 9);
     expect(figures.flour).toBeCloseTo(1800 / 0.99 / 1.661, 9); // F = M / (total % / 100)

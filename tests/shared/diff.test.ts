@@ -100,7 +100,7 @@ describe('diffFormulas', () => {
 
   it("computes each side's reference-batch figures", () => {
     const byKey = Object.fromEntries(d.figures.rows.map((r) => [r.key, r]));
-    // Old: total % = 100 + 70 + 2 + 1 = 173; D = M = 10 × 500 g; F = 5000 / 1.73 (README "Arithmetic").
+    // Old: total % = 100 + 70 + 2 + 1 = 173; D = M = 10 × 500 g; F = 5000 / 1.73 (docs/arithmetic.md).
     expect(byKey.totalPercent.before).toBeCloseTo(173, 9);
     expect(byKey.flour.before).toBeCloseTo(5000 / 1.73, 9);
     expect(byKey.hydration.before).toBeCloseTo(70, 9);

@@ -4,7 +4,7 @@ import { hoursRange, longDate, minutes, minutesRange, pieceWeight, shortDateTime
 describe('weight', () => {
   it.each([
     [850, '850 g'],
-    [56.34, '56.3 g'], // below 100 g: 0.1 g steps (README "Arithmetic")
+    [56.34, '56.3 g'], // below 100 g: 0.1 g steps (docs/arithmetic.md)
     [3265.3, '3.27 kg'],
     [19592.4, '19.6 kg'],
   ])('shows %d g as %s', (g, text) => {

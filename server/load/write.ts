@@ -4,6 +4,7 @@
 // part-way leaves the previous state untouched, because nothing is committed until the end.
 import { eq, inArray, sql } from 'drizzle-orm';
 import type { FormulaFigures } from '#shared/api';
+import { sameFigures } from '#shared/figures';
 import type { Database } from '../db/client.ts';
 import { catalogTable, formulaRevisionsTable, formulasTable, loadsTable, plansTable } from '../db/schema.ts';
 import { contentHash, type CheckResult } from './check.ts';
@@ -57,17 +58,6 @@ function chunks<T>(xs: T[], size = CHUNK): T[][] {
   const out: T[][] = [];
   for (let i = 0; i < xs.length; i += size) out.push(xs.slice(i, i + size));
   return out;
-}
-
-const FIGURE_KEYS: (keyof FormulaFigures)[] = [
-  'totalPercent', 'hydration', 'effectiveHydration', 'prefermentedFlour', 'finalDoughHydration',
-  'flour', 'mixedDough', 'dividedDough', 'pieces', 'pieceGrams',
-];
-
-function sameFigures(a: unknown, b: FormulaFigures): boolean {
-  if (!a || typeof a !== 'object') return false;
-  const x = a as Record<string, unknown>;
-  return FIGURE_KEYS.every((k) => x[k] === b[k]);
 }
 
 const excluded = (column: string) => sql.raw(`excluded."${column}"`);

@@ -9,6 +9,7 @@
 // Revision history is not cached: it is read from the database when asked for.
 import { desc, max } from 'drizzle-orm';
 import type { FormulaFigures } from '#shared/api';
+import { pickFigures } from '#shared/figures';
 import { normalizeCatalog, normalizeFormula, normalizePlan, type Catalog, type Formula, type Plan } from '#shared/model';
 import type { CatalogFile, FormulaFile, PlanFile } from '#shared/schema/shapes';
 import type { Database } from '../db/client.ts';
@@ -47,19 +48,6 @@ export interface Snapshot {
   plans: PlanEntry[];
   /** Per-snapshot memo for derived results (sheets), dropped with the snapshot. */
   memo: Map<string, unknown>;
-}
-
-const FIGURE_KEYS: (keyof FormulaFigures)[] = [
-  'totalPercent', 'hydration', 'effectiveHydration', 'prefermentedFlour', 'finalDoughHydration',
-  'flour', 'mixedDough', 'dividedDough', 'pieces', 'pieceGrams',
-];
-
-/** Only the known figure keys, whatever else the stored JSON holds. */
-export function pickFigures(stored: unknown): FormulaFigures {
-  const src = (stored ?? {}) as Record<string, unknown>;
-  const out = {} as Record<keyof FormulaFigures, number | null>;
-  for (const k of FIGURE_KEYS) out[k] = typeof src[k] === 'number' ? (src[k] as number) : k === 'pieces' || k === 'pieceGrams' ? null : 0;
-  return out as unknown as FormulaFigures;
 }
 
 function ingredientNames(f: Formula): string[] {

@@ -21,7 +21,8 @@ import type { ServerContext } from '../context.ts';
 import { formulaRevisionsTable, formulasTable } from '../db/schema.ts';
 import { forbidden, HttpError, invalid, notFound } from '../http/errors.ts';
 import { queryInteger, queryString } from '../http/query.ts';
-import { pickFigures, type FormulaEntry, type Snapshot } from './data.ts';
+import { pickFigures } from '#shared/figures';
+import type { FormulaEntry, Snapshot } from './data.ts';
 import { formulaCautions } from './formula-cautions.ts';
 
 const MAX_PIECES = 100_000;

@@ -210,6 +210,11 @@ export function createApp(opts: AppOptions): Express {
       res.status(503).type('text/plain').send('The Panform viewer is not built. Run `npm run build`, then start the server again.\n');
       return;
     }
+    // A target no browser sends ("//[" reads as a host) is the client's mistake: 400, not a stack.
+    if (!URL.canParse(req.originalUrl, 'http://panform.local')) {
+      res.status(400).type('text/plain').send('That address is not a page of Panform.\n');
+      return;
+    }
     const session = await sessionOf(req);
     const url = new URL(req.originalUrl, 'http://panform.local');
     const html = await pages.page(url.pathname, url.search, session?.user ?? null);

@@ -145,6 +145,22 @@ export function readEnv(source: Record<string, string | undefined> = process.env
   return { port, dataDir, databaseUrl, smtpUrl, outbox, mailFrom, publicUrl, publicUrlSet, sessionDays, trustProxy, nodeEnv };
 }
 
+/**
+ * What is allowed but probably wrong, for the server to print at start. TRUST_PROXY=true believes
+ * every X-Forwarded-For entry, so any client can name its own address and get round the sign-in
+ * limits: the proxy's hop count or address is what it should say.
+ */
+export function envWarnings(env: Env): string[] {
+  const out: string[] = [];
+  if (env.trustProxy === true) {
+    out.push(
+      'TRUST_PROXY=true trusts every X-Forwarded-For address a client sends, so any client can pick the address the sign-in limits count. ' +
+        'Set the number of proxies in front of Panform (TRUST_PROXY=1 for one reverse proxy) or their addresses (TRUST_PROXY=10.0.0.5 or loopback).',
+    );
+  }
+  return out;
+}
+
 /** A URL with its password hidden, for messages. */
 export function redactUrl(text: string): string {
   const u = parseUrl(text.trim());

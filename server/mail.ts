@@ -8,10 +8,12 @@
 //   may ride along as query parameters, e.g. ?ignoreTLS=true for a local relay): sent to that server.
 // - otherwise: a local fake that writes each message as an .eml file (RFC 5322, opens in any mail
 //   program) into the outbox folder: $PANFORM_OUTBOX, default var/outbox/ under the working folder.
-//   Nothing leaves the machine, so Panform works out of the box with no mail server.
+//   Nothing leaves the machine, so Panform works out of the box with no mail server. The folder is
+//   700 and each file 600: only the user running Panform reads them.
 // The sender is $MAIL_FROM, default "Panform <panform@bakehouse.example>".
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
+import { PRIVATE_FILE_MODE, privateDir } from './private-files.ts';
 
 export interface MailAttachment {
   filename: string;
@@ -83,11 +85,13 @@ export async function sendMail(message: MailMessage, config: MailConfig = mailCo
   }
   const transport = createTransport({ streamTransport: true, buffer: true, newline: 'unix' });
   const info = await transport.sendMail(mail);
-  mkdirSync(config.outbox, { recursive: true });
+  // A reset link in a readable file would let any local user take the account over: the folder
+  // is 700 (tightened if it exists) and each message 600.
+  privateDir(config.outbox);
   const stamp = new Date().toISOString().replace(/[:.]/g, '-');
   const id = String(info.messageId).replace(/[<>]/g, '').replace(/[^A-Za-z0-9.@-]/g, '_');
   const file = join(config.outbox, `${stamp}-${id}.eml`);
-  writeFileSync(file, info.message as Buffer);
+  writeFileSync(file, info.message as Buffer, { mode: PRIVATE_FILE_MODE, flag: 'wx' });
   return { transport: 'outbox', messageId: info.messageId, file };
 }
 

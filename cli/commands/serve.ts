@@ -32,7 +32,7 @@ export function toServeOptions(raw: RawOptions): ServeOptions {
 export const DEMO_ACCOUNTS_FILE = 'var/demo-accounts.txt';
 
 async function serve(opts: ServeOptions): Promise<void> {
-  const [{ readEnv, EnvError, redactUrl }, { openDatabase, migrateDatabase, DatabaseLockedError }, { startServer }] = await Promise.all([
+  const [{ readEnv, EnvError, redactUrl, envWarnings }, { openDatabase, migrateDatabase, DatabaseLockedError }, { startServer }] = await Promise.all([
     import('#server/env'),
     import('#server/db/client'),
     import('#server/start'),
@@ -45,6 +45,7 @@ async function serve(opts: ServeOptions): Promise<void> {
     throw e;
   }
   const out = process.stdout;
+  for (const warning of envWarnings(env)) process.stderr.write(`panform serve: warning: ${warning}\n`);
   let handle;
   try {
     handle = env.databaseUrl && !opts.dataDir ? await openDatabase({ url: env.databaseUrl }) : await openDatabase({ dataDir: env.dataDir });

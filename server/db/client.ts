@@ -12,6 +12,7 @@ import { closeSync, existsSync, mkdirSync, openSync, readFileSync, renameSync, r
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { PgDatabase, PgQueryResultHKT } from 'drizzle-orm/pg-core';
+import { privateDir, tightenTree } from '../private-files.ts';
 import * as schema from './schema.ts';
 
 export type Schema = typeof schema;
@@ -152,8 +153,8 @@ export function readLiveLock(dataDir: string): LockInfo | null {
 
 /** Takes the lock of a data directory, taking over a stale one. Throws DatabaseLockedError. */
 export function acquireLock(dataDir: string): HeldLock {
-  // A new data directory is private to its owner: it holds password hashes and sessions.
-  mkdirSync(dataDir, { recursive: true, mode: 0o700 });
+  // A data directory is private to its owner: it holds password hashes and sessions.
+  privateDir(dataDir);
   const path = join(dataDir, LOCK_FILE);
   const info: LockInfo = { pid: process.pid, port: null, token: randomBytes(32).toString('hex'), startedAt: new Date().toISOString() };
   for (let attempt = 0; attempt < 6; attempt++) {
@@ -277,11 +278,25 @@ export async function openDatabase(opts: OpenOptions = {}): Promise<DatabaseHand
   try {
     client = new PGlite(target.dataDir);
     await client.waitReady;
+    // PGlite writes its files 666 whatever the umask. The folder (700) already keeps others out;
+    // the files themselves are made 600 once open (a new database, or one an older version left
+    // open) and again on closing (files added while serving).
+    tightenTree(target.dataDir);
   } catch (e) {
     lock.release();
     throw e;
   }
-  return makeHandle({ db: drizzle({ client, schema }), kind: 'pglite', dataDir: target.dataDir, lock, closeClient: () => client.close() });
+  const dataDir = target.dataDir;
+  return makeHandle({
+    db: drizzle({ client, schema }),
+    kind: 'pglite',
+    dataDir,
+    lock,
+    closeClient: async () => {
+      await client.close();
+      tightenTree(dataDir);
+    },
+  });
 }
 
 /** Applies the committed migrations in drizzle/ with the migrator for the handle's driver. */

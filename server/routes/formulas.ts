@@ -51,12 +51,39 @@ export function visibleCatalog(catalog: Catalog, role: Role, names?: Iterable<st
   return out;
 }
 
-/** The formula, if the role may see it; 404 when unknown, 403 when its status is beyond the role. */
+/**
+ * The formula, if the role may see it. A formula beyond the role answers exactly like an unknown
+ * one (404, same message), so a bench account cannot learn that a draft exists by trying ids.
+ */
 function visibleFormula(snapshot: Snapshot, id: string, role: Role): FormulaEntry {
   const entry = snapshot.formulas.get(id);
-  if (!entry) throw notFound(`no formula "${id}"; it may not have been loaded yet`);
-  if (!canSeeFormulaStatus(role, entry.status)) throw forbidden('read:formula:draft', `"${id}" is ${entry.status}; your role sees active formulas only`);
+  if (!entry || !canSeeFormulaStatus(role, entry.status)) throw notFound(`no formula "${id}"; it may not have been loaded yet`);
   return entry;
+}
+
+/**
+ * The catalog entries a role may list: with drafts hidden, an ingredient that only hidden
+ * formulas use stays out too (its name would tell of the draft); entries no formula uses stay.
+ */
+export function catalogNamesFor(snapshot: Snapshot, role: Role): string[] {
+  const all = Object.keys(snapshot.catalog);
+  if (roleHasPermission(role, 'read:formula:draft')) return all;
+  const hiddenOnly = new Set<string>();
+  const used = new Set<string>();
+  // A blend's components and a levain's feed count as used by the formula that uses the blend.
+  const add = (target: Set<string>, name: string) => {
+    if (target.has(name)) return;
+    target.add(name);
+    const item = snapshot.catalog[name];
+    for (const c of item?.components ?? []) add(target, c);
+    if (item?.fedWith) add(target, item.fedWith);
+  };
+  for (const f of snapshot.formulas.values()) {
+    if (!f.formula) continue;
+    const target = canSeeFormulaStatus(role, f.status) ? used : hiddenOnly;
+    for (const name of formulaIngredientNames(f.formula)) add(target, name);
+  }
+  return all.filter((name) => used.has(name) || !hiddenOnly.has(name));
 }
 
 function usable(entry: FormulaEntry): Formula {

@@ -8,31 +8,39 @@ import { SheetError, type Sheet } from '#shared/sheet/types';
 import { ScaleError } from '#shared/scale';
 import { requirePermission } from '../auth/guards.ts';
 import type { ServerContext } from '../context.ts';
-import { forbidden, HttpError, invalid, notFound } from '../http/errors.ts';
+import { HttpError, invalid, notFound } from '../http/errors.ts';
 import { queryString } from '../http/query.ts';
 import type { PlanEntry, Snapshot } from './data.ts';
-import { visibleCatalog } from './formulas.ts';
+import { catalogNamesFor, visibleCatalog } from './formulas.ts';
 
 const DATE_RE = /^[0-9]{4}-[0-9]{2}-[0-9]{2}$/;
+
+/**
+ * Whether a role may see a plan: every formula it orders must be one the role may open. A plan
+ * that orders a draft (a mistake the check reports) is, for such a role, as absent as one never
+ * loaded: its sheet would carry the draft's quantities, and its order count or an error naming
+ * the draft would tell the draft exists.
+ */
+function planVisible(snapshot: Snapshot, entry: PlanEntry, role: Role): boolean {
+  return (entry.plan?.orders ?? []).every((o) => {
+    const f = snapshot.formulas.get(o.formula);
+    return !f || canSeeFormulaStatus(role, f.status);
+  });
+}
 
 function planFor(snapshot: Snapshot, date: string, role: Role): { entry: PlanEntry; sheet: Sheet } {
   if (!DATE_RE.test(date)) throw invalid(`a plan is named by its date, like 2026-12-03; got "${date}"`, [{ path: 'date', message: 'not yyyy-mm-dd' }]);
   const entry = snapshot.plans.find((p) => p.date === date);
-  if (!entry) throw notFound(`no plan for ${date}; it may not have been loaded yet`);
+  if (!entry || !planVisible(snapshot, entry, role)) throw notFound(`no plan for ${date}; it may not have been loaded yet`);
   if (!entry.plan) throw new HttpError(500, { error: 'internal', message: `the stored plan for ${date} cannot be read: ${entry.problem ?? 'unknown problem'}; load it again` });
   const plan = entry.plan;
   const formulas: Record<string, Formula> = {};
   const missing: string[] = [];
-  const hidden: string[] = [];
   for (const o of plan.orders) {
     const f = snapshot.formulas.get(o.formula);
     if (!f || !f.formula) missing.push(o.formula);
-    else if (!canSeeFormulaStatus(role, f.status)) hidden.push(`${o.formula} (${f.status})`);
     else formulas[o.formula] = f.formula;
   }
-  // A sheet carries every ordered formula's quantities, so a role that may not see a draft or
-  // retired formula may not see a sheet that orders one.
-  if (hidden.length > 0) throw forbidden('read:formula:draft', `the plan for ${date} orders formulas that are not active: ${[...new Set(hidden)].join(', ')}; ask the technical baker to fix the plan`);
   if (missing.length > 0) throw invalid(`the plan for ${date} orders formulas that are not loaded: ${[...new Set(missing)].join(', ')}`);
   // Sheets depend only on the loaded data, so each is built once per load.
   const key = `sheet:${date}`;
@@ -56,19 +64,15 @@ export function plansRouter(ctx: ServerContext): Router {
   r.get('/plans', async (req, res) => {
     const user = requirePermission(req, 'read:plan');
     const snapshot = await ctx.data.snapshot();
-    // A role sees the ids of the formulas it may open (a plan ordering a draft is a mistake the
-    // check reports; its id still stays out of a bench's view).
-    const visible = (id: string) => {
-      const f = snapshot.formulas.get(id);
-      return !f || canSeeFormulaStatus(user.role, f.status);
-    };
     const body: PlanListResponse = {
-      plans: snapshot.plans.map((p) => ({
-        date: p.date,
-        readyBy: p.plan?.readyBy ?? '',
-        orders: p.plan?.orders.length ?? 0,
-        formulas: [...new Set(p.plan?.orders.map((o) => o.formula) ?? [])].filter(visible),
-      })),
+      plans: snapshot.plans
+        .filter((p) => planVisible(snapshot, p, user.role))
+        .map((p) => ({
+          date: p.date,
+          readyBy: p.plan?.readyBy ?? '',
+          orders: p.plan?.orders.length ?? 0,
+          formulas: [...new Set(p.plan?.orders.map((o) => o.formula) ?? [])],
+        })),
     };
     res.json(body);
   });
@@ -108,7 +112,7 @@ export function plansRouter(ctx: ServerContext): Router {
   r.get('/catalog', async (req, res) => {
     const user = requirePermission(req, 'read:catalog');
     const snapshot = await ctx.data.snapshot();
-    const body: CatalogResponse = { catalog: visibleCatalog(snapshot.catalog, user.role) };
+    const body: CatalogResponse = { catalog: visibleCatalog(snapshot.catalog, user.role, catalogNamesFor(snapshot, user.role)) };
     res.json(body);
   });
 

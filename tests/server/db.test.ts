@@ -1,5 +1,5 @@
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { chmodSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { sql } from 'drizzle-orm';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -108,4 +108,30 @@ describe('the lock on a PGlite data directory', () => {
     expect(existsSync(join(d, 'PG_VERSION'))).toBe(false);
     lock.release();
   });
+});
+
+describe('a PGlite data directory', () => {
+  it('is private to its owner: folders 700, files 600, and one left open to others is tightened on opening', async () => {
+    const d = join(scratch(), 'data');
+    const modes = () => {
+      const out: { path: string; mode: number; dir: boolean }[] = [];
+      const walk = (p: string) => {
+        const st = statSync(p);
+        out.push({ path: p, mode: st.mode & 0o777, dir: st.isDirectory() });
+        if (st.isDirectory()) for (const n of readdirSync(p)) walk(join(p, n));
+      };
+      walk(d);
+      return out;
+    };
+    const first = await openDatabase({ dataDir: d });
+    await first.close();
+    const made = modes();
+    expect(made.filter((m) => !m.dir).length).toBeGreaterThan(10);
+    expect(made.filter((m) => m.mode !== (m.dir ? 0o700 : 0o600))).toEqual([]);
+    // As an older version, or a loose umask, left it: database files 666, folders 777.
+    for (const m of made) chmodSync(m.path, m.dir ? 0o777 : 0o666);
+    const again = await openDatabase({ dataDir: d });
+    await again.close();
+    expect(modes().filter((m) => m.mode !== (m.dir ? 0o700 : 0o600))).toEqual([]);
+  }, 120_000);
 });

@@ -1,6 +1,6 @@
 // The server's environment: defaults, and every bad variable reported at once.
 import { describe, expect, it } from 'vitest';
-import { EnvError, readEnv } from '../../server/env.ts';
+import { EnvError, envWarnings, readEnv } from '../../server/env.ts';
 
 describe('readEnv', () => {
   it('fills in the defaults for an empty environment', () => {
@@ -82,5 +82,37 @@ describe('readEnv', () => {
     expect(error!.message).toContain('NODE_ENV: must be one of development, production, test; got "staging"');
     // A password in a URL is never repeated in a message.
     expect(error!.message).not.toContain('hunter2');
+  });
+});
+
+describe('envWarnings', () => {
+  it('warns on TRUST_PROXY=true (any client could pick its address) and names the fix', () => {
+    const [warning, ...rest] = envWarnings(readEnv({ TRUST_PROXY: 'true' }));
+    expect(rest).toEqual([]);
+    expect(warning).toMatch(/TRUST_PROXY=true trusts every X-Forwarded-For address/);
+    expect(warning).toMatch(/TRUST_PROXY=1/);
+  });
+
+  it.each(['1', '2', 'loopback', '10.0.0.5', 'false'])('stays quiet for TRUST_PROXY=%s', (text) => {
+    expect(envWarnings(readEnv({ TRUST_PROXY: text }))).toEqual([]);
+  });
+
+  it('lets a hop count decide the address: one proxy trusted, a forged entry before it ignored', async () => {
+    const express = (await import('express')).default;
+    const app = express();
+    app.set('trust proxy', readEnv({ TRUST_PROXY: '1' }).trustProxy);
+    app.get('/', (req, res) => {
+      res.send(req.ip);
+    });
+    const server = app.listen(0, '127.0.0.1');
+    await new Promise((ok) => server.once('listening', ok));
+    try {
+      const port = (server.address() as { port: number }).port;
+      // The client forged 1.2.3.4; the proxy appended the address it really saw.
+      const res = await fetch(`http://127.0.0.1:${port}/`, { headers: { 'x-forwarded-for': '1.2.3.4, 203.0.113.9' } });
+      expect(await res.text()).toBe('203.0.113.9');
+    } finally {
+      server.close();
+    }
   });
 });

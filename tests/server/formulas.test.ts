@@ -69,11 +69,23 @@ describe('a bench account', () => {
     }
   });
 
-  it('is refused history, changes and the drafts themselves', async () => {
-    for (const path of ['/api/changes', '/api/formulas/harbour-ciabatta/revisions', '/api/formulas/spelt-porridge-loaf', '/api/formulas/malted-grain-loaf', '/api/formulas?status=draft']) {
+  it('is refused history and changes', async () => {
+    for (const path of ['/api/changes', '/api/formulas/harbour-ciabatta/revisions', '/api/formulas?status=draft']) {
       const r = await getJson(`${t.url}${path}`, cookie.bench);
       expect(r.status, path).toBe(403);
       expect(r.body).toMatchObject({ error: 'forbidden' });
+    }
+  });
+
+  it('cannot tell a draft from an id never loaded: both answer 404 with the same words', async () => {
+    for (const id of [...NOT_ACTIVE, 'no-such-loaf']) {
+      for (const suffix of ['', '/revisions', '/diff']) {
+        const r = await getJson(`${t.url}/api/formulas/${id}${suffix}`, cookie.bench);
+        // revisions and diff need read:history first: 403 for every id alike.
+        const expected = suffix === '' ? 404 : 403;
+        expect(r.status, `${id}${suffix}`).toBe(expected);
+        if (expected === 404) expect(r.body).toEqual({ error: 'not_found', message: `no formula "${id}"; it may not have been loaded yet` });
+      }
     }
   });
 });
@@ -221,10 +233,16 @@ describe('plans and the catalog', () => {
     expect((await getJson(`${t.url}/api/plans/2031-02-03`, cookie.bench)).status).toBe(404);
   });
 
-  it('strips prices from the catalog for roles without read:cost', async () => {
+  it('strips prices from the catalog for roles without read:cost, and the ingredients only drafts use', async () => {
     const bench = await get<{ catalog: Record<string, object> }>('/api/catalog', 'bench');
     const admin = await get<{ catalog: Record<string, object> }>('/api/catalog', 'admin');
-    expect(Object.keys(bench.catalog)).toEqual(Object.keys(admin.catalog));
+    const usedBy = async (id: string, role: string) => Object.keys((await get<FormulaDetail>(`/api/formulas/${id}`, role)).catalog);
+    const active = (await get<FormulaListResponse>('/api/formulas', 'bench')).formulas.map((f) => f.id);
+    const activeNames = new Set((await Promise.all(active.map((id) => usedBy(id, 'admin')))).flat());
+    const draftOnly = (await Promise.all(NOT_ACTIVE.map((id) => usedBy(id, 'admin')))).flat().filter((n) => !activeNames.has(n));
+    // The demo's trial loaf is the only one with rolled oats; the retired loaf the only one with the malted blend.
+    expect(draftOnly).toEqual(expect.arrayContaining(['rolled oats', 'malted grain blend', 'malted wheat flakes']));
+    expect(Object.keys(bench.catalog)).toEqual(Object.keys(admin.catalog).filter((n) => !draftOnly.includes(n)));
     expect(costKeys(bench)).toEqual([]);
     expect(costKeys(admin).length).toBeGreaterThan(0);
   });
@@ -259,5 +277,33 @@ describe('history', () => {
 
     expect((await getJson(`${t.url}/api/formulas/harbour-ciabatta/diff?from=1&to=99`, cookie.reviewer)).status).toBe(404);
     expect((await getJson(`${t.url}/api/formulas/harbour-ciabatta/diff?from=x`, cookie.reviewer)).status).toBe(422);
+  });
+});
+
+describe('a plan that orders a draft', () => {
+  it('is, for bench, as absent as a plan never loaded: not listed, 404, nothing counted or named', async () => {
+    const folder = mkdtempSync(join(tmpdir(), 'panform-draft-plan-'));
+    try {
+      cpSync(resolve('formulas'), folder, { recursive: true });
+      const plan = join(folder, 'plans', '2026-12-05.yaml');
+      writeFileSync(
+        plan,
+        ['date: 2026-12-05', 'ready_by: "06:00"', 'conditions: { room: 22 °C, flour: 20 °C, tap_water: 12 °C }', 'mixers:', '  - { name: spiral, capacity: 50 kg, minimum: 8 kg, friction: 13 °C }', 'orders:', '  - { formula: harbour-ciabatta, pieces: 40, mixer: spiral }', '  - { formula: spelt-porridge-loaf, pieces: 12, mixer: spiral }', ''].join('\n'),
+      );
+      await loadFolder(handle, [plan], { git: false });
+    } finally {
+      rmSync(folder, { recursive: true, force: true });
+    }
+    t.clock.now += CHECK_MS;
+    const reviewer = await get<PlanListResponse>('/api/plans', 'reviewer');
+    expect(reviewer.plans.find((p) => p.date === '2026-12-05')).toMatchObject({ orders: 2, formulas: ['harbour-ciabatta', 'spelt-porridge-loaf'] });
+
+    const bench = await get<PlanListResponse>('/api/plans', 'bench');
+    expect(bench.plans.map((p) => p.date)).not.toContain('2026-12-05');
+    for (const path of ['/api/plans/2026-12-05', '/api/plans/2026-12-05/sheet.pdf']) {
+      const r = await getJson(`${t.url}${path}`, cookie.bench);
+      expect(r.status, path).toBe(404);
+      expect(r.body).toEqual({ error: 'not_found', message: 'no plan for 2026-12-05; it may not have been loaded yet' });
+    }
   });
 });

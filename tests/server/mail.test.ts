@@ -1,6 +1,6 @@
 // sendMail: the local outbox when no SMTP server is configured, and SMTP to a server on
 // 127.0.0.1 (smtp-server) when SMTP_URL names one; messages are read back with mailparser.
-import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { chmodSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import type { AddressInfo } from 'node:net';
@@ -126,5 +126,25 @@ describe('sendMail over SMTP', () => {
     const freePort = (closed.server.address() as AddressInfo).port;
     await new Promise<void>((ok) => closed.close(() => ok()));
     await expect(sendMail(message, { smtpUrl: `smtp://127.0.0.1:${freePort}`, outbox: '/nonexistent', from: DEFAULT_FROM })).rejects.toThrow(/did not take the message/);
+  });
+});
+
+describe('the local outbox is private', () => {
+  it('creates the folder 700 and each message 600, and tightens a folder that is open to others', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'panform-outbox-modes-'));
+    try {
+      const fresh = join(dir, 'fresh');
+      const a = await sendMail(message, { outbox: fresh, from: DEFAULT_FROM });
+      expect(statSync(fresh).mode & 0o777).toBe(0o700);
+      expect(statSync(a.file!).mode & 0o777).toBe(0o600);
+      const open = join(dir, 'open');
+      mkdirSync(open, { mode: 0o755 });
+      chmodSync(open, 0o777);
+      const b = await sendMail(message, { outbox: open, from: DEFAULT_FROM });
+      expect(statSync(open).mode & 0o777).toBe(0o700);
+      expect(statSync(b.file!).mode & 0o777).toBe(0o600);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
   });
 });

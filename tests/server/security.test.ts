@@ -1,6 +1,7 @@
 // What stops misuse before a handler runs: cross-site writes, bodies that are not JSON or too
 // large, malformed fields; the security headers; and how the viewer's files are served.
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import http from 'node:http';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -164,5 +165,31 @@ describe('the viewer\'s files', () => {
 
   it('does not answer other methods with the viewer', async () => {
     expect((await fetch(`${t.url}/formulas`, { method: 'POST' })).status).toBe(404);
+  });
+});
+
+describe('odd request targets', () => {
+  it('answers GET //[ (not a URL a browser sends) with 400 and logs no stack', async () => {
+    const logged: string[] = [];
+    const s = await startTestServer(handle, { webDir: web, log: (m) => logged.push(m) });
+    try {
+      for (const target of ['//[', '//[/formulas', '//%5B']) {
+        const { status, body } = await new Promise<{ status: number; body: string }>((ok, fail) => {
+          const req = http.request(`${s.url}/`, { path: target }, (res) => {
+            let text = '';
+            res.on('data', (c) => (text += c));
+            res.on('end', () => ok({ status: res.statusCode ?? 0, body: text }));
+          });
+          req.on('error', fail);
+          req.end();
+        });
+        expect([200, 400], target).toContain(status);
+        if (target === '//[') expect(status).toBe(400);
+        expect(body, target).not.toMatch(/at .*\.ts:\d+/);
+      }
+      expect(logged).toEqual([]);
+    } finally {
+      await s.close();
+    }
   });
 });

@@ -14,6 +14,7 @@ import { fileURLToPath } from 'node:url';
 import type { PgDatabase, PgQueryResultHKT } from 'drizzle-orm/pg-core';
 import { privateDir, tightenTree } from '../private-files.ts';
 import * as schema from './schema.ts';
+import { fileOrderMigrationTime, lastMigrationTime, restoreFileOrder } from './file-order.ts';
 
 export type Schema = typeof schema;
 /** The drizzle API both drivers share. */
@@ -303,7 +304,7 @@ export async function openDatabase(opts: OpenOptions = {}): Promise<DatabaseHand
 export async function migrateDatabase(handle: DatabaseHandle, folder = migrationsFolder()): Promise<void> {
   if (handle.kind === 'pglite') {
     const { migrate } = await import('drizzle-orm/pglite/migrator');
-    await migrate(handle.db as unknown as Parameters<typeof migrate>[0], { migrationsFolder: folder });
+    await migrateWithDataSteps(handle.db, folder, () => migrate(handle.db as unknown as Parameters<typeof migrate>[0], { migrationsFolder: folder }));
     return;
   }
   const { migrate } = await import('drizzle-orm/node-postgres/migrator');
@@ -313,7 +314,7 @@ export async function migrateDatabase(handle: DatabaseHandle, folder = migration
   const holder = await pool.connect();
   try {
     await holder.query('select pg_advisory_lock(726101)');
-    await migrate(handle.db as unknown as Parameters<typeof migrate>[0], { migrationsFolder: folder });
+    await migrateWithDataSteps(handle.db, folder, () => migrate(handle.db as unknown as Parameters<typeof migrate>[0], { migrationsFolder: folder }));
   } finally {
     try {
       await holder.query('select pg_advisory_unlock(726101)');
@@ -321,6 +322,14 @@ export async function migrateDatabase(handle: DatabaseHandle, folder = migration
       holder.release();
     }
   }
+}
+
+/** The SQL migrations, then the data steps SQL cannot do (re-reading stored YAML) for those just applied. */
+async function migrateWithDataSteps(db: Database, folder: string, migrate: () => Promise<void>): Promise<void> {
+  const fileOrderAt = fileOrderMigrationTime(folder);
+  const before = await lastMigrationTime(db);
+  await migrate();
+  if (fileOrderAt !== null && before > 0 && before < fileOrderAt) await restoreFileOrder(db);
 }
 
 /** Opens and migrates in one step; closes again if migrating fails. */

@@ -2,7 +2,7 @@
 // drizzle/ (`npm run db:generate`) and committed; the migrator applies them at start.
 // The YAML files stay the source of truth: these tables are what the viewer reads.
 import { sql } from 'drizzle-orm';
-import { index, integer, jsonb, pgTable, serial, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import { index, integer, json, jsonb, pgTable, serial, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
 
 /** The current content of each formula, with the figures of its reference batch. */
 export const formulasTable = pgTable(
@@ -13,8 +13,8 @@ export const formulasTable = pgTable(
     status: text('status').notNull(), // draft | active | retired
     category: text('category').notNull(),
     tags: jsonb('tags').$type<string[]>().notNull().default(sql`'[]'::jsonb`),
-    /** The file as parsed (raw YAML data). */
-    content: jsonb('content').notNull(),
+    /** The file as parsed (raw YAML data). `json`, not `jsonb`: jsonb reorders keys, and the file's order is the order of the ingredients. */
+    content: json('content').notNull(),
     /** The YAML text as loaded. */
     source: text('source').notNull(),
     contentHash: text('content_hash').notNull(),
@@ -37,7 +37,8 @@ export const formulaRevisionsTable = pgTable(
     formulaId: text('formula_id').notNull(),
     revision: integer('revision').notNull(),
     contentHash: text('content_hash').notNull(),
-    content: jsonb('content').notNull(),
+    /** As in formulas.content: `json` keeps the file's order. */
+    content: json('content').notNull(),
     source: text('source').notNull(),
     figures: jsonb('figures').notNull(),
     gitCommit: text('git_commit'),
@@ -59,7 +60,8 @@ export const catalogTable = pgTable('catalog', {
 /** Production plans, one per date. */
 export const plansTable = pgTable('plans', {
   date: text('date').primaryKey(), // yyyy-mm-dd
-  content: jsonb('content').notNull(),
+  /** `json` keeps the file's order. */
+  content: json('content').notNull(),
   source: text('source').notNull(),
   contentHash: text('content_hash').notNull(),
   path: text('path').notNull(),

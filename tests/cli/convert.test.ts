@@ -24,11 +24,11 @@ describe('panform convert', () => {
     [['1', 'oz', 'g'], '1 oz ≈ 28.3 g'], // NIST SP 811 App. B.8: 28.349 523 125 g; 0.1 g below 100 g
     [['1000', 'g', 'lb'], '1000 g ≈ 2.205 lb'], // NIST SP 811 App. B.8: 1000 / 453.592 37 = 2.204 62 lb
     [['78', 'F', 'C'], '78 °F ≈ 25.6 °C'], // NIST SP 811 App. B.8: t/°C = (t/°F − 32)/1.8 = 25.555…
-    [['26', 'C', 'F'], '26 °C = 78.8 °F'], // §1 fixed point
-    [['-40', 'C', 'F'], '-40 °C = -40 °F'], // §1 fixed point: the scales meet
-    [['10', 'g', 'fresh', 'instant'], '10 g fresh yeast = 3.3 g instant yeast (× 0.33)'], // §5 Hamelman: × 0.33
-    [['10', 'g', 'fresh', 'active-dry'], '10 g fresh yeast = 4 g active dry yeast (× 0.4)'], // §5 Hamelman: × 0.4
-    [['4', 'g', 'active-dry', 'instant'], '4 g active dry yeast = 3.3 g instant yeast (× 0.825)'], // §5 [DERIVED]: 0.33 / 0.4
+    [['26', 'C', 'F'], '26 °C = 78.8 °F'], // t/°F = 1.8·t/°C + 32 (NIST SP 811 App. B.8/B.9)
+    [['-40', 'C', 'F'], '-40 °C = -40 °F'], // the scales meet at −40 (same relation)
+    [['10', 'g', 'fresh', 'instant'], '10 g fresh yeast = 3.3 g instant yeast (× 0.33)'], // Hamelman, Bread (Wiley 2004): × 0.33
+    [['10', 'g', 'fresh', 'active-dry'], '10 g fresh yeast = 4 g active dry yeast (× 0.4)'], // Hamelman, Bread (Wiley 2004): × 0.4
+    [['4', 'g', 'active-dry', 'instant'], '4 g active dry yeast = 3.3 g instant yeast (× 0.825)'], // Hamelman's factors: 0.33 / 0.4
   ])('converts %j', async (args, line) => {
     const r = await run(args);
     expect(r.code).toBe(0);

@@ -33,7 +33,7 @@ describe('panform cost', () => {
     const r = await runPanform('cost', worksheet, '--json');
     expect(r.code).toBe(0);
     const data = JSON.parse(r.stdout);
-    // trade-references §7 example 1 with the fixture's invented prices: 16.747 0588 kg flour × 0.888 = 14.871 3882
+    // "Baker's Percentage Worksheet" handout, example 1, with the fixture's invented prices: 16.747 0588 kg flour × 0.888 = 14.871 3882
     expect(data.total).toBeCloseTo(14.8713882, 6);
     expect(data.perPiece).toBeCloseTo(0.2037176, 6); // 14.871 3882 / 73
     expect(data.complete).toBe(true);

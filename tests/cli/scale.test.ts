@@ -47,30 +47,30 @@ describe('panform scale --json', () => {
     expect(j.formula).toBe('worksheet-baguette');
     expect(j.water).toBeCloseTo(0.67 * (28470 / 1.7), 9); // all the water, g
     expect(j.mixingWater).toBeNull();
-    expect(j.dividedDough).toBe(28470); // trade-references §7 example 1: 73 × 390 g
-    expect(j.flour).toBeCloseTo(28470 / 1.7, 9); // §7 example 1: 16 747.06 g, unrounded
+    expect(j.dividedDough).toBe(28470); // "Baker's Percentage Worksheet" handout, example 1: 73 × 390 g
+    expect(j.flour).toBeCloseTo(28470 / 1.7, 9); // same worksheet: 16 747 g (16 747.06 unrounded)
     expect(j.overall[0]).toEqual({ ingredient: 'bread flour', percent: 100, grams: j.flour, kind: 'flour' });
-    expect(j.overall.find((l) => l.ingredient === 'water')!.grams).toBeCloseTo(11220.529, 3); // §7 example 1: 11 220.53 g
+    expect(j.overall.find((l) => l.ingredient === 'water')!.grams).toBeCloseTo(11220.529, 3); // 28 470 / 1.7 × 0.67 = 11 220.53 g (the worksheet prints 11 220.49 g from its rounded flour)
   });
 
   it.each([
     [['--mix', '28.47 kg'], 28470],
     [['--mix', '28470'], 28470],
-    [['--mix', '2 lb'], 907.18474], // trade-references §1: 1 lb = 453.592 37 g
+    [['--mix', '2 lb'], 907.18474], // International yard and pound agreement (1959): 1 lb = 453.592 37 g
     [['--pieces', '3', '--piece', '900 g'], 2700],
     [['--pieces', '2', '--piece', '1 lb'], 907.18474],
   ])('reads the target %j', async (args, mixed) => {
-    const j = await json([fixture('brief-straight'), ...args]);
+    const j = await json([fixture('lean-straight'), ...args]);
     expect(j.mixedDough).toBeCloseTo(mixed, 9);
   });
 
   it('scales by total flour', async () => {
-    const j = await json([fixture('brief-straight'), '--flour', '1000']);
-    expect(j.mixedDough).toBeCloseTo(1680, 9); // trade-references §7 "the brief's own example"
+    const j = await json([fixture('lean-straight'), '--flour', '1000']);
+    expect(j.mixedDough).toBeCloseTo(1680, 9); // common practice lean dough 100/65/2/1 = 168 %, hand-worked
   });
 
   it('scales the formula\'s own yield without a target', async () => {
-    const j = await json([fixture('brief-straight')]);
+    const j = await json([fixture('lean-straight')]);
     expect(j.mixedDough).toBeCloseTo(1680, 9);
   });
 
@@ -93,18 +93,18 @@ describe('panform scale --json', () => {
   it('gives the pre-ferments, soakers and final dough', async () => {
     const p = await json([fixture('poolish-loaf'), '--mix', '1000']);
     expect(p.preferments.map((b) => b.name)).toEqual(['poolish']);
-    expect(Math.round(p.finalDough.find((l) => l.ingredient === 'all-purpose flour')!.grams)).toBe(393); // trade-references §7 example 3
+    expect(Math.round(p.finalDough.find((l) => l.ingredient === 'all-purpose flour')!.grams)).toBe(393); // hand-worked poolish example: 587 − 194 = 393
     const s = await json([fixture('rye-soaker')]);
     expect(s.soakers[0].name).toBe('seed soak');
     expect(s.finalDough.at(-1)!.ingredient).toBe('seed soak');
   });
 
   it('works out the water and ice for the final dough', async () => {
-    const j = await json([fixture('brief-straight'), '--mix', '1680', '--room', '30', '--flour-temp', '28', '--friction', '13', '--tap', '20']);
+    const j = await json([fixture('lean-straight'), '--mix', '1680', '--room', '30', '--flour-temp', '28', '--friction', '13', '--tap', '20']);
     // 3·25 − (30 + 28 + 13) = 4 °C (by hand, dough_temperature 25 °C in the formula); 650 g of water in the final dough.
     expect(j.mixingWater!.waterTemperature).toBe(4);
     expect(j.mixingWater!.factors).toBe(3);
-    expect(j.mixingWater!.ice).toBeCloseTo((650 * 16) / (20 + 334 / 4.18), 6); // trade-references §2 formula, L = 334, c = 4.18
+    expect(j.mixingWater!.ice).toBeCloseTo((650 * 16) / (20 + 334 / 4.18), 6); // I = W·ΔT/(T_tap + L/c), L = 334 J/g, c = 4.18 J/(g·K) (Case Western Reserve University demo)
     expect(j.mixingWater!.ice! + j.mixingWater!.tapWater!).toBeCloseTo(650, 9);
   });
 
@@ -120,9 +120,9 @@ describe('panform scale --json', () => {
   });
 
   it('reads bare temperatures as °F with --fahrenheit, friction as a difference', async () => {
-    const c = await json([fixture('brief-straight'), '--ddt', '25', '--room', '22', '--flour-temp', '20', '--friction', '11.11111111111111']);
-    const f = await json([fixture('brief-straight'), '--ddt', '77', '--room', '71.6', '--flour-temp', '68', '--friction', '20', '--fahrenheit']);
-    expect(f.mixingWater!.waterTemperature).toBeCloseTo(c.mixingWater!.waterTemperature, 9); // trade-references §1: 20 °F friction = 11.11 °C
+    const c = await json([fixture('lean-straight'), '--ddt', '25', '--room', '22', '--flour-temp', '20', '--friction', '11.11111111111111']);
+    const f = await json([fixture('lean-straight'), '--ddt', '77', '--room', '71.6', '--flour-temp', '68', '--friction', '20', '--fahrenheit']);
+    expect(f.mixingWater!.waterTemperature).toBeCloseTo(c.mixingWater!.waterTemperature, 9); // a difference: 20 °F-degrees × 5/9 = 11.11 °C-degrees
   });
 });
 
@@ -142,8 +142,8 @@ describe('panform scale (table)', () => {
   it('prints pounds and ounces with --units us', async () => {
     const r = await cli.run(['scale', fixture('pizza-lb'), '--flour', '40 lb', '--units', 'us']);
     expect(r.code).toBe(0);
-    expect(r.stdout).toMatch(/│ fine salt\s+│\s+1.75 % │\s+11.20 oz │/); // trade-references §7 example 2: salt 11.2 oz
-    expect(r.stdout).toMatch(/│ water\s+│\s+58 % │ 23 lb 3.20 oz │/); // §7 example 2: water 23 lb 3.2 oz
+    expect(r.stdout).toMatch(/│ fine salt\s+│\s+1.75 % │\s+11.20 oz │/); // handout "How to Work with a Formula Expressed in Baker's Percent": salt 11.2 oz
+    expect(r.stdout).toMatch(/│ water\s+│\s+58 % │ 23 lb 3.20 oz │/); // same handout: water 23 lb 3.2 oz
   });
 
   it('rounds to the configured resolution', async () => {
@@ -177,10 +177,10 @@ describe('panform scale: misuse and bad input', () => {
     [['--piece', '900'], 2, 'panform: --piece needs --pieces'],
     [['--json', '--csv'], 2, 'panform: --json and --csv cannot be used together'],
     [['--room', '22'], 2, 'panform: the water temperature needs --flour-temp, --friction'],
-    [['--room', '30', '--flour-temp', '30', '--friction', '20'], 1, 'panform: brief-straight: the water would have to be -5.0 °C, below the 0 °C that ice can bring it to'],
-    [['--room', '22', '--flour-temp', '20', '--friction', '11', '--preferment-temp', '20'], 2, 'panform: brief-straight has 0 pre-ferment(s) but --preferment-temp was given 1 times'],
+    [['--room', '30', '--flour-temp', '30', '--friction', '20'], 1, 'panform: lean-straight: the water would have to be -5.0 °C, below the 0 °C that ice can bring it to'],
+    [['--room', '22', '--flour-temp', '20', '--friction', '11', '--preferment-temp', '20'], 2, 'panform: lean-straight has 0 pre-ferment(s) but --preferment-temp was given 1 times'],
   ])('refuses %j with exit %d and one clear line', async (args, code, message) => {
-    const r = await cli.run(['scale', fixture('brief-straight'), ...args]);
+    const r = await cli.run(['scale', fixture('lean-straight'), ...args]);
     expect(r.code).toBe(code);
     expect(r.stdout).toBe('');
     expect(r.stderr.split('\n')[0]).toContain(message);
@@ -188,7 +188,7 @@ describe('panform scale: misuse and bad input', () => {
   });
 
   it('refuses an unknown --units with exit 2', async () => {
-    const r = await cli.run(['scale', fixture('brief-straight'), '--units', 'imperial']);
+    const r = await cli.run(['scale', fixture('lean-straight'), '--units', 'imperial']);
     expect(r.code).toBe(2);
     expect(r.stderr).toMatch(/Allowed choices are metric, us/);
   });

@@ -47,7 +47,7 @@ function weightsIn(text: string): string[] {
 }
 
 describe('panform sheet --format json', () => {
-  it.each(PLANS)('prints the sheet with the keys the brief names (%s)', async (plan) => {
+  it.each(PLANS)('prints the sheet with the keys docs/cli/sheet.md names (%s)', async (plan) => {
     const r = await run(['sheet', plan, '--format', 'json']);
     expect(r.stderr).toBe('');
     expect(r.code).toBe(0);

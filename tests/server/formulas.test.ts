@@ -141,7 +141,7 @@ describe('GET /api/formulas/:id', () => {
     expect(ref.scaled.pieces).toBe(ref.formula.yield.pieces);
     expect(ref.reference.mixedDough).toBeCloseTo(ref.scaled.mixedDough, 9);
     const d = await get<FormulaDetail>('/api/formulas/harbour-ciabatta?pieces=60&piece=320g', 'bench');
-    // product brief "Arithmetic conventions": D = N·P, M = D / (1 − loss), F = M / (total % / 100)
+    // docs/arithmetic.md "Scaling": D = N·P, M = D / (1 − loss), F = M / (total % / 100)
     const divided = 60 * 320;
     const mixed = divided / (1 - d.formula.loss / 100);
     expect(d.scaled.dividedDough).toBeCloseTo(divided, 9);
@@ -182,7 +182,7 @@ describe('GET /api/formulas/:id', () => {
 
   it('scales by mixed dough weight without loss', async () => {
     const d = await get<FormulaDetail>('/api/formulas/harbour-ciabatta?mix=25%20kg', 'bench');
-    // product brief: with --mix no loss is applied
+    // docs/arithmetic.md "Scaling": with --mix no loss is applied
     expect(d.scaled.mixedDough).toBe(25_000);
     expect(d.scaled.dividedDough).toBe(25_000);
     expect(d.scaled.loss).toBe(0);
@@ -264,7 +264,7 @@ describe('history', () => {
     t.clock.now += CHECK_MS;
     const after = await get<FormulaDetail>('/api/formulas/harbour-ciabatta', 'reviewer');
     expect(after.revision).toBe(before.revision + 1);
-    // hydration is overall water / flour: two more points of water (product brief "Arithmetic conventions")
+    // hydration is overall water / flour: two more points of water (docs/arithmetic.md, "Scaling")
     expect(after.reference.hydration - before.reference.hydration).toBeCloseTo(2, 9);
 
     const revisions = await get<RevisionListResponse>('/api/formulas/harbour-ciabatta/revisions', 'reviewer');

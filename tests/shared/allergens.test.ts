@@ -10,7 +10,7 @@ const catalog = fixtureCatalog();
 
 describe('EU_GROUPS and US_GROUPS', () => {
   it('lists the 14 groups of Annex II in Annex order', () => {
-    // Regulation (EU) No 1169/2011 Annex II; trade-references §6 (FARRP, University of Nebraska–Lincoln)
+    // Regulation (EU) No 1169/2011 Annex II, the 14 groups in Annex order
     expect(EU_GROUPS.map((g) => g.group)).toEqual([
       'cereals containing gluten', 'crustaceans', 'eggs', 'fish', 'peanuts', 'soybeans', 'milk', 'nuts',
       'celery', 'mustard', 'sesame seeds', 'sulphur dioxide and sulphites', 'lupin', 'molluscs',
@@ -19,7 +19,7 @@ describe('EU_GROUPS and US_GROUPS', () => {
   });
 
   it('lists the 9 major food allergens of the US', () => {
-    // FALCPA 2004 (8) + sesame, FASTER Act 2021; trade-references §6 (Food Engineering relaying FDA)
+    // FALCPA 2004 (8) + sesame, FASTER Act 2021 (effective 1 January 2023)
     expect(US_GROUPS.map((g) => g.group)).toEqual([
       'milk', 'eggs', 'fish', 'Crustacean shellfish', 'tree nuts', 'peanuts', 'wheat', 'soybeans', 'sesame',
     ]);
@@ -32,22 +32,22 @@ describe('EU_GROUPS and US_GROUPS', () => {
 
 describe('groupOf', () => {
   it.each<[AllergenCode, number, string | undefined]>([
-    ['wheat', 1, 'wheat'], // both lists: trade-references §6
-    ['rye', 1, undefined], // EU cereals containing gluten; not a US major allergen: trade-references §6 test note
+    ['wheat', 1, 'wheat'], // EU Annex II item 1 and FALCPA
+    ['rye', 1, undefined], // EU Annex II item 1 (cereals containing gluten); not among FALCPA's major allergens
     ['barley', 1, undefined], // same note: barley, oats count in the EU only
     ['oats', 1, undefined], // same note
     ['spelt', 1, 'wheat'], // EU Annex II "wheat (such as spelt and khorasan wheat)"; US: spelt is a wheat (Triticum), from memory (FDA allergen guidance)
     ['khorasan', 1, 'wheat'], // same
-    ['crustaceans', 2, 'Crustacean shellfish'], // both: trade-references §6
-    ['molluscs', 14, undefined], // mussels: EU only, the US lists Crustacean shellfish only: trade-references §6 test note
-    ['sesame', 11, 'sesame'], // both; US since 1 January 2023 (FASTER Act): trade-references §6
-    ['milk', 7, 'milk'], // both: trade-references §6
+    ['crustaceans', 2, 'Crustacean shellfish'], // EU Annex II item 2; FALCPA 'Crustacean shellfish'
+    ['molluscs', 14, undefined], // EU Annex II item 14; FALCPA names Crustacean shellfish only
+    ['sesame', 11, 'sesame'], // EU Annex II item 11; US since 1 January 2023 (FASTER Act 2021)
+    ['milk', 7, 'milk'], // EU Annex II item 7; FALCPA
     ['eggs', 3, 'eggs'],
     ['fish', 4, 'fish'],
     ['peanuts', 5, 'peanuts'],
     ['soybeans', 6, 'soybeans'],
-    ['hazelnuts', 8, 'tree nuts'], // EU nuts list names hazelnuts; US tree nuts: trade-references §6
-    ['celery', 9, undefined], // EU only: celery, mustard, lupin, molluscs, sulphites (trade-references §6)
+    ['hazelnuts', 8, 'tree nuts'], // EU Annex II item 8 names hazelnuts; FALCPA 'tree nuts'
+    ['celery', 9, undefined], // EU Annex II item 9; celery, mustard, lupin, molluscs and sulphites are not FALCPA major allergens
     ['mustard', 10, undefined],
     ['sulphites', 12, undefined],
     ['lupin', 13, undefined],
@@ -71,7 +71,7 @@ describe('declareGroups', () => {
   });
 
   it('declares rye flour under EU rules and no major allergen under US rules', () => {
-    // trade-references §6 test note: "add rye flour and assert cereals containing gluten under EU rules and no major allergen under US rules"
+    // Rye: cereals containing gluten under Regulation (EU) No 1169/2011 Annex II item 1; not a major allergen under FALCPA
     const r = rollup(['rye']);
     expect(r.eu.map((g) => g.group)).toEqual(['cereals containing gluten']);
     expect(r.eu[0].items).toEqual(['rye']);
@@ -141,7 +141,7 @@ describe('allergenSummary', () => {
   });
 
   it('declares mussels in the EU only and crustaceans in both', () => {
-    // trade-references §6 test note: a mussel is an allergen in the EU but not a US major allergen
+    // A mussel: molluscs, Regulation (EU) No 1169/2011 Annex II item 14; FALCPA lists Crustacean shellfish only
     const f = makeFormula({ 'bread flour': 100 }, { water: 65, 'fine salt': 2, 'smoked mussels': 10, 'shrimp paste': 3 });
     const s = allergenSummary(f, catalog);
     expect(s.eu.map((g) => g.group)).toEqual(['cereals containing gluten', 'crustaceans', 'molluscs']);
@@ -170,7 +170,7 @@ describe('allergenSummary', () => {
     const f = makeFormula({ 'bread flour': 100 }, { water: 65, 'dried apricots': 10 });
     const s = allergenSummary(f, c);
     expect(s.eu.map((g) => g.number)).toEqual([1, 12]);
-    // Annex II item 12: declared above 10 mg/kg or 10 mg/litre as total SO2 (trade-references §6)
+    // Annex II item 12: declared above 10 mg/kg or 10 mg/litre as total SO2 (Regulation (EU) No 1169/2011 Annex II item 12)
     expect(s.notes[0]).toMatch(/above 10 mg\/kg/);
   });
 });

@@ -29,7 +29,7 @@ describe('scaleFormula on the demo formulas', () => {
     if (!parsed.ok) throw new Error(`${name} must parse: ${parsed.findings.map((f) => f.message).join('; ')}`);
     const f = parsed.value;
     const r = scaleFormula(f, catalog.value, { by: 'pieces', pieces: f.yield.pieces });
-    // D = N·P; M = D / (1 − loss) (product brief, arithmetic conventions).
+    // D = N·P; M = D / (1 − loss) (docs/arithmetic.md, "Scaling").
     expect(r.dividedDough).toBeCloseTo(f.yield.pieces * f.yield.pieceGrams, 6);
     expect(r.mixedDough).toBeCloseTo(r.dividedDough / (1 - f.loss / 100), 6);
     expect(sum(r.overall.map((l) => l.grams))).toBeCloseTo(r.mixedDough, 6);

@@ -309,7 +309,7 @@ describe('checkFileText on formula arithmetic and units', () => {
 
 describe('checkFileText warnings for values outside the trade\'s usual ranges', () => {
   it.each([
-    // Poolish at about 100 % hydration (trade-references §8, common practice).
+    // Poolish at about 100 % hydration (common practice).
     [
       'a poolish far from 100 % hydration',
       withLines('preferments:\n  - { name: poolish, kind: poolish, share: 20 %, ingredients: { bread flour: 100, water: 60 } }\n'),
@@ -322,7 +322,7 @@ describe('checkFileText warnings for values outside the trade\'s usual ranges', 
       ['15:44 warning pre-ferment "biga" is at 75 % hydration; a biga is usually stiff at 50-60 %, or liquid at about 100 % (common practice)'],
     ],
     ['a lean dough with 2 % instant yeast', BASE.replace('instant yeast: 0.5', 'instant yeast: 2'), [
-      // 2 % instant ÷ 0.33 = 6.06 % as fresh yeast (Hamelman's factor, trade-references §5).
+      // 2 % instant ÷ 0.33 = 6.06 % as fresh yeast (Hamelman, Bread, Wiley 2004, "Yeast conversions: fresh to dry").
       '13:18 warning yeast is 2 % (6.06 % as fresh yeast) in a lean dough; lean doughs rarely need more than about 4 % fresh yeast (common practice)',
     ]],
     ['salt at 1 %', BASE.replace('fine salt: 2', 'fine salt: 1'), ['12:14 warning salt is 1 % of the flour; bread usually has 1.5-3 % (common practice)']],

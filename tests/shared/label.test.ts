@@ -16,7 +16,7 @@ describe('ingredientStatement: order', () => {
   );
 
   it('lists ingredients in descending order of weight in the mixed dough', () => {
-    // 21 CFR 101.4(a)(1); Regulation (EU) No 1169/2011 Art. 18(1): descending order of weight (trade-references §6)
+    // 21 CFR 101.4(a)(1); Regulation (EU) No 1169/2011 Art. 18(1): descending order of weight
     const s = ingredientStatement(enriched, catalog, { rules: 'us' });
     expect(labels([...s.main, ...s.minor])).toEqual([
       'wheat flour', 'whole milk', 'butter', 'pasteurised whole egg', 'sugar', 'water', 'salt', 'yeast',
@@ -25,7 +25,7 @@ describe('ingredientStatement: order', () => {
   });
 
   it('leaves out added water of no more than 5 % under EU rules, and keeps it when asked', () => {
-    // Annex VII Part A: added water ≤ 5 % of the finished product need not be listed (trade-references §6, Reading food-law pages)
+    // Annex VII Part A: added water ≤ 5 % of the finished product need not be listed (as summarised by the University of Reading food-law pages)
     const s = ingredientStatement(enriched, catalog, { rules: 'eu' });
     expect(labels([...s.main, ...s.minor])).not.toContain('water');
     expect(s.omitted).toEqual([expect.objectContaining({ ingredient: 'water' })]);
@@ -106,7 +106,7 @@ describe('ingredientStatement: the 2 % rules', () => {
 
   it('moves salt at exactly 2.0 % to the end group under US rules but keeps it in weight order under EU rules', () => {
     // flour 100, water 90, salt 4, sugar 6 = 200 %: salt 2.0 % (hand-worked).
-    // US 21 CFR 101.4(a)(2) "2 percent or less"; EU Annex VII "less than 2 %" (trade-references §6 boundary test)
+    // US 21 CFR 101.4(a)(2) "2 percent or less"; EU Annex VII "less than 2 %" (the boundary: 2.0 % moves under US rules, stays under EU rules)
     const f = at(4, 90);
     const us = ingredientStatement(f, catalog, { rules: 'us' });
     expect(labels(us.minor)).toEqual(['salt']);
@@ -118,7 +118,7 @@ describe('ingredientStatement: the 2 % rules', () => {
   });
 
   it('lets salt at 1.99 % move under both rules', () => {
-    // flour 100, water 90.02, salt 3.98, sugar 6 = 200 %: salt 1.99 % (hand-worked); trade-references §6
+    // flour 100, water 90.02, salt 3.98, sugar 6 = 200 %: salt 1.99 % (hand-worked); below 2 % under both 21 CFR 101.4(a)(2) and EU Annex VII
     const f = at(3.98, 90.02);
     expect(labels(ingredientStatement(f, catalog, { rules: 'us' }).minor)).toEqual(['salt']);
     expect(labels(ingredientStatement(f, catalog, { rules: 'eu' }).minor)).toEqual(['salt']);
@@ -128,7 +128,7 @@ describe('ingredientStatement: the 2 % rules', () => {
   const small = makeFormula({ 'bread flour': 100 }, { water: 91.8, sugar: 3.2, 'fine salt': 3, 'instant yeast': 2 });
 
   it.each([
-    // 21 CFR 101.4(a)(2): threshold 2, 1.5, 1 or 0.5 percent; no ingredient under the phrase above it (trade-references §6)
+    // 21 CFR 101.4(a)(2): threshold 2, 1.5, 1 or 0.5 percent; no ingredient under the phrase above it
     [2, ['sugar', 'salt', 'yeast'], 'Contains 2% or less of:'],
     [1.5, ['salt', 'yeast'], 'Contains 1.5% or less of:'], // sugar at 1.6 % must not sit under "1.5 percent or less"
     [1, ['yeast'], 'Contains 1% or less of:'],
@@ -173,7 +173,7 @@ describe('ingredientStatement: allergens and compound ingredients', () => {
   });
 
   it('emphasises rye and mussels under EU rules only, crustaceans and sesame under both', () => {
-    // trade-references §6: rye and molluscs EU only; crustaceans and sesame both
+    // Regulation (EU) No 1169/2011 Annex II and FALCPA/FASTER Act: rye and molluscs EU only; crustaceans and sesame both
     const f = makeFormula({ 'bread flour': 70, 'rye flour': 30 }, { water: 70, 'smoked mussels': 10, 'shrimp paste': 4, 'sesame seeds': 5, 'fine salt': 2 });
     const eu = ingredientStatement(f, catalog, { rules: 'eu' });
     expect(eu.text).toContain('RYE flour');

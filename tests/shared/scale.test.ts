@@ -27,18 +27,18 @@ function near(actual: number | undefined, expected: number, rel = 1e-12): void {
 }
 
 describe('scaleFormula: straight dough', () => {
-  it('scales the brief\'s 168 % formula to 1000 g of dough', () => {
-    const r = scaleFormula(fixtureFormula('brief-straight'), catalog, { by: 'mix', grams: 1000 });
-    expect(r.totalPercent).toBe(168); // trade-references §7 "the brief's own example"
-    expect(roundGrams(r.flour, { coarse: 0.01, fine: 0.01, fineBelow: 0 })).toBe(595.24); // §7 brief's example: flour 595.24 g
-    expect(roundGrams(overall(r, 'water')!, { coarse: 0.01, fine: 0.01, fineBelow: 0 })).toBe(386.9); // §7: water 386.90 g
-    expect(roundGrams(overall(r, 'fine salt')!, { coarse: 0.01, fine: 0.01, fineBelow: 0 })).toBe(11.9); // §7: salt 11.90 g
-    expect(roundGrams(overall(r, 'instant yeast')!, { coarse: 0.01, fine: 0.01, fineBelow: 0 })).toBe(5.95); // §7: yeast 5.95 g
+  it('scales a 168 % lean formula to 1000 g of dough', () => {
+    const r = scaleFormula(fixtureFormula('lean-straight'), catalog, { by: 'mix', grams: 1000 });
+    expect(r.totalPercent).toBe(168); // common practice lean dough 100/65/2/1, hand-worked from the baker's percent definition (Gisslen, Professional Baking)
+    expect(roundGrams(r.flour, { coarse: 0.01, fine: 0.01, fineBelow: 0 })).toBe(595.24); // hand-worked: 1000 / 1.68 = 595.24 g
+    expect(roundGrams(overall(r, 'water')!, { coarse: 0.01, fine: 0.01, fineBelow: 0 })).toBe(386.9); // hand-worked: 0.65 × 595.24 = 386.90 g
+    expect(roundGrams(overall(r, 'fine salt')!, { coarse: 0.01, fine: 0.01, fineBelow: 0 })).toBe(11.9); // hand-worked: 11.90 g
+    expect(roundGrams(overall(r, 'instant yeast')!, { coarse: 0.01, fine: 0.01, fineBelow: 0 })).toBe(5.95); // hand-worked: 5.95 g
   });
 
   it('gives exactly 1000 / 650 / 20 / 10 g for 1680 g of dough', () => {
-    const r = scaleFormula(fixtureFormula('brief-straight'), catalog, { by: 'mix', grams: 1680 });
-    near(r.flour, 1000); // trade-references §7 "the brief's own example": 1680 g → 1000 g flour
+    const r = scaleFormula(fixtureFormula('lean-straight'), catalog, { by: 'mix', grams: 1680 });
+    near(r.flour, 1000); // same dough, hand-worked: 1680 g → 1000 g flour
     near(overall(r, 'water'), 650); // same
     near(overall(r, 'fine salt'), 20); // same
     near(overall(r, 'instant yeast'), 10); // same
@@ -49,17 +49,17 @@ describe('scaleFormula: straight dough', () => {
 
   it('scales the worksheet baguette: 73 × 390 g at 170 %', () => {
     const r = scaleFormula(fixtureFormula('worksheet-baguette'), catalog, { by: 'pieces', pieces: 73 });
-    expect(r.dividedDough).toBe(28470); // trade-references §7 example 1, Baker's Percentage Worksheet: 28 470 g
-    expect(r.totalPercent).toBe(170); // §7 example 1
-    expect(roundGrams(r.flour)).toBe(16747); // §7 example 1: 16 747 g
-    expect(overall(r, 'water')).toBeCloseTo(11220.53, 2); // §7 example 1: 11 220.53 g [DERIVED from unrounded flour]
-    expect(overall(r, 'fine salt')).toBeCloseTo(334.94, 2); // §7 example 1: 334.94 g
-    expect(overall(r, 'fresh yeast')).toBeCloseTo(167.47, 2); // §7 example 1: 167.47 g
-    near(sum(r.overall.map((l) => l.grams)), 28470); // §7 example 1: the parts add back to 28 470 g
+    expect(r.dividedDough).toBe(28470); // "Baker's Percentage Worksheet" (culinary-school handout "Baker's Math", example 1): 73 × 390 g = 28 470 g
+    expect(r.totalPercent).toBe(170); // same worksheet: 170 %
+    expect(roundGrams(r.flour)).toBe(16747); // same worksheet: 16 747 g
+    expect(overall(r, 'water')).toBeCloseTo(11220.53, 2); // same worksheet: 11 220.49 g from its rounded flour; 11 220.53 g from 28 470 / 1.7 × 0.67
+    expect(overall(r, 'fine salt')).toBeCloseTo(334.94, 2); // same worksheet: 334.94 g
+    expect(overall(r, 'fresh yeast')).toBeCloseTo(167.47, 2); // same worksheet: 167.47 g
+    near(sum(r.overall.map((l) => l.grams)), 28470); // same worksheet: the parts add back to 28 470 g
   });
 
   it('applies the loss allowance: mixed dough = divided dough / (1 − loss)', () => {
-    const f = { ...fixtureFormula('brief-straight'), loss: 2 };
+    const f = { ...fixtureFormula('lean-straight'), loss: 2 };
     const r = scaleFormula(f, catalog, { by: 'pieces', pieces: 10, pieceGrams: 490 });
     expect(r.dividedDough).toBe(4900); // 10 × 490 g, by hand
     near(r.mixedDough, 5000); // 4900 / 0.98 = 5000, by hand
@@ -68,7 +68,7 @@ describe('scaleFormula: straight dough', () => {
   });
 
   it('applies no loss when scaled by mixed dough or by flour', () => {
-    const f = { ...fixtureFormula('brief-straight'), loss: 5 };
+    const f = { ...fixtureFormula('lean-straight'), loss: 5 };
     const byMix = scaleFormula(f, catalog, { by: 'mix', grams: 1680 });
     expect(byMix.loss).toBe(0);
     expect(byMix.dividedDough).toBe(1680);
@@ -79,13 +79,13 @@ describe('scaleFormula: straight dough', () => {
 
   it('scales the pizza formula to 40 lb of flour in exact pounds and ounces', () => {
     const r = scaleFormula(fixtureFormula('pizza-lb'), catalog, { by: 'flour', grams: toGrams(40, 'lb') });
-    expect(r.totalPercent).toBeCloseTo(166.25, 12); // trade-references §7 example 2 (Figuring Percentages handout): 166.25 %
+    expect(r.totalPercent).toBeCloseTo(166.25, 12); // handout "How to Work with a Formula Expressed in Baker's Percent" ("Figuring Percentages"): 166.25 %
     const oz = (name: string) => convertMass(overall(r, name)!, 'g', 'oz');
-    expect(oz('fine salt')).toBeCloseTo(11.2, 9); // §7 example 2: salt 11.2 oz
-    expect(oz('sugar')).toBeCloseTo(12.8, 9); // §7 example 2: sugar 12.8 oz
-    expect(oz('compressed yeast')).toBeCloseTo(9.6, 9); // §7 example 2: compressed yeast 9.6 oz
-    expect(oz('olive oil')).toBeCloseTo(19.2, 9); // §7 example 2: olive oil 1 lb 3.2 oz
-    expect(oz('water')).toBeCloseTo(371.2, 9); // §7 example 2: water 23 lb 3.2 oz
+    expect(oz('fine salt')).toBeCloseTo(11.2, 9); // same handout: salt 11.2 oz
+    expect(oz('sugar')).toBeCloseTo(12.8, 9); // same handout: sugar 12.8 oz
+    expect(oz('compressed yeast')).toBeCloseTo(9.6, 9); // same handout: compressed yeast 9.6 oz
+    expect(oz('olive oil')).toBeCloseTo(19.2, 9); // same handout: olive oil 1 lb 3.2 oz
+    expect(oz('water')).toBeCloseTo(371.2, 9); // same handout: water 23 lb 3.2 oz
   });
 
   it('divides by the full 162.125 %, not a rounded 1.62', () => {
@@ -98,9 +98,9 @@ describe('scaleFormula: straight dough', () => {
         { ingredient: 'instant yeast', percent: 0.375 },
       ],
     });
-    expect(totalPercent(f)).toBeCloseTo(162.125, 12); // trade-references §7 example 2, companion deck: 162.125 %
+    expect(totalPercent(f)).toBeCloseTo(162.125, 12); // the same handout's companion slides ("Baker's Math"), instant yeast 0.375 %, no oil: 162.125 %
     const r = scaleFormula(f, catalog, { by: 'mix', grams: 10000 });
-    near(r.flour, 10000 / 1.62125); // §7 example 2: flour = dough / 1.62125
+    near(r.flour, 10000 / 1.62125); // same slides: flour = dough / 1.62125
   });
 });
 
@@ -108,26 +108,26 @@ describe('scaleFormula: one pre-ferment', () => {
   const r = scaleFormula(fixtureFormula('poolish-loaf'), catalog, { by: 'mix', grams: 1000 });
 
   it('builds the poolish from its share of the flour', () => {
-    expect(r.totalPercent).toBe(170.5); // trade-references §7 example 3: 170.5 %
-    expect(roundGrams(r.flour)).toBe(587); // §7 example 3: 1000 / 1.705 = 586.51 → 587
-    expect(roundGrams(line(r, 'poolish', 'all-purpose flour').grams)).toBe(194); // §7 example 3: 0.33 × 586.51 = 193.55 → 194
-    expect(roundGrams(line(r, 'poolish', 'water').grams)).toBe(194); // §7 example 3: poolish water 194
-    // §7 example 3 prints a 388 g poolish, the sum of its rounded 194 + 194 g; unrounded it is 2.001 × 193.55 = 387.29 g [DERIVED].
+    expect(r.totalPercent).toBe(170.5); // hand-worked example in the total formula / poolish / final dough layout (not from a publication): 170.5 %
+    expect(roundGrams(r.flour)).toBe(587); // hand-worked: 1000 / 1.705 = 586.51 → 587
+    expect(roundGrams(line(r, 'poolish', 'all-purpose flour').grams)).toBe(194); // hand-worked: 0.33 × 586.51 = 193.55 → 194
+    expect(roundGrams(line(r, 'poolish', 'water').grams)).toBe(194); // hand-worked: poolish water 194
+    // Rounded, the poolish is 194 + 194 = 388 g; unrounded it is 2.001 × 193.55 = 387.29 g (hand-worked).
     expect(build(r, 'poolish').grams).toBeCloseTo(2.001 * 0.33 * (1000 / 1.705), 9);
-    expect(line(r, 'poolish', 'instant yeast').grams).toBeCloseTo(0.19, 2); // §7 example 3: 0.1 % of 194 g = 0.19 g
+    expect(line(r, 'poolish', 'instant yeast').grams).toBeCloseTo(0.19, 2); // hand-worked: 0.1 % of 194 g = 0.19 g
     expect(build(r, 'poolish').hydration).toBeCloseTo(100, 12);
     expect(r.prefermentedFlour).toBeCloseTo(33, 12);
   });
 
   it('takes the poolish out of the overall formula for the final dough', () => {
-    expect(roundGrams(final(r, 'all-purpose flour')!)).toBe(393); // trade-references §7 example 3: 587 − 194 = 393
-    // §7 example 3 prints 204 g of water from its rounded 398 − 194; unrounded it is 0.35·F = 205.28 g [DERIVED].
+    expect(roundGrams(final(r, 'all-purpose flour')!)).toBe(393); // hand-worked: 587 − 194 = 393
+    // Rounded, 398 − 194 = 204 g of water; unrounded it is 0.35·F = 205.28 g (hand-worked).
     near(final(r, 'water'), 0.35 * (1000 / 1.705));
     // Panform's convention: the pre-ferment's yeast IS taken out of the overall yeast (the book does not).
     near(final(r, 'instant yeast'), (0.005 - 0.33 * 0.001) * (1000 / 1.705));
     near(final(r, 'poolish'), build(r, 'poolish').grams);
     expect(r.finalDough.at(-1)).toMatchObject({ ingredient: 'poolish', source: 'preferment' });
-    near(sum(r.finalDough.map((l) => l.grams)), 1000); // §7 example 3: final dough adds to 1000 g
+    near(sum(r.finalDough.map((l) => l.grams)), 1000); // hand-worked: final dough adds to 1000 g
     expect(r.finalDoughHydration).toBeCloseTo((0.35 / 0.67) * 100, 10); // by hand: 0.35F water / 0.67F flour
   });
 });
@@ -193,8 +193,8 @@ describe('scaleFormula: enriched dough and effective hydration', () => {
     const r = scaleFormula(fixtureFormula('enriched'), catalog, { by: 'flour', grams: 1000 });
     near(overall(r, 'whole egg'), 500);
     expect(r.hydration).toBe(0); // no water line
-    near(r.effectiveWater, 558.58); // trade-references §4: 380.75 + 89.70 + 88.13 g
-    expect(r.effectiveHydration).toBeCloseTo(55.858, 9); // trade-references §4 (USDA SR28 water contents): 55.858 %
+    near(r.effectiveWater, 558.58); // USDA SR28 water: egg NDB 01123 76.15 %, unsalted butter 01145 17.94 %, whole milk 01077 88.13 %: 380.75 + 89.70 + 88.13 g
+    expect(r.effectiveHydration).toBeCloseTo(55.858, 9); // USDA SR28 (same NDB numbers): 558.58 / 1000 = 55.858 %
   });
 
   it('adds the water line to the water inside other ingredients', () => {
@@ -212,7 +212,7 @@ describe('scaleFormula: enriched dough and effective hydration', () => {
 
   it('does not count the flour\'s own moisture', () => {
     const withMoisture: Catalog = { ...catalog, 'bread flour': { ...catalog['bread flour'], water: 14 } };
-    const r = scaleFormula(fixtureFormula('brief-straight'), withMoisture, { by: 'flour', grams: 1000 });
+    const r = scaleFormula(fixtureFormula('lean-straight'), withMoisture, { by: 'flour', grams: 1000 });
     expect(r.effectiveHydration).toBeCloseTo(65, 12);
   });
 });
@@ -335,12 +335,12 @@ describe('scaleFormula: what cannot be scaled', () => {
     [{ by: 'mix', grams: Number.POSITIVE_INFINITY }, /mixed dough weight must be above 0 g/],
     [{ by: 'flour', grams: -1 }, /flour weight must be above 0 g/],
   ] as const)('refuses the target %o', (target, message) => {
-    expect(() => resolveTarget(fixtureFormula('brief-straight'), target)).toThrow(ScaleError);
-    expect(() => resolveTarget(fixtureFormula('brief-straight'), target)).toThrow(message);
+    expect(() => resolveTarget(fixtureFormula('lean-straight'), target)).toThrow(ScaleError);
+    expect(() => resolveTarget(fixtureFormula('lean-straight'), target)).toThrow(message);
   });
 
   it('refuses a loss of 100 % or more', () => {
-    const f = { ...fixtureFormula('brief-straight'), loss: 100 };
+    const f = { ...fixtureFormula('lean-straight'), loss: 100 };
     expect(() => resolveTarget(f, { by: 'pieces', pieces: 1 })).toThrow(/loss must be from 0 % to below 100 %/);
   });
 });

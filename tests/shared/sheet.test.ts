@@ -9,7 +9,7 @@ import type { Mixer, Plan } from '#shared/model';
 import { DEMO_PLANS, FIXTURE_PLANS, SHEET_FIXTURES, readCatalogIn, readFormulaIn, sheetInput } from './sheet-fixtures.ts';
 
 // Ice: I = W·(T_tap − T_w) / (T_tap + L/c), L = 334 J/g, c = 4.18 J/(g·K)
-// (trade-references §2: Case Western Reserve University demo page; derivation checked there).
+// (Case Western Reserve University physics demo "Specific Heat and Heat of Fusion"; the ice from the heat balance).
 const L_OVER_C = 334 / 4.18;
 const iceFor = (w: number, tap: number, target: number) => (w * (tap - target)) / (tap + L_OVER_C);
 
@@ -84,14 +84,14 @@ describe('buildSheet on the fixtures (known answers)', () => {
 
   it('works out the water temperature and the ice when the water must be colder than the tap', () => {
     const [m] = mixesOf(sheet, 'straight-rolls');
-    // 3·24 − (27 + 25 + 14) = 6 °C (n·DDT method, trade-references §3)
+    // 3·24 − (27 + 25 + 14) = 6 °C (n·DDT method: Pizza Today, June 2018 dough column)
     expect(m.waterTemperature).toBeCloseTo(6, 9);
     expect(m.factors).toEqual({ room: 27, flour: 25, friction: 14, preferments: [], n: 3 });
     // flour = 27 551.02 / 1.68; water 60 %
     const water = ((27000 / 0.98) / 1.68) * 0.6;
     expect(m.water).toBeCloseTo(water, 6);
     expect(m.ice).toBeCloseTo(iceFor(water, 20, 6), 6);
-    expect(m.ice).toBeCloseTo(1378.86, 1); // 9 839.65 · 14 / 99.904 (trade-references §2 formula)
+    expect(m.ice).toBeCloseTo(1378.86, 1); // 9 839.65 · 14 / 99.904 (I = W·ΔT/(T_tap + L/c), L = 334 J/g, c = 4.18 J/(g·K), Case Western Reserve University demo)
     expect(m.ice + m.tapWater).toBeCloseTo(m.water, 9);
   });
 

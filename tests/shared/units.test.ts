@@ -8,9 +8,9 @@ import {
 
 describe('exact weights', () => {
   it('defines the pound and the ounce exactly', () => {
-    expect(GRAMS_PER_POUND).toBe(453.59237); // trade-references §1, International yard and pound agreement (1959)
-    expect(GRAMS_PER_OUNCE).toBe(28.349523125); // §1 [DERIVED]: 453.592 37 / 16
-    expect(toGrams(16, 'oz')).toBe(GRAMS_PER_POUND); // §1: 1 lb = 16 oz
+    expect(GRAMS_PER_POUND).toBe(453.59237); // International yard and pound agreement (1959)
+    expect(GRAMS_PER_OUNCE).toBe(28.349523125); // 453.592 37 / 16 (1 lb = 16 oz avoirdupois)
+    expect(toGrams(16, 'oz')).toBe(GRAMS_PER_POUND); // 1 lb = 16 oz avoirdupois
     expect(convertMass(7000, 'g', 'g')).toBe(7000);
   });
 });
@@ -19,8 +19,8 @@ describe('parseMass', () => {
   it.each([
     ['320 g', 320],
     ['0.32 kg', 320],
-    ['2 lb', 2 * 453.59237], // §1
-    ['11 oz', 11 * 28.349523125], // §1
+    ['2 lb', 2 * 453.59237], // International yard and pound agreement (1959)
+    ['11 oz', 11 * 28.349523125], // same, 1 oz = 1/16 lb
     ['28.47kg', 28470],
     ['900G', 900],
   ])('reads %s', (text, grams) => {
@@ -54,7 +54,7 @@ describe('temperatures', () => {
   });
 
   it('converts a temperature difference without the offset', () => {
-    expect(fahrenheitDeltaToCelsius(20)).toBeCloseTo(11.11, 2); // trade-references §1: 20 °F of friction = 11.11 °C, not −6.67 °C
+    expect(fahrenheitDeltaToCelsius(20)).toBeCloseTo(11.11, 2); // a difference: 20 × 5/9 = 11.11 °C-degrees, not −6.67 °C (t/°F = 1.8·t/°C + 32, NIST SP 811 App. B.9)
     expect(parseTemperatureDelta('20 °F')).toBeCloseTo(100 / 9, 12);
     expect(parseTemperatureDeltaArgument('20', 'F')).toBeCloseTo(100 / 9, 12);
     expect(parseTemperatureDeltaArgument('13')).toBe(13);
@@ -70,7 +70,7 @@ describe('temperatures', () => {
 
 describe('roundGrams', () => {
   it.each([
-    [1234.5, 1235], // 1 g at or above 100 g (product brief)
+    [1234.5, 1235], // 1 g at or above 100 g (docs/arithmetic.md, "Rounding for display")
     [1234.49, 1234],
     [99.96, 100], // the fine step applies below 100 g
     [56.34, 56.3], // 0.1 g below 100 g

@@ -3,7 +3,9 @@
 // generated formulas. Whatever the damage, reading a file (shared/parse.ts) and checking it
 // (shared/check, what `panform check` runs) give either a valid value or located findings
 // (file:line:col and a one-line message): never a throw, and never the check's own "internal
-// error" finding, which would mean a check crashed. Run count: PANFORM_FUZZ_RUNS.
+// error" finding, which would mean a check crashed. Also: every demo file cut short at forty
+// points, random bytes, and the YAML traps (alias bombs, prototype keys, infinities, deep nesting).
+// Run count: PANFORM_FUZZ_RUNS.
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import fc from 'fast-check';
@@ -173,11 +175,39 @@ describe('reading corrupted files', () => {
   });
 
   it('reports located findings and never throws for any text at all, read as each kind of file', { timeout: fuzzTimeout(RUNS) }, () => {
+    // Any string, or any bytes read as UTF-8 (invalid sequences become U+FFFD, as when a file is read).
+    const anyText = fc.oneof(
+      fc.string({ unit: 'binary', maxLength: 300 }),
+      fc.uint8Array({ maxLength: 400 }).map((bytes) => Buffer.from(bytes).toString('utf8')),
+    );
     fc.assert(
-      fc.property(fc.string({ unit: 'binary', maxLength: 300 }), fc.constantFrom<Kind>('formula', 'catalog', 'plan'), (text, kind) => {
-        assertReadable(kind, text, 'fuzz/any.yaml');
+      fc.property(anyText, fc.constantFrom<Kind>('formula', 'catalog', 'plan'), fc.boolean(), (text, kind, withCatalog) => {
+        assertReadable(kind, text, 'fuzz/any.yaml', withCatalog);
       }),
       { numRuns: RUNS },
     );
+  });
+
+  it('reports located findings for every demo file cut short at forty points', () => {
+    for (const s of samples) {
+      const step = Math.max(1, Math.floor(s.text.length / 40));
+      for (let i = 0; i <= s.text.length; i += step) {
+        assertReadable(s.kind, s.text.slice(0, i), s.name, true);
+        if (s.kind === 'formula') assertReadable(s.kind, s.text.slice(0, i), s.name, false);
+      }
+    }
+  });
+
+  it.each([
+    ['a YAML alias bomb', 'a: &a [x, x, x, x, x, x, x, x]\nb: &b [*a, *a, *a, *a, *a, *a, *a, *a]\nc: &c [*b, *b, *b, *b, *b, *b, *b, *b]\nd: [*c, *c, *c, *c, *c, *c, *c, *c]\n'],
+    ['a prototype key', 'id: x\ntitle: t\nstatus: active\ncategory: lean\nyield: {pieces: 1, piece: 1 g}\nflour: {__proto__: 100}\ningredients: {constructor: 5, toString: 1}\n'],
+    ['infinite and missing numbers', 'id: x\ntitle: t\nstatus: active\ncategory: lean\nyield: {pieces: 1, piece: 1 g}\nflour: {a: .inf}\ningredients: {b: .nan}\n'],
+    ['a lone byte-order mark', '\uFEFF'],
+    ['deep nesting', `${'['.repeat(500)}${']'.repeat(500)}`],
+  ])('reports located findings and never throws on %s, read as each kind of file', (_, text) => {
+    for (const kind of ['formula', 'catalog', 'plan'] as const) {
+      assertReadable(kind, text, 'fuzz/trap.yaml', true);
+      if (kind === 'formula') assertReadable(kind, text, 'fuzz/trap.yaml', false);
+    }
   });
 });

@@ -236,7 +236,7 @@ const NUMBER_SWAPS = ['-1', '0', '1e309', 'NaN', '.inf', '-.inf', '0x1F', '99999
 const insertText = fc.oneof(
   fc.string({ unit: 'grapheme', maxLength: 12 }),
   fc.string({ unit: 'binary', maxLength: 6 }),
-  fc.constantFrom('\t', ': ', '- ', '&a ', '*a', '!!binary ', '? ', '|', '>', '"', "'", '#', '{', '[', '\u0000', '\ufeff', '\u202e', '\r', 'ß', '🥖', '---\n', '...\n', '<<: *a'),
+  fc.constantFrom('\t', ': ', '- ', '&a ', '*a', '!!binary ', '? ', '|', '>', '"', "'", '#', '{', '[', '\u0000', '\ufeff', '\u202e', '\r', 'ß', '🥖', '---\n', '...\n', '<<: *a', '__proto__', 'constructor', '.inf', '.nan'),
 );
 
 export const mutationArb: fc.Arbitrary<Mutation> = fc.oneof(

@@ -1,7 +1,8 @@
 // Property tests of the baker's arithmetic over thousands of generated formulas of every shape:
 // whatever the formula and the batch, the parts add up to the whole, scaling is reversible, the
 // final dough plus the builds give back the overall formula, and the percentages do not depend on
-// the batch size. Run count: PANFORM_FUZZ_RUNS (npm run test:large runs 20 000).
+// the batch size, by pieces (at the formula's or another piece weight), by mixed dough or by flour.
+// Run count: PANFORM_FUZZ_RUNS (npm run test:large runs 20 000).
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { parseCatalogText, parseFormulaText } from '#shared/parse';
@@ -61,13 +62,14 @@ describe('scaleFormula on generated formulas', () => {
 
   it('makes the overall lines, the final dough and the pieces add up to the mixed and divided dough', { timeout: fuzzTimeout(RUNS) }, () => {
     fc.assert(
-      fc.property(formulaArb, fc.integer({ min: 1, max: 2000 }), (g, pieces) => {
+      fc.property(formulaArb, fc.integer({ min: 1, max: 2000 }), fc.option(fc.integer({ min: 20, max: 2000 })), (g, pieces, pieceGrams) => {
         const f = parse(g.text);
-        const r = scaleFormula(f, catalog, { by: 'pieces', pieces });
+        // The formula's own piece weight, or another one (as `--piece` gives).
+        const r = scaleFormula(f, catalog, pieceGrams === null ? { by: 'pieces', pieces } : { by: 'pieces', pieces, pieceGrams });
         const M = r.mixedDough;
         expectClose(sum(r.overall.map((l) => l.grams)), M, 'overall lines vs mixed dough');
         expectClose(sum(r.finalDough.map((l) => l.grams)), M, 'final dough lines vs mixed dough');
-        expectClose(r.dividedDough, pieces * f.yield.pieceGrams, 'divided dough vs pieces × piece');
+        expectClose(r.dividedDough, pieces * (pieceGrams ?? f.yield.pieceGrams), 'divided dough vs pieces × piece');
         expectClose(M * (1 - f.loss / 100), r.dividedDough, 'mixed dough less the loss vs divided dough');
         expectClose(sum(r.overall.filter((l) => l.kind === 'flour').map((l) => l.grams)), r.flour, 'flour lines vs total flour');
         for (const b of r.preferments) {

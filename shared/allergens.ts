@@ -215,12 +215,13 @@ export function ingredientAllergens(catalog: Catalog, name: string): IngredientA
   return { codes: sortCodes(codes), unlisted: [...unlisted] };
 }
 
-/** Every ingredient name the formula uses: overall lines, then pre-ferment and soaker lines (seed cultures). */
+/** Every ingredient name the formula uses: overall lines, pre-ferment and soaker lines (seed cultures), then finishes. */
 export function formulaIngredientNames(formula: Formula): string[] {
   const names = new Set<string>();
   for (const l of [...formula.flour, ...formula.ingredients]) names.add(l.ingredient);
   for (const p of formula.preferments) for (const l of p.ingredients) names.add(l.ingredient);
   for (const s of formula.soakers) for (const l of s.ingredients) names.add(l.ingredient);
+  for (const f of formula.finishes) names.add(f.ingredient);
   return [...names];
 }
 

@@ -2,7 +2,7 @@
 // percent and minutes. `normalize…` turns a file that passed the schema into this shape.
 // Pure; no I/O.
 import type {
-  AllergenCode, CatalogFile, FormulaFile, FormulaStatus, IngredientKind, PlanFile, PrefermentKind, StepKind, YeastType,
+  AllergenCode, CatalogFile, FinishUse, FormulaFile, FormulaStatus, IngredientKind, PlanFile, PrefermentKind, StepKind, YeastType,
 } from './schema/shapes.ts';
 import {
   parseMass, parsePercent, parseRange, parseTemperature, parseTemperatureDelta, type NumberRange, type RangePick,
@@ -52,6 +52,15 @@ export interface Step {
   note?: string;
 }
 
+/** What goes on or under each piece (seeds on top, egg wash, tray oil, dusting flour). */
+export interface Finish {
+  ingredient: string;
+  /** Grams on each piece. */
+  perPieceGrams: number;
+  use: FinishUse;
+  note?: string;
+}
+
 export interface Formula {
   id: string;
   title: string;
@@ -62,6 +71,8 @@ export interface Formula {
   yield: { pieces: number; pieceGrams: number };
   /** Percent of mixed dough lost before dividing. */
   loss: number;
+  /** Percent of the dough's weight lost in the oven (water), when the formula gives it; see bakeLossOf in label.ts. */
+  bakeLoss?: number;
   /** °C */
   doughTemperature?: number;
   flour: Line[];
@@ -69,6 +80,7 @@ export interface Formula {
   preferments: Preferment[];
   soakers: Soaker[];
   process: Step[];
+  finishes: Finish[];
   mayContain: AllergenCode[];
   notes?: string;
 }
@@ -89,7 +101,22 @@ export interface CatalogItem {
   costDate?: string;
   components?: string[];
   label?: string;
+  /** The name on the statement for one market, where it differs from label. */
+  labels?: { eu?: string; us?: string };
+  nutrients?: Nutrients;
   note?: string;
+}
+
+/** Per 100 g of the ingredient: grams, sodium in mg. `carbohydrate` is total carbohydrate (fibre included). */
+export interface Nutrients {
+  fat: number;
+  saturates: number;
+  carbohydrate: number;
+  sugars: number;
+  fibre: number;
+  protein: number;
+  sodiumMg: number;
+  source: string;
 }
 
 export type Catalog = Record<string, CatalogItem>;
@@ -133,6 +160,7 @@ export function normalizeFormula(f: FormulaFile): Formula {
     tags: f.tags ?? [],
     yield: { pieces: f.yield.pieces, pieceGrams: parseMass(f.yield.piece) },
     loss: f.loss === undefined ? 0 : parsePercent(f.loss),
+    bakeLoss: f.bake_loss === undefined ? undefined : parsePercent(f.bake_loss),
     doughTemperature: f.dough_temperature === undefined ? undefined : parseTemperature(f.dough_temperature),
     flour: table(f.flour),
     ingredients: table(f.ingredients),
@@ -172,6 +200,7 @@ export function normalizeFormula(f: FormulaFile): Formula {
         note: s.note,
       };
     }),
+    finishes: (f.finishes ?? []).map((x) => ({ ingredient: x.ingredient, perPieceGrams: parseMass(x.per_piece), use: x.use, note: x.note })),
     mayContain: f.may_contain ?? [],
     notes: f.notes,
   };
@@ -199,6 +228,17 @@ export function normalizeCatalog(c: CatalogFile): Catalog {
       costDate: e.cost_date,
       components: e.components,
       label: e.label,
+      labels: e.labels,
+      nutrients: e.nutrients && {
+        fat: e.nutrients.fat,
+        saturates: e.nutrients.saturates,
+        carbohydrate: e.nutrients.carbohydrate,
+        sugars: e.nutrients.sugars,
+        fibre: e.nutrients.fibre,
+        protein: e.nutrients.protein,
+        sodiumMg: e.nutrients.sodium_mg,
+        source: e.nutrients.source,
+      },
       note: e.note,
     };
   }

@@ -2,7 +2,8 @@
 // name known components and declare their allergens, seed cultures say how to count them,
 // water contents and dates are real. Pure.
 import type { Finding, SourceMap } from '../parse.ts';
-import type { Catalog } from '../model.ts';
+import type { Catalog, Nutrients } from '../model.ts';
+import { SALT_PER_SODIUM } from '../nutrition.ts';
 import { finite, FindingList, pct, pointer, quote } from './report.ts';
 import { didYouMean } from './suggest.ts';
 
@@ -62,6 +63,16 @@ export function checkCatalog(input: CatalogCheckInput): Finding[] {
       out.warning(at('cost_date'), `${quote(name)} has a cost_date but no cost_per_kg`, 'key');
     }
 
+    if (e.nutrients) checkNutrients(out, name, e.nutrients, at);
+    if (e.kind === 'culture' && e.nutrients) {
+      out.warning(at('nutrients'), `a culture's nutrients are not used: its flour and water count as the flour it is fed with and water`, 'key');
+    }
+    for (const market of ['eu', 'us'] as const) {
+      if (e.labels?.[market] !== undefined && e.labels[market] === e.label) {
+        out.warning(at('labels', market), `labels.${market} of ${quote(name)} is the same as label; leave it out`, 'key');
+      }
+    }
+
     if (e.components) {
       const seen = new Set<string>();
       e.components.forEach((c, i) => {
@@ -95,6 +106,23 @@ export function checkCatalog(input: CatalogCheckInput): Finding[] {
     out.error(pointer(cycle[0], 'components'), `${quote(cycle[0])} contains itself through its components: ${cycle.map(quote).join(' → ')}`, 'key');
   }
   return out.findings;
+}
+
+/** Values per 100 g that cannot all be true at once: parts larger than their whole, more than 100 g in 100 g. */
+function checkNutrients(out: FindingList, name: string, n: Nutrients, at: (...k: string[]) => string): void {
+  const g = (x: number) => `${Number(x.toFixed(3))} g`;
+  // Food tables give carbohydrate by difference and sugars by analysis: they may disagree a little
+  // (whole milk: 5.05 g sugars in 4.80 g carbohydrate, USDA SR Legacy 01077).
+  const slack = 0.5;
+  if (n.saturates > n.fat + slack) out.error(at('nutrients', 'saturates'), `${quote(name)} has ${g(n.saturates)} saturates in ${g(n.fat)} fat; saturates are part of the fat`);
+  if (n.sugars > n.carbohydrate + slack) out.error(at('nutrients', 'sugars'), `${quote(name)} has ${g(n.sugars)} sugars in ${g(n.carbohydrate)} carbohydrate; sugars are part of the carbohydrate`);
+  if (n.fibre > n.carbohydrate + slack) {
+    out.warning(at('nutrients', 'fibre'), `${quote(name)} has more fibre (${g(n.fibre)}) than carbohydrate (${g(n.carbohydrate)}); carbohydrate is total carbohydrate, fibre included (as food tables give it by difference)`);
+  }
+  const total = n.fat + n.carbohydrate + n.protein + (n.sodiumMg * SALT_PER_SODIUM) / 1000;
+  if (total > 100 + 0.5) {
+    out.error(at('nutrients'), `the nutrients of ${quote(name)} add up to ${g(total)} per 100 g (fat, carbohydrate, protein and the salt its sodium makes); no food holds more than 100 g in 100 g`, 'key');
+  }
 }
 
 /** Compounds that contain themselves through other compounds (A → B → A); each cycle once. */

@@ -103,6 +103,16 @@ export function checkFormula(input: FormulaCheckInput): Finding[] {
     else if (f.loss > PRACTICE.lossMax) out.warning('/loss', `loss is ${pct(f.loss)}; a loss allowance is usually 1-3 % (common practice)`);
   }
 
+  // ---- bake loss and finishes --------------------------------------------------------------
+  if (f.bakeLoss !== undefined) {
+    if (!finite(f.bakeLoss) || f.bakeLoss < 0 || f.bakeLoss >= 100) {
+      out.error('/bake_loss', `bake_loss is ${pct(f.bakeLoss)}; it must be from 0 % to below 100 % (the share of the dough's weight lost in the oven)`);
+    } else if (outside(f.bakeLoss, PRACTICE.bakeLoss)) {
+      out.warning('/bake_loss', `bake_loss is ${pct(f.bakeLoss)}; bread usually loses about 8-25 % of its dough weight in the oven (common practice)`);
+    }
+  }
+  checkFinishes(out, f, catalog, catalogNames);
+
   // Reference batch: the formula's own yield, for amounts in grams in messages.
   const total = sum([...f.flour, ...f.ingredients].map((l) => l.percent));
   const lossOk = f.loss >= 0 && f.loss < 100;
@@ -254,6 +264,31 @@ export function checkFormula(input: FormulaCheckInput): Finding[] {
 
   checkProcess(out, f, raw);
   return out.findings;
+}
+
+function checkFinishes(out: FindingList, f: Formula, catalog: Catalog | null, catalogNames: string[]): void {
+  const seen = new Map<string, number>();
+  f.finishes.forEach((x, i) => {
+    const at = (...k: string[]) => pointer('finishes', String(i), ...k);
+    const what = `finish ${i + 1} (${x.use} of ${quote(x.ingredient)})`;
+    if (catalog && !Object.hasOwn(catalog, x.ingredient)) {
+      out.error(at('ingredient'), `unknown ingredient ${quote(x.ingredient)} in ${what}: not in the catalog${didYouMean(x.ingredient, catalogNames)}`);
+    } else if (catalog && catalog[x.ingredient].kind === 'culture') {
+      out.error(at('ingredient'), `${quote(x.ingredient)} is a seed culture; a culture goes into a levain build, not on the piece`);
+    }
+    if (!finite(x.perPieceGrams) || x.perPieceGrams <= 0) {
+      out.error(at('per_piece'), `${what} is ${grams(x.perPieceGrams)} a piece; it must be above 0 g`);
+    } else if (f.yield.pieceGrams > 0 && x.perPieceGrams > f.yield.pieceGrams * PRACTICE.finishShareMax / 100) {
+      out.warning(
+        at('per_piece'),
+        `${what} is ${grams(x.perPieceGrams)} on a ${grams(f.yield.pieceGrams)} piece, more than ${PRACTICE.finishShareMax} % of it; a topping, wash or tray oil is usually a few percent of the piece (common practice)`,
+      );
+    }
+    const key = `${x.use}\u0000${x.ingredient}`;
+    const first = seen.get(key);
+    if (first !== undefined) out.error(at('ingredient'), `${what} repeats finish ${first + 1}; give each ingredient once per use, with the whole amount`);
+    else seen.set(key, i);
+  });
 }
 
 function yeastFactor(i: CatalogItem): number {

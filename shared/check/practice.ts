@@ -31,6 +31,10 @@ export const PRACTICE = {
   lossMax: 10,
   /** A cold hold (retard) runs at about 2–6 °C (common practice; follow your food-safety plan). */
   retardTemperatureMax: 8,
+  /** Weight lost in the oven, percent of the dough (common practice: rolls and small pieces lose most). */
+  bakeLoss: { min: 8, max: 25 } as Band,
+  /** A finish heavier than this percent of the piece is unusual (common practice). */
+  finishShareMax: 15,
   /** Bake temperatures, °C (common practice for bread and rolls). */
   bakeTemperature: { min: 150, max: 300 } as Band,
 } as const;

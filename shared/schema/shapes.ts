@@ -3,7 +3,7 @@
 // tests/shared/schema-drift.test.ts fails when the committed files and these shapes differ.
 import { Type, type Static } from '@sinclair/typebox';
 import {
-  ALLERGEN_CODES, BAKE_VESSELS, CLOCK_PATTERN, DATE_PATTERN, FORMULA_STATUSES, ID_PATTERN, INGREDIENT_KINDS, MASS_PATTERN,
+  ALLERGEN_CODES, BAKE_VESSELS, CLOCK_PATTERN, DATE_PATTERN, FINISH_USES, FORMULA_STATUSES, ID_PATTERN, INGREDIENT_KINDS, MASS_PATTERN,
   PERCENT_PATTERN, PREFERMENT_KINDS, RANGE_PATTERN, STEP_KINDS, TEMPERATURE_PATTERN, YEAST_TYPES,
 } from './vocabulary.ts';
 
@@ -98,6 +98,20 @@ export const Step = Type.Object(
   { additionalProperties: false },
 );
 
+export const Finish = Type.Object(
+  {
+    ingredient: Type.String({ minLength: 1, description: 'Catalog name of what goes on or under the piece.' }),
+    per_piece: Type.String({ pattern: MASS_PATTERN, description: 'Weight used on each piece, e.g. "4 g".' }),
+    use: Type.Unsafe<(typeof FINISH_USES)[number]>({
+      type: 'string',
+      enum: [...FINISH_USES],
+      description: 'topping (on top), wash (brushed on), tray (oil or grease under the piece), dusting (flour on the piece or the peel).',
+    }),
+    note: Type.Optional(Type.String()),
+  },
+  { additionalProperties: false, description: 'What goes on or under the dough: counted in the ingredient statement, allergens and nutrition.' },
+);
+
 export const FormulaFile = Type.Object(
   {
     $schema: Type.Optional(Type.String()),
@@ -115,12 +129,16 @@ export const FormulaFile = Type.Object(
       { additionalProperties: false, description: 'The batch the formula is written for.' },
     ),
     loss: Type.Optional(Percent),
+    bake_loss: Type.Optional(Type.Union([Type.Number(), Type.String({ pattern: PERCENT_PATTERN })], {
+      description: 'Weight lost in the oven, in percent of the dough weight (taken as water). Default by category (common practice).',
+    })),
     dough_temperature: Type.Optional(Temperature),
     flour: PercentTable,
     ingredients: PercentTable,
     preferments: Type.Optional(Type.Array(Preferment)),
     soakers: Type.Optional(Type.Array(Soaker)),
     process: Type.Optional(Type.Array(Step)),
+    finishes: Type.Optional(Type.Array(Finish)),
     may_contain: Type.Optional(Type.Array(AllergenCode, { uniqueItems: true })),
     notes: Type.Optional(Type.String()),
   },
@@ -128,6 +146,20 @@ export const FormulaFile = Type.Object(
 );
 
 // ---- ingredient catalog --------------------------------------------------------------------
+const grams100 = (description: string) => Type.Number({ minimum: 0, maximum: 100, description });
+export const Nutrients = Type.Object(
+  {
+    fat: grams100('Fat, g per 100 g.'),
+    saturates: grams100('Saturated fatty acids, g per 100 g.'),
+    carbohydrate: grams100('Total carbohydrate (by difference, fibre included), g per 100 g.'),
+    sugars: grams100('Total sugars, g per 100 g.'),
+    fibre: grams100('Dietary fibre, g per 100 g.'),
+    protein: grams100('Protein, g per 100 g.'),
+    sodium_mg: Type.Number({ minimum: 0, maximum: 100000, description: 'Sodium, mg per 100 g.' }),
+    source: Type.String({ minLength: 1, description: 'Where the values come from: a supplier specification, or a food composition table and its number.' }),
+  },
+  { additionalProperties: false, description: 'Per 100 g, grams unless the key says mg.' },
+);
 export const CatalogEntry = Type.Object(
   {
     kind: Type.Unsafe<(typeof INGREDIENT_KINDS)[number]>({ type: 'string', enum: [...INGREDIENT_KINDS] }),
@@ -148,6 +180,14 @@ export const CatalogEntry = Type.Object(
     /** A compound ingredient: its components in descending order of weight. */
     components: Type.Optional(Type.Array(Type.String({ minLength: 1 }), { minItems: 1 })),
     label: Type.Optional(Type.String({ minLength: 1, description: 'Name on the ingredient statement.' })),
+    labels: Type.Optional(Type.Object(
+      {
+        eu: Type.Optional(Type.String({ minLength: 1 })),
+        us: Type.Optional(Type.String({ minLength: 1 })),
+      },
+      { additionalProperties: false, description: 'The name on the statement for one market, where it differs from label.' },
+    )),
+    nutrients: Type.Optional(Nutrients),
     note: Type.Optional(Type.String()),
   },
   { additionalProperties: false },
@@ -211,6 +251,9 @@ export type PlanFile = Static<typeof PlanFile>;
 export type StepFile = Static<typeof Step>;
 export type PrefermentFile = Static<typeof Preferment>;
 export type SoakerFile = Static<typeof Soaker>;
+export type FinishFile = Static<typeof Finish>;
+export type NutrientsFile = Static<typeof Nutrients>;
+export type FinishUse = (typeof FINISH_USES)[number];
 export type AllergenCode = (typeof ALLERGEN_CODES)[number];
 export type IngredientKind = (typeof INGREDIENT_KINDS)[number];
 export type YeastType = (typeof YEAST_TYPES)[number];

@@ -18,6 +18,8 @@ export const BAKE_VESSELS = ['deck', 'tray', 'pot', 'tin', 'stone'] as const;
 export const INGREDIENT_KINDS = [
   'flour', 'water', 'salt', 'yeast', 'sugar', 'fat', 'dairy', 'egg', 'seed', 'inclusion', 'culture', 'improver', 'other',
 ] as const;
+/** What a finish is for: on top of the piece, brushed on, under it in the tray or tin, or dusted on. */
+export const FINISH_USES = ['topping', 'wash', 'tray', 'dusting'] as const;
 export const YEAST_TYPES = ['fresh', 'active-dry', 'instant'] as const;
 export const ALLERGEN_CODES = [
   'wheat', 'rye', 'barley', 'oats', 'spelt', 'khorasan', 'crustaceans', 'eggs', 'fish', 'peanuts', 'soybeans', 'milk',

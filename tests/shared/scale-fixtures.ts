@@ -34,6 +34,7 @@ export function formula(parts: Partial<Formula> & Pick<Formula, 'flour' | 'ingre
     preferments: [],
     soakers: [],
     process: [],
+    finishes: [],
     mayContain: [],
     ...parts,
   };

@@ -1,18 +1,22 @@
 // The ingredient statement of a formula, under EU or US rules, as plain text and HTML. Pure; no I/O.
 //
-// Order. Ingredients are listed in descending order of weight as used: the overall formula, with
-// the pre-ferments' and soakers' ingredients merged into it (they are overall lines already). A
-// levain's seed culture counts as flour and water (docs/arithmetic.md); when the build has no line
-// of the flour the culture is fed with, the seed's flour is moved from the build's flour to that flour.
-// Lines with the same name on the statement (two flours both labelled "wheat flour") are one entry.
+// Order. Ingredients are listed in descending order of weight as used in one piece: the dough's
+// ingredients and the finishes on and under it (product.ts). Lines with the same name on the
+// statement (two flours both labelled "wheat flour", seeds in the dough and on top) are one entry.
+// Names are the catalog's `labels.eu` / `labels.us` for the market, else its `label`.
 //
-// Water. EU: Regulation (EU) No 1169/2011 Annex VII Part A ranks added water by its weight in the
-// finished product, and added water of no more than 5 % of the finished product need not be
-// listed. Panform does not know the bake loss, so by default it ranks water by its weight in the
-// mixed dough and takes the mixed dough as "the finished product". With `bakeLoss` (percent of the
-// mixed dough's weight lost in the oven, taken as water), water is ranked by what remains, and
-// every share is taken of the baked weight. US (21 CFR 101.4(a)(1)): water is ranked by the weight
-// added, like any ingredient.
+// Water. EU: Regulation (EU) No 1169/2011 Annex VII Part A point 1 ranks added water by its weight
+// in the finished product, and added water of no more than 5 % of the finished product need not be
+// listed. The bake loss (the formula's `bake_loss`, else the category's default, product.ts) is
+// taken as water: water is ranked by what remains, and every share is taken of the baked piece.
+// US (21 CFR 101.4(a)(1)): water is ranked by the weight added, like any ingredient.
+//
+// QUID (EU, Article 22 and Annex VIII). An ingredient named in the product's title or in one of its
+// tags gets its quantity in percent (the words of its name, less words such as "flour" or
+// "whole", matched to the title's words: "milk" in "milk buns", "seed" and "rye" in "seeded rye").
+// Annex VIII point 3: the quantity at the time of use; point 4(a): for a product that loses
+// moisture in baking, related to the finished product (grams used per 100 g of baked product), and
+// above 100 % given as grams used per 100 g of product.
 //
 // The 2 % rules. US, 21 CFR 101.4(a)(2): ingredients at 2 percent or less by weight may follow,
 // in any order, after a quantifying phrase such as "Contains 2% or less of:"; the threshold may
@@ -31,7 +35,8 @@
 // This supports, and does not replace, the bakery's own labelling review under local law.
 import type { AllergenCode } from './schema/shapes.ts';
 import { lookupIngredient, type Catalog, type Formula } from './model.ts';
-import { scaleFormula, sum } from './scale.ts';
+import { productPiece, ProductError, type BakeLoss } from './product.ts';
+import { sum } from './scale.ts';
 import {
   allergenSummary, groupOf, ingredientAllergens, sortCodes, type AllergenSummary, type Jurisdiction,
 } from './allergens.ts';
@@ -47,7 +52,7 @@ const TOLERANCE = 1e-9;
 export const LABEL_CAUTION =
   'This ingredient statement supports, and does not replace, the bakery\'s own labelling review under local law. ' +
   'Check names, allergens and cross-contact against the suppliers\' specifications and your own bakehouse before printing a label. ' +
-  'Toppings, washes, dusting flour and fillings that are not in the formula are not in this statement.';
+  'Toppings, washes, tray oil and dusting flour count only when they are written in the formula\'s finishes.';
 
 export interface LabelOptions {
   rules: Jurisdiction;
@@ -57,7 +62,7 @@ export interface LabelOptions {
   groupMinor?: boolean;
   /** EU only: leave out added water of no more than 5 % of the finished product; default true. */
   omitMinorWater?: boolean;
-  /** Percent of the mixed dough's weight lost in baking (taken as water); default 0 (unknown). */
+  /** Percent of the dough's weight lost in baking (taken as water); default: the formula's, else its category's (product.ts). */
   bakeLoss?: number;
 }
 
@@ -82,6 +87,8 @@ export interface StatementEntry extends StatementComponent {
   /** Weight that ranks the entry, in grams per 100 g of the basis (mixed dough, or baked weight with bakeLoss). */
   share: number;
   water: boolean;
+  /** EU: the quantity declared (Article 22), in percent of the finished product; null when not required. */
+  quid: number | null;
   segments: Segment[];
 }
 
@@ -92,6 +99,8 @@ export interface IngredientStatement {
   /** What the shares are percent of. */
   basis: 'mixed dough' | 'baked weight';
   bakeLoss: number;
+  /** Where the bake loss comes from: given, the formula's bake_loss, or the category's default. */
+  bakeLossSource: BakeLoss['source'];
   /** US: the threshold in use; EU: 2 (strictly less than). */
   threshold: number;
   /** In weight order, above the threshold. */
@@ -212,8 +221,11 @@ export function emphasise(text: string, codes: readonly AllergenCode[], rules: J
   return { segments, found };
 }
 
-function labelOf(catalog: Catalog, name: string): string {
+/** The name on the statement: the market's own name, else the catalog's label, else the catalog name. */
+export function labelOf(catalog: Catalog, name: string, rules: Jurisdiction): string {
   const item = catalog[name];
+  const own = item?.labels?.[rules];
+  if (own) return own;
   if (item?.label) return item.label;
   if (item?.kind === 'water') return 'water';
   return name;
@@ -267,33 +279,11 @@ function componentTree(catalog: Catalog, name: string, rules: Jurisdiction, path
   const item = catalog[name];
   return {
     ingredient: name,
-    label: labelOf(catalog, name),
+    label: labelOf(catalog, name, rules),
     allergens: item ? relevant(ingredientAllergens(catalog, name).codes, rules) : [],
     inCatalog: item !== undefined,
     components: (item?.components ?? []).map((c) => componentTree(catalog, c, rules, [...path, name])),
   };
-}
-
-/** Grams of each ingredient as used, per 1000 g of flour, with seed flours the formula does not otherwise use. */
-function weightsAsUsed(formula: Formula, catalog: Catalog): Map<string, number> {
-  const scaled = scaleFormula(formula, catalog, { by: 'flour', grams: 1000 });
-  const grams = new Map<string, number>();
-  for (const l of scaled.overall) grams.set(l.ingredient, (grams.get(l.ingredient) ?? 0) + l.grams);
-  for (const p of scaled.preferments) {
-    for (const l of p.ingredients) {
-      if (!l.seed) continue;
-      const item = lookupIngredient(catalog, l.ingredient);
-      if (!item.fedWith || p.ingredients.some((x) => !x.seed && x.ingredient === item.fedWith)) continue;
-      // scale.ts counted the seed's flour in the build's first flour line; move it to the flour it really is.
-      const flourLine = p.ingredients.find((x) => !x.seed && lookupIngredient(catalog, x.ingredient).kind === 'flour');
-      if (!flourLine) continue;
-      const h = item.hydration ?? 100;
-      const seedFlour = (l.grams * 100) / (100 + h);
-      grams.set(flourLine.ingredient, (grams.get(flourLine.ingredient) ?? 0) - seedFlour);
-      grams.set(item.fedWith, (grams.get(item.fedWith) ?? 0) + seedFlour);
-    }
-  }
-  return grams;
 }
 
 /** The ingredient statement of a formula under EU or US rules. Throws ScaleError or LabelError for input it cannot read. */
@@ -303,34 +293,40 @@ export function ingredientStatement(formula: Formula, catalog: Catalog, options:
   if (rules === 'us' && !US_THRESHOLDS.includes(threshold as UsThreshold)) {
     throw new LabelError(`the US threshold must be one of ${US_THRESHOLDS.join(', ')} percent; got ${threshold}`);
   }
-  const bakeLoss = options.bakeLoss ?? 0;
-  if (!(bakeLoss >= 0 && bakeLoss < 100)) throw new LabelError(`bake loss must be from 0 % to below 100 %; got ${bakeLoss} %`);
+  let piece;
+  try {
+    piece = productPiece(formula, catalog, { bakeLoss: options.bakeLoss });
+  } catch (e) {
+    if (e instanceof ProductError) throw new LabelError(e.message);
+    throw e;
+  }
+  const bakeLoss = piece.bakeLoss.percent;
   const groupMinor = options.groupMinor ?? true;
   const omitMinorWater = rules === 'eu' && (options.omitMinorWater ?? true);
 
   const summary = allergenSummary(formula, catalog);
-  const used = weightsAsUsed(formula, catalog);
-  const mixed = sum([...used.values()]);
-  const basisWeight = mixed * (1 - bakeLoss / 100);
+  const basisWeight = piece.bakedGrams;
   const isWater = (n: string) => lookupIngredient(catalog, n).kind === 'water';
-  const totalWater = sum([...used].filter(([n]) => isWater(n)).map(([, g]) => g));
-  // EU: water ranks by what is left of it after baking; all of it is taken to be the bake loss.
-  const lost = rules === 'eu' ? Math.min(totalWater, (mixed * bakeLoss) / 100) : 0;
+  const used = [...piece.dough, ...piece.finishes.map((f) => ({ ingredient: f.ingredient, grams: f.grams }))];
+  const totalWater = sum(used.filter((l) => isWater(l.ingredient)).map((l) => l.grams));
+  // EU: water ranks by what is left of it after baking; all of the bake loss is taken to be water.
+  const lost = rules === 'eu' ? Math.min(totalWater, piece.lostGrams) : 0;
 
   // Merge lines that read the same on the statement.
   interface Acc { key: string; names: string[]; grams: number; water: boolean }
   const acc = new Map<string, Acc>();
-  for (const [name, g] of used) {
+  for (const { ingredient: name, grams: g } of used) {
     if (!(g > 0)) continue;
     const item = catalog[name];
-    const key = item?.components ? `compound:${name}` : `label:${labelOf(catalog, name).toLowerCase()}`;
+    const key = item?.components ? `compound:${name}` : `label:${labelOf(catalog, name, rules).toLowerCase()}`;
     const a = acc.get(key) ?? { key, names: [], grams: 0, water: isWater(name) };
-    a.names.push(name);
+    if (!a.names.includes(name)) a.names.push(name);
     a.grams += g;
     a.water &&= isWater(name);
     acc.set(key, a);
   }
 
+  const named = rules === 'eu' ? namedWords(formula) : new Set<string>();
   const entries: StatementEntry[] = [];
   for (const a of acc.values()) {
     const first = a.names[0];
@@ -338,12 +334,16 @@ export function ingredientStatement(formula: Formula, catalog: Catalog, options:
     const codes = relevant(sortCodes(a.names.flatMap((n) => ingredientAllergens(catalog, n).codes)), rules);
     const tree = componentTree(catalog, first, rules, []);
     const rendered = renderNode(tree.label, codes, tree.components, rules);
+    // Annex VIII point 4(a): the quantity used, related to the finished product (water: what is left).
+    const quid = !a.water && namesIngredient(named, tree.label) ? (a.grams / basisWeight) * 100 : null;
+    if (quid !== null) rendered.segments.push({ text: ` (${formatQuid(quid)})` });
     entries.push({
       ...tree,
       allergens: codes,
       ingredients: a.names,
       share: basisWeight > 0 ? (grams / basisWeight) * 100 : 0,
       water: a.water,
+      quid,
       segments: rendered.segments,
     });
   }
@@ -373,9 +373,15 @@ export function ingredientStatement(formula: Formula, catalog: Catalog, options:
   const notes: string[] = [];
   notes.push(
     bakeLoss > 0
-      ? `Shares are of the baked weight: mixed dough less ${bakeLoss} % bake loss, all taken as water.`
-      : 'Shares are of the mixed dough: the bake loss is not known, so water is ranked by its weight in the mixed dough and the small-ingredient groups are worked out before baking. Give the bake loss to rank by the baked weight.',
+      ? `Shares are of the baked piece (${Number(basisWeight.toFixed(1))} g): ${Number(piece.doughGrams.toFixed(1))} g of dough less the ${piece.bakeLoss.note}, all taken as water${piece.finishes.length > 0 ? ', plus its finishes' : ''}.`
+      : 'Shares are of the mixed dough: with no bake loss, water is ranked by its weight in the mixed dough and the small-ingredient groups are worked out before baking.',
   );
+  const quids = entries.filter((e) => e.quid !== null);
+  if (quids.length > 0) {
+    notes.push(
+      `Quantities declared (Regulation (EU) No 1169/2011 Article 22, Annex VIII point 4(a)): ${quids.map((e) => `${e.label} ${formatQuid(e.quid!)}`).join(', ')}, as used per 100 g of the baked product; the title or a tag names ${quids.length === 1 ? 'it' : 'them'}.`,
+    );
+  }
   for (const o of omitted) notes.push(`${o.ingredient} (${o.share.toFixed(1)} %) is not listed: ${o.reason}.`);
   if (rules === 'eu' && minor.length > 0) {
     notes.push(`Under 2 % of the finished product (may follow the others in any order): ${minor.map((e) => e.label).join(', ')}.`);
@@ -393,6 +399,7 @@ export function ingredientStatement(formula: Formula, catalog: Catalog, options:
     rules,
     basis: bakeLoss > 0 ? 'baked weight' : 'mixed dough',
     bakeLoss,
+    bakeLossSource: piece.bakeLoss.source,
     threshold,
     main,
     minor,
@@ -406,6 +413,30 @@ export function ingredientStatement(formula: Formula, catalog: Catalog, options:
     caution: LABEL_CAUTION,
   };
   return { ...statement, text: renderText(statement), html: renderHtml(statement) };
+}
+
+// Words that say what an ingredient is like, not what it is: they do not name it in a title.
+const PLAIN_WORDS = new Set([
+  'flour', 'whole', 'wholemeal', 'wholegrain', 'grain', 'white', 'fine', 'fresh', 'dried', 'free', 'range', 'unsalted', 'salted',
+  'extra', 'virgin', 'mix', 'blend', 'pieces', 'flakes', 'and', 'of', 'with', 'the', 'house',
+]);
+const stem = (w: string) => (w.length > 4 && w.endsWith('ed') ? w.slice(0, -2) : w.length > 3 && w.endsWith('s') ? w.slice(0, -1) : w);
+const wordsOf = (text: string) => text.toLowerCase().replace(/\([^)]*\)/g, ' ').split(/[^\p{L}\p{N}]+/u).filter(Boolean).map(stem);
+
+/** The stemmed words of the title and tags: what the product's name and labelling stress. */
+function namedWords(formula: Formula): Set<string> {
+  return new Set([...wordsOf(formula.title), ...formula.tags.flatMap(wordsOf)]);
+}
+
+/** Whether a word of the ingredient's statement name (less plain words) is in the title or a tag. */
+function namesIngredient(named: Set<string>, label: string): boolean {
+  return wordsOf(label).some((w) => !PLAIN_WORDS.has(w) && named.has(w));
+}
+
+/** "41 %", "3.5 %"; above 100 % as grams per 100 g (Annex VIII point 4(a)). */
+export function formatQuid(percent: number): string {
+  if (percent > 100) return `${Math.round(percent)} g per 100 g of product`;
+  return percent >= 10 ? `${Math.round(percent)} %` : `${Number(percent.toFixed(1))} %`;
 }
 
 function usNames(groups: AllergenSummary['us']): string[] {

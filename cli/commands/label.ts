@@ -1,8 +1,11 @@
 // `panform label`: the ingredient statement of a formula under EU or US rules, with its
-// allergens, as plain text, HTML or JSON. A thin shell over shared/label.ts.
+// allergens and, with --nutrition, its nutrition declaration, as plain text, HTML or JSON.
+// A thin shell over shared/label.ts and shared/nutrition.ts.
 import { Command, Option } from 'commander';
 import { ALLERGEN_NAMES, AllergenError, formatGroups, groupOf } from '#shared/allergens';
 import { ingredientStatement, LabelError, US_THRESHOLDS, type IngredientStatement, type UsThreshold } from '#shared/label';
+import { nutritionDeclaration, NutritionError, type NutritionDeclaration } from '#shared/nutrition';
+import { nutritionHtml, nutritionText } from '#shared/nutrition-print';
 import { ScaleError } from '#shared/scale';
 import { InputError, UsageError } from '../errors.ts';
 import { readFormulaWithCatalog } from '../files.ts';
@@ -15,12 +18,15 @@ interface RawOptions {
   catalog?: string;
   html?: boolean;
   json?: boolean;
+  nutrition?: boolean;
 }
 
 export interface LabelCliOptions {
   rules: 'eu' | 'us';
   threshold?: UsThreshold;
-  bakeLoss: number;
+  /** Given on the command line; otherwise the formula's bake_loss or its category's default. */
+  bakeLoss?: number;
+  nutrition: boolean;
   keepWater: boolean;
   catalog?: string;
   output: 'text' | 'html' | 'json';
@@ -38,7 +44,7 @@ export function toLabelOptions(o: RawOptions): LabelCliOptions {
     }
     threshold = t as UsThreshold;
   }
-  let bakeLoss = 0;
+  let bakeLoss: number | undefined;
   if (o.bakeLoss !== undefined) {
     bakeLoss = Number(o.bakeLoss.replace(/%\s*$/, ''));
     if (!Number.isFinite(bakeLoss) || bakeLoss < 0 || bakeLoss >= 100) {
@@ -50,28 +56,35 @@ export function toLabelOptions(o: RawOptions): LabelCliOptions {
     rules,
     threshold,
     bakeLoss,
+    nutrition: o.nutrition ?? false,
     keepWater: o.keepWater ?? false,
     catalog: o.catalog,
     output: o.json ? 'json' : o.html ? 'html' : 'text',
   };
 }
 
-export function collectLabel(formulaArg: string, opts: LabelCliOptions): IngredientStatement {
+/** The statement, and with --nutrition the declaration: null with `nutritionMissing` when an ingredient lacks values. */
+export type LabelData = IngredientStatement & { nutrition?: NutritionDeclaration | null; nutritionMissing?: string[]; nutritionMessage?: string };
+
+export function collectLabel(formulaArg: string, opts: LabelCliOptions): LabelData {
   const { formula, catalog } = readFormulaWithCatalog(formulaArg, { catalog: opts.catalog });
   try {
-    return ingredientStatement(formula, catalog, {
+    const statement: LabelData = ingredientStatement(formula, catalog, {
       rules: opts.rules,
       threshold: opts.threshold,
       bakeLoss: opts.bakeLoss,
       omitMinorWater: !opts.keepWater,
     });
+    if (!opts.nutrition) return statement;
+    const n = nutritionDeclaration(formula, catalog, { rules: opts.rules, bakeLoss: opts.bakeLoss });
+    return n.ok ? { ...statement, nutrition: n.declaration } : { ...statement, nutrition: null, nutritionMissing: n.missing, nutritionMessage: n.message };
   } catch (e) {
-    if (e instanceof ScaleError || e instanceof LabelError || e instanceof AllergenError) throw new InputError(e.message);
+    if (e instanceof ScaleError || e instanceof LabelError || e instanceof AllergenError || e instanceof NutritionError) throw new InputError(e.message);
     throw e;
   }
 }
 
-export function printLabel(s: IngredientStatement): string {
+export function printLabel(s: LabelData): string {
   const out: string[] = [`${s.title} (${s.formula}): ingredient statement, ${s.rules === 'eu' ? 'EU rules' : 'US rules'}`, '', s.text.trimEnd(), ''];
   const groups = s.rules === 'eu' ? s.allergens.eu : s.allergens.us;
   out.push(
@@ -86,6 +99,11 @@ export function printLabel(s: IngredientStatement): string {
   out.push('');
   for (const n of s.notes) out.push(`note: ${n}`);
   out.push('', s.caution);
+  if (s.nutrition) {
+    out.push('', nutritionText(s.nutrition).trimEnd(), '');
+    for (const n of s.nutrition.notes) out.push(`note: ${n}`);
+    out.push('', 'Values per 100 g of each ingredient from:', ...s.nutrition.sources.map((x) => `  ${x.ingredient}: ${x.source}`), '', s.nutrition.caution);
+  }
   return `${out.join('\n')}\n`;
 }
 
@@ -94,7 +112,8 @@ export const command = new Command('label')
   .argument('<formula>', 'a formula file, or an id found in formulas/')
   .addOption(new Option('--rules <eu|us>', 'which rules: EU (Regulation (EU) No 1169/2011) or US (21 CFR 101.4, FALCPA)').default('eu'))
   .option('--threshold <percent>', 'US: the "Contains ...% or less of:" threshold, one of 2, 1.5, 1, 0.5 (default 2)')
-  .option('--bake-loss <percent>', 'weight lost in baking, in percent of the mixed dough (default: unknown, shares of the mixed dough)')
+  .option('--bake-loss <percent>', "weight lost in baking, in percent of the dough (default: the formula's bake_loss, else its category's default)")
+  .option('--nutrition', 'add the nutrition declaration (EU per 100 g and per piece; US Nutrition Facts per serving)')
   .option('--keep-water', 'EU: list added water even at 5 % or less of the product')
   .option('--catalog <file>', 'the ingredient catalog (default: ingredients.yaml beside the formula or in its parent folder)')
   .option('--html', 'print an HTML fragment, allergens in <strong> (notes go to stderr)')
@@ -104,6 +123,7 @@ export const command = new Command('label')
     `
 Example:
   $ panform label saltmere-seeded-rye --rules us --threshold 2
+  $ panform label tidewater-milk-buns --nutrition --json
 
 The statement supports, and does not replace, the bakery's own labelling review under local law.
 `,
@@ -114,8 +134,12 @@ The statement supports, and does not replace, the bakery's own labelling review 
     if (opts.output === 'json') process.stdout.write(`${JSON.stringify(data, null, 2)}\n`);
     else if (opts.output === 'html') {
       process.stdout.write(data.html);
-      for (const n of data.notes) process.stderr.write(`note: ${n}\n`);
+      if (data.nutrition) process.stdout.write(nutritionHtml(data.nutrition));
+      for (const n of [...data.notes, ...(data.nutrition?.notes ?? [])]) process.stderr.write(`note: ${n}\n`);
     } else process.stdout.write(printLabel(data));
+    if (data.nutrition === null) {
+      throw new InputError(data.nutritionMessage ?? 'no nutrition declaration', [], 'values per 100 g come from the supplier\'s specification or a food composition table; name it in "source"');
+    }
     if (data.unlisted.length > 0) {
       throw new InputError(
         `not in the catalog, so their allergens are unknown: ${data.unlisted.join(', ')}`,

@@ -5,6 +5,7 @@ import type { ScaleResult } from './scale.ts';
 import type { Sheet } from './sheet/types.ts';
 import type { FormulaDiff } from './diff.ts';
 import type { AllergenSummary } from './allergens.ts';
+import type { Caution } from './cautions.ts';
 import type { CostSummary } from './cost.ts';
 
 /** Every error response: `error` is a stable code, `message` is for people. */
@@ -70,7 +71,8 @@ export interface FormulaDetail {
   allergens: AllergenSummary;
   /** null unless the role has read:cost. */
   cost: CostSummary | null;
-  cautions: string[];
+  /** The usual cautions for the work (shared/cautions.ts), each with its topic. */
+  cautions: Caution[];
   revision: number;
   updatedAt: string;
   path: string;

@@ -2,6 +2,8 @@
 // pre-ferment and soaker build, the final dough, the derived figures and, given the conditions,
 // the water temperature and ice. A thin shell over shared/scale.ts and shared/temperature.ts.
 import { Command, Option } from 'commander';
+import { AllergenError } from '#shared/allergens';
+import { formulaCautions, type Caution } from '#shared/cautions';
 import type { Formula } from '#shared/model';
 import { ScaleError, scaleFormula, type ScaleResult, type ScaleTarget } from '#shared/scale';
 import { planWater, TemperatureError, type WaterPlan } from '#shared/temperature';
@@ -69,6 +71,8 @@ export interface ScaleData {
   result: ScaleResult;
   formula: Formula;
   water: WaterSection | null;
+  /** The usual cautions for the work (shared/cautions.ts); ice only when the water takes some. */
+  cautions: Caution[];
 }
 
 function usage(flag: string, e: unknown): never {
@@ -190,14 +194,22 @@ export function collectScale(formulaArg: string, opts: ScaleOptions): ScaleData 
     throw e;
   }
   const water = opts.conditions ? collectWater(formula, result, opts.conditions, opts.temperatureUnit) : null;
-  return { result, formula, water };
+  let cautions: Caution[];
+  try {
+    cautions = formulaCautions(formula, catalog, { ice: (water?.ice ?? 0) > 0 });
+  } catch (e) {
+    if (e instanceof AllergenError) throw new InputError(`${formula.id}: ${e.message}`);
+    throw e;
+  }
+  return { result, formula, water, cautions };
 }
 
 /** What `--json` prints: the scale result with grams unrounded, and `mixingWater` (temperature, ice) when conditions are given. */
 export function scaleJson(data: ScaleData, opts: ScaleOptions): unknown {
-  const { result, water } = data;
+  const { result, water, cautions } = data;
   return {
     ...result,
+    cautions,
     units: { weight: 'g', temperature: '°C', friction: '°C-degrees' },
     mixingWater: water && {
       waterTemperature: water.waterTemperature,

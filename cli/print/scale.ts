@@ -114,6 +114,7 @@ export function scaleText(data: ScaleData, opts: ScaleOptions): string {
     out.push(renderFacts('\nWater for the final dough', wf));
     for (const m of w.warnings) out.push(`  caution: ${m}`);
   }
+  out.push('\nTake care', ...data.cautions.map((c) => `- ${c.text}`));
   return `${out.join('\n')}\n`;
 }
 

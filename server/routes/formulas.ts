@@ -23,7 +23,7 @@ import { forbidden, HttpError, invalid, notFound } from '../http/errors.ts';
 import { queryInteger, queryString } from '../http/query.ts';
 import { pickFigures } from '#shared/figures';
 import type { FormulaEntry, Snapshot } from './data.ts';
-import { formulaCautions } from './formula-cautions.ts';
+import { formulaCautions } from '#shared/cautions';
 
 const MAX_PIECES = 100_000;
 /** Answers kept per load; beyond this (many different scalings) they are computed each time. */
@@ -136,8 +136,11 @@ export function formulaDetail(entry: FormulaEntry, catalog: Catalog, role: Role,
   const referenceTarget: ScaleTarget = { by: 'pieces', pieces: formula.yield.pieces };
   const ref = target.by === 'pieces' && target.pieces === formula.yield.pieces && target.pieceGrams === undefined ? scaled : scaleOr422(formula, catalog, referenceTarget);
   let allergens;
+  let cautions;
   try {
     allergens = allergenSummary(formula, catalog);
+    // No water temperatures are worked out here, so no ice; the viewer's water helper adds it.
+    cautions = formulaCautions(formula, catalog, { ice: false });
   } catch (e) {
     if (e instanceof AllergenError) throw new HttpError(500, { error: 'internal', message: `the catalog's allergens cannot be worked out: ${e.message}` });
     throw e;
@@ -149,7 +152,7 @@ export function formulaDetail(entry: FormulaEntry, catalog: Catalog, role: Role,
     reference: pickFigures(ref),
     allergens,
     cost: roleHasPermission(role, 'read:cost') ? computeCost(scaled, catalog) : null,
-    cautions: formulaCautions(formula, catalog, allergens),
+    cautions,
     revision: entry.revision,
     updatedAt: entry.updatedAt,
     path: entry.path,

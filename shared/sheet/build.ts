@@ -18,9 +18,10 @@
 //   Soakers follow the same rule with their soaking hours.
 import { lookupIngredient, type Catalog, type Formula, type Mixer, type Order } from '../model.ts';
 import { scaleFormula, ScaleError, sum, type ScaledBuild, type ScaleResult } from '../scale.ts';
-import type { AllergenCode, IngredientKind } from '../schema/shapes.ts';
+import type { IngredientKind } from '../schema/shapes.ts';
 import { INGREDIENT_KINDS } from '../schema/vocabulary.ts';
-import { ALLERGEN_NAMES, AllergenError, allergenSummary, sortCodes, type AllergenSummary } from '../allergens.ts';
+import { AllergenError } from '../allergens.ts';
+import { cautionFacts, cautionsFor, type CautionSet } from '../cautions.ts';
 import { computeIce, computeWaterTemperature, HOT_WATER_CELSIUS, WARM_WATER_ADVICE, WARM_WATER_CELSIUS } from '../temperature.ts';
 import { formatTemperature } from '../units.ts';
 import { processChain, scheduleJobs, type Chain } from './schedule.ts';
@@ -28,7 +29,6 @@ import { clockMinutes, localDateTime, minuteOf } from './time.ts';
 import {
   SheetError,
   type BuildUse,
-  type Caution,
   type FormulaSummary,
   type PickLine,
   type Sheet,
@@ -243,7 +243,7 @@ export function buildSheet(input: SheetInput): Sheet {
   // ---- cautions --------------------------------------------------------------------------------
   const used = new Map<string, Formula>();
   for (const p of planned) used.set(p.formula.id, p.formula);
-  const { allergens, mayContain, cautions } = makeCautions([...used.values()], catalog, mixes, [...preferments, ...soakers], timeline);
+  const { allergens, mayContain, cautions } = makeCautions([...used.values()], catalog, mixes, [...preferments, ...soakers]);
 
   return {
     date,
@@ -455,79 +455,14 @@ function buildKey(f: Formula, what: 'preferment' | 'soaker', index: number): str
 
 // ---- cautions --------------------------------------------------------------------------------
 
-function makeCautions(
-  used: Formula[],
-  catalog: Catalog,
-  mixes: SheetMix[],
-  builds: SheetBuild[],
-  timeline: TimelineEntry[],
-): { allergens: AllergenCode[]; mayContain: AllergenCode[]; cautions: Caution[] } {
-  const byAllergen = new Map<AllergenCode, Set<string>>();
-  const mayBy = new Map<AllergenCode, Set<string>>();
-  const unlisted = new Set<string>();
-  const note = (map: Map<AllergenCode, Set<string>>, a: AllergenCode, who: string) => {
-    const s = map.get(a) ?? new Set<string>();
-    s.add(who);
-    map.set(a, s);
-  };
-  for (const f of used) {
-    let summary: AllergenSummary;
+function makeCautions(used: Formula[], catalog: Catalog, mixes: SheetMix[], builds: SheetBuild[]): CautionSet {
+  const facts = used.map((f) => {
     try {
-      summary = allergenSummary(f, catalog);
+      return cautionFacts(f, catalog);
     } catch (e) {
       if (e instanceof AllergenError) throw new SheetError(`${f.id}: ${e.message}`);
       throw e;
     }
-    for (const a of summary.codes) note(byAllergen, a, f.title);
-    for (const a of summary.mayContain.codes) note(mayBy, a, f.title);
-    for (const u of summary.unlisted) unlisted.add(u);
-  }
-  const allergens = sortCodes(byAllergen.keys());
-  const mayContain = sortCodes([...mayBy.keys()].filter((a) => !byAllergen.has(a)));
-  const cautions: Caution[] = [];
-  const list = (codes: AllergenCode[], map: Map<AllergenCode, Set<string>>) =>
-    codes.map((a) => `${ALLERGEN_NAMES[a]} (${[...map.get(a)!].join(', ')})`).join('; ');
-  if (allergens.length > 0) {
-    cautions.push({
-      topic: 'allergens',
-      text: `Allergens in today's products: ${list(allergens, byAllergen)}. Keep them apart, clean scales, bowls and benches between products, and label as your local allergen rules require.`,
-    });
-  }
-  if (unlisted.size > 0) {
-    cautions.push({
-      topic: 'allergens',
-      text: `Not in the ingredient catalog, so their allergens are unknown: ${[...unlisted].sort().join(', ')}. Check them before these products are sold.`,
-    });
-  }
-  if (mayContain.length > 0) {
-    cautions.push({ topic: 'may-contain', text: `May contain (cross-contact): ${list(mayContain, mayBy)}.` });
-  }
-  const bakes = timeline.filter((t) => t.step === 'bake');
-  if (bakes.length > 0) {
-    const hottest = Math.max(...bakes.map((b) => b.temperature ?? 0));
-    cautions.push({
-      topic: 'oven',
-      text: `Hot ovens${hottest > 0 ? ` (up to ${formatTemperature(hottest, 'C', 0)})` : ''}: dry oven gloves and long sleeves, peels and trays kept to their places, and a clear path to the racks.`,
-    });
-  }
-  if (bakes.some((b) => b.steam)) {
-    cautions.push({ topic: 'steam', text: 'Steam: stand aside when opening a steamed oven and let the steam clear before reaching in.' });
-  }
-  if (mixes.some((m) => m.ice > 0) || builds.some((b) => b.ice > 0)) {
-    cautions.push({
-      topic: 'ice',
-      text: 'Ice: weigh ice as part of the water (ice + tap water = the water line); use clean food-grade ice and a scoop, never a glass, and wipe up melt water on the floor at once.',
-    });
-  }
-  if (builds.some((b) => b.hot)) {
-    cautions.push({ topic: 'hot-water', text: 'Scalds: boiling water for hot soakers; pour slowly, away from the body, and let the soaker cool before it goes into a dough.' });
-  }
-  if (timeline.some((t) => t.cold) || builds.some((b) => b.holdTemperature !== null && b.holdTemperature < 10)) {
-    cautions.push({ topic: 'cold', text: 'Cold room: check that the door opens from inside before going in, keep the floor dry, and wear a warm layer for long stays.' });
-  }
-  cautions.push({
-    topic: 'food-safety',
-    text: "This sheet supports, and does not replace, your site's food-safety plan and local food-safety and labelling rules; check temperatures, times and allergen controls as they require.",
   });
-  return { allergens, mayContain, cautions };
+  return cautionsFor(facts, { ice: mixes.some((m) => m.ice > 0) || builds.some((b) => b.ice > 0) });
 }

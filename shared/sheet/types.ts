@@ -4,6 +4,7 @@
 import type { AllergenCode, IngredientKind, PrefermentKind, StepKind } from '../schema/shapes.ts';
 import type { Catalog, Formula, Plan } from '../model.ts';
 import type { NumberRange, RangePick } from '../units.ts';
+import type { Caution } from '../cautions.ts';
 
 /** A local date-time without a zone, e.g. "2026-12-03T04:10". */
 export type LocalDateTime = string;
@@ -165,12 +166,7 @@ export interface FormulaSummary {
   ingredients: PickLine[];
 }
 
-export type CautionTopic = 'allergens' | 'may-contain' | 'oven' | 'steam' | 'ice' | 'hot-water' | 'cold' | 'food-safety';
-
-export interface Caution {
-  topic: CautionTopic;
-  text: string;
-}
+export type { Caution, CautionTopic } from '../cautions.ts';
 
 export interface Sheet {
   date: string;

@@ -191,8 +191,8 @@ describe('GET /api/formulas/:id', () => {
   it('lists the allergens with the caution to check local labelling rules', async () => {
     const d = await get<FormulaDetail>('/api/formulas/tidewater-milk-buns', 'bench');
     expect(d.allergens.codes).toEqual(expect.arrayContaining(['wheat', 'milk']));
-    expect(d.cautions.join(' ')).toMatch(/local food-safety and labelling rules/);
-    expect(d.cautions.join(' ')).toMatch(/Hot oven/);
+    expect(d.cautions.map((c) => c.text).join(' ')).toMatch(/local food-safety and labelling rules/);
+    expect(d.cautions.map((c) => c.text).join(' ')).toMatch(/Hot oven/);
   });
 
   it.each([

@@ -123,7 +123,7 @@ describe('renderSheetHtml', () => {
     expect(html.match(/<svg[^>]*viewBox="0 0 760 \d+"/g)).toHaveLength(2);
     expect(html).toContain('The production morning, closer');
     expect((html.match(/<rect /g) ?? []).length).toBeGreaterThan(sheet.timeline.filter((e) => e.minutes > 0).length / 2);
-    expect(html).toMatch(/<section class="box cautions"><h2>Cautions<\/h2><ul><li>Allergens in today&#39;s products/);
+    expect(html).toMatch(/<section class="box cautions"><h2>Cautions<\/h2><ul><li>Allergens: /);
   });
 
   it('escapes text from the files', () => {

@@ -1,4 +1,4 @@
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import { useParams, useSearchParams } from 'react-router';
 import type { FormulaDetail, Me } from '#shared/api';
 import { scaleFormula, type ScaleResult, type ScaleTarget } from '#shared/scale';
@@ -9,7 +9,7 @@ import { QueryState } from '../../components/query-state.tsx';
 import { useMe } from '../../features/auth/api/get-me.ts';
 import { useFormula } from '../../features/formulas/api/get-formula.ts';
 import { AllergensPanel } from '../../features/formulas/components/allergens-panel.tsx';
-import { Cautions, cautionsFor } from '../../features/formulas/components/cautions.tsx';
+import { Cautions, cautionsWithIce } from '../../features/formulas/components/cautions.tsx';
 import { CostPanel } from '../../features/formulas/components/cost-panel.tsx';
 import { BuildTable, DerivedFigures, FinalDoughTable, OverallTable } from '../../features/formulas/components/formula-tables.tsx';
 import { ProcessSteps } from '../../features/formulas/components/process-steps.tsx';
@@ -41,6 +41,7 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
   const canSeeHistory = me?.permissions.includes('read:history') ?? false;
   const restReady = useAfterFirstPaint();
   const hydrated = useHydrated();
+  const [ice, setIce] = useState(false);
 
   const targetKey = JSON.stringify(target);
   const { scaled, problem } = useMemo((): { scaled: ScaleResult; problem: string | null } => {
@@ -108,7 +109,7 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
           {restReady && (
             <PanelBoundary title="Water for the mix" resetKeys={[formula.id]}>
               <Panel title="Water for the mix" className="order-5 print:hidden" id="water">
-                <WaterTemperatureHelper formula={formula} scaled={scaled} />
+                <WaterTemperatureHelper formula={formula} scaled={scaled} onIce={setIce} />
               </Panel>
             </PanelBoundary>
           )}
@@ -153,7 +154,7 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
                 </Panel>
               </PanelBoundary>
               <Panel title="Take care" id="cautions">
-                <Cautions items={cautionsFor(formula, detail.cautions)} />
+                <Cautions items={cautionsWithIce(detail.cautions, ice)} />
               </Panel>
             </div>
           )}

@@ -1,33 +1,19 @@
-import type { Formula } from '#shared/model';
+import { iceCaution, mergeCautions, type Caution } from '#shared/cautions';
 
-/** The usual cautions for this formula's work, and the server's, without repeats. */
-export function cautionsFor(formula: Formula, fromServer: string[]): string[] {
-  const out = [...fromServer];
-  const has = (re: RegExp) => out.some((c) => re.test(c));
-  const bake = formula.process.find((s) => s.step === 'bake');
-  if (bake && !has(/oven/i)) {
-    out.push(`Hot oven${bake.temperature !== undefined ? ` (${Math.round(bake.temperature)} °C)` : ''}: use dry oven gloves and long peels; keep the door path clear.`);
-  }
-  if (formula.process.some((s) => s.steam) && !has(/steam/i)) {
-    out.push('Steam: stand clear of the door when you open a steamed oven; the first burst scalds.');
-  }
-  if (formula.soakers.some((s) => s.hot) && !has(/boiling|scald/i)) out.push('Scald: boiling water for the soaker; pour it away from you and let it cool covered.');
-  if (formula.process.some((s) => s.step === 'retard') && !has(/cold|fridge|retard/i)) {
-    out.push('Cold hold: keep the retarder at its set temperature and log it; dough waiting warm is a food-safety risk.');
-  }
-  if (!has(/local/i)) out.push('Follow your local food-safety, workplace and labelling rules; they come before anything shown here.');
-  return out;
+/** The server's cautions for the formula (shared/cautions.ts), with ice once the water helper weighs some in. */
+export function cautionsWithIce(fromServer: Caution[], ice: boolean): Caution[] {
+  return ice ? mergeCautions(fromServer, [iceCaution()]) : fromServer;
 }
 
-export function Cautions({ items }: { items: string[] }) {
+export function Cautions({ items }: { items: Caution[] }) {
   return (
     <ul className="space-y-2 print:space-y-0" data-testid="cautions">
       {items.map((c) => (
-        <li key={c} className="flex gap-2">
+        <li key={c.topic} className="flex gap-2" data-topic={c.topic}>
           <span aria-hidden="true" className="mt-0.5 font-bold text-ember">
             ▲
           </span>
-          <span>{c}</span>
+          <span>{c.text}</span>
         </li>
       ))}
     </ul>

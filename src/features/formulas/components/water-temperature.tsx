@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import type { Formula } from '#shared/model';
 import type { ScaleResult } from '#shared/scale';
 import { planWater, type WaterPlan } from '#shared/temperature';
@@ -15,7 +15,8 @@ export function finalMixWater(scaled: ScaleResult): number {
   return scaled.finalDough.filter((l) => l.source === 'ingredient' && waterNames.has(l.ingredient)).reduce((a, l) => a + l.grams, 0);
 }
 
-export function WaterTemperatureHelper({ formula, scaled }: { formula: Formula; scaled: ScaleResult }) {
+/** `onIce` hears whether the water now takes ice, so the page's cautions can say how to handle it. */
+export function WaterTemperatureHelper({ formula, scaled, onIce }: { formula: Formula; scaled: ScaleResult; onIce?: (ice: boolean) => void }) {
   const [ddt, setDdt] = useState(String(formula.doughTemperature ?? 25));
   const [room, setRoom] = useState(START.room);
   const [flour, setFlour] = useState(START.flour);
@@ -37,6 +38,8 @@ export function WaterTemperatureHelper({ formula, scaled }: { formula: Formula; 
       problem = getErrorMessage(error);
     }
   }
+  const takesIce = plan !== null && plan.ice !== null && plan.ice > 0;
+  useEffect(() => onIce?.(takesIce), [onIce, takesIce]);
   const factors = 3 + formula.preferments.length;
 
   return (

@@ -1,6 +1,7 @@
 // The program and the one error handler; cli/command-table.ts says where each command lives.
 import { Command, CommanderError } from 'commander';
 import { ExitError } from './errors.ts';
+import { fitText, outputWidth, reflowParagraphs } from './print/width.ts';
 import { formatFinding } from '#shared/findings';
 import type { CommandTable } from './command-table.ts';
 
@@ -15,6 +16,15 @@ export async function buildProgram(only: string | undefined, table: CommandTable
   const names = only && Object.hasOwn(table, only) ? [only] : only === '--version' || only === '-V' ? [] : Object.keys(table);
   const modules = await Promise.all(names.map((n) => table[n]()));
   for (const m of modules) program.addCommand(m.command.exitOverride());
+  // Help fits the terminal (80 columns in a pipe): commander wraps its own columns to helpWidth,
+  // and the examples and notes added after them are wrapped on their way out. Errors are left
+  // whole, one line each, for scripts that read them.
+  const width = outputWidth();
+  for (const cmd of [program, ...program.commands]) {
+    cmd.configureHelp({ helpWidth: width }).configureOutput({
+      writeOut: (str) => process.stdout.write(fitText(reflowParagraphs(str), width)),
+    });
+  }
   program.addHelpText('after', '\nRun `panform <command> --help` for the options and an example of each command.');
   return program;
 }

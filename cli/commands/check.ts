@@ -8,6 +8,7 @@ import type { KnownFormula } from '#shared/check/plan';
 import type { Catalog } from '#shared/model';
 import { formatFinding, parseYamlText, sortFindings, type Finding } from '#shared/parse';
 import { ExitError, UsageError } from '../errors.ts';
+import { fitText } from '../print/width.ts';
 import { CATALOG_FILE, findCatalogPath, formulasDirForPlan } from '../files.ts';
 import { compareText } from '#shared/text';
 
@@ -251,7 +252,7 @@ Examples:
       const { files, findings, errors, warnings, checked } = report;
       process.stdout.write(`${JSON.stringify({ files, findings, errors, warnings, checked }, null, 2)}\n`);
     } else {
-      process.stdout.write(printCheck(report));
+      process.stdout.write(fitText(printCheck(report)));
     }
     // Exit 1 when there is an error; the findings are already printed.
     if (report.errors > 0) throw new ExitError(1, '');

@@ -7,6 +7,7 @@ import { Command } from 'commander';
 import { convert, ConvertError, HAMELMAN_YEAST_FACTORS, yeastFactorsFrom, YEAST_FACTORS_SOURCE, type Conversion, type YeastFactors } from '#shared/convert';
 import { roundDegrees, roundMassIn } from '#shared/units';
 import { InputError, UsageError } from '../errors.ts';
+import { fitText } from '../print/width.ts';
 
 interface RawOptions {
   json?: boolean;
@@ -105,7 +106,7 @@ export const command = new Command('convert')
     'after',
     `
 Examples:
-  $ panform convert 2 lb g              # ≈ 907 g (1 lb = 453.592 37 g exactly; --json: 907.18474)
+  $ panform convert 2 lb g              # ≈ 907 g (--json: 907.18474)
   $ panform convert 78 F C              # ≈ 25.6 °C
   $ panform convert 10 g fresh instant  # 3.3 g instant yeast
 
@@ -116,5 +117,5 @@ may set its own \`yeast_factor\`.`,
   .action(async (valueText: string, units: string[], raw: RawOptions) => {
     const opts = toConvertOptions(valueText, units, raw);
     const data = await collectConvert(opts);
-    process.stdout.write(opts.json ? `${JSON.stringify(data, null, 2)}\n` : convertText(data));
+    process.stdout.write(opts.json ? `${JSON.stringify(data, null, 2)}\n` : fitText(convertText(data)));
   });

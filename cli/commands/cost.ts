@@ -5,6 +5,7 @@ import { computeCost, formatMoney, type CostResult } from '#shared/cost';
 import { ScaleError, scaleFormula, type ScaleTarget } from '#shared/scale';
 import { formatGrams, formatPercent } from '#shared/units';
 import { InputError } from '../errors.ts';
+import { fitText } from '../print/width.ts';
 import { readFormulaWithCatalog } from '../files.ts';
 import { parseTargetFlags } from '../target-flags.ts';
 
@@ -107,5 +108,5 @@ A line without a price is listed by name and the totals are marked incomplete; i
   .action((formulaArg: string, raw: RawOptions) => {
     const opts = toCostOptions(raw);
     const data = collectCost(formulaArg, opts);
-    process.stdout.write(opts.json ? `${JSON.stringify(data, null, 2)}\n` : printCost(data));
+    process.stdout.write(opts.json ? `${JSON.stringify(data, null, 2)}\n` : fitText(printCost(data)));
   });

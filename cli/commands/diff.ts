@@ -11,6 +11,7 @@ import { diffFormulas, FIGURE_ROWS, formatNumber, type FieldChange, type FigureR
 import type { Catalog, Formula } from '#shared/model';
 import { parseCatalogText, parseFormulaText, type Finding } from '#shared/parse';
 import { InputError, UsageError } from '../errors.ts';
+import { fitText } from '../print/width.ts';
 import { CATALOG_FILE, findCatalogPath, readText } from '../files.ts';
 
 const run = promisify(execFile);
@@ -300,7 +301,7 @@ reference batch (its yield), before and after.
 
 Examples:
   $ panform diff old/harbour-ciabatta.yaml formulas/harbour-ciabatta.yaml
-  $ panform diff --rev HEAD~1                      # every formula changed since the last commit
+  $ panform diff --rev HEAD~1      # every formula changed since the last commit
   $ panform diff --rev main formulas/country-levain.yaml --json
 `,
   )
@@ -312,5 +313,5 @@ Examples:
       return;
     }
     const report = await collectDiff(options);
-    process.stdout.write(options.json ? `${JSON.stringify(report, null, 2)}\n` : printDiff(report));
+    process.stdout.write(options.json ? `${JSON.stringify(report, null, 2)}\n` : fitText(printDiff(report)));
   });

@@ -84,7 +84,7 @@ Sets diff.panform.textconv in this repository's git config and adds
 
 Examples:
   $ panform git-setup
-  $ git log -p formulas/harbour-ciabatta.yaml      # each change with its figures
+  $ git log -p formulas/harbour-ciabatta.yaml  # each change with its figures
   $ panform git-setup --folder recipes/formulas
 `,
   )

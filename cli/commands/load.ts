@@ -7,6 +7,7 @@ import { join, resolve } from 'node:path';
 import { userInfo } from 'node:os';
 import { formatFinding, type Finding } from '#shared/parse';
 import { InputError, UsageError } from '../errors.ts';
+import { fitText } from '../print/width.ts';
 import type { LoadProgress, LoadSummary, KindSummary } from '../../server/load/index.ts';
 import type { InternalLoadResponse } from '../../server/routes/internal-load.ts';
 import type { LockInfo } from '../../server/db/client.ts';
@@ -217,7 +218,8 @@ While \`panform serve\` runs on the same data directory, the load is handed to i
 Examples:
   $ panform load                                  # formulas/ into var/data
   $ panform load formulas --data /srv/panform/data
-  $ DATABASE_URL=postgres://panform@db.tidewater.example/panform panform load --json
+  $ DATABASE_URL=postgres://panform@db.tidewater.example/panform \\
+      panform load --json
 `,
   )
   .action(async (paths: string[], flags: { data?: string; by?: string; json?: boolean }) => {
@@ -230,5 +232,5 @@ Examples:
       progress: !json && process.stderr.isTTY === true,
     };
     const report = await collectLoad(options);
-    process.stdout.write(json ? `${JSON.stringify(report, null, 2)}\n` : printLoad(report));
+    process.stdout.write(json ? `${JSON.stringify(report, null, 2)}\n` : fitText(printLoad(report)));
   });

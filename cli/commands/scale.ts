@@ -12,6 +12,7 @@ import {
   type Resolution, type TemperatureUnit, type UnitSystem,
 } from '#shared/units';
 import { InputError, UsageError } from '../errors.ts';
+import { fitText } from '../print/width.ts';
 import { readFormulaWithCatalog } from '../files.ts';
 import { parseTargetFlags } from '../target-flags.ts';
 
@@ -254,7 +255,8 @@ export const command = new Command('scale')
     `
 Examples:
   $ panform scale harbour-ciabatta --pieces 60
-  $ panform scale formulas/country-levain.yaml --pieces 18 --piece 900g --room 22 --flour-temp 20 --friction 13 --tap 14
+  $ panform scale formulas/country-levain.yaml --pieces 18 --piece 900g \\
+      --room 22 --flour-temp 20 --friction 13 --tap 14
   $ panform scale harbour-ciabatta --mix 28.47kg --json
 
 Without --pieces, --mix or --flour the formula's own yield is scaled. Weights accept g, kg, oz
@@ -269,5 +271,5 @@ written with their unit ("72F").`,
       return;
     }
     const print = await import('../print/scale.ts');
-    process.stdout.write(opts.output === 'csv' ? print.scaleCsv(data) : print.scaleText(data, opts));
+    process.stdout.write(opts.output === 'csv' ? print.scaleCsv(data) : fitText(print.scaleText(data, opts)));
   });

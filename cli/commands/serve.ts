@@ -107,7 +107,7 @@ export const command = new Command('serve')
     `
 Example:
   $ panform serve --port 8080 --data /srv/panform/data
-  $ npm start                      # panform serve --demo: the demo bakery on http://localhost:3000
+  $ npm start          # panform serve --demo: the demo bakery on port 3000
 
 Environment: PORT, PANFORM_DATA, DATABASE_URL, SMTP_URL, PANFORM_PUBLIC_URL, SESSION_DAYS,
 TRUST_PROXY, NODE_ENV, PANFORM_OUTBOX, MAIL_FROM (see docs/operations.md).`,

@@ -5,6 +5,7 @@ import { Command, Option } from 'commander';
 import { writeFileSync } from 'node:fs';
 import type { Formula } from '#shared/model';
 import type { Sheet } from '#shared/sheet/types';
+import { outputWidth } from '../print/width.ts';
 import { InputError, UsageError } from '../errors.ts';
 import { formulasDirForPlan, readCatalogFor, readFormula, readPlan, resolveFormulaPath } from '../files.ts';
 
@@ -72,7 +73,7 @@ export async function renderSheet(sheet: Sheet, format: SheetFormat, paper: Pape
       return `${JSON.stringify(sheet, null, 2)}\n`;
     case 'text': {
       const [{ presentSheet }, { renderSheetText }] = await Promise.all([import('#shared/sheet/present'), import('../print/sheet.ts')]);
-      return `${renderSheetText(presentSheet(sheet))}\n`;
+      return `${renderSheetText(presentSheet(sheet), outputWidth())}\n`;
     }
     case 'csv': {
       const { renderSheetCsv } = await import('../print/sheet.ts');

@@ -8,6 +8,7 @@ import {
   type TemperatureUnit,
 } from '#shared/units';
 import { InputError, UsageError } from '../errors.ts';
+import { fitText } from '../print/width.ts';
 
 interface RawOptions {
   ddt?: string;
@@ -170,7 +171,8 @@ export const command = new Command('temp')
     `
 Examples:
   $ panform temp --ddt 25 --room 22 --flour 20 --friction 13
-  $ panform temp --ddt 26 --room 28 --flour 27 --friction 13 --preferment 24 --tap 22 --water 6.5kg
+  $ panform temp --ddt 26 --room 28 --flour 27 --friction 13 \\
+      --preferment 24 --tap 22 --water 6.5kg
   $ panform temp --fahrenheit --ddt 80 --room 75 --flour 65 --friction 35
   $ panform temp --measured 26 --room 22 --flour 20 --water-temp 18
 
@@ -187,5 +189,5 @@ L = 334 J/g and c = 4.18 J/(g·K). Bare numbers are °C unless --fahrenheit.`,
       return;
     }
     const { tempText } = await import('../print/temp.ts');
-    process.stdout.write(tempText(data));
+    process.stdout.write(fitText(tempText(data)));
   });

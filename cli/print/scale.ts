@@ -22,7 +22,7 @@ export function scaleText(data: ScaleData, opts: ScaleOptions): string {
   const u: PrintUnits = { system: opts.units, resolution: opts.resolution, temperature: opts.temperatureUnit };
   const r = data.result;
   const out: string[] = [];
-  out.push(`${r.title} (${r.formula}): ${describeTarget(data, u)}`);
+  out.push(`${r.title} (${r.formula})`, `  ${describeTarget(data, u)}`);
 
   out.push(
     renderTable({

@@ -4,8 +4,10 @@ import type { Align, PresentedSheet } from '#shared/sheet/present';
 import type { Sheet } from '#shared/sheet/types';
 import { roundGrams } from '#shared/units';
 import { renderCsv } from './csv.ts';
+import { DEFAULT_WIDTH, fitText } from './width.ts';
 
-export function renderSheetText(p: PresentedSheet): string {
+/** The sheet within `width` columns: long lines wrap, and a table's widest column wraps its cells. */
+export function renderSheetText(p: PresentedSheet, width: number = DEFAULT_WIDTH): string {
   const out: string[] = [p.title, ...p.subtitle.map((s) => `  ${s}`), ''];
   for (const section of p.sections) {
     out.push(section.title.toUpperCase(), '');
@@ -20,13 +22,14 @@ export function renderSheetText(p: PresentedSheet): string {
             b.table.rows.map((r, i) => (tk ? [...r, b.table!.tick[i] ? '[ ]' : ''] : r).map((cell) => wrap(cell, WRAP))),
             tk ? [...b.table.align, 'left'] : b.table.align,
             b.table.footer ? (tk ? [...b.table.footer, ''] : b.table.footer) : undefined,
+            width,
           ),
         );
       }
       out.push('');
     }
   }
-  return out.join('\n');
+  return fitText(out.join('\n'), width);
 }
 
 /**
@@ -34,9 +37,23 @@ export function renderSheetText(p: PresentedSheet): string {
  * timeline of several hundred rows, and cli-table3's per-cell ANSI handling made printing it the
  * slowest part of `panform sheet`. The sheet's cells hold no colour codes and no wide characters.
  */
-export function boxTable(head: string[], rows: string[][], align: Align[], footer?: string[]): string {
-  const all = [head, ...rows, ...(footer ? [footer] : [])];
-  const widths = head.map((_, i) => Math.max(...all.map((r) => Math.max(...(r[i] ?? '').split('\n').map((l) => l.length)))));
+export function boxTable(head: string[], rows: string[][], align: Align[], footer?: string[], maxWidth = Infinity): string {
+  let all = [head, ...rows, ...(footer ? [footer] : [])];
+  const measure = () => head.map((_, i) => Math.max(...all.map((r) => Math.max(...(r[i] ?? '').split('\n').map((l) => l.length)))));
+  let widths = measure();
+  // Too wide: the widest column (a step's notes) wraps its cells at spaces, then the next widest,
+  // none narrower than 14 characters.
+  const total = () => widths.reduce((s, w) => s + w + 3, 1);
+  for (let pass = 0; pass < widths.length && total() > maxWidth; pass++) {
+    const widest = widths.indexOf(Math.max(...widths));
+    const room = Math.max(14, widths[widest] - (total() - maxWidth));
+    if (room >= widths[widest]) break;
+    all = all.map((r) => r.map((c, i) => (i === widest ? wrap((c ?? '').replace(/\n/g, ' '), room) : c)));
+    widths = measure();
+  }
+  head = all[0];
+  rows = all.slice(1, footer ? -1 : undefined);
+  if (footer) footer = all[all.length - 1];
   const rule = (l: string, m: string, r: string) => `${l}${widths.map((w) => '─'.repeat(w + 2)).join(m)}${r}`;
   const line = (cells: string[]) => {
     const split = cells.map((c) => (c ?? '').split('\n'));

@@ -44,7 +44,7 @@ describe('panform convert', () => {
 
   it('rounds the temperature difference line too', async () => {
     const r = await run(['78', 'F', 'C']);
-    expect(r.stdout.split('\n')[1]).toContain('78 °F-degrees ≈ 43.3 °C-degrees'); // NIST SP 811 App. B.8: a difference converts by 5/9 alone
+    expect(r.stdout.replace(/\n\s+/g, ' ')).toContain('78 °F-degrees ≈ 43.3 °C-degrees'); // NIST SP 811 App. B.8: a difference converts by 5/9 alone
   });
 
   it('takes the yeast factor from the catalog when it sets one', async () => {

@@ -7,7 +7,7 @@ import express, { Router, type Express, type NextFunction, type Request, type Re
 import { csrfProtection } from './auth/csrf.ts';
 import { DEFAULT_SCRYPT, hashPassword, randomPassword, type ScryptParams } from './auth/password.ts';
 import { createLimiters, DEFAULT_LIMITS, type Clock, type Limiters, type SignInLimits } from './auth/rate-limit.ts';
-import { readCookie, SESSION_COOKIE, SessionStore } from './auth/sessions.ts';
+import { readCookie, SESSION_CACHE_MS, SESSION_COOKIE, SessionStore } from './auth/sessions.ts';
 import type { OutgoingMail, ServerContext } from './context.ts';
 import type { DatabaseHandle } from './db/client.ts';
 import type { Env } from './env.ts';
@@ -19,6 +19,7 @@ import { formulasRouter } from './routes/formulas.ts';
 import { plansRouter } from './routes/plans.ts';
 import { sessionRouter } from './routes/session.ts';
 import { sendMail as sendMailDefault } from './mail.ts';
+import { MailOutbox } from './mail-outbox.ts';
 
 /** Largest JSON body accepted (sign-in and reset bodies are a few hundred bytes). */
 export const JSON_LIMIT = '16kb';
@@ -31,7 +32,7 @@ export interface AppOptions {
   limits?: SignInLimits;
   /** Password-hash cost for new hashes (tests use a low one). */
   scrypt?: ScryptParams;
-  /** How mail is sent; default server/mail.ts (SMTP_URL, else the local fake outbox). */
+  /** How one message is handed over (after the mail_outbox table); default server/mail.ts (SMTP_URL, else the local fake outbox). */
   sendMail?: (message: OutgoingMail) => Promise<void>;
   /** The built viewer; default dist/web of this installation; null: serve the API only. */
   webDir?: string | null;
@@ -48,6 +49,8 @@ export interface AppInternals {
   sessions: SessionStore;
   /** Resolves when background work (reset e-mails) has finished. */
   idle(): Promise<void>;
+  /** Stops background work (the outbox's timer); after idle(), before the database closes. */
+  stop(): Promise<void>;
 }
 
 const INTERNALS = Symbol('panform');
@@ -75,8 +78,10 @@ export function createApp(opts: AppOptions): Express {
   const now = opts.now ?? Date.now;
   const log = opts.log ?? ((m: string) => process.stderr.write(`${m}\n`));
   const scrypt = opts.scrypt ?? DEFAULT_SCRYPT;
-  const limiters = createLimiters(opts.limits ?? DEFAULT_LIMITS, now);
-  const sessions = new SessionStore(handle.db, env.sessionDays, now);
+  const limiters = createLimiters(handle.db, opts.limits ?? DEFAULT_LIMITS, now);
+  // A PGlite folder belongs to this process alone, so every sign-out passes here and a session
+  // may be reused for a moment; on a PostgreSQL server other servers sign people out too.
+  const sessions = new SessionStore(handle.db, env.sessionDays, now, handle.kind === 'pglite' ? SESSION_CACHE_MS : 0);
   /** The session the request's cookie belongs to, if it is still valid. */
   const sessionOf = (req: Request) => {
     const token = readCookie(req.headers.cookie, SESSION_COOKIE);
@@ -84,6 +89,8 @@ export function createApp(opts: AppOptions): Express {
   };
   const pending = new Set<Promise<unknown>>();
   const mailer = opts.sendMail ?? ((m: OutgoingMail) => sendMailDefault(m, { smtpUrl: env.smtpUrl, outbox: env.outbox, from: env.mailFrom }).then(() => undefined));
+  const outbox = new MailOutbox(handle.db, mailer, now, log);
+  const logFailure = (e: unknown) => log(`panform serve: background task failed: ${(e as Error)?.stack ?? String(e)}`);
 
   const context: ServerContext = {
     db: handle.db,
@@ -93,11 +100,14 @@ export function createApp(opts: AppOptions): Express {
     limiters,
     scrypt,
     dummyHash: hashPassword(randomPassword(), scrypt),
-    sendMail: mailer,
+    async sendMail(message) {
+      await outbox.enqueue(message);
+      context.background(() => outbox.drain());
+    },
     data: new DataCache(handle.db, now),
     background(task) {
       const p = task()
-        .catch((e: unknown) => log(`panform serve: background task failed: ${(e as Error)?.stack ?? String(e)}`))
+        .catch(logFailure)
         .finally(() => pending.delete(p));
       pending.add(p);
     },
@@ -223,6 +233,10 @@ export function createApp(opts: AppOptions): Express {
   });
   app.use(errorMiddleware(log));
 
+  // Messages left by a server that stopped, and retries, are picked up now and then.
+  outbox.start(logFailure);
+  context.background(() => outbox.drain());
+
   const internals: AppInternals = {
     api,
     context,
@@ -230,6 +244,9 @@ export function createApp(opts: AppOptions): Express {
     sessions,
     async idle() {
       while (pending.size > 0) await Promise.allSettled([...pending]);
+    },
+    async stop() {
+      await outbox.stop();
     },
   };
   (app as unknown as Record<symbol, AppInternals>)[INTERNALS] = internals;

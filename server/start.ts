@@ -6,6 +6,7 @@ import type { AddressInfo } from 'node:net';
 import type { Router } from 'express';
 import { appInternals, createApp, type AppOptions } from './app.ts';
 import type { DatabaseHandle } from './db/client.ts';
+import { listenForLoads } from './db/listen.ts';
 import type { Env } from './env.ts';
 
 export interface RunningServer {
@@ -66,6 +67,9 @@ export async function startServer(opts: StartOptions): Promise<RunningServer> {
     throw e;
   }
   server.on('request', app);
+  // On a PostgreSQL server, loads by other servers and the CLI are announced (LISTEN/NOTIFY).
+  const log = appOptions.log ?? ((m: string) => process.stderr.write(`${m}\n`));
+  const listening = await listenForLoads(handle, () => appInternals(app).context.data.invalidate(), log);
   // Slow clients must not hold connections forever.
   server.headersTimeout = 20_000;
   server.requestTimeout = 60_000;
@@ -90,6 +94,8 @@ export async function startServer(opts: StartOptions): Promise<RunningServer> {
       await stopped;
       clearTimeout(timer);
       await appInternals(app).idle();
+      await appInternals(app).stop();
+      await listening.stop();
       await handle.close();
       resolveClosed();
     })();

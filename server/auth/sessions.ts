@@ -1,10 +1,11 @@
 // Signed-in sessions. The browser holds a random 256-bit token in an httpOnly cookie; the
 // database holds only its SHA-256, so a copy of the database cannot be used to sign in.
 //
-// Lookups are cached in memory for a few seconds: every API request needs the session, and the
-// embedded database answers one query at a time. Signing out, a password change or a reset in
-// this process drops the cached entries at once; a change made by another process (the CLI
-// against a PostgreSQL server) takes effect within CACHE_MS.
+// On PGlite, lookups are kept in memory for a few seconds: every API request needs the session,
+// the embedded database answers one query at a time, and the folder belongs to this process alone
+// (`panform user` hands its changes to the running server), so signing out, a password change, a
+// reset or a removal drops the kept entries at once. On a PostgreSQL server, other servers and the
+// CLI change sessions too: nothing is kept, every request asks the database.
 import { createHash, randomBytes } from 'node:crypto';
 import { and, eq, gt, lte } from 'drizzle-orm';
 import type { Database } from '../db/client.ts';
@@ -14,7 +15,7 @@ import type { UserInfo } from '#shared/api';
 import type { Clock } from './rate-limit.ts';
 
 export const SESSION_COOKIE = 'panform_session';
-const CACHE_MS = 5_000;
+export const SESSION_CACHE_MS = 5_000;
 const DAY_MS = 24 * 60 * 60 * 1000;
 
 export function hashToken(token: string): string {
@@ -46,6 +47,8 @@ export class SessionStore {
     private readonly db: Database,
     private readonly sessionDays: number,
     private readonly now: Clock = Date.now,
+    /** How long a lookup is reused; 0: never (a database other processes change). */
+    private readonly cacheMs = 0,
   ) {}
 
   get lifetimeMs(): number {
@@ -99,8 +102,10 @@ export class SessionStore {
       row && isRole(row.role)
         ? { tokenHash, expiresAt: row.expiresAt, user: { id: row.id, email: row.email, name: row.name, role: row.role } }
         : null;
-    if (this.cache.size > 10_000) this.cache.clear();
-    this.cache.set(token, { tokenHash, session, until: t + CACHE_MS });
+    if (this.cacheMs > 0) {
+      if (this.cache.size > 10_000) this.cache.clear();
+      this.cache.set(token, { tokenHash, session, until: t + this.cacheMs });
+    }
     return session;
   }
 

@@ -112,3 +112,55 @@ export const loadsTable = pgTable('loads', {
   files: integer('files').notNull().default(0),
   summary: jsonb('summary').notNull().default(sql`'{}'::jsonb`),
 });
+
+/**
+ * Sign-in failures and reset requests, counted per key (an account, an address, or both) in a
+ * sliding window. In the database so every server sharing it counts the same tries.
+ */
+export const limitHitsTable = pgTable(
+  'limit_hits',
+  {
+    id: serial('id').primaryKey(),
+    key: text('key').notNull(),
+    at: timestamp('at', { withTimezone: true }).notNull(),
+  },
+  (t) => [index('limit_hits_key_at_idx').on(t.key, t.at)],
+);
+
+/**
+ * Outgoing mail, written first and sent after (by whichever server gets to it), retried with a
+ * growing wait. The text of a sent message is blanked: it may hold a reset link.
+ */
+export const mailOutboxTable = pgTable(
+  'mail_outbox',
+  {
+    id: serial('id').primaryKey(),
+    to: text('to').notNull(),
+    subject: text('subject').notNull(),
+    text: text('text').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull(),
+    attempts: integer('attempts').notNull().default(0),
+    nextAttemptAt: timestamp('next_attempt_at', { withTimezone: true }).notNull(),
+    sentAt: timestamp('sent_at', { withTimezone: true }),
+    /** Set when the last try failed and no more will be made. */
+    failedAt: timestamp('failed_at', { withTimezone: true }),
+    lastError: text('last_error'),
+  },
+  (t) => [index('mail_outbox_due_idx').on(t.sentAt, t.failedAt, t.nextAttemptAt)],
+);
+
+/** Who changed which account, and how (from the viewer or `panform user`). */
+export const auditTable = pgTable(
+  'audit_log',
+  {
+    id: serial('id').primaryKey(),
+    at: timestamp('at', { withTimezone: true }).notNull(),
+    /** Who did it: an account's e-mail, or `panform user (<system user>)`. */
+    actor: text('actor').notNull(),
+    action: text('action').notNull(), // account.add | account.role | account.remove | account.reset-link | account.password
+    /** The account changed (its e-mail at the time). */
+    target: text('target').notNull(),
+    detail: text('detail').notNull().default(''),
+  },
+  (t) => [index('audit_log_at_idx').on(t.at)],
+);

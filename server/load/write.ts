@@ -6,6 +6,7 @@ import { eq, inArray, sql } from 'drizzle-orm';
 import type { FormulaFigures } from '#shared/api';
 import { sameFigures } from '#shared/figures';
 import type { Database } from '../db/client.ts';
+import { LOADS_CHANNEL } from '../db/listen.ts';
 import { catalogTable, formulaRevisionsTable, formulasTable, loadsTable, plansTable } from '../db/schema.ts';
 import { contentHash, type CheckResult } from './check.ts';
 import type { LoadInput } from './read.ts';
@@ -293,6 +294,8 @@ export async function writeLoad(
       finishedAt: finishedAt.toISOString(),
     };
     await tx.update(loadsTable).set({ finishedAt, summary }).where(eq(loadsTable.id, loadId));
+    // Every server listening on the database hears of the load when it commits (server/db/listen.ts).
+    await tx.execute(sql`select pg_notify(${LOADS_CHANNEL}, ${String(loadId)})`);
     opts.onProgress?.({ phase: 'done', done: total, total });
     return summary;
   });

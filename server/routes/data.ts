@@ -5,7 +5,8 @@
 // still current; the formulas are read and normalized again only after a load. That query is
 // asked at most every CHECK_MS: the embedded database answers on the server's only thread, and a
 // query per request would cost more than building the answer. A load through this server's
-// load channel invalidates at once (server/app.ts); one by another process shows within CHECK_MS.
+// load channel invalidates at once (server/app.ts); on a PostgreSQL server every load is announced
+// to every server (server/db/listen.ts); otherwise a load by another process shows within CHECK_MS.
 // Revision history is not cached: it is read from the database when asked for.
 import { desc, max } from 'drizzle-orm';
 import type { FormulaFigures } from '#shared/api';

@@ -46,22 +46,18 @@ export function sessionRouter(ctx: ServerContext): Router {
     const body = readStringFields(req.body, { email: { max: 254 }, password: { max: MAX_PASSWORD_LENGTH } });
     const email = normalizeEmail(body.email);
     const address = clientAddress(req);
-    const wait = Math.max(ctx.limiters.account.blockedFor(email), ctx.limiters.address.blockedFor(address));
-    if (wait > 0) {
-      throw rateLimited(`too many failed sign-ins; try again in ${Math.ceil(wait / 60_000)} min`, wait / 1000);
+    const verdict = await ctx.limiters.signIn.attempt(email, address);
+    if (!verdict.allowed) {
+      throw rateLimited(`too many failed sign-ins from here for this account; try again in ${Math.ceil(verdict.retryAfterMs / 60_000)} min`, verdict.retryAfterMs / 1000);
     }
-    // Every attempt counts as a failure until it has succeeded: many guesses sent at once cannot
-    // all pass the check above while the first ones are still being verified.
-    ctx.limiters.account.fail(email);
-    ctx.limiters.address.fail(address);
+    if (verdict.delayMs > 0) await new Promise((r) => setTimeout(r, verdict.delayMs));
     const user = await findUserByEmail(ctx.db, email);
     // Verify against a dummy hash for unknown addresses so the answer takes as long either way.
     const ok = await verifyPassword(body.password, user?.passwordHash ?? (await ctx.dummyHash));
     if (!user || !ok) {
       throw new HttpError(401, { error: 'unauthenticated', message: 'that e-mail address and password do not match an account' });
     }
-    ctx.limiters.account.reset(email);
-    ctx.limiters.address.forgive(address);
+    await ctx.limiters.signIn.succeeded(verdict);
     const { token } = await ctx.sessions.create(user.id);
     setSessionCookie(res, req, token, ctx.sessions.lifetimeMs);
     res.status(200).json(me(toUserInfo(user)));
@@ -81,19 +77,17 @@ export function sessionRouter(ctx: ServerContext): Router {
 
   // Public: ask for a reset link. Always 202, whether or not the address has an account, and the
   // work (token, e-mail) happens after the answer so its timing tells nothing either.
-  r.post('/password-reset', (req, res) => {
+  r.post('/password-reset', async (req, res) => {
     const body = readStringFields(req.body, { email: { max: 254 } });
     const address = clientAddress(req);
-    const wait = ctx.limiters.resetAddress.blockedFor(address);
+    const wait = await ctx.limiters.reset.request(address);
     if (wait > 0) throw rateLimited(`too many reset requests; try again in ${Math.ceil(wait / 60_000)} min`, wait / 1000);
-    ctx.limiters.resetAddress.fail(address);
     const email = normalizeEmail(body.email);
     ctx.background(async () => {
-      // A few e-mails per account and hour at most, silently: the answer must not differ.
-      if (ctx.limiters.resetAccount.blockedFor(email) > 0) return;
       const user = await findUserByEmail(ctx.db, email);
       if (!user) return;
-      ctx.limiters.resetAccount.fail(email);
+      // A few e-mails per account and hour at most, silently: the answer must not differ.
+      if (!(await ctx.limiters.reset.mayMail(email))) return;
       const token = randomBytes(32).toString('base64url');
       const expiresAt = new Date(ctx.now() + RESET_TTL_MS);
       // Links that can no longer work are of no use to keep.

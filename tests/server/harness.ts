@@ -151,6 +151,7 @@ export async function startTestServer(handle: DatabaseHandle, opts: Partial<AppO
     },
     async close() {
       await appInternals(app).idle();
+      await appInternals(app).stop();
       server.closeAllConnections();
       await new Promise<void>((ok) => server.close(() => ok()));
     },

@@ -45,8 +45,8 @@ const MATRIX: Record<string, Case[]> = {
   ],
   'GET /api/formulas/:id': [
     { label: 'active', method: 'GET', path: '/api/formulas/harbour-ciabatta', expect: all(200) },
-    { label: 'draft', method: 'GET', path: '/api/formulas/spelt-porridge-loaf', expect: staffOnly(403) },
-    { label: 'retired', method: 'GET', path: '/api/formulas/malted-grain-loaf', expect: staffOnly(403) },
+    { label: 'draft (404 for bench: as if unknown)', method: 'GET', path: '/api/formulas/spelt-porridge-loaf', expect: staffOnly(404) },
+    { label: 'retired (404 for bench: as if unknown)', method: 'GET', path: '/api/formulas/malted-grain-loaf', expect: staffOnly(404) },
     { label: 'unknown', method: 'GET', path: '/api/formulas/no-such-bread', expect: all(404) },
   ],
   'GET /api/formulas/:id/revisions': [

@@ -1,6 +1,9 @@
 // Signing in and out, sessions that expire, and the limits on failed sign-ins.
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { appInternals } from '../../server/app.ts';
+import { DEFAULT_LIMITS, type SignInLimits } from '../../server/auth/rate-limit.ts';
 import type { DatabaseHandle } from '../../server/db/client.ts';
+import { limitHitsTable } from '../../server/db/schema.ts';
 import { emailOf, getJson, openTestDatabase, PASSWORD, sendJson, sessionCookie, startTestServer, type TestServer } from './harness.ts';
 
 let handle: DatabaseHandle;
@@ -81,47 +84,69 @@ describe('signing in', () => {
 
 describe('limits on failed sign-ins', () => {
   let t: TestServer;
-  afterEach(async () => t?.close());
+  afterEach(async () => {
+    await t?.close();
+    // The counts live in the database: each test starts from none.
+    await handle.db.delete(limitHitsTable);
+  });
+  const signIn = (email: string, password: string, from?: string) =>
+    sendJson(`${t.url}/api/session`, 'POST', { email, password }, from ? { 'x-forwarded-for': from } : {});
+  const proxied = (limits: Partial<SignInLimits> = {}) => startTestServer(handle, { envVars: { TRUST_PROXY: 'loopback' }, limits: { ...DEFAULT_LIMITS, ...limits } });
 
-  it('answers 429 after 5 failures for one account, even with the right password, until the window has passed', async () => {
-    t = await startTestServer(handle);
-    for (let i = 0; i < 5; i++) {
-      expect((await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('bench'), password: `guess ${i} wrong` })).status).toBe(401);
-    }
-    const blocked = await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('bench'), password: PASSWORD });
+  it('answers 429 after 5 failures for one account from one address, even with the right password, until the window has passed', async () => {
+    t = await startTestServer(handle, { limits: { ...DEFAULT_LIMITS, slowdownStepMs: 0 } });
+    for (let i = 0; i < 5; i++) expect((await signIn(emailOf('bench'), `guess ${i} wrong`)).status).toBe(401);
+    const blocked = await signIn(emailOf('bench'), PASSWORD);
     expect(blocked.status).toBe(429);
     expect(blocked.body).toMatchObject({ error: 'rate_limited' });
     expect(Number(blocked.res.headers.get('retry-after'))).toBe(900); // the 15-minute window
     // Another account from the same address is not locked out by this one's failures.
-    expect((await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('admin'), password: PASSWORD })).status).toBe(200);
+    expect((await signIn(emailOf('admin'), PASSWORD)).status).toBe(200);
     t.clock.now += 15 * 60 * 1000 + 1;
-    expect((await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('bench'), password: PASSWORD })).status).toBe(200);
+    expect((await signIn(emailOf('bench'), PASSWORD)).status).toBe(200);
   });
 
-  it('answers 429 after 20 failures from one address across accounts', async () => {
-    t = await startTestServer(handle);
-    for (let i = 0; i < 20; i++) {
-      expect((await sendJson(`${t.url}/api/session`, 'POST', { email: `guess${i}@tidewater.example`, password: 'wrong password' })).status).toBe(401);
-    }
-    const blocked = await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('admin'), password: PASSWORD });
-    expect(blocked.status).toBe(429);
-    t.clock.now += 15 * 60 * 1000 + 1;
-    expect((await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('admin'), password: PASSWORD })).status).toBe(200);
+  it('lets the right password through from an address that has not failed: five wrong from five addresses lock nobody out', async () => {
+    t = await proxied();
+    for (let i = 0; i < 5; i++) expect((await signIn(emailOf('admin'), 'wrong password', `203.0.113.${i + 1}`)).status).toBe(401);
+    const verdict = await appInternals(t.app).limiters.signIn.attempt(emailOf('admin'), '198.51.100.7');
+    expect(verdict).toMatchObject({ allowed: true, delayMs: 0 });
+    expect((await signIn(emailOf('admin'), PASSWORD, '198.51.100.8')).status).toBe(200);
+    // An address that did fail is slowed down on that account, not shut out.
+    const again = await appInternals(t.app).limiters.signIn.attempt(emailOf('admin'), '203.0.113.1');
+    expect(again.allowed).toBe(true);
+    expect(again.allowed && again.delayMs).toBeGreaterThan(0);
   });
 
-  it('clears an account\'s failures when it signs in', async () => {
-    t = await startTestServer(handle);
+  it('slows an address down after 20 failures on made-up accounts, and still lets the right password in from it', async () => {
+    t = await proxied({ slowdownStepMs: 5, slowdownMaxMs: 40 });
+    for (let i = 0; i < 20; i++) expect((await signIn(`guess${i}@tidewater.example`, 'wrong password', '192.0.2.10')).status).toBe(401);
+    const verdict = await appInternals(t.app).limiters.signIn.attempt('someone@tidewater.example', '192.0.2.10');
+    expect(verdict).toMatchObject({ allowed: true, delayMs: 5 });
+    expect((await signIn(emailOf('bench'), PASSWORD, '192.0.2.10')).status).toBe(200);
+    // Another address behind nothing of this is not slowed at all.
+    expect(await appInternals(t.app).limiters.signIn.attempt(emailOf('bench'), '192.0.2.11')).toMatchObject({ allowed: true, delayMs: 0 });
+  });
+
+  it('keeps a lock however many other addresses and accounts fail meanwhile (counted in the database)', async () => {
+    t = await startTestServer(handle, { limits: { ...DEFAULT_LIMITS, slowdownStepMs: 0 } });
+    for (let i = 0; i < 5; i++) await signIn(emailOf('reviewer'), `guess ${i} wrong`);
+    const { signIn: throttle } = appInternals(t.app).limiters;
+    for (let i = 0; i < 300; i++) await throttle.attempt(`flood${i}@tidewater.example`, `10.9.${i >> 8}.${i & 255}`);
+    expect((await signIn(emailOf('reviewer'), PASSWORD)).status).toBe(429);
+  });
+
+  it('clears an account\'s failures from an address when it signs in from there', async () => {
+    t = await startTestServer(handle, { limits: { ...DEFAULT_LIMITS, slowdownStepMs: 0 } });
     for (let round = 0; round < 3; round++) {
-      for (let i = 0; i < 4; i++) await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('author'), password: 'wrong password' });
-      expect((await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('author'), password: PASSWORD })).status).toBe(200);
+      for (let i = 0; i < 4; i++) await signIn(emailOf('author'), 'wrong password');
+      expect((await signIn(emailOf('author'), PASSWORD)).status).toBe(200);
     }
   });
 
   it('counts guesses sent all at once: no more than 5 are tried', async () => {
-    t = await startTestServer(handle);
-    const answers = await Promise.all(
-      Array.from({ length: 12 }, (_, i) => sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('reviewer'), password: `parallel guess ${i}` })),
-    );
+    t = await startTestServer(handle, { limits: { ...DEFAULT_LIMITS, slowdownStepMs: 0 } });
+    const answers = await Promise.all(Array.from({ length: 12 }, (_, i) => signIn(emailOf('reviewer'), `parallel guess ${i}`)));
     const statuses = answers.map((a) => a.status).sort();
     expect(statuses.filter((s) => s === 401)).toHaveLength(5);
     expect(statuses.filter((s) => s === 429)).toHaveLength(7);
@@ -129,17 +154,14 @@ describe('limits on failed sign-ins', () => {
 
   it('does not count successful sign-ins against the address', async () => {
     t = await startTestServer(handle);
-    for (let i = 0; i < 25; i++) expect((await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('admin'), password: PASSWORD })).status).toBe(200);
+    for (let i = 0; i < 25; i++) expect((await signIn(emailOf('admin'), PASSWORD)).status).toBe(200);
   });
 
   it('counts the client address from X-Forwarded-For only behind a trusted proxy', async () => {
-    t = await startTestServer(handle, { limits: { account: { max: 100, windowMs: 60_000 }, address: { max: 2, windowMs: 60_000 }, resetAddress: { max: 10, windowMs: 60_000 }, resetAccount: { max: 3, windowMs: 60_000 } } });
+    t = await startTestServer(handle, { limits: { ...DEFAULT_LIMITS, pair: { max: 2, windowMs: 60_000 }, slowdownStepMs: 0 } });
     // Untrusted: a forged X-Forwarded-For does not give a fresh address.
-    for (let i = 0; i < 2; i++) {
-      await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('bench'), password: 'wrong password' }, { 'x-forwarded-for': `10.0.0.${i}` });
-    }
-    const r = await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('bench'), password: PASSWORD }, { 'x-forwarded-for': '10.0.0.99' });
-    expect(r.status).toBe(429);
+    for (let i = 0; i < 2; i++) await signIn(emailOf('bench'), 'wrong password', `10.0.0.${i}`);
+    expect((await signIn(emailOf('bench'), PASSWORD, '10.0.0.99')).status).toBe(429);
   });
 });
 

@@ -1,6 +1,6 @@
 // `panform serve`: the viewer and its API for the bakery's network. Opens the database (PGlite in
 // a folder, or PostgreSQL from DATABASE_URL), applies the migrations, and listens until Ctrl+C.
-import { resolve } from 'node:path';
+import { dirname, join, relative, resolve } from 'node:path';
 import { Command } from 'commander';
 import { InputError, UsageError } from '../errors.ts';
 
@@ -29,7 +29,8 @@ export function toServeOptions(raw: RawOptions): ServeOptions {
   return { port, dataDir: raw.data, host: raw.host, demo: raw.demo === true };
 }
 
-export const DEMO_ACCOUNTS_FILE = 'var/demo-accounts.txt';
+/** Beside the data folder: var/data's accounts in var/demo-accounts.txt, --data DIR's beside DIR. */
+export const DEMO_ACCOUNTS_NAME = 'demo-accounts.txt';
 
 async function serve(opts: ServeOptions): Promise<void> {
   const [{ readEnv, EnvError, redactUrl, envWarnings }, { openDatabase, migrateDatabase, DatabaseLockedError }, { startServer }] = await Promise.all([
@@ -60,7 +61,7 @@ async function serve(opts: ServeOptions): Promise<void> {
     await migrateDatabase(handle);
     if (opts.demo) {
       const { seedDemo, findDemoFormulas, formatAccounts } = await import('#server/demo');
-      const accountsFile = resolve(DEMO_ACCOUNTS_FILE);
+      const accountsFile = join(dirname(resolve(env.dataDir)), DEMO_ACCOUNTS_NAME);
       const formulasDir = findDemoFormulas();
       if (!formulasDir) out.write('No ./formulas folder with an ingredients.yaml here: starting without the demo formulas.\n');
       const demo = await seedDemo(handle, { formulasDir, accountsFile });
@@ -69,7 +70,7 @@ async function serve(opts: ServeOptions): Promise<void> {
         out.write(`Loaded the demo bakery: ${s.formulas.added.length} formulas, ${s.catalog.added.length} catalog entries, ${s.plans.added.length} plans.\n`);
       }
       if (demo.accounts) {
-        out.write(`Demo accounts (shown once; also in ${DEMO_ACCOUNTS_FILE}, readable only by you):\n${formatAccounts(demo.accounts)}\n`);
+        out.write(`Demo accounts (shown once; also in ${relative(process.cwd(), accountsFile) || accountsFile}, readable only by you):\n${formatAccounts(demo.accounts)}\n`);
       }
     }
     running = await startServer({ handle, env, host: opts.host, handleSignals: true });

@@ -2,7 +2,7 @@
 // folder: the demo accounts, the lock while the server runs, and adding, listing, resetting and
 // removing accounts. One data folder for the file: creating one takes seconds to a minute.
 import { spawn, type ChildProcess } from 'node:child_process';
-import { cpSync, mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
+import { cpSync, existsSync, mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -55,8 +55,10 @@ describe('panform serve --demo', () => {
     const s = await startServe();
     const out = s.stdout();
     expect(out).toMatch(/Loaded the demo bakery: 11 formulas/);
-    const file = join(dir, 'var', 'demo-accounts.txt');
+    // Beside --data DIR, not in ./var.
+    const file = join(dir, 'demo-accounts.txt');
     expect(statSync(file).mode & 0o777).toBe(0o600);
+    expect(existsSync(join(dir, 'var'))).toBe(false);
     accounts = new Map([...readFileSync(file, 'utf8').matchAll(/^\s+(\w+)\s+(\S+@tidewater\.example)\s+(\S+)$/gm)].map((m) => [m[1], m[3]]));
     expect([...accounts.keys()].sort()).toEqual(['admin', 'author', 'bench', 'reviewer']);
     for (const [role, password] of accounts) expect(out).toContain(password), expect(password).toMatch(/^[A-Za-z0-9]{16}$/), expect(role).toBeTruthy();

@@ -1,9 +1,10 @@
 // Reading formula, catalog and plan files from disk for the CLI: the I/O edge around
 // shared/parse.ts. Errors carry the file's location and a suggestion.
-import { existsSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { parseCatalogText, parsePlanText } from '#shared/parse';
 import { checkFileText } from '#shared/check/check-file';
+import { nearestName } from '#shared/check/suggest';
 import type { Catalog, Formula, Plan } from '#shared/model';
 import { InputError } from './errors.ts';
 
@@ -43,6 +44,17 @@ export function readCatalogFor(near: string, explicit?: string): { catalog: Cata
   return { catalog: readCatalog(path), path };
 }
 
+/** The ids of the formula files in a folder (file names without .yaml), for "did you mean". */
+function formulaIdsIn(dir: string): string[] {
+  try {
+    return readdirSync(dir)
+      .filter((n) => /\.ya?ml$/i.test(n) && n !== CATALOG_FILE)
+      .map((n) => n.replace(/\.ya?ml$/i, ''));
+  } catch {
+    return [];
+  }
+}
+
 /**
  * A formula given as a path, or as an id found in ./formulas/<id>.yaml or ./<id>.yaml
  * (or in `dir` when given).
@@ -53,6 +65,8 @@ export function resolveFormulaPath(arg: string, dir?: string): string {
     ? [join(dir, `${arg}.yaml`), join(dir, `${arg}.yml`)]
     : [join('formulas', `${arg}.yaml`), join('formulas', `${arg}.yml`), `${arg}.yaml`, `${arg}.yml`];
   for (const c of candidates) if (existsSync(c)) return c;
+  const near = nearestName(arg.replace(/\.ya?ml$/i, ''), formulaIdsIn(dir ?? (existsSync('formulas') ? 'formulas' : '.')));
+  if (near) throw new InputError(`unknown formula: ${arg}; did you mean ${near}?`);
   throw new InputError(`unknown formula: ${arg}`, [], `give a formula file's path or an id with a file in ${dir ?? 'formulas/'} (try \`panform check\` to list problems)`);
 }
 

@@ -15,6 +15,7 @@ import { canSeeFormulaStatus, roleHasPermission, type Role } from '#shared/permi
 import { scaleFormula, ScaleError, type ScaleTarget } from '#shared/scale';
 import type { FormulaFile } from '#shared/schema/shapes';
 import { FORMULA_STATUSES } from '#shared/schema/vocabulary';
+import { matchesSearch, searchWords } from '#shared/search';
 import { parseMassArgument, QuantityError } from '#shared/units';
 import { requirePermission } from '../auth/guards.ts';
 import type { ServerContext } from '../context.ts';
@@ -238,13 +239,13 @@ export function formulasRouter(ctx: ServerContext): Router {
     if (status && !canSeeFormulaStatus(user.role, status)) throw forbidden('read:formula:draft', `your role sees active formulas only, not ${status} ones`);
     const snapshot = await ctx.data.snapshot();
     const visible = [...snapshot.formulas.values()].filter((f) => canSeeFormulaStatus(user.role, f.status));
-    const words = (q ?? '').toLowerCase().split(/\s+/).filter(Boolean);
+    const words = searchWords(q);
     const found = visible.filter(
       (f) =>
         (!status || f.status === status) &&
         (!category || f.category === category) &&
         (!tag || f.tags.includes(tag)) &&
-        words.every((w) => f.searchText.includes(w)),
+        matchesSearch(words, f.searchText),
     );
     const formulas: FormulaSummary[] = found.map((f) => ({
       id: f.id,

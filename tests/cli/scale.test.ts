@@ -193,6 +193,12 @@ describe('panform scale: misuse and bad input', () => {
     expect(r.stderr).toMatch(/Allowed choices are metric, us/);
   });
 
+  it('suggests the nearest formula id for a mistyped one', async () => {
+    const r = await cli.run(['scale', 'harbor-ciabatta']);
+    expect(r.code).toBe(1);
+    expect(r.stderr.split('\n')[0]).toBe('panform: unknown formula: harbor-ciabatta; did you mean harbour-ciabatta?');
+  });
+
   it('refuses an unknown formula with exit 1', async () => {
     const r = await cli.run(['scale', 'no-such-bread', '--pieces', '3']);
     expect(r.code).toBe(1);

@@ -123,6 +123,8 @@ describe('GET /api/formulas', () => {
     expect(search.formulas.map((f) => f.id)).toEqual(['harbour-ciabatta']);
     const byIngredient = await get<FormulaListResponse>('/api/formulas?q=poolish', 'author');
     expect(byIngredient.formulas.map((f) => f.id)).toContain('harbour-ciabatta');
+    const typos = await get<FormulaListResponse>('/api/formulas?q=harbor%20ciabata', 'author');
+    expect(typos.formulas.map((f) => f.id)).toEqual(['harbour-ciabatta']);
     const none = await get<FormulaListResponse>('/api/formulas?q=ciabatta%20rye%20zzz', 'author');
     expect(none.formulas).toEqual([]);
     expect(all.categories.length).toBeGreaterThan(1);

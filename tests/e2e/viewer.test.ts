@@ -1,20 +1,21 @@
 // End to end: the built viewer served by the real server (in-memory PGlite with the demo bakery),
-// driven in headless Chromium. Screenshots of every page land in test-results/screenshots/.
+// driven in headless Chromium. Each test opens its own browser context, signed in from a saved
+// sign-in of its role (or signed out), so the tests run alone and in any order; each fails on an
+// error raised in its own page. Expected figures are fixed values worked by hand from the demo
+// files (formulas/harbour-ciabatta.yaml, formulas/ingredients.yaml), not computed by the code the
+// page runs. Screenshots of every page land in test-results/screenshots/.
 import { cpSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
-import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
-import type { Page } from 'playwright-core';
-import { computeCost, formatMoney } from '#shared/cost';
-import { parseCatalogText, parseFormulaText } from '#shared/parse';
-import { scaleFormula, type ScaleTarget } from '#shared/scale';
-import { planWater } from '#shared/temperature';
-import { formatGrams, formatTemperature } from '#shared/units';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext, Page } from 'playwright-core';
+import type { Role } from '#shared/permissions';
 import { appInternals } from '../../server/app.ts';
+import { createUser } from '../../server/auth/users.ts';
 import type { DatabaseHandle } from '../../server/db/client.ts';
 import { loadFolder } from '../../server/load/index.ts';
-import { emailOf, openTestDatabase, PASSWORD, startTestServer, type TestServer } from '../server/harness.ts';
-import { hasChromium, launchBrowser, printPreview, screenshot, type Browser } from './support/browser.ts';
+import { emailOf, openTestDatabase, PASSWORD, startTestServer, TEST_SCRYPT, type TestServer } from '../server/harness.ts';
+import { CONTEXT_OPTIONS, hasChromium, launchBrowser, printPreview, screenshot, type Browser } from './support/browser.ts';
 import { ensureViewerBuilt } from './support/viewer-build.ts';
 
 const chromiumHere = hasChromium();
@@ -22,16 +23,40 @@ if (!chromiumHere && !process.env.CI) {
   process.stderr.write('tests/e2e: /usr/bin/chromium is missing; skipping the viewer tests (apt-get install chromium to run them)\n');
 }
 
-function readFormula(id: string) {
-  const parsed = parseFormulaText(readFileSync(resolve('formulas', `${id}.yaml`), 'utf8'), `${id}.yaml`);
-  if (!parsed.ok) throw new Error(`demo formula ${id} does not parse`);
-  return parsed.value;
-}
-function readCatalog() {
-  const parsed = parseCatalogText(readFileSync(resolve('formulas/ingredients.yaml'), 'utf8'), 'ingredients.yaml');
-  if (!parsed.ok) throw new Error('demo catalog does not parse');
-  return parsed.value;
-}
+/** Grams as the viewer prints them: whole grams from 100 g, thousands set apart by a narrow space. */
+const g = (text: string) => `${text.replace(/ /g, '\u202f')} g`;
+
+// harbour-ciabatta (formulas/harbour-ciabatta.yaml): flour 100, water 78, fine salt 2.2, instant
+// yeast 0.35 → total 180.55 %; loss 2 %; yield 10 × 320 g; a poolish of 30 % of the flour at 100 %
+// hydration with 0.1 % instant yeast. Worked by hand with the baker's percent method (Gisslen,
+// Professional Baking, Wiley: each line = flour × percent; flour = dough ÷ total %) and the loss
+// as docs/arithmetic.md defines it (mixed dough = divided dough ÷ (1 − loss)):
+const CIABATTA = {
+  // 10 × 320 g = 3200 g ÷ 0.98 = 3265.31 g mixed ÷ 1.8055 = 1808.53 g flour
+  writtenFlour: g('1 809'),
+  // 60 × 320 g = 19 200 g ÷ 0.98 = 19 591.84 g ÷ 1.8055 = 10 851.20 g flour
+  sixtyFlour: g('10 851'),
+  // water 0.78 × 10 851.20 = 8463.93 g
+  sixtyWater: g('8 464'),
+  // poolish: flour 0.30 × 10 851.20 = 3255.36 g, as much water, yeast 0.1 % of it = 3.26 g → 6513.97 g
+  sixtyPoolish: g('6 514'),
+  // by mixed dough, 25 kg: flour 25 000 ÷ 1.8055 = 13 846.58 g; salt 0.022 × that = 304.62 g
+  mix25Salt: g('305'),
+  // Water for the written batch at DDT 25 °C (the formula's), room 30, flour 20, friction 13,
+  // poolish 20 °C (the helper's starting values but room and tap): n·DDT − Σ = 4 × 25 − (30 + 20 +
+  // 20 + 13) = 17 °C (Cook's Illustrated, "Precise Water Temperature for the Perfect Loaf": n = 4
+  // with a pre-ferment).
+  waterTemperature: '17.0 °C',
+  // Ice from tap water at 20 °C: the final dough's water is (0.78 − 0.30) × 1808.53 = 868.10 g;
+  // ice = W·(T_tap − T_w)/(T_tap + L/c) = 868.10 × 3 / (20 + 334/4.18) = 26.07 g, with L = 334 J/g
+  // and c = 4.18 J/(g·K) (Case Western Reserve University physics demo "Specific Heat and Heat of
+  // Fusion").
+  ice: '26.1 g',
+  // Cost at 60 pieces, catalog prices of 2026-11-02 per kg: bread flour 0.92, water 0.003, fine
+  // salt 0.60, instant yeast 9.80. 10.8512 kg × 0.92 = 9.9831; 8.4639 × 0.003 = 0.0254; 0.238 73 ×
+  // 0.60 = 0.1432; 0.037 98 × 9.80 = 0.3722; total 10.5239 ÷ 60 = 0.1754 per piece.
+  costPerPiece: '0.18',
+};
 
 /** The weight the viewer shows for an ingredient in one of the formula page's tables. */
 async function weightIn(page: Page, table: 'overall' | 'final-dough', ingredient: string): Promise<string> {
@@ -39,12 +64,18 @@ async function weightIn(page: Page, table: 'overall' | 'final-dough', ingredient
   return ((await cell.textContent()) ?? '').trim();
 }
 
-async function signIn(page: Page, base: string, role: 'bench' | 'reviewer' | 'author' | 'admin'): Promise<void> {
-  // Whoever was signed in before (a test that stopped half-way) is forgotten first.
-  await page.context().clearCookies();
+/** Waits until an ingredient's weight in a table reads `text` (the page recomputes as you type). */
+async function waitForWeight(page: Page, table: 'overall' | 'final-dough', ingredient: string, text: string): Promise<void> {
+  await page.waitForFunction(
+    ([sel, want]) => document.querySelector(sel)?.textContent?.trim() === want,
+    [`[data-testid="${table}"] tr[data-ingredient="${ingredient}"] [data-weight]`, text] as const,
+  );
+}
+
+async function signInOnPage(page: Page, base: string, email: string, password = PASSWORD): Promise<void> {
   await page.goto(`${base}/sign-in`);
-  await page.getByLabel('E-mail').fill(emailOf(role));
-  await page.getByLabel('Password').fill(PASSWORD);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.waitForURL(/\/formulas$/);
   await page.getByRole('heading', { name: 'Formulas', level: 1 }).waitFor();
@@ -56,18 +87,53 @@ async function signOut(page: Page, base: string): Promise<void> {
   await page.waitForURL(/\/sign-in/);
 }
 
+type StorageState = Awaited<ReturnType<BrowserContext['storageState']>>;
+
 // A real browser on a busy two-core machine: each step gets two minutes before it counts as hung.
-// A test that fails is tried once more on a new tab (the tests share one browser, as a bench tablet
-// would): on a loaded 2-core CI machine a tab has been seen to hang for minutes while a fresh one
-// worked at once. A real fault fails both tries.
-describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { timeout: 120_000, retry: 1 }, () => {
+describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { timeout: 120_000 }, () => {
   let handle: DatabaseHandle;
   let server: TestServer;
   let browser: Browser;
-  let page: Page;
   let base: string;
-  const pageErrors: string[] = [];
-  const catalog = readCatalog();
+  const signIns = new Map<Role, StorageState>();
+  // An admin account of its own for the password-reset test, which ends all of the account's sessions.
+  const resetEmail = 'reset-admin@tidewater.example';
+
+  /** A sign-in per role, made once through the API and saved as the browser's storage state. */
+  async function signedInState(role: Role): Promise<StorageState> {
+    const saved = signIns.get(role);
+    if (saved) return saved;
+    const context = await browser.newContext(CONTEXT_OPTIONS);
+    try {
+      const res = await context.request.post(`${base}/api/session`, {
+        data: { email: emailOf(role), password: PASSWORD },
+        headers: { origin: base },
+      });
+      expect(res.status(), `signing in as ${role}`).toBe(200);
+      const state = await context.storageState();
+      signIns.set(role, state);
+      return state;
+    } finally {
+      await context.close();
+    }
+  }
+
+  /**
+   * Runs `use` on a page of a fresh browser context, signed in as `role` (null: signed out), closes
+   * the context, and fails when the page raised an error.
+   */
+  async function withPage(role: Role | null, use: (page: Page) => Promise<void>): Promise<void> {
+    const context = await browser.newContext({ ...CONTEXT_OPTIONS, storageState: role ? await signedInState(role) : undefined });
+    const errors: string[] = [];
+    try {
+      const page = await context.newPage();
+      page.on('pageerror', (e) => errors.push(e.message));
+      await use(page);
+    } finally {
+      await context.close();
+    }
+    expect(errors, 'errors raised in the page').toEqual([]);
+  }
 
   beforeAll(async () => {
     if (!chromiumHere) throw new Error('/usr/bin/chromium is missing: CI must install it (apt-get install chromium)');
@@ -86,24 +152,11 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
     } finally {
       rmSync(copy, { recursive: true, force: true });
     }
+    await createUser(handle.db, { email: resetEmail, name: 'Reset test', role: 'admin', password: PASSWORD }, TEST_SCRYPT);
     server = await startTestServer(handle, { webDir: resolve('dist/web') });
     base = server.url;
     browser = await launchBrowser();
-    page = browser.page;
-    page.on('pageerror', (e) => pageErrors.push(e.message));
   }, 300_000);
-
-  beforeEach(async () => {
-    await page.bringToFront();
-  });
-
-  afterEach(async ({ task }) => {
-    if (task.result?.state !== 'fail') return;
-    // Signed-in state lives in the browser context and survives the new tab.
-    await page.close().catch(() => {});
-    page = await browser.context.newPage();
-    page.on('pageerror', (e) => pageErrors.push(e.message));
-  });
 
   afterAll(async () => {
     await browser?.close();
@@ -111,308 +164,297 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
     await handle?.close();
   });
 
-  it('sends a signed-out visitor to the sign-in page and back to where they were going', async () => {
-    await page.goto(`${base}/formulas/harbour-ciabatta`);
-    await page.waitForURL(/\/sign-in\?next=/);
-    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
-    await screenshot(page, 'sign-in-tablet-light', { width: 1280, height: 800, fullPage: false });
-    await screenshot(page, 'sign-in-portrait-dark', { width: 800, height: 1280, scheme: 'dark', fullPage: false });
-    await page.getByLabel('E-mail').fill(emailOf('bench'));
-    await page.getByLabel('Password').fill('not the password');
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('alert').waitFor();
-    expect(await page.getByRole('alert').textContent()).toMatch(/do not match/);
-    await page.getByLabel('Password').fill(PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(/\/formulas\/harbour-ciabatta$/);
-    await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
-  });
+  it('sends a signed-out visitor to the sign-in page and back to where they were going', () =>
+    withPage(null, async (page) => {
+      await page.goto(`${base}/formulas/harbour-ciabatta`);
+      await page.waitForURL(/\/sign-in\?next=/);
+      await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+      await screenshot(page, 'sign-in-tablet-light', { width: 1280, height: 800, fullPage: false });
+      await screenshot(page, 'sign-in-portrait-dark', { width: 800, height: 1280, scheme: 'dark', fullPage: false });
+      await page.getByLabel('E-mail').fill(emailOf('bench'));
+      await page.getByLabel('Password').fill('not the password');
+      await page.getByRole('button', { name: 'Sign in' }).click();
+      await page.getByRole('alert').waitFor();
+      expect(await page.getByRole('alert').textContent()).toMatch(/do not match/);
+      await page.getByLabel('Password').fill(PASSWORD);
+      await page.getByRole('button', { name: 'Sign in' }).click();
+      await page.waitForURL(/\/formulas\/harbour-ciabatta$/);
+      await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
+    }));
 
-  it('shows bench staff only formulas in use, with no status filter, no changes and no costs', async () => {
-    await page.goto(`${base}/formulas`);
-    await page.locator('[data-formula]').first().waitFor();
-    const ids = await page.locator('[data-formula]').evaluateAll((els) => els.map((e) => e.getAttribute('data-formula')));
-    expect(ids).toContain('harbour-ciabatta');
-    expect(ids).not.toContain('spelt-porridge-loaf'); // draft
-    expect(ids).not.toContain('malted-grain-loaf'); // retired
-    expect(await page.getByLabel('Status').count()).toBe(0);
-    expect(await page.getByRole('link', { name: 'Changes' }).count()).toBe(0);
-    await screenshot(page, 'formulas-bench-tablet-light', { width: 1280, height: 800 });
-    await screenshot(page, 'formulas-bench-portrait-dark', { width: 800, height: 1280, scheme: 'dark' });
+  it('shows bench staff only formulas in use, with no status filter, no changes and no costs', () =>
+    withPage('bench', async (page) => {
+      await page.goto(`${base}/formulas`);
+      await page.locator('[data-formula]').first().waitFor();
+      const ids = await page.locator('[data-formula]').evaluateAll((els) => els.map((e) => e.getAttribute('data-formula')));
+      expect(ids).toContain('harbour-ciabatta');
+      expect(ids).not.toContain('spelt-porridge-loaf'); // draft
+      expect(ids).not.toContain('malted-grain-loaf'); // retired
+      expect(await page.getByLabel('Status').count()).toBe(0);
+      expect(await page.getByRole('link', { name: 'Changes' }).count()).toBe(0);
+      await screenshot(page, 'formulas-bench-tablet-light', { width: 1280, height: 800 });
+      await screenshot(page, 'formulas-bench-portrait-dark', { width: 800, height: 1280, scheme: 'dark' });
 
-    await page.goto(`${base}/formulas/harbour-ciabatta`);
-    await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
-    expect(await page.getByRole('heading', { name: 'Ingredient cost' }).count()).toBe(0);
-    expect(await page.getByRole('link', { name: 'Changes' }).count()).toBe(0);
-  });
+      await page.goto(`${base}/formulas/harbour-ciabatta`);
+      await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
+      expect(await page.getByRole('heading', { name: 'Ingredient cost' }).count()).toBe(0);
+      expect(await page.getByRole('link', { name: 'Changes' }).count()).toBe(0);
+    }));
 
-  it('sends a formula page rendered, and takes it over without a mismatch', async () => {
-    // Signed in as bench from the test before: the server's HTML already holds the weights.
-    const cookie = (await page.context().cookies()).map((c) => `${c.name}=${c.value}`).join('; ');
-    const res = await fetch(`${base}/formulas/harbour-ciabatta?pieces=24`, { headers: { cookie } });
-    expect(res.headers.get('cache-control')).toBe('private, no-cache');
-    const html = await res.text();
-    expect(html).toMatch(/<script type="application\/json" id="panform-state">/);
-    expect(html).toMatch(/data-testid="overall"/);
-    expect(html).toMatch(/<h1[^>]*>Harbour ciabatta<\/h1>/);
-    expect(html).not.toMatch(/<script>/);
-    // Signed out: the plain page, nothing of anyone's.
-    const plain = await (await fetch(`${base}/formulas/harbour-ciabatta`)).text();
-    expect(plain).not.toMatch(/panform-state/);
+  it('sends a formula page rendered, and takes it over without a mismatch', () =>
+    withPage('bench', async (page) => {
+      // The server's HTML for a signed-in visitor already holds the weights.
+      const cookie = (await page.context().cookies()).map((c) => `${c.name}=${c.value}`).join('; ');
+      const res = await fetch(`${base}/formulas/harbour-ciabatta?pieces=24`, { headers: { cookie } });
+      expect(res.headers.get('cache-control')).toBe('private, no-cache');
+      const html = await res.text();
+      expect(html).toMatch(/<script type="application\/json" id="panform-state">/);
+      expect(html).toMatch(/data-testid="overall"/);
+      expect(html).toMatch(/<h1[^>]*>Harbour ciabatta<\/h1>/);
+      expect(html).not.toMatch(/<script>/);
+      // Signed out: the plain page, nothing of anyone's.
+      const plain = await (await fetch(`${base}/formulas/harbour-ciabatta`)).text();
+      expect(plain).not.toMatch(/panform-state/);
 
-    const before = pageErrors.length;
-    await page.goto(`${base}/formulas/harbour-ciabatta?pieces=24`);
-    await page.locator('[data-testid="overall"] tbody tr').first().waitFor();
-    await page.getByRole('button', { name: 'One piece more' }).click();
-    await page.waitForURL(/pieces=25/);
-    expect(await page.getByLabel('Pieces').inputValue()).toBe('25');
-    expect(pageErrors.slice(before)).toEqual([]);
-  });
+      // A hydration mismatch is a page error, which fails this test.
+      await page.goto(`${base}/formulas/harbour-ciabatta?pieces=24`);
+      await page.locator('[data-testid="overall"] tbody tr').first().waitFor();
+      await page.getByRole('button', { name: 'One piece more' }).click();
+      await page.waitForURL(/pieces=25/);
+      expect(await page.getByLabel('Pieces').inputValue()).toBe('25');
+    }));
 
-  it('can be used from the keyboard, with a visible focus ring', async () => {
-    await page.goto(`${base}/formulas`);
-    await page.locator('[data-formula]').first().waitFor();
-    await page.keyboard.press('Tab');
-    expect(await page.evaluate(() => document.activeElement?.textContent)).toBe('Skip to the page');
-    await page.keyboard.press('Tab');
-    const ring = await page.evaluate(() => {
-      const el = document.activeElement as HTMLElement;
-      const style = getComputedStyle(el);
-      return { tag: el.tagName, outline: style.outlineStyle, width: parseFloat(style.outlineWidth), height: el.getBoundingClientRect().height };
-    });
-    expect(ring.tag).toBe('A');
-    expect(ring.outline).toBe('solid');
-    expect(ring.width).toBeGreaterThanOrEqual(2);
-    expect(ring.height).toBeGreaterThanOrEqual(44); // large touch targets
-    await screenshot(page, 'keyboard-focus', { width: 1280, height: 800, fullPage: false });
-  });
+  it('can be used from the keyboard, with a visible focus ring', () =>
+    withPage('bench', async (page) => {
+      await page.goto(`${base}/formulas`);
+      await page.locator('[data-formula]').first().waitFor();
+      await page.keyboard.press('Tab');
+      expect(await page.evaluate(() => document.activeElement?.textContent)).toBe('Skip to the page');
+      await page.keyboard.press('Tab');
+      const ring = await page.evaluate(() => {
+        const el = document.activeElement as HTMLElement;
+        const style = getComputedStyle(el);
+        return { tag: el.tagName, outline: style.outlineStyle, width: parseFloat(style.outlineWidth), height: el.getBoundingClientRect().height };
+      });
+      expect(ring.tag).toBe('A');
+      expect(ring.outline).toBe('solid');
+      expect(ring.width).toBeGreaterThanOrEqual(2);
+      expect(ring.height).toBeGreaterThanOrEqual(44); // touch targets of at least 44 px (docs/viewer.md)
+      await screenshot(page, 'keyboard-focus', { width: 1280, height: 800, fullPage: false });
+    }));
 
-  it('narrows the list as a name is typed', async () => {
-    await page.goto(`${base}/formulas`);
-    await page.locator('[data-formula]').first().waitFor();
-    expect(await page.locator('[data-formula]').count()).toBeGreaterThan(3);
-    await page.getByLabel('Find a formula').pressSequentially('ciab', { delay: 30 });
-    await page.waitForURL(/q=ciab/);
-    await page.waitForFunction(() => document.querySelectorAll('[data-formula]').length === 1);
-    expect(await page.locator('[data-formula]').getAttribute('data-formula')).toBe('harbour-ciabatta');
-    await screenshot(page, 'formulas-search', { width: 1280, height: 800, fullPage: false });
-    await page.locator('[data-formula="harbour-ciabatta"]').click();
-    await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
-  });
+  it('narrows the list as a name is typed', () =>
+    withPage('bench', async (page) => {
+      await page.goto(`${base}/formulas`);
+      await page.locator('[data-formula]').first().waitFor();
+      expect(await page.locator('[data-formula]').count()).toBeGreaterThan(3);
+      await page.getByLabel('Find a formula').pressSequentially('ciab', { delay: 30 });
+      await page.waitForURL(/q=ciab/);
+      await page.waitForFunction(() => document.querySelectorAll('[data-formula]').length === 1);
+      expect(await page.locator('[data-formula]').getAttribute('data-formula')).toBe('harbour-ciabatta');
+      await screenshot(page, 'formulas-search', { width: 1280, height: 800, fullPage: false });
+      await page.locator('[data-formula="harbour-ciabatta"]').click();
+      await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
+    }));
 
-  it('notices a session that ended while the page was open, and signs in again without looping', async () => {
-    await page.goto(`${base}/formulas`);
-    await page.locator('[data-formula="harbour-ciabatta"]').waitFor();
-    await page.context().clearCookies();
-    await page.locator('[data-formula="harbour-ciabatta"]').click();
-    await page.getByRole('heading', { name: 'Signed out' }).waitFor();
-    await page.getByRole('link', { name: 'Sign in' }).click();
-    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
-    await page.getByLabel('E-mail').fill(emailOf('bench'));
-    await page.getByLabel('Password').fill(PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(/\/formulas\/harbour-ciabatta$/);
-    await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
-  });
+  it('notices a session that ended while the page was open, and signs in again without looping', () =>
+    withPage('bench', async (page) => {
+      await page.goto(`${base}/formulas`);
+      await page.locator('[data-formula="harbour-ciabatta"]').waitFor();
+      await page.context().clearCookies();
+      await page.locator('[data-formula="harbour-ciabatta"]').click();
+      await page.getByRole('heading', { name: 'Signed out' }).waitFor();
+      await page.getByRole('link', { name: 'Sign in' }).click();
+      await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+      await page.getByLabel('E-mail').fill(emailOf('bench'));
+      await page.getByLabel('Password').fill(PASSWORD);
+      await page.getByRole('button', { name: 'Sign in' }).click();
+      await page.waitForURL(/\/formulas\/harbour-ciabatta$/);
+      await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
+    }));
 
-  it('scales a formula by pieces and by dough weight in the browser, as shared scaleFormula does, and keeps the target in the URL', async () => {
-    const formula = readFormula('harbour-ciabatta');
-    const expectFor = (target: ScaleTarget) => scaleFormula(formula, catalog, target);
-    await page.goto(`${base}/formulas/harbour-ciabatta`);
-    await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
-    expect(await page.title()).toBe('Harbour ciabatta · Panform');
-    const written = expectFor({ by: 'pieces', pieces: formula.yield.pieces });
-    expect(await weightIn(page, 'overall', 'bread flour')).toBe(formatGrams(written.overall.find((l) => l.ingredient === 'bread flour')!.grams));
-    await screenshot(page, 'formula-bench-tablet-light', { width: 1280, height: 800 });
-    await screenshot(page, 'formula-bench-portrait-light', { width: 800, height: 1280 });
-    await screenshot(page, 'formula-bench-desktop-dark', { width: 1680, height: 1050, scheme: 'dark' });
+  it('scales a formula by pieces and by dough weight in the browser, and keeps the target in the URL', () =>
+    withPage('bench', async (page) => {
+      await page.goto(`${base}/formulas/harbour-ciabatta`);
+      await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
+      expect(await page.title()).toBe('Harbour ciabatta · Panform');
+      expect(await weightIn(page, 'overall', 'bread flour')).toBe(CIABATTA.writtenFlour);
+      await screenshot(page, 'formula-bench-tablet-light', { width: 1280, height: 800 });
+      await screenshot(page, 'formula-bench-portrait-light', { width: 800, height: 1280 });
+      await screenshot(page, 'formula-bench-desktop-dark', { width: 1680, height: 1050, scheme: 'dark' });
 
-    await page.getByLabel('Pieces').fill('60');
-    await page.waitForURL(/pieces=60/);
-    const sixty = expectFor({ by: 'pieces', pieces: 60 });
-    const flour = formatGrams(sixty.overall.find((l) => l.ingredient === 'bread flour')!.grams);
-    await page.waitForFunction(
-      ([sel, text]) => document.querySelector(sel)?.textContent?.trim() === text,
-      ['[data-testid="overall"] tr[data-ingredient="bread flour"] [data-weight]', flour] as const,
-    );
-    expect(await weightIn(page, 'overall', 'water')).toBe(formatGrams(sixty.overall.find((l) => l.ingredient === 'water')!.grams));
-    expect(await weightIn(page, 'final-dough', 'poolish')).toBe(formatGrams(sixty.finalDough.find((l) => l.ingredient === 'poolish')!.grams));
-    expect(await page.getByTestId('batch-line').textContent()).toContain('60 × 320 g');
+      await page.getByLabel('Pieces').fill('60');
+      await page.waitForURL(/pieces=60/);
+      await waitForWeight(page, 'overall', 'bread flour', CIABATTA.sixtyFlour);
+      expect(await weightIn(page, 'overall', 'water')).toBe(CIABATTA.sixtyWater);
+      expect(await weightIn(page, 'final-dough', 'poolish')).toBe(CIABATTA.sixtyPoolish);
+      expect(await page.getByTestId('batch-line').textContent()).toContain('60 × 320 g');
 
-    // The target survives a reload: it lives in the URL.
-    await page.reload();
-    await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
-    expect(await page.getByLabel('Pieces').inputValue()).toBe('60');
-    expect(await weightIn(page, 'overall', 'bread flour')).toBe(flour);
+      // The target survives a reload: it lives in the URL.
+      await page.reload();
+      await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
+      expect(await page.getByLabel('Pieces').inputValue()).toBe('60');
+      expect(await weightIn(page, 'overall', 'bread flour')).toBe(CIABATTA.sixtyFlour);
 
-    await page.getByRole('radio', { name: 'Dough weight' }).click();
-    await page.getByLabel('Mixed dough').fill('25');
-    await page.waitForURL(/mix=25000/);
-    const byMix = expectFor({ by: 'mix', grams: 25_000 });
-    const salt = formatGrams(byMix.overall.find((l) => l.ingredient === 'fine salt')!.grams);
-    await page.waitForFunction(
-      ([sel, text]) => document.querySelector(sel)?.textContent?.trim() === text,
-      ['[data-testid="overall"] tr[data-ingredient="fine salt"] [data-weight]', salt] as const,
-    );
-    await screenshot(page, 'formula-scaled-by-dough', { width: 1280, height: 800 });
-  });
+      await page.getByRole('radio', { name: 'Dough weight' }).click();
+      await page.getByLabel('Mixed dough').fill('25');
+      await page.waitForURL(/mix=25000/);
+      await waitForWeight(page, 'overall', 'fine salt', CIABATTA.mix25Salt);
+      await screenshot(page, 'formula-scaled-by-dough', { width: 1280, height: 800 });
+    }));
 
-  it('works out the water temperature and the ice with shared/temperature', async () => {
-    const formula = readFormula('harbour-ciabatta');
-    await page.goto(`${base}/formulas/harbour-ciabatta`);
-    const helper = page.getByTestId('water-helper');
-    await helper.waitFor();
-    await helper.getByLabel('Room').fill('30');
-    await helper.getByLabel('Tap water').fill('20');
-    const scaled = scaleFormula(formula, catalog, { by: 'pieces', pieces: formula.yield.pieces });
-    const water = scaled.finalDough.filter((l) => l.source === 'ingredient' && l.ingredient === 'water').reduce((a, l) => a + l.grams, 0);
-    const expected = planWater({ ddt: 25, room: 30, flour: 20, friction: 13, preferments: [20], tap: 20, waterGrams: water });
-    expect(expected.ice).toBeGreaterThan(0);
-    await page.waitForFunction(
-      (text) => document.querySelector('[data-testid="water-temperature"]')?.textContent?.trim() === text,
-      formatTemperature(expected.waterTemperature),
-    );
-    expect(await page.getByTestId('ice').textContent()).toContain(formatGrams(expected.ice!));
-    await screenshot(page, 'formula-water-helper', { width: 1280, height: 800, fullPage: false });
-  });
+  it('works out the water temperature and the ice for the mix', () =>
+    withPage('bench', async (page) => {
+      await page.goto(`${base}/formulas/harbour-ciabatta`);
+      const helper = page.getByTestId('water-helper');
+      await helper.waitFor();
+      await helper.getByLabel('Room').fill('30');
+      await helper.getByLabel('Tap water').fill('20');
+      await page.waitForFunction(
+        (text) => document.querySelector('[data-testid="water-temperature"]')?.textContent?.trim() === text,
+        CIABATTA.waterTemperature,
+      );
+      expect(await page.getByTestId('ice').textContent()).toContain(CIABATTA.ice);
+      await screenshot(page, 'formula-water-helper', { width: 1280, height: 800, fullPage: false });
+    }));
 
-  it('prints a typical formula on one page', async () => {
-    await page.goto(`${base}/formulas/harbour-ciabatta?pieces=60`);
-    await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
-    const { pages } = await printPreview(page, 'formula-harbour-ciabatta');
-    if (pages !== null) expect(pages).toBe(1);
-  });
+  it('prints a typical formula on one page', () =>
+    withPage('bench', async (page) => {
+      await page.goto(`${base}/formulas/harbour-ciabatta?pieces=60`);
+      await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
+      const { pages } = await printPreview(page, 'formula-harbour-ciabatta');
+      if (pages !== null) expect(pages).toBe(1);
+    }));
 
-  it('opens a bake day: builds with mix windows, mixes, pick list, timeline chart and the PDF', async () => {
-    await page.goto(`${base}/plans`);
-    await page.locator('[data-plan="2026-12-03"]').click();
-    await page.waitForURL(/\/plans\/2026-12-03$/);
-    await page.getByTestId('timeline').waitFor();
-    expect(await page.locator('[data-testid="timeline"] svg [data-step]').count()).toBeGreaterThan(10);
-    expect(await page.getByTestId('sheet-build').count()).toBeGreaterThan(0);
-    expect(await page.getByTestId('sheet-mix').count()).toBeGreaterThan(0);
-    expect(await page.locator('[data-testid="pick-list"] tr[data-ingredient="bread flour"]').count()).toBe(1);
-    expect(await page.getByTestId('sheet-build').first().textContent()).toMatch(/Mix .*\d\d:\d\d/);
-    const href = await page.getByRole('link', { name: 'Download PDF' }).getAttribute('href');
-    expect(href).toBe('/api/plans/2026-12-03/sheet.pdf');
-    const pdf = await page.request.get(`${base}${href}`);
-    expect(pdf.status()).toBe(200);
-    expect(pdf.headers()['content-type']).toContain('application/pdf');
-    await screenshot(page, 'plan-tablet-light', { width: 1280, height: 800 });
-    await screenshot(page, 'plan-portrait-dark', { width: 800, height: 1280, scheme: 'dark', fullPage: false });
-    await page.getByRole('radio', { name: 'Close up' }).click();
-    await screenshot(page, 'plan-timeline-close-up', { width: 1280, height: 800, fullPage: false });
-    await printPreview(page, 'plan-2026-12-03');
-  });
+  it('opens a bake day: builds with mix windows, mixes, pick list, timeline chart and the PDF', () =>
+    withPage('bench', async (page) => {
+      await page.goto(`${base}/plans`);
+      await page.locator('[data-plan="2026-12-03"]').click();
+      await page.waitForURL(/\/plans\/2026-12-03$/);
+      await page.getByTestId('timeline').waitFor();
+      expect(await page.locator('[data-testid="timeline"] svg [data-step]').count()).toBeGreaterThan(10);
+      expect(await page.getByTestId('sheet-build').count()).toBeGreaterThan(0);
+      expect(await page.getByTestId('sheet-mix').count()).toBeGreaterThan(0);
+      expect(await page.locator('[data-testid="pick-list"] tr[data-ingredient="bread flour"]').count()).toBe(1);
+      expect(await page.getByTestId('sheet-build').first().textContent()).toMatch(/Mix .*\d\d:\d\d/);
+      const href = await page.getByRole('link', { name: 'Download PDF' }).getAttribute('href');
+      expect(href).toBe('/api/plans/2026-12-03/sheet.pdf');
+      const pdf = await page.request.get(`${base}${href}`);
+      expect(pdf.status()).toBe(200);
+      expect(pdf.headers()['content-type']).toContain('application/pdf');
+      await screenshot(page, 'plan-tablet-light', { width: 1280, height: 800 });
+      await screenshot(page, 'plan-portrait-dark', { width: 800, height: 1280, scheme: 'dark', fullPage: false });
+      await page.getByRole('radio', { name: 'Close up' }).click();
+      await screenshot(page, 'plan-timeline-close-up', { width: 1280, height: 800, fullPage: false });
+      await printPreview(page, 'plan-2026-12-03');
+    }));
 
-  it('answers bench staff with a 403 page for changes and a not-found page for drafts and unknown pages', async () => {
-    await page.goto(`${base}/changes`);
-    await page.getByRole('heading', { name: 'Not for your role' }).waitFor();
-    await screenshot(page, 'forbidden', { width: 1280, height: 800, fullPage: false });
-    await page.goto(`${base}/formulas/spelt-porridge-loaf`);
-    await page.getByRole('heading', { name: /Nothing on this shelf|Not for your role/ }).waitFor();
-    await page.goto(`${base}/no-such-page`);
-    await page.getByRole('heading', { name: 'Nothing on this shelf' }).waitFor();
-    await screenshot(page, 'not-found', { width: 1280, height: 800, fullPage: false });
-  });
+  it('answers bench staff with a 403 page for changes and a not-found page for drafts and unknown pages', () =>
+    withPage('bench', async (page) => {
+      await page.goto(`${base}/changes`);
+      await page.getByRole('heading', { name: 'Not for your role' }).waitFor();
+      await screenshot(page, 'forbidden', { width: 1280, height: 800, fullPage: false });
+      await page.goto(`${base}/formulas/spelt-porridge-loaf`);
+      await page.getByRole('heading', { name: /Nothing on this shelf|Not for your role/ }).waitFor();
+      await page.goto(`${base}/no-such-page`);
+      await page.getByRole('heading', { name: 'Nothing on this shelf' }).waitFor();
+      await screenshot(page, 'not-found', { width: 1280, height: 800, fullPage: false });
+    }));
 
-  it('shows who is signed in and signs out', async () => {
-    await page.goto(`${base}/account`);
-    expect(await page.getByTestId('account-role').getAttribute('data-role')).toBe('bench');
-    expect(await page.getByTestId('account-email').textContent()).toBe(emailOf('bench'));
-    await screenshot(page, 'account', { width: 1280, height: 800, fullPage: false });
-    await signOut(page, base);
-    await page.goto(`${base}/formulas`);
-    await page.waitForURL(/\/sign-in/);
-  });
+  it('shows who is signed in and signs out', () =>
+    // Signs in on the page rather than from the saved sign-in: signing out ends that session.
+    withPage(null, async (page) => {
+      await signInOnPage(page, base, emailOf('bench'));
+      await page.goto(`${base}/account`);
+      expect(await page.getByTestId('account-role').getAttribute('data-role')).toBe('bench');
+      expect(await page.getByTestId('account-email').textContent()).toBe(emailOf('bench'));
+      await screenshot(page, 'account', { width: 1280, height: 800, fullPage: false });
+      await signOut(page, base);
+      await page.goto(`${base}/formulas`);
+      await page.waitForURL(/\/sign-in/);
+    }));
 
-  it('shows a reviewer drafts, a status filter and the changes, still without costs', async () => {
-    await signIn(page, base, 'reviewer');
-    await page.locator('[data-formula]').first().waitFor();
-    const ids = await page.locator('[data-formula]').evaluateAll((els) => els.map((e) => e.getAttribute('data-formula')));
-    expect(ids).toContain('spelt-porridge-loaf');
-    await page.getByLabel('Status').selectOption('draft');
-    await page.waitForURL(/status=draft/);
-    await page.waitForFunction(() => [...document.querySelectorAll('[data-formula]')].every((e) => e.getAttribute('data-formula') === 'spelt-porridge-loaf'));
-    await screenshot(page, 'formulas-reviewer-drafts', { width: 1280, height: 800, fullPage: false });
+  it('shows a reviewer drafts, a status filter and the changes, still without costs', () =>
+    withPage('reviewer', async (page) => {
+      await page.goto(`${base}/formulas`);
+      await page.locator('[data-formula]').first().waitFor();
+      const ids = await page.locator('[data-formula]').evaluateAll((els) => els.map((e) => e.getAttribute('data-formula')));
+      expect(ids).toContain('spelt-porridge-loaf');
+      await page.getByLabel('Status').selectOption('draft');
+      await page.waitForURL(/status=draft/);
+      await page.waitForFunction(() => [...document.querySelectorAll('[data-formula]')].every((e) => e.getAttribute('data-formula') === 'spelt-porridge-loaf'));
+      await screenshot(page, 'formulas-reviewer-drafts', { width: 1280, height: 800, fullPage: false });
 
-    await page.goto(`${base}/formulas/spelt-porridge-loaf`);
-    await page.getByRole('heading', { name: /spelt/i, level: 1 }).waitFor();
-    expect(await page.getByRole('heading', { name: 'Ingredient cost' }).count()).toBe(0);
-    expect(await page.getByRole('link', { name: 'Changes' }).count()).toBeGreaterThan(0);
-    await screenshot(page, 'formula-draft-reviewer', { width: 1280, height: 800 });
-  });
+      await page.goto(`${base}/formulas/spelt-porridge-loaf`);
+      await page.getByRole('heading', { name: /spelt/i, level: 1 }).waitFor();
+      expect(await page.getByRole('heading', { name: 'Ingredient cost' }).count()).toBe(0);
+      expect(await page.getByRole('link', { name: 'Changes' }).count()).toBeGreaterThan(0);
+      await screenshot(page, 'formula-draft-reviewer', { width: 1280, height: 800 });
+    }));
 
-  it('lists changes and compares two revisions side by side in baker\'s terms', async () => {
-    await page.goto(`${base}/changes`);
-    const row = page.locator('[data-change="tidewater-baguette@2"]');
-    await row.waitFor();
-    await screenshot(page, 'changes', { width: 1280, height: 800 });
-    await row.click();
-    await page.waitForURL(/\/changes\/tidewater-baguette\?from=1&to=2/);
-    const diff = page.getByTestId('revision-diff');
-    await diff.waitFor();
-    const text = (await diff.textContent()) ?? '';
-    expect(text).toMatch(/water/i);
-    await screenshot(page, 'changes-diff-tablet-light', { width: 1280, height: 800 });
-    await screenshot(page, 'changes-diff-portrait-dark', { width: 800, height: 1280, scheme: 'dark' });
-    await signOut(page, base);
-  });
+  it('lists changes and compares two revisions side by side in baker\'s terms', () =>
+    withPage('reviewer', async (page) => {
+      await page.goto(`${base}/changes`);
+      const row = page.locator('[data-change="tidewater-baguette@2"]');
+      await row.waitFor();
+      await screenshot(page, 'changes', { width: 1280, height: 800 });
+      await row.click();
+      await page.waitForURL(/\/changes\/tidewater-baguette\?from=1&to=2/);
+      const diff = page.getByTestId('revision-diff');
+      await diff.waitFor();
+      const text = (await diff.textContent()) ?? '';
+      expect(text).toMatch(/water/i);
+      await screenshot(page, 'changes-diff-tablet-light', { width: 1280, height: 800 });
+      await screenshot(page, 'changes-diff-portrait-dark', { width: 800, height: 1280, scheme: 'dark' });
+    }));
 
-  it('shows the cost per piece to the technical baker, as shared computeCost works it out', async () => {
-    await signIn(page, base, 'author');
-    await page.goto(`${base}/formulas/harbour-ciabatta?pieces=60`);
-    await page.getByRole('heading', { name: 'Ingredient cost' }).waitFor();
-    const formula = readFormula('harbour-ciabatta');
-    const cost = computeCost(scaleFormula(formula, catalog, { by: 'pieces', pieces: 60 }), catalog);
-    expect(await page.getByTestId('cost-per-piece').textContent()).toBe(formatMoney(cost.perPiece!, ''));
-    await screenshot(page, 'formula-author-cost', { width: 1280, height: 800 });
-  });
+  it('shows the cost per piece to the technical baker', () =>
+    withPage('author', async (page) => {
+      await page.goto(`${base}/formulas/harbour-ciabatta?pieces=60`);
+      await page.getByRole('heading', { name: 'Ingredient cost' }).waitFor();
+      expect(await page.getByTestId('cost-per-piece').textContent()).toBe(CIABATTA.costPerPiece);
+      await screenshot(page, 'formula-author-cost', { width: 1280, height: 800 });
+    }));
 
-  it('opens every demo formula and bake day without a failing panel', async () => {
-    const ids = readdirSync(resolve('formulas'))
-      .filter((f) => f.endsWith('.yaml') && f !== 'ingredients.yaml')
-      .map((f) => f.replace(/\.yaml$/, ''));
-    const dates = readdirSync(resolve('formulas/plans')).map((f) => f.replace(/\.yaml$/, ''));
-    const broken: string[] = [];
-    for (const path of [...ids.map((id) => `/formulas/${id}`), ...dates.map((d) => `/plans/${d}`)]) {
-      await page.goto(`${base}${path}`);
-      await page.locator('[data-testid="overall"], [data-testid="timeline"]').first().waitFor();
-      await page.getByRole('heading', { name: 'Take care' }).waitFor();
-      const text = (await page.locator('main').textContent()) ?? '';
-      if (/could not be shown|Something went wrong|Cannot scale/.test(text)) broken.push(path);
-    }
-    expect(broken).toEqual([]);
-    await signOut(page, base);
-  });
+  it('opens every demo formula and bake day without a failing panel', () =>
+    withPage('author', async (page) => {
+      const ids = readdirSync(resolve('formulas'))
+        .filter((f) => f.endsWith('.yaml') && f !== 'ingredients.yaml')
+        .map((f) => f.replace(/\.yaml$/, ''));
+      const dates = readdirSync(resolve('formulas/plans')).map((f) => f.replace(/\.yaml$/, ''));
+      const broken: string[] = [];
+      for (const path of [...ids.map((id) => `/formulas/${id}`), ...dates.map((d) => `/plans/${d}`)]) {
+        await page.goto(`${base}${path}`);
+        await page.locator('[data-testid="overall"], [data-testid="timeline"]').first().waitFor();
+        await page.getByRole('heading', { name: 'Take care' }).waitFor();
+        const text = (await page.locator('main').textContent()) ?? '';
+        if (/could not be shown|Something went wrong|Cannot scale/.test(text)) broken.push(path);
+      }
+      expect(broken).toEqual([]);
+    }));
 
-  it('sets a new password from the e-mailed link, then signs in with it', async () => {
-    await page.context().clearCookies();
-    await page.goto(`${base}/sign-in`);
-    await page.getByRole('link', { name: 'Forgot the password?' }).click();
-    await page.waitForURL(/\/forgot-password$/);
-    await page.getByLabel('E-mail').fill(emailOf('admin'));
-    await page.getByRole('button', { name: 'Send the link' }).click();
-    await page.getByRole('status').waitFor();
-    await screenshot(page, 'forgot-password', { width: 1280, height: 800, fullPage: false });
-    await appInternals(server.app).idle();
-    const mail = server.outbox.find((m) => m.to === emailOf('admin'));
-    const link = /\/reset-password\?token=\S+/.exec(mail?.text ?? '')?.[0];
-    expect(link).toBeDefined();
-    await page.goto(`${base}${link}`);
-    await page.getByLabel('New password').fill('flour and water 2026');
-    await page.getByLabel('The same again').fill('flour and water 2026');
-    await screenshot(page, 'reset-password', { width: 800, height: 1280, scheme: 'dark', fullPage: false });
-    await page.getByRole('button', { name: 'Set the new password' }).click();
-    await page.waitForURL(/\/sign-in\?reset=done/);
-    await page.getByLabel('E-mail').fill(emailOf('admin'));
-    await page.getByLabel('Password').fill('flour and water 2026');
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(/\/formulas$/);
-    await signOut(page, base);
-  });
-
-  it('raised no error in the page', () => {
-    expect(pageErrors).toEqual([]);
-  });
+  it('sets a new password from the e-mailed link, then signs in with it', () =>
+    withPage(null, async (page) => {
+      await page.goto(`${base}/sign-in`);
+      await page.getByRole('link', { name: 'Forgot the password?' }).click();
+      await page.waitForURL(/\/forgot-password$/);
+      await page.getByLabel('E-mail').fill(resetEmail);
+      await page.getByRole('button', { name: 'Send the link' }).click();
+      await page.getByRole('status').waitFor();
+      await screenshot(page, 'forgot-password', { width: 1280, height: 800, fullPage: false });
+      await appInternals(server.app).idle();
+      const mail = server.outbox.find((m) => m.to === resetEmail);
+      const link = /\/reset-password\?token=\S+/.exec(mail?.text ?? '')?.[0];
+      expect(link).toBeDefined();
+      await page.goto(`${base}${link}`);
+      await page.getByLabel('New password').fill('flour and water 2026');
+      await page.getByLabel('The same again').fill('flour and water 2026');
+      await screenshot(page, 'reset-password', { width: 800, height: 1280, scheme: 'dark', fullPage: false });
+      await page.getByRole('button', { name: 'Set the new password' }).click();
+      await page.waitForURL(/\/sign-in\?reset=done/);
+      await page.getByLabel('E-mail').fill(resetEmail);
+      await page.getByLabel('Password').fill('flour and water 2026');
+      await page.getByRole('button', { name: 'Sign in' }).click();
+      await page.waitForURL(/\/formulas$/);
+    }));
 });

@@ -1,44 +1,28 @@
 // Headless Chromium from Debian, driven by playwright-core (which cannot download a browser here).
 import { execFileSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, mkdirSync } from 'node:fs';
 import { join } from 'node:path';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { chromium, type Browser, type BrowserContextOptions, type Page } from 'playwright-core';
 import { CHROMIUM, CHROMIUM_FLAGS as FLAGS } from '../../../bench/lib/chromium.mjs';
 
 export { CHROMIUM };
+export type { Browser };
 export const SCREENSHOTS = 'test-results/screenshots';
 
 export function hasChromium(): boolean {
   return existsSync(CHROMIUM);
 }
 
-export interface Browser {
-  context: BrowserContext;
-  page: Page;
-  close(): Promise<void>;
-}
+/** What every test's browser context starts with: a bench tablet in landscape, light, British English. */
+export const CONTEXT_OPTIONS = {
+  viewport: { width: 1280, height: 800 },
+  colorScheme: 'light',
+  locale: 'en-GB',
+} as const satisfies BrowserContextOptions;
 
-/** A fresh profile each time: no cookies or cache carried between runs. */
-export async function launchBrowser(viewport = { width: 1280, height: 800 }): Promise<Browser> {
-  const profile = mkdtempSync(join(tmpdir(), 'panform-e2e-'));
-  const context = await chromium.launchPersistentContext(profile, {
-    executablePath: CHROMIUM,
-    headless: true,
-    args: FLAGS,
-    viewport,
-    colorScheme: 'light',
-    locale: 'en-GB',
-  });
-  const page = context.pages()[0] ?? (await context.newPage());
-  return {
-    context,
-    page,
-    async close() {
-      await context.close();
-      rmSync(profile, { recursive: true, force: true });
-    },
-  };
+/** One headless Chromium for a test file; each test opens its own context in it (no shared cookies or cache). */
+export async function launchBrowser(): Promise<Browser> {
+  return chromium.launch({ executablePath: CHROMIUM, headless: true, args: FLAGS });
 }
 
 export interface ShotOptions {

@@ -19,13 +19,22 @@ export function FormulaFilters({
   const [text, setText] = useState(value.q ?? '');
   const latest = useRef(value);
   latest.current = value;
+  // The last search this box put into the URL. When it comes back, the baker may have typed on
+  // meanwhile (a slow tablet), so it must not overwrite the box.
+  const sent = useRef<string | null>(null);
 
   // The URL may change under us (back button): follow it.
-  useEffect(() => setText(value.q ?? ''), [value.q]);
+  useEffect(() => {
+    const q = value.q ?? '';
+    if (q !== sent.current) setText(q);
+  }, [value.q]);
 
   useEffect(() => {
     if ((latest.current.q ?? '') === text) return;
-    const timer = setTimeout(() => onChange({ ...latest.current, q: text }), 180);
+    const timer = setTimeout(() => {
+      sent.current = text;
+      onChange({ ...latest.current, q: text });
+    }, 180);
     return () => clearTimeout(timer);
   }, [text, onChange]);
 

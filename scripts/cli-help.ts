@@ -4,16 +4,17 @@
 import type { Command } from 'commander';
 import { COMMANDS } from '../cli/command-table.ts';
 import { buildProgram } from '../cli/program.ts';
+import { fitText, reflowParagraphs } from '../cli/print/width.ts';
 
-/** Help is laid out for an 100-column terminal, whatever the terminal running this is. */
-const HELP_WIDTH = 100;
+/** Help as `panform <command> --help` prints it into a pipe (80 columns), whatever terminal runs this. */
+const HELP_WIDTH = 80;
 
 function helpOf(cmd: Command): string {
   let out = '';
   cmd.configureHelp({ helpWidth: HELP_WIDTH });
   cmd.configureOutput({ writeOut: (s) => (out += s), writeErr: (s) => (out += s) });
   cmd.outputHelp();
-  return out.trimEnd();
+  return fitText(reflowParagraphs(out), HELP_WIDTH).trimEnd();
 }
 
 export interface CommandHelp {

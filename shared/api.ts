@@ -1,4 +1,5 @@
 // The JSON the server sends and the viewer reads: one contract for both shells. Types only.
+import type { ProductLabel } from './product-label.ts';
 import type { Catalog, Formula, Plan } from './model.ts';
 import type { Permission, Role } from './permissions.ts';
 import type { ScaleResult } from './scale.ts';
@@ -71,6 +72,8 @@ export interface FormulaDetail {
   allergens: AllergenSummary;
   /** null unless the role has read:cost. */
   cost: CostSummary | null;
+  /** Ingredient statement and nutrition, EU and US; null unless the role has read:label. */
+  label: ProductLabel | null;
   /** The usual cautions for the work (shared/cautions.ts), each with its topic. */
   cautions: Caution[];
   revision: number;

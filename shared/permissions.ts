@@ -11,14 +11,15 @@ export const PERMISSIONS = [
   'read:plan', // production plans and batch sheets
   'read:catalog', // the ingredient catalog (without prices)
   'read:cost', // prices, costs per piece
+  'read:label', // ingredient statements and nutrition declarations
   'manage:users', // accounts
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
 
 const GRANTS: Record<Role, readonly Permission[]> = {
   bench: ['read:formula:active', 'read:plan', 'read:catalog'],
-  reviewer: ['read:formula:active', 'read:formula:draft', 'read:history', 'read:plan', 'read:catalog'],
-  author: ['read:formula:active', 'read:formula:draft', 'read:history', 'read:plan', 'read:catalog', 'read:cost'],
+  reviewer: ['read:formula:active', 'read:formula:draft', 'read:history', 'read:plan', 'read:catalog', 'read:label'],
+  author: ['read:formula:active', 'read:formula:draft', 'read:history', 'read:plan', 'read:catalog', 'read:cost', 'read:label'],
   admin: [...PERMISSIONS],
 };
 

@@ -12,6 +12,7 @@ import { computeCost } from '#shared/cost';
 import { diffFormulas } from '#shared/diff';
 import { normalizeFormula, type Catalog, type CatalogItem, type Formula } from '#shared/model';
 import { canSeeFormulaStatus, roleHasPermission, type Role } from '#shared/permissions';
+import { productLabel } from '#shared/product-label';
 import { scaleFormula, ScaleError, type ScaleTarget } from '#shared/scale';
 import type { FormulaFile } from '#shared/schema/shapes';
 import { FORMULA_STATUSES } from '#shared/schema/vocabulary';
@@ -153,6 +154,7 @@ export function formulaDetail(entry: FormulaEntry, catalog: Catalog, role: Role,
     reference: pickFigures(ref),
     allergens,
     cost: roleHasPermission(role, 'read:cost') ? computeCost(scaled, catalog) : null,
+    label: roleHasPermission(role, 'read:label') ? productLabel(formula, catalog) : null,
     cautions,
     revision: entry.revision,
     updatedAt: entry.updatedAt,
@@ -214,7 +216,8 @@ export async function formulaDetailAnswer(
   const snapshot = await ctx.data.snapshot();
   const entry = visibleFormula(snapshot, id, role);
   const target = targetFor(usable(entry));
-  const key = `detail:${entry.id}:${roleHasPermission(role, 'read:cost') ? 'cost' : 'plain'}:${JSON.stringify(target)}`;
+  const sees = `${roleHasPermission(role, 'read:cost') ? 'cost' : 'plain'}-${roleHasPermission(role, 'read:label') ? 'label' : 'nolabel'}`;
+  const key = `detail:${entry.id}:${sees}:${JSON.stringify(target)}`;
   let cached = snapshot.memo.get(key) as JsonAnswer | undefined;
   if (!cached) {
     const body = Buffer.from(JSON.stringify(formulaDetail(entry, snapshot.catalog, role, target)));

@@ -14,5 +14,6 @@ export const permissionWord: Record<Permission, string> = {
   'read:plan': 'Bake days and batch sheets',
   'read:catalog': 'The ingredient list',
   'read:cost': 'Ingredient prices and cost per piece',
+  'read:label': 'Ingredient statements and nutrition',
   'manage:users': 'Accounts',
 };

@@ -69,6 +69,28 @@ describe('panform label', () => {
     expect(data.allergens.us.map((g: { group: string }) => g.group)).toEqual(['milk', 'eggs', 'wheat']);
   });
 
+  it('adds the nutrition declaration with --nutrition --json: per100g, perPiece and rounded with exactly the named keys', async () => {
+    const demo = fileURLToPath(new URL('../../formulas/tidewater-milk-buns.yaml', import.meta.url));
+    const r = await runPanform('label', demo, '--nutrition', '--json');
+    expect(r.code).toBe(0);
+    const n = JSON.parse(r.stdout).nutrition;
+    const keys = ['energyKj', 'energyKcal', 'fat', 'saturates', 'carbohydrate', 'sugars', 'fibre', 'protein', 'salt'];
+    for (const part of ['per100g', 'perPiece', 'rounded']) expect(Object.keys(n[part]), part).toEqual(keys);
+    // EU guidance: energy in whole kJ and kcal
+    expect(Number.isInteger(n.rounded.energyKj) && Number.isInteger(n.rounded.energyKcal)).toBe(true);
+    const text = await runPanform('label', demo, '--nutrition', '--rules', 'us');
+    expect(text.stdout).toMatch(/Nutrition Facts +per serving: 1 piece \(75 g\)/);
+  });
+
+  it('prints the statement but no nutrition, naming what is missing, and exits 1', async () => {
+    const loaf = fileURLToPath(new URL('../../formulas/malted-grain-loaf.yaml', import.meta.url));
+    const r = await runPanform('label', loaf, '--nutrition');
+    expect(r.code).toBe(1);
+    expect(r.stdout).toContain('Ingredients:');
+    expect(r.stdout).not.toContain('Nutrition declaration');
+    expect(r.stderr).toMatch(/no nutrients for "malted grain blend"/);
+  });
+
   it('prints no statement and exits 1 when an ingredient is not in the catalog (its allergens are unknown)', async () => {
     const r = await runPanform('label', fixture('sea-lettuce-roll'));
     expect(r.code).toBe(1);

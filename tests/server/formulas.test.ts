@@ -190,6 +190,23 @@ describe('GET /api/formulas/:id', () => {
     expect(d.scaled.loss).toBe(0);
   });
 
+  it('gives author, reviewer and admin the label (statement and nutrition, EU and US), and bench none', async () => {
+    for (const role of ['author', 'reviewer', 'admin']) {
+      const d = await get<FormulaDetail>('/api/formulas/tidewater-milk-buns', role);
+      expect(d.label?.eu.statement?.text, role).toContain('whole MILK (25 %)');
+      expect(d.label?.eu.nutrition?.ok, role).toBe(true);
+      expect(d.label?.us.nutrition?.ok && d.label.us.nutrition.declaration.serving?.text, role).toBe('1 piece (75 g)');
+    }
+    expect((await get<FormulaDetail>('/api/formulas/tidewater-milk-buns', 'bench')).label).toBeNull();
+  });
+
+  it('gives the same nutrition as the shared arithmetic and the CLI use (one rule, shared/nutrition.ts)', async () => {
+    const { nutritionDeclaration } = await import('#shared/nutrition');
+    const d = await get<FormulaDetail>('/api/formulas/saltmere-seeded-rye', 'reviewer');
+    const direct = nutritionDeclaration(d.formula, d.catalog, { rules: 'eu' });
+    expect(d.label?.eu.nutrition).toEqual(direct);
+  });
+
   it('lists the allergens with the caution to check local labelling rules', async () => {
     const d = await get<FormulaDetail>('/api/formulas/tidewater-milk-buns', 'bench');
     expect(d.allergens.codes).toEqual(expect.arrayContaining(['wheat', 'milk']));

@@ -12,6 +12,7 @@ import { AllergensPanel } from '../../features/formulas/components/allergens-pan
 import { Cautions, cautionsWithIce } from '../../features/formulas/components/cautions.tsx';
 import { CostPanel } from '../../features/formulas/components/cost-panel.tsx';
 import { BuildTable, DerivedFigures, FinalDoughTable, OverallTable } from '../../features/formulas/components/formula-tables.tsx';
+import { LabelPanel } from '../../features/formulas/components/label-panel.tsx';
 import { ProcessSteps } from '../../features/formulas/components/process-steps.tsx';
 import { ScaleControl } from '../../features/formulas/components/scale-control.tsx';
 import { WaterTemperatureHelper } from '../../features/formulas/components/water-temperature.tsx';
@@ -157,6 +158,13 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
                 <Cautions items={cautionsWithIce(detail.cautions, ice)} />
               </Panel>
             </div>
+          )}
+          {restReady && detail.label && (
+            <PanelBoundary title="Label" resetKeys={[formula.id]}>
+              <Panel title="Label: ingredients and nutrition" id="label" className="order-9">
+                <LabelPanel label={detail.label} />
+              </Panel>
+            </PanelBoundary>
           )}
         </div>
       </div>

@@ -18,6 +18,7 @@ import { DataCache } from './routes/data.ts';
 import { formulasRouter } from './routes/formulas.ts';
 import { plansRouter } from './routes/plans.ts';
 import { sessionRouter } from './routes/session.ts';
+import { usersRouter } from './routes/users.ts';
 import { sendMail as sendMailDefault } from './mail.ts';
 import { MailOutbox } from './mail-outbox.ts';
 
@@ -173,6 +174,7 @@ export function createApp(opts: AppOptions): Express {
   api.use(formulasRouter(context));
   api.use(plansRouter(context));
   api.use(sessionRouter(context));
+  api.use(usersRouter(context));
 
   app.use(
     '/api',

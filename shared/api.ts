@@ -30,6 +30,37 @@ export interface Me {
   permissions: Permission[];
 }
 
+/** An account as admins see it (GET /api/users). */
+export interface AccountSummary extends UserInfo {
+  createdAt: string;
+  passwordChangedAt: string;
+}
+
+export interface AccountListResponse {
+  users: AccountSummary[];
+}
+
+/** POST /api/users's body; the person gets an e-mail with a link to set a password. */
+export interface NewAccount {
+  email: string;
+  name: string;
+  role: Role;
+}
+
+/** One change to an account: who did it, when, what. */
+export interface AuditEntry {
+  id: number;
+  at: string;
+  actor: string;
+  action: 'account.add' | 'account.role' | 'account.remove' | 'account.reset-link' | 'account.password' | string;
+  target: string;
+  detail: string;
+}
+
+export interface AuditListResponse {
+  entries: AuditEntry[];
+}
+
 /** Figures of a formula's reference batch (or of a scaled batch). */
 export interface FormulaFigures {
   totalPercent: number;

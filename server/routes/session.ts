@@ -1,11 +1,11 @@
 // Signing in and out, who am I, and password reset by e-mail link.
-import { createHash, randomBytes } from 'node:crypto';
-import { and, eq, gt, isNull, lt } from 'drizzle-orm';
+import { and, eq, gt, isNull } from 'drizzle-orm';
 import { Router, type Request, type Response } from 'express';
 import type { Me } from '#shared/api';
 import { permissionsOf } from '#shared/permissions';
 import { requireUser } from '../auth/guards.ts';
 import { checkNewPassword, MAX_PASSWORD_LENGTH, verifyPassword } from '../auth/password.ts';
+import { sendPasswordLink, sha256 } from '../auth/password-links.ts';
 import { SESSION_COOKIE } from '../auth/sessions.ts';
 import { findUserByEmail, normalizeEmail, setPassword, toUserInfo } from '../auth/users.ts';
 import type { ServerContext } from '../context.ts';
@@ -13,15 +13,10 @@ import { passwordResetsTable } from '../db/schema.ts';
 import { readStringFields } from '../http/body.ts';
 import { HttpError, invalid, rateLimited } from '../http/errors.ts';
 
-/** How long a reset link works. */
-export const RESET_TTL_MS = 60 * 60 * 1000;
-/** The viewer's page that takes the token from the e-mail's link. */
-export const RESET_PAGE = '/reset-password';
+export { RESET_PAGE, RESET_TTL_MS } from '../auth/password-links.ts';
 
 /** GET /api/me's answer (the server's first render of a page uses it too). */
 export const me = (user: Me['user']): Me => ({ user, permissions: permissionsOf(user.role) });
-
-const sha256 = (s: string) => createHash('sha256').update(s).digest('hex');
 
 function clientAddress(req: Request): string {
   return req.ip ?? req.socket.remoteAddress ?? 'unknown';
@@ -88,26 +83,7 @@ export function sessionRouter(ctx: ServerContext): Router {
       if (!user) return;
       // A few e-mails per account and hour at most, silently: the answer must not differ.
       if (!(await ctx.limiters.reset.mayMail(email))) return;
-      const token = randomBytes(32).toString('base64url');
-      const expiresAt = new Date(ctx.now() + RESET_TTL_MS);
-      // Links that can no longer work are of no use to keep.
-      await ctx.db.delete(passwordResetsTable).where(lt(passwordResetsTable.expiresAt, new Date(ctx.now() - RESET_TTL_MS)));
-      await ctx.db.insert(passwordResetsTable).values({ tokenHash: sha256(token), userId: user.id, expiresAt });
-      const link = `${ctx.env.publicUrl}${RESET_PAGE}?token=${encodeURIComponent(token)}`;
-      await ctx.sendMail({
-        to: user.email,
-        subject: 'Panform: set a new password',
-        text: [
-          `Hello${user.name ? ` ${user.name}` : ''},`,
-          '',
-          'Someone (we hope you) asked to set a new password for your Panform account.',
-          `Open this link within ${RESET_TTL_MS / 60_000} minutes to choose one; it works once:`,
-          '',
-          link,
-          '',
-          'If you did not ask for this, ignore this message: your password stays as it is.',
-        ].join('\n'),
-      });
+      await sendPasswordLink(ctx, user, 'reset');
     });
     res.status(202).json({ message: 'if that address has an account, a link to set a new password is on its way' });
   });

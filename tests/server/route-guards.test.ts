@@ -23,6 +23,7 @@ interface Case {
 }
 
 const all = (status: number, anonymous = 401): Expect => ({ anonymous, admin: status, author: status, reviewer: status, bench: status });
+const adminOnly = (admin: number): Expect => ({ anonymous: 401, admin, author: 403, reviewer: 403, bench: 403 });
 const staffOnly = (bench: number, others = 200): Expect => ({ anonymous: 401, admin: others, author: others, reviewer: others, bench });
 
 /** Cases for each route under /api ("METHOD /full/path" as the routers write it). */
@@ -64,6 +65,13 @@ const MATRIX: Record<string, Case[]> = {
   ],
   'GET /api/plans/:date/sheet.pdf': [{ label: 'pdf', method: 'GET', path: '/api/plans/2026-12-03/sheet.pdf', expect: all(200) }],
   'GET /api/catalog': [{ label: 'catalog', method: 'GET', path: '/api/catalog', expect: all(200) }],
+  // Accounts: admins only; the cases change nothing (an unknown id, a role that does not exist).
+  'GET /api/users': [{ label: 'accounts', method: 'GET', path: '/api/users', expect: adminOnly(200) }],
+  'POST /api/users': [{ label: 'unknown role', method: 'POST', path: '/api/users', body: { email: 'new@tidewater.example', name: 'New', role: 'baker' }, expect: adminOnly(422) }],
+  'PATCH /api/users/:id': [{ label: 'unknown account', method: 'PATCH', path: '/api/users/999999', body: { role: 'bench' }, expect: adminOnly(404) }],
+  'DELETE /api/users/:id': [{ label: 'unknown account', method: 'DELETE', path: '/api/users/999999', expect: adminOnly(404) }],
+  'POST /api/users/:id/password-reset': [{ label: 'unknown account', method: 'POST', path: '/api/users/999999/password-reset', expect: adminOnly(404) }],
+  'GET /api/audit': [{ label: 'audit', method: 'GET', path: '/api/audit', expect: adminOnly(200) }],
   // The local load channel has its own guard (loopback and the lock file's token), not sessions.
   'POST /api/internal/load/': [{ label: 'load without its token', method: 'POST', path: '/api/internal/load', body: { folder: '/tmp' }, expect: all(401) }],
 };

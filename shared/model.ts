@@ -5,7 +5,7 @@ import type {
   AllergenCode, CatalogFile, FinishUse, FormulaFile, FormulaStatus, IngredientKind, PlanFile, PrefermentKind, StepKind, YeastType,
 } from './schema/shapes.ts';
 import {
-  parseMass, parsePercent, parseRange, parseTemperature, parseTemperatureDelta, type NumberRange, type RangePick,
+  parseMass, parsePercent, parseRange, parseRate, parseTemperature, parseTemperatureDelta, type NumberRange, type RangePick,
 } from './units.ts';
 
 export interface Line {
@@ -49,6 +49,10 @@ export interface Step {
   vessel?: 'deck' | 'tray' | 'pot' | 'tin' | 'stone';
   covered?: number;
   steam?: boolean;
+  /** Bake: pieces that fill one oven slot. */
+  perSlot?: number;
+  /** Divide, preshape, shape: one person's seconds per piece. */
+  secondsPerPiece?: number;
   note?: string;
 }
 
@@ -127,6 +131,27 @@ export interface Mixer {
   minimumGrams?: number;
   /** °C-degrees (a difference). */
   friction: number;
+  /** Minutes to clean it between a dough with an allergen and one without. */
+  cleanDownMinutes?: number;
+}
+
+export interface Oven {
+  name: string;
+  decks: number;
+  slots: number;
+  /** °C per minute; undefined when the plan gives none (the scheduler uses a default). */
+  heatRate?: number;
+  coolRate?: number;
+  steam: boolean;
+  fan: boolean;
+}
+
+export interface Shift {
+  /** The day the shift starts, "YYYY-MM-DD". */
+  date: string;
+  from: string;
+  to: string;
+  people: number;
 }
 
 export interface Order {
@@ -134,7 +159,10 @@ export interface Order {
   pieces: number;
   pieceGrams?: number;
   mixer?: string;
+  oven?: string;
   customer?: string;
+  /** "HH:MM" on the plan's date; undefined: the plan's ready_by. */
+  due?: string;
 }
 
 export interface Plan {
@@ -142,6 +170,9 @@ export interface Plan {
   readyBy: string;
   conditions: { room: number; flour: number; tapWater: number; preferment?: number };
   mixers: Mixer[];
+  /** Undefined when the plan lists none (the scheduler assumes one and says so). */
+  ovens?: Oven[];
+  bench?: Shift[];
   orders: Order[];
   ranges: RangePick;
   notes?: string;
@@ -197,6 +228,8 @@ export function normalizeFormula(f: FormulaFile): Formula {
         vessel: s.vessel,
         covered: s.covered,
         steam: s.steam,
+        perSlot: s.per_slot,
+        secondsPerPiece: s.seconds_per_piece,
         note: s.note,
       };
     }),
@@ -260,13 +293,26 @@ export function normalizePlan(p: PlanFile): Plan {
       capacityGrams: parseMass(m.capacity),
       minimumGrams: m.minimum === undefined ? undefined : parseMass(m.minimum),
       friction: parseTemperatureDelta(m.friction),
+      cleanDownMinutes: m.clean_down,
     })),
+    ovens: p.ovens?.map((o) => ({
+      name: o.name,
+      decks: o.decks,
+      slots: o.slots,
+      heatRate: o.heat === undefined ? undefined : parseRate(o.heat),
+      coolRate: o.cool === undefined ? undefined : parseRate(o.cool),
+      steam: o.steam ?? false,
+      fan: o.fan ?? false,
+    })),
+    bench: p.bench?.map((b) => ({ date: b.date ?? p.date, from: b.from, to: b.to, people: b.people })),
     orders: p.orders.map((o) => ({
       formula: o.formula,
       pieces: o.pieces,
       pieceGrams: o.piece === undefined ? undefined : parseMass(o.piece),
       mixer: o.mixer,
+      oven: o.oven,
       customer: o.customer,
+      due: o.due,
     })),
     ranges: p.ranges ?? 'mid',
     notes: p.notes,

@@ -99,6 +99,14 @@ export function parseTemperatureDelta(text: string | number): number {
   return t.unit === 'C' ? t.value : fahrenheitDeltaToCelsius(t.value);
 }
 
+/** "4 °C/min" → 4; "7.2 °F/min" → 4 (°C per minute). */
+export function parseRate(text: string): number {
+  const m = /^\s*([0-9]+(?:\.[0-9]+)?)\s*°?\s*(C|F)\s*\/\s*min\s*$/i.exec(text);
+  if (!m) throw new QuantityError(`not a rate of temperature change: ${JSON.stringify(text)}`, 'degrees per minute (e.g. "4 °C/min")');
+  const v = Number(m[1]);
+  return m[2].toUpperCase() === 'C' ? v : fahrenheitDeltaToCelsius(v);
+}
+
 /** "2 %" or 2 → 2 (percent, not a fraction). */
 export function parsePercent(text: string | number): number {
   if (typeof text === 'number' && Number.isFinite(text)) return text;

@@ -45,6 +45,16 @@ export function checkPlan(input: PlanCheckInput): Finding[] {
     if (m.friction < 0) out.warning(at('friction'), `mixer ${quote(m.name)} has a negative friction (${m.friction} °C); mixing warms dough, it does not cool it`);
   });
 
+  const ovenNames = new Set<string>();
+  (plan.ovens ?? []).forEach((o, i) => {
+    if (ovenNames.has(o.name)) out.error(pointer('ovens', String(i), 'name'), `oven ${quote(o.name)} is listed twice; give each oven its own name`);
+    ovenNames.add(o.name);
+  });
+  (plan.bench ?? []).forEach((b, i) => {
+    if (!isCalendarDate(b.date)) out.error(pointer('bench', String(i), 'date'), `date ${quote(b.date)} is not a date in the calendar (YYYY-MM-DD)`);
+    if (b.from === b.to) out.error(pointer('bench', String(i), 'to'), `the shift from ${b.from} to ${b.to} has no length; a shift over midnight ends the next day (e.g. from "22:00" to "06:00")`);
+  });
+
   const ids = [...formulas.keys()];
   plan.orders.forEach((o, i) => {
     const at = (k: string) => pointer('orders', String(i), k);
@@ -58,6 +68,11 @@ export function checkPlan(input: PlanCheckInput): Finding[] {
     }
     if (o.mixer !== undefined && !mixerNames.has(o.mixer)) {
       out.error(at('mixer'), `order ${i + 1} names mixer ${quote(o.mixer)}, which is not among this plan's mixers${didYouMean(o.mixer, mixerNames)}`);
+    }
+    if (o.oven !== undefined && plan.ovens && !ovenNames.has(o.oven)) {
+      out.error(at('oven'), `order ${i + 1} names oven ${quote(o.oven)}, which is not among this plan's ovens${didYouMean(o.oven, ovenNames)}`);
+    } else if (o.oven !== undefined && !plan.ovens) {
+      out.error(at('oven'), `order ${i + 1} names oven ${quote(o.oven)}, but the plan lists no ovens; add them under ovens:`);
     }
     if (o.pieceGrams !== undefined && !(o.pieceGrams > 0)) {
       out.error(at('piece'), `order ${i + 1} has a piece weight of ${grams(o.pieceGrams)}; it must be above 0 g`);

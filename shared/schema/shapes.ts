@@ -4,7 +4,7 @@
 import { Type, type Static } from '@sinclair/typebox';
 import {
   ALLERGEN_CODES, BAKE_VESSELS, CLOCK_PATTERN, DATE_PATTERN, FINISH_USES, FORMULA_STATUSES, ID_PATTERN, INGREDIENT_KINDS, MASS_PATTERN,
-  PERCENT_PATTERN, PREFERMENT_KINDS, RANGE_PATTERN, STEP_KINDS, TEMPERATURE_PATTERN, YEAST_TYPES,
+  PERCENT_PATTERN, PREFERMENT_KINDS, RANGE_PATTERN, RATE_PATTERN, STEP_KINDS, TEMPERATURE_PATTERN, YEAST_TYPES,
 } from './vocabulary.ts';
 
 export * from './vocabulary.ts';
@@ -93,6 +93,14 @@ export const Step = Type.Object(
     vessel: Type.Optional(Type.Unsafe<(typeof BAKE_VESSELS)[number]>({ type: 'string', enum: [...BAKE_VESSELS] })),
     covered: Type.Optional(Type.Number({ minimum: 0, description: 'Minutes of the bake under a lid or cover.' })),
     steam: Type.Optional(Type.Boolean()),
+    per_slot: Type.Optional(Type.Number({
+      exclusiveMinimum: 0,
+      description: 'Bake: pieces that fill one oven slot (tray or peel place); below 1 when a piece takes more than one slot.',
+    })),
+    seconds_per_piece: Type.Optional(Type.Number({
+      exclusiveMinimum: 0,
+      description: "Divide, preshape or shape: one person's handling time per piece, in seconds.",
+    })),
     note: Type.Optional(Type.String()),
   },
   { additionalProperties: false },
@@ -205,6 +213,33 @@ export const Mixer = Type.Object(
     capacity: Mass,
     minimum: Type.Optional(Mass),
     friction: Type.String({ pattern: TEMPERATURE_PATTERN, description: 'Temperature rise from mixing, as a difference.' }),
+    clean_down: Type.Optional(Type.Number({
+      minimum: 0,
+      description: 'Minutes to clean the bowl and hook before a dough without an allergen follows one with it.',
+    })),
+  },
+  { additionalProperties: false },
+);
+
+export const Oven = Type.Object(
+  {
+    name: Type.String({ minLength: 1 }),
+    decks: Type.Integer({ minimum: 1, description: 'Independent chambers, each with its own temperature (a rack oven: 1).' }),
+    slots: Type.Integer({ minimum: 1, description: 'Trays or peel places per deck.' }),
+    heat: Type.Optional(Type.String({ pattern: RATE_PATTERN, description: 'How fast a deck heats up, e.g. "4 °C/min".' })),
+    cool: Type.Optional(Type.String({ pattern: RATE_PATTERN, description: 'How fast a deck cools down, e.g. "2 °C/min".' })),
+    steam: Type.Optional(Type.Boolean({ description: 'The oven can steam.' })),
+    fan: Type.Optional(Type.Boolean({ description: 'A fan (convection or rack) oven: trays, tins and pots, no bread on the sole.' })),
+  },
+  { additionalProperties: false },
+);
+
+export const Shift = Type.Object(
+  {
+    from: Type.String({ pattern: CLOCK_PATTERN, description: 'Start, "HH:MM".' }),
+    to: Type.String({ pattern: CLOCK_PATTERN, description: 'End, "HH:MM"; a time not after `from` ends the next day.' }),
+    people: Type.Integer({ minimum: 1, description: 'People on the bench for dividing, preshaping and shaping.' }),
+    date: Type.Optional(Type.String({ pattern: DATE_PATTERN, description: "The day the shift starts; default the plan's date." })),
   },
   { additionalProperties: false },
 );
@@ -215,7 +250,9 @@ export const Order = Type.Object(
     pieces: Type.Integer({ minimum: 1 }),
     piece: Type.Optional(Mass),
     mixer: Type.Optional(Type.String({ minLength: 1 })),
+    oven: Type.Optional(Type.String({ minLength: 1, description: "The oven to bake it in; default any oven that suits the bake." })),
     customer: Type.Optional(Type.String()),
+    due: Type.Optional(Type.String({ pattern: CLOCK_PATTERN, description: "When the last piece must be out of the oven, \"HH:MM\" on the plan's date; default ready_by." })),
   },
   { additionalProperties: false },
 );
@@ -235,6 +272,8 @@ export const PlanFile = Type.Object(
       { additionalProperties: false },
     ),
     mixers: Type.Array(Mixer, { minItems: 1 }),
+    ovens: Type.Optional(Type.Array(Oven, { minItems: 1 })),
+    bench: Type.Optional(Type.Array(Shift, { minItems: 1, description: 'Shifts of people for dividing, preshaping and shaping.' })),
     orders: Type.Array(Order, { minItems: 1 }),
     ranges: Type.Optional(Type.Union([Type.Literal('short'), Type.Literal('mid'), Type.Literal('long')], {
       description: 'Which end of a step range the timeline uses; default mid.',
@@ -249,6 +288,8 @@ export type CatalogFile = Static<typeof CatalogFile>;
 export type CatalogEntry = Static<typeof CatalogEntry>;
 export type PlanFile = Static<typeof PlanFile>;
 export type StepFile = Static<typeof Step>;
+export type OvenFile = Static<typeof Oven>;
+export type ShiftFile = Static<typeof Shift>;
 export type PrefermentFile = Static<typeof Preferment>;
 export type SoakerFile = Static<typeof Soaker>;
 export type FinishFile = Static<typeof Finish>;

@@ -5,6 +5,8 @@ export const MASS_PATTERN = '^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$';
 export const TEMPERATURE_PATTERN = '^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$';
 export const PERCENT_PATTERN = '^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$';
 export const RANGE_PATTERN = '^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$';
+/** A rate of temperature change: "4 °C/min" or "7 °F/min". */
+export const RATE_PATTERN = '^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$';
 export const CLOCK_PATTERN = '^([01][0-9]|2[0-3]):[0-5][0-9]$';
 export const ID_PATTERN = '^[a-z0-9]+(-[a-z0-9]+)*$';
 export const DATE_PATTERN = '^[0-9]{4}-[0-9]{2}-[0-9]{2}$';

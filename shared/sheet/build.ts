@@ -24,7 +24,7 @@ import { AllergenError } from '../allergens.ts';
 import { cautionFacts, cautionsFor, type CautionSet } from '../cautions.ts';
 import { computeIce, computeWaterTemperature, HOT_WATER_CELSIUS, WARM_WATER_ADVICE, WARM_WATER_CELSIUS } from '../temperature.ts';
 import { formatTemperature } from '../units.ts';
-import { processChain, scheduleJobs, type Chain } from './schedule.ts';
+import { bookBuilds, finishBookings, scheduleNight } from '../schedule/night.ts';
 import { clockMinutes, localDateTime, minuteOf } from './time.ts';
 import {
   SheetError,
@@ -52,9 +52,6 @@ interface PlannedMix {
   pieces: number;
   pieceGrams: number;
   scaled: ScaleResult;
-  chain: Chain;
-  /** Chain start, minutes from the plan date's midnight. */
-  start: number;
   mixStart: number;
   mixEnd: number;
 }
@@ -67,7 +64,6 @@ export function buildSheet(input: SheetInput): Sheet {
   const readyBy = clockMinutes(plan.readyBy);
 
   // ---- orders → equal mixes -------------------------------------------------------------
-  const chains = new Map<string, Chain>();
   const warnedFolds = new Set<string>();
   const planned: PlannedMix[] = [];
   plan.orders.forEach((o, order) => {
@@ -93,11 +89,6 @@ export function buildSheet(input: SheetInput): Sheet {
       );
     }
     const perMix = scaleOrThrow(formula, catalog, { by: 'mix', grams: dough }, order);
-    let chain = chains.get(formula.id);
-    if (!chain) {
-      chain = processChain(formula, plan.ranges, warnings);
-      chains.set(formula.id, chain);
-    }
     const base = Math.floor(o.pieces / of);
     const extra = o.pieces % of;
     if (extra > 0 && (base + 1) * pieceMixed > dough * (1 + EPSILON)) {
@@ -108,45 +99,37 @@ export function buildSheet(input: SheetInput): Sheet {
     for (let i = 0; i < of; i++) {
       planned.push({
         order, o, formula, mixer, mixNumber: i + 1, of, pieces: base + (i < extra ? 1 : 0), pieceGrams,
-        scaled: perMix, chain, start: 0, mixStart: 0, mixEnd: 0,
+        scaled: perMix, mixStart: 0, mixEnd: 0,
       });
     }
   });
 
-  // ---- timeline -----------------------------------------------------------------------------
-  const placed = scheduleJobs(planned.map((p) => ({ chain: p.chain, mixer: p.mixer.name })), readyBy);
-  const timeline: TimelineEntry[] = [];
+  // ---- timeline: the night scheduled on the mixers, the bench and the ovens ------------------
   const ordersOf = new Map<string, number>();
   for (const o of plan.orders) ordersOf.set(o.formula, (ordersOf.get(o.formula) ?? 0) + 1);
+  const allergensOf = new Map<string, AllergenCode[]>();
+  for (const p of planned) if (!allergensOf.has(p.formula.id)) allergensOf.set(p.formula.id, allergenCodes(p.formula, catalog));
+  const night = scheduleNight(
+    plan,
+    planned.map((p) => ({
+      order: p.order, formula: p.formula, mixer: p.mixer, mixNumber: p.mixNumber, of: p.of, pieces: p.pieces, pieceGrams: p.pieceGrams,
+      // A formula ordered more than once gets the order's number, so its rows can be told apart.
+      label: `${p.formula.title}${ordersOf.get(p.formula.id)! > 1 ? ` (order ${p.order + 1})` : ''} ${p.mixNumber}/${p.of}`,
+      allergens: allergensOf.get(p.formula.id)!,
+    })),
+  );
+  const timeline: TimelineEntry[] = [];
   planned.forEach((p, i) => {
-    p.start = placed[i].start;
-    const firstMix = p.chain.steps.find((s) => s.step.step === 'mix')!;
-    p.mixStart = p.start + firstMix.offset;
-    p.mixEnd = p.mixStart + firstMix.minutes;
-    // A formula ordered more than once gets the order's number, so its rows can be told apart.
-    const label = `${p.formula.title}${ordersOf.get(p.formula.id)! > 1 ? ` (order ${p.order + 1})` : ''} ${p.mixNumber}/${p.of}`;
-    for (const s of p.chain.steps) {
-      const from = p.start + s.offset;
-      const to = from + s.minutes;
-      const entry: TimelineEntry = {
-        formula: p.formula.id, label, step: s.step.step, order: p.order, mixNumber: p.mixNumber,
-        start: at(from), end: at(to), startMinute: from, endMinute: to, minutes: s.minutes,
-      };
-      if (s.step.step === 'mix') entry.resource = `mixer:${p.mixer.name}`;
-      if (s.step.step === 'bake') entry.resource = 'oven';
-      if (s.step.temperature !== undefined) entry.temperature = s.step.temperature;
-      if (s.step.step === 'retard') entry.cold = true;
-      if (s.step.steam || (s.step.step === 'bake' && /steam/i.test(s.step.note ?? ''))) entry.steam = true;
-      if (s.step.note) entry.note = s.step.note;
-      if (s.step.folds) {
-        const { count, every } = s.step.folds;
-        entry.folds = Array.from({ length: count }, (_, k) => at(from + every * (k + 1)));
-        if (count * every > s.minutes + EPSILON && p.mixNumber === 1 && !warnedFolds.has(p.formula.id)) {
-          warnedFolds.add(p.formula.id);
-          warnings.push(`${p.formula.id}: ${count} folds every ${every} min run past the end of its ${s.step.step} (${s.minutes} min)`);
-        }
+    const s = night.mixes[i];
+    p.mixStart = s.mixStart;
+    p.mixEnd = s.mixEnd;
+    for (const e of s.entries) {
+      const step = p.formula.process.find((x) => x.step === e.step && x.folds);
+      if (step?.folds && p.mixNumber === 1 && !warnedFolds.has(p.formula.id) && step.folds.count * step.folds.every > e.minutes + EPSILON) {
+        warnedFolds.add(p.formula.id);
+        warnings.push(`${p.formula.id}: ${step.folds.count} folds every ${step.folds.every} min run past the end of its ${e.step} (${e.minutes} min)`);
       }
-      timeline.push(entry);
+      timeline.push(e);
     }
   });
 
@@ -154,6 +137,23 @@ export function buildSheet(input: SheetInput): Sheet {
   const { room, flour: flourT, tapWater } = plan.conditions;
   const preferments = makeBuilds('preferment', planned, catalog, plan.conditions, at, warnings);
   const soakers = makeBuilds('soaker', planned, catalog, plan.conditions, at, warnings);
+  const booked = bookBuilds(
+    night,
+    plan,
+    preferments.map((b) => ({
+      name: b.batches > 1 ? `${b.name} (${b.batch}/${b.batches})` : b.name,
+      formula: b.formula,
+      grams: b.grams,
+      allergens: [...new Set(b.ingredients.flatMap((l) => lookupIngredient(catalog, l.ingredient).allergens))],
+      from: b.mixFrom ? minuteOf(b.mixFrom, date) : minuteOf(b.mixUntil, date) - 12 * 60,
+      until: minuteOf(b.mixUntil, date),
+    })),
+    at,
+  );
+  preferments.forEach((b, i) => {
+    const x = booked[i];
+    b.booked = x ? { mixer: x.mixer, start: at(x.start), end: at(x.end) } : null;
+  });
   for (const b of [...preferments, ...soakers]) {
     const from = b.mixFrom ? minuteOf(b.mixFrom, date) : minuteOf(b.mixUntil, date);
     const to = minuteOf(b.mixUntil, date);
@@ -250,19 +250,32 @@ export function buildSheet(input: SheetInput): Sheet {
     readyBy: at(readyBy),
     conditions: plan.conditions,
     mixers: plan.mixers,
+    ovens: night.ovens,
+    bench: night.bench,
     ranges: plan.ranges,
     ...(plan.notes ? { notes: plan.notes } : {}),
     preferments,
     soakers,
     mixes: mixOrder.map((x) => x.m),
     timeline,
+    bookings: finishBookings(night, at),
+    orders: night.orders,
     totals: pick.lines(),
     formulas: summaries,
     allergens,
     mayContain,
     cautions,
-    warnings,
+    warnings: [...night.warnings, ...warnings],
   };
+}
+
+function allergenCodes(f: Formula, catalog: Catalog): AllergenCode[] {
+  try {
+    return allergenSummary(f, catalog).codes;
+  } catch (e) {
+    if (e instanceof AllergenError) throw new SheetError(`${f.id}: ${e.message}`);
+    throw e;
+  }
 }
 
 function scaleOrThrow(f: Formula, catalog: Catalog, target: Parameters<typeof scaleFormula>[2], order: number): ScaleResult {
@@ -417,6 +430,7 @@ function makeBuilds(
         mixFrom: spec.hours ? at(lastUse - spec.hours.max * 60) : null,
         mixUntil: at(firstUse - (spec.hours ? spec.hours.min * 60 : 0)),
         hot: spec.hot,
+        booked: null,
         ...(spec.note ? { note: spec.note } : {}),
       });
     });

@@ -2,7 +2,7 @@
 // HTML/PDF renderers draw. The JSON keys are a contract (docs/batch-sheet.md); weights are grams,
 // unrounded; temperatures °C; times are local date-times "YYYY-MM-DDTHH:MM" on the plan's clock.
 import type { AllergenCode, IngredientKind, PrefermentKind, StepKind } from '../schema/shapes.ts';
-import type { Catalog, Formula, Plan } from '../model.ts';
+import type { Catalog, Formula, Oven, Plan, Shift } from '../model.ts';
 import type { NumberRange, RangePick } from '../units.ts';
 import type { Caution } from '../cautions.ts';
 
@@ -73,6 +73,8 @@ export interface SheetBuild {
   mixUntil: LocalDateTime;
   /** A scald: made with boiling water. */
   hot: boolean;
+  /** When and on which mixer the build is mixed (pre-ferments); null for soakers or when no mixer takes it. */
+  booked: { mixer: string; start: LocalDateTime; end: LocalDateTime } | null;
   note?: string;
 }
 
@@ -132,8 +134,12 @@ export interface TimelineEntry {
   startMinute: number;
   endMinute: number;
   minutes: number;
-  /** "mixer:<name>" or "oven" when the step holds one. */
+  /** "mixer:<name>", "oven:<name>" or "bench" when the step holds one. */
   resource?: string;
+  /** The oven's deck (bakes) or the bench person (divide, preshape, shape), 1-based. */
+  unit?: number;
+  /** Oven slots the load fills (bakes). */
+  slots?: number;
   /** Fold times during this step. */
   folds?: LocalDateTime[];
   /** °C for bakes and cold holds. */
@@ -168,23 +174,54 @@ export interface FormulaSummary {
 
 export type { Caution, CautionTopic } from '../cautions.ts';
 
+/** One use of a resource (README "Batch sheets", JSON). */
+export interface Booking {
+  resource: { kind: 'mixer' | 'oven' | 'bench'; name: string; unit: number | null };
+  /** mix, build, divide, preshape, shape, bake; heat, cool (a deck changing temperature); clean-down (a mixer). */
+  task: string;
+  formula: string | null;
+  /** The mix's label as on the timeline (a build's name for builds); null for heat, cool and clean-down. */
+  mix: string | null;
+  start: LocalDateTime;
+  end: LocalDateTime;
+  /** Oven slots filled (bakes); null elsewhere. */
+  slots: number | null;
+  /** °C of the deck (bakes, heat, cool); null elsewhere. */
+  temperature: number | null;
+}
+
+/** Each order of the plan: when it is due and when its last piece is out of the oven. */
+export interface OrderOutcome {
+  formula: string;
+  pieces: number;
+  due: LocalDateTime;
+  out: LocalDateTime;
+  /** Minutes late; 0 when on time. */
+  late: number;
+}
+
 export interface Sheet {
   date: string;
   readyBy: LocalDateTime;
   conditions: Plan['conditions'];
   mixers: Plan['mixers'];
+  /** The ovens and bench shifts scheduled on, defaults filled in. */
+  ovens: Oven[];
+  bench: Shift[];
   ranges: RangePick;
   notes?: string;
   preferments: SheetBuild[];
   soakers: SheetBuild[];
   mixes: SheetMix[];
   timeline: TimelineEntry[];
+  bookings: Booking[];
+  orders: OrderOutcome[];
   totals: PickLine[];
   formulas: FormulaSummary[];
   allergens: AllergenCode[];
   mayContain: AllergenCode[];
   cautions: Caution[];
-  /** Things the baker should look at that do not stop the sheet. */
+  /** Things the baker should look at that do not stop the sheet (late orders and their reasons first). */
   warnings: string[];
 }
 

@@ -1,0 +1,280 @@
+// The night's schedule: every mix's operations on the mixers, the bench people and the oven decks,
+// each order out by its due time where that can be done. Pure; no I/O.
+//
+// Method (docs/decisions/2026-12-02-night-schedule.md): a serial schedule-generation scheme for
+// resource-constrained project scheduling (Kolisch, R. 1996, "Serial and parallel
+// resource-constrained project scheduling methods revisited: theory and computation", European
+// Journal of Operational Research 90(2), 320–333), run backward from each due time:
+// - Mixes are taken one at a time by priority: earliest due first, then the longest process.
+// - A mix is placed backward: its oven loads as late as they can end by the due time, then its
+//   shaping, preshaping, dividing and mixing each as late as the waits between them (their
+//   ranges) and the free resources allow. Candidate times are the window's ends, the preferred
+//   waits (the plan's `ranges`) and every 5 minutes between.
+// - Search with chronological backtracking (a depth-first search over those candidates, across
+//   mixes) until every order is on time, within a budget of checks; on a small night it is
+//   exhaustive, so an on-time schedule on the 5-minute grid is found whenever one exists.
+// - When the budget runs out or no on-time schedule exists, a single greedy pass keeps every order
+//   it can on time and places the others at the earliest time they can be out.
+import { Calendar, deckKey, unbook, type Busy, type Conflict } from './calendar.ts';
+import type { Job, Load, Operation, OvenResource, Placement, Problem } from './problem.ts';
+
+export const GRID_MINUTES = 5;
+/** Checks the backtracking search may make before it settles for the greedy pass. */
+const SEARCH_BUDGET = 60_000;
+/** Checks one mix may take in the greedy pass, per attempt. */
+const JOB_BUDGET = 6_000;
+/** How far past its due time a late order is looked for, minutes. */
+const LATE_HORIZON = 48 * 60;
+
+export interface LateJob {
+  job: number;
+  /** Resource that turned away most on-time placements, with when it was busy. */
+  bottleneck: Conflict | null;
+  /** The process is longer than the time from the first shift to the due time. */
+  tooEarly: boolean;
+}
+
+export interface Solution {
+  placements: Placement[];
+  late: LateJob[];
+  calendar: Calendar;
+  /** True when the backtracking search found every order on time. */
+  exact: boolean;
+}
+
+interface Budget {
+  left: number;
+}
+
+type Tally = Map<string, { count: number; conflict: Conflict }>;
+
+export function solve(problem: Problem): Solution {
+  const start = nightStart(problem);
+  const order = [...problem.jobs].sort(
+    (a, b) => a.due - b.due || processLength(b) - processLength(a) || a.id - b.id,
+  );
+
+  // Backtracking search for an on-time night.
+  const calendar = new Calendar(problem);
+  const budget: Budget = { left: SEARCH_BUDGET };
+  const gens: (Generator<Placement> | undefined)[] = [];
+  const chosen: Placement[] = [];
+  let i = 0;
+  while (i >= 0 && i < order.length && budget.left > 0) {
+    gens[i] ??= placeJob(order[i], calendar, start, -Infinity, order[i].due, budget, null);
+    const r = gens[i]!.next();
+    if (r.done) {
+      gens[i] = undefined;
+      i--;
+      continue;
+    }
+    chosen[i] = r.value;
+    i++;
+  }
+  if (i === order.length) {
+    const placements: Placement[] = [];
+    for (const p of chosen) placements[p.job] = p;
+    return { placements, late: [], calendar, exact: true };
+  }
+
+  // Greedy pass: each mix on time when it can be, else as early as it can be out.
+  const greedy = new Calendar(problem);
+  const placements: Placement[] = [];
+  const late: LateJob[] = [];
+  for (const job of order) {
+    const tally: Tally = new Map();
+    const onTime = placeJob(job, greedy, start, -Infinity, job.due, { left: JOB_BUDGET }, tally).next();
+    if (!onTime.done) {
+      placements[job.id] = onTime.value;
+      continue;
+    }
+    greedy.overtime = true;
+    let found: Placement | undefined;
+    for (let by = job.due + GRID_MINUTES; by <= job.due + LATE_HORIZON && !found; by += GRID_MINUTES) {
+      const r = placeJob(job, greedy, start, job.due + 1, by, { left: JOB_BUDGET }, null).next();
+      if (!r.done) found = r.value;
+    }
+    greedy.overtime = false;
+    if (!found) throw new ScheduleError(job.id, `cannot be placed within ${LATE_HORIZON / 60} h of its due time on these resources`);
+    placements[job.id] = found;
+    let bottleneck: Conflict | null = null;
+    let most = 0;
+    for (const t of tally.values()) if (t.count > most) ({ count: most, conflict: bottleneck } = t);
+    late.push({ job: job.id, bottleneck, tooEarly: start + minimumLength(job) > job.due });
+  }
+  return { placements, late, calendar: greedy, exact: false };
+}
+
+/** A mix that cannot be placed at all: the caller turns it into a located message. */
+export class ScheduleError extends Error {
+  constructor(
+    readonly job: number,
+    message: string,
+  ) {
+    super(message);
+    this.name = 'ScheduleError';
+  }
+}
+
+/** The night starts with the first bench shift: no final mix, bench task or bake before it. */
+export function nightStart(problem: Problem): number {
+  return Math.min(...problem.shifts.map((s) => s.from));
+}
+
+function processLength(job: Job): number {
+  return job.operations.reduce((n, op) => n + op.minutes, 0) + job.gaps.reduce((n, g, i) => (i === 0 ? n : n + g.min), 0);
+}
+
+/** The shortest the mix can take from the start of its mix to out, with the whole bake in one load. */
+export function minimumLength(job: Job): number {
+  const last = job.operations[job.operations.length - 1];
+  return processLength(job) + (last.kind === 'bake' ? 0 : job.tail.min);
+}
+
+/** End times to try for an operation in [lo, hi]: the preferred one, the latest, every grid step, the earliest. */
+function* candidates(lo: number, hi: number, preferred: number): Generator<number> {
+  if (lo > hi) return;
+  if (preferred >= lo && preferred <= hi) yield preferred;
+  if (hi !== preferred) yield hi;
+  for (let t = Math.ceil(hi / GRID_MINUTES) * GRID_MINUTES - GRID_MINUTES; t > lo; t -= GRID_MINUTES) if (t !== preferred) yield t;
+  if (lo < hi && lo !== preferred) yield lo;
+}
+
+function note(tally: Tally | null, c: Conflict): void {
+  if (!tally) return;
+  const key = `${c.kind}\u0000${c.name}`;
+  const t = tally.get(key);
+  if (t) {
+    t.count++;
+    // Keep the latest busy stretch: the one nearest the due time.
+    if (c.end > t.conflict.end) t.conflict = c;
+  } else tally.set(key, { count: 1, conflict: c });
+}
+
+/**
+ * Every placement of a job whose out time falls in [outLo, outHi], latest first. While a placement
+ * is yielded its bookings are in the calendar; resuming the generator takes them out again.
+ */
+function* placeJob(
+  job: Job, cal: Calendar, nightStart: number, outLo: number, outHi: number, budget: Budget, tally: Tally | null,
+): Generator<Placement> {
+  const ops = job.operations;
+  const k = ops.length - 1;
+  const times: { start: number; end: number }[] = ops.map(() => ({ start: 0, end: 0 }));
+  const people = new Map<number, number>();
+
+  function* before(i: number, lo: number, hi: number, preferred: number, loads: Load[], out: number): Generator<Placement> {
+    if (i < 0) {
+      yield { job: job.id, operations: times.map((t) => ({ ...t })), loads: loads.map((l) => ({ ...l })), people: new Map(people), out };
+      return;
+    }
+    const op = ops[i];
+    const gap = job.gaps[i];
+    for (const end of candidates(Math.max(lo, nightStart + op.minutes), hi, preferred)) {
+      if (budget.left-- <= 0) return;
+      const start = end - op.minutes;
+      times[i] = { start, end };
+      const next = (): Generator<Placement> => before(i - 1, start - gap.max, start - gap.min, start - gap.preferred, loads, out);
+      if (op.kind === 'mix') {
+        if (op.minutes === 0) {
+          yield* next();
+          return;
+        }
+        const c = cal.mixerConflict(job.mixer, start, end, job.allergens);
+        if (c) {
+          note(tally, c);
+          continue;
+        }
+        const b: Busy = { start, end, allergens: job.allergens };
+        const list = cal.mixers.get(job.mixer)!;
+        list.push(b);
+        yield* next();
+        unbook(list, b);
+      } else if (op.kind === 'bench') {
+        if (op.minutes === 0) {
+          yield* next();
+          return;
+        }
+        const person = cal.freePerson(start, end);
+        if (!person) {
+          note(tally, cal.benchConflict(start, end));
+          continue;
+        }
+        const b: Busy = { start, end };
+        person.busy.push(b);
+        people.set(i, person.unit);
+        yield* next();
+        people.delete(i);
+        unbook(person.busy, b);
+      }
+    }
+  }
+
+  const last = ops[k];
+  if (last.kind !== 'bake') {
+    // Nothing baked: the chain's end is its out time; place the last operation from there.
+    const tail = job.tail.preferred;
+    yield* before(k, outLo - tail, outHi - tail, outHi - tail, [], NaN);
+    return;
+  }
+
+  const bake: Extract<Operation, { kind: 'bake' }> = last;
+  const gap = job.gaps[k];
+  const spread = gap.max - gap.min;
+  for (const name of bake.ovens) {
+    const oven = cal.ovenByName.get(name)!;
+    const perLoad = Math.floor(oven.slots / bake.pieceSlots) * bake.pieceSlots;
+    if (perLoad === 0) continue;
+    const count = Math.ceil(bake.slots / perLoad);
+    const loads: Load[] = [];
+
+    // Loads are placed latest first; each later-placed load starts no later than the one before,
+    // and all start within the proof's stretch of one another.
+    function* load(j: number): Generator<Placement> {
+      if (j === count) {
+        const first = loads[count - 1].start;
+        const lastStart = loads[0].start;
+        const out = loads[0].end;
+        times[k] = { start: first, end: out };
+        yield* before(k - 1, lastStart - gap.max, first - gap.min, first - gap.preferred, loads, out);
+        return;
+      }
+      const slots = j === count - 1 ? bake.slots - perLoad * (count - 1) : perLoad;
+      const [lo, hi, preferred] =
+        j === 0
+          ? [outLo, outHi, outHi]
+          : [loads[0].start - spread + bake.minutes, loads[j - 1].start + bake.minutes, loads[j - 1].start + bake.minutes];
+      for (const end of candidates(Math.max(lo, nightStart + bake.minutes), hi, preferred)) {
+        const start = end - bake.minutes;
+        for (const deck of deckOrder(cal, oven, start, bake.temperature)) {
+          if (budget.left-- <= 0) return;
+          const c = cal.deckConflict(oven, deck, start, end, bake.temperature);
+          if (c) {
+            note(tally, c);
+            continue;
+          }
+          const b: Busy = { start, end, temperature: bake.temperature };
+          const list = cal.decks.get(deckKey(oven.name, deck))!;
+          list.push(b);
+          loads.push({ oven: oven.name, deck, start, end, slots, temperature: bake.temperature });
+          yield* load(j + 1);
+          loads.pop();
+          unbook(list, b);
+        }
+      }
+    }
+    yield* load(0);
+  }
+}
+
+/** Decks to try: one already at this temperature first, then one cooling down to it, then one heating up. */
+function deckOrder(cal: Calendar, oven: OvenResource, start: number, temperature: number | null): number[] {
+  const rank = (d: number) => {
+    const t = cal.deckBefore(oven.name, d, start);
+    return t == null || temperature === null ? 1 : t === temperature ? 0 : t > temperature ? 1 : 2;
+  };
+  const decks = Array.from({ length: oven.decks }, (_, i) => i + 1);
+  if (oven.decks === 1) return decks;
+  const ranks = decks.map(rank);
+  return decks.sort((a, b) => ranks[a - 1] - ranks[b - 1] || a - b);
+}

@@ -21,6 +21,8 @@ export interface SheetOptions {
   out?: string;
   mail?: string;
   catalog?: string;
+  /** Print the sheet and exit 0 even when an order will be late. */
+  allowLate: boolean;
 }
 
 const EMAIL = /^[^\s@<>,;]+@[^\s@<>,;]+\.[^\s@<>,;]+$/;
@@ -32,6 +34,7 @@ export interface SheetFlags {
   mail?: string;
   catalog?: string;
   paper?: string;
+  allowLate?: boolean;
 }
 
 export function toSheetOptions(plan: string, flags: SheetFlags): SheetOptions {
@@ -43,7 +46,7 @@ export function toSheetOptions(plan: string, flags: SheetFlags): SheetOptions {
   }
   const paper = (flags.paper ?? 'a4').toLowerCase() as Paper;
   if (paper !== 'a4' && paper !== 'letter') throw new UsageError(`unknown paper "${flags.paper}"; choose a4 or letter`);
-  return { plan, format, paper, out: flags.out, mail: flags.mail, catalog: flags.catalog };
+  return { plan, format, paper, out: flags.out, mail: flags.mail, catalog: flags.catalog, allowLate: Boolean(flags.allowLate) };
 }
 
 /** Reads the plan, its formulas and the catalog, and builds the sheet. */
@@ -92,6 +95,18 @@ export async function renderSheet(sheet: Sheet, format: SheetFormat, paper: Pape
 
 export async function runSheet(o: SheetOptions, stdout: NodeJS.WritableStream = process.stdout): Promise<void> {
   const sheet = await collectSheet(o.plan, o.catalog);
+  await writeSheet(sheet, o, stdout);
+  const late = sheet.orders.filter((x) => x.late > 0);
+  if (late.length > 0 && !o.allowLate) {
+    throw new InputError(
+      `${o.plan}: ${late.length === 1 ? '1 order' : `${late.length} orders`} cannot be out by the due time (${late.map((x) => `${x.formula} ${x.late} min late`).join(', ')}); the sheet's warnings say why and the ways out`,
+      [],
+      'change the plan, or pass --allow-late to accept it',
+    );
+  }
+}
+
+async function writeSheet(sheet: Sheet, o: SheetOptions, stdout: NodeJS.WritableStream): Promise<void> {
   if (o.mail) {
     const [{ renderSheetPdf }, { sendMail, MailError }, { renderSheetText }, { presentSheet, longDate }] = await Promise.all([
       import('#server/print/pdf'),
@@ -137,6 +152,7 @@ export const command = new Command('sheet')
   .option('--mail <address>', 'send the sheet as a PDF by e-mail (SMTP_URL, else saved in the outbox folder)')
   .option('--catalog <file>', 'the ingredient catalog (default: ingredients.yaml beside the plan or in its parent folder)')
   .option('--paper <size>', 'paper for html and pdf: a4 or letter', 'a4')
+  .option('--allow-late', 'exit 0 even when an order cannot be out by its due time (the sheet comes out either way)')
   .addHelpText(
     'after',
     `

@@ -48,6 +48,9 @@ export interface Night {
   start: number;
 }
 
+/** A cool this long is a rest before slicing or selling (common practice: rye breads rest 12–24 h), not just a cool on the rack. */
+const LONG_COOL_MINUTES = 120;
+
 const BENCH_TASKS = new Set<Step['step']>(['divide', 'preshape', 'shape']);
 
 interface Chain {
@@ -160,13 +163,14 @@ export function scheduleNight(plan: Plan, mixes: NightMix[]): Night {
     return { formula: o.formula, pieces: o.pieces, due: at(due), out: at(out), late: Math.max(0, Math.round(out - due)) };
   });
   const lateWarnings = lateReasons(solution.late, mixes, chains, orders, plan, at, start);
+  // A long cool (a rye rested before slicing) must be over by the due time for the product to be sold.
   for (const [i, o] of plan.orders.entries()) {
     const c = chains.find((x) => mixes[x.job.id].order === i)!;
-    const cool = c.steps.slice(c.lastBake + 1).filter((s) => s.step === 'cool' && s.minutes);
-    const coolMin = cool.reduce((n, s) => n + s.minutes!.min, 0);
-    if (c.lastBake >= 0 && coolMin > dueOf(i) - start) {
+    const coolMin = c.steps.slice(c.lastBake + 1).filter((s) => s.step === 'cool' && s.minutes).reduce((n, s) => n + s.minutes!.min, 0);
+    const out = minuteOf(orders[i].out, date);
+    if (c.lastBake >= 0 && coolMin >= LONG_COOL_MINUTES && out + coolMin > dueOf(i)) {
       warnings.push(
-        `order ${i + 1} (${o.formula}) cools at least ${hours(coolMin)} after the bake, longer than the ${hours(dueOf(i) - start)} from the first shift (${shortTime(at(start), date)}) to its due time (${o.due ?? plan.readyBy}): it cannot be cool by then; bake it the day before or order it for a later day`,
+        `order ${i + 1} (${o.formula}) must cool at least ${hours(coolMin)} after the bake: out at ${shortTime(orders[i].out, date)}, it is ready at ${shortTime(at(out + coolMin), date)} at the earliest, after its due time (${o.due ?? plan.readyBy}); bake it the day before or order it for a later day`,
       );
     }
   }

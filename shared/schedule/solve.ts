@@ -20,7 +20,7 @@ import type { Job, Load, Operation, OvenResource, Placement, Problem } from './p
 
 export const GRID_MINUTES = 5;
 /** Checks the backtracking search may make before it settles for the greedy pass. */
-const SEARCH_BUDGET = 60_000;
+const SEARCH_BUDGET = 20_000;
 /** Checks one mix may take in the greedy pass, per attempt. */
 const JOB_BUDGET = 6_000;
 /** How far past its due time a late order is looked for, minutes. */
@@ -89,11 +89,29 @@ export function solve(problem: Problem): Solution {
       continue;
     }
     greedy.overtime = true;
-    let found: Placement | undefined;
-    for (let by = job.due + GRID_MINUTES; by <= job.due + LATE_HORIZON && !found; by += GRID_MINUTES) {
-      const r = placeJob(job, greedy, start, job.due + 1, by, { left: JOB_BUDGET }, null).next();
-      if (!r.done) found = r.value;
+    // Out by due + 15 min, + 30, + 60, ... until it fits, then halve the step back to the grid.
+    const attempt = (by: number) => {
+      const r = placeJob(job, greedy, start, job.due + 1, by, { left: JOB_BUDGET }, null);
+      const first = r.next();
+      r.return(undefined);
+      return !first.done;
+    };
+    let step = 3 * GRID_MINUTES;
+    let fails = job.due;
+    let fits = job.due + step;
+    while (fits < job.due + LATE_HORIZON && !attempt(fits)) {
+      fails = fits;
+      step *= 2;
+      fits = job.due + step;
     }
+    while (fits - fails > GRID_MINUTES) {
+      const mid = fails + Math.ceil((fits - fails) / 2 / GRID_MINUTES) * GRID_MINUTES;
+      if (mid >= fits) break;
+      if (attempt(mid)) fits = mid;
+      else fails = mid;
+    }
+    const r = placeJob(job, greedy, start, job.due + 1, fits, { left: JOB_BUDGET }, null).next();
+    const found = r.done ? undefined : r.value;
     greedy.overtime = false;
     if (!found) throw new ScheduleError(job.id, `cannot be placed within ${LATE_HORIZON / 60} h of its due time on these resources`);
     placements[job.id] = found;
@@ -153,7 +171,8 @@ function note(tally: Tally | null, c: Conflict): void {
 
 /**
  * Every placement of a job whose out time falls in [outLo, outHi], latest first. While a placement
- * is yielded its bookings are in the calendar; resuming the generator takes them out again.
+ * is yielded its bookings are in the calendar; resuming or closing (`return()`) the generator takes
+ * them out again.
  */
 function* placeJob(
   job: Job, cal: Calendar, nightStart: number, outLo: number, outHi: number, budget: Budget, tally: Tally | null,
@@ -188,8 +207,11 @@ function* placeJob(
         const b: Busy = { start, end, allergens: job.allergens };
         const list = cal.mixers.get(job.mixer)!;
         list.push(b);
-        yield* next();
-        unbook(list, b);
+        try {
+          yield* next();
+        } finally {
+          unbook(list, b);
+        }
       } else if (op.kind === 'bench') {
         if (op.minutes === 0) {
           yield* next();
@@ -203,9 +225,12 @@ function* placeJob(
         const b: Busy = { start, end };
         person.busy.push(b);
         people.set(i, person.unit);
-        yield* next();
-        people.delete(i);
-        unbook(person.busy, b);
+        try {
+          yield* next();
+        } finally {
+          people.delete(i);
+          unbook(person.busy, b);
+        }
       }
     }
   }
@@ -257,9 +282,12 @@ function* placeJob(
           const list = cal.decks.get(deckKey(oven.name, deck))!;
           list.push(b);
           loads.push({ oven: oven.name, deck, start, end, slots, temperature: bake.temperature });
-          yield* load(j + 1);
-          loads.pop();
-          unbook(list, b);
+          try {
+            yield* load(j + 1);
+          } finally {
+            loads.pop();
+            unbook(list, b);
+          }
         }
       }
     }

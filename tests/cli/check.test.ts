@@ -27,7 +27,7 @@ describe('panform check', () => {
   it('finds no problems in the demo bakery and exits 0', () => {
     const r = run([]);
     expect(r.stderr).toBe('');
-    expect(r.stdout).toBe('14 files checked, no problems\n');
+    expect(r.stdout).toBe('15 files checked, no problems\n');
     expect(r.code).toBe(0);
   });
 

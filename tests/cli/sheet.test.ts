@@ -46,7 +46,44 @@ function weightsIn(text: string): string[] {
   return [...plain.matchAll(/(?<![\d.])\d{1,3}(?: \d{3})*(?:\.\d)? g\b/g)].map((m) => m[0]);
 }
 
+const LATE_PLAN = join('formulas', 'plans', '2026-12-05.yaml');
+
+describe('panform sheet on a night that cannot be done', () => {
+  it('prints the sheet with each late order, its bottleneck and ways out, and exits 1', async () => {
+    const r = await run(['sheet', LATE_PLAN]);
+    expect(r.code).toBe(1);
+    expect(r.stdout).toMatch(/LATE: order 2 \(harbour-ciabatta, 180 pieces for market stall\) is due at 05:00 but can be out at \d\d:\d\d at the earliest/);
+    expect(r.stdout).toMatch(/Bottleneck: oven "deck oven" is full around/);
+    expect(r.stdout).toMatch(/Ways out: .*a later due time/);
+    expect(r.stderr).toMatch(/orders? cannot be out by the due time/);
+    expect(r.stderr).toMatch(/--allow-late/);
+  });
+
+  it('exits 0 with --allow-late, and the JSON gives each order its out time and minutes late', async () => {
+    const r = await run(['sheet', LATE_PLAN, '--format', 'json', '--allow-late']);
+    expect(r.code).toBe(0);
+    const sheet = JSON.parse(r.stdout) as Sheet;
+    for (const o of sheet.orders) expect(Object.keys(o)).toEqual(['formula', 'pieces', 'due', 'out', 'late']);
+    expect(sheet.orders.filter((o) => o.late > 0).length).toBeGreaterThan(0);
+    expect(sheet.warnings.filter((w) => w.startsWith('LATE:')).length).toBe(sheet.orders.filter((o) => o.late > 0).length);
+  });
+});
+
 describe('panform sheet --format json', () => {
+  it('books every mix, bench task and bake on a resource, with the keys the issue names', async () => {
+    const r = await run(['sheet', DEMO_PLAN, '--format', 'json']);
+    const sheet = JSON.parse(r.stdout) as Sheet;
+    for (const b of sheet.bookings) {
+      expect(Object.keys(b)).toEqual(['resource', 'task', 'formula', 'mix', 'start', 'end', 'slots', 'temperature']);
+      expect(Object.keys(b.resource)).toEqual(['kind', 'name', 'unit']);
+      expect(['mixer', 'oven', 'bench']).toContain(b.resource.kind);
+    }
+    const tasks = new Set(sheet.bookings.map((b) => b.task));
+    for (const t of ['build', 'mix', 'divide', 'shape', 'bake', 'heat']) expect(tasks).toContain(t);
+    expect(new Set(sheet.bookings.filter((b) => b.task === 'bake').map((b) => b.resource.name))).toEqual(new Set(['deck oven', 'rack oven']));
+    expect(sheet.orders.every((o) => o.late === 0)).toBe(true);
+  });
+
   it.each(PLANS)('prints the sheet with the keys docs/cli/sheet.md names (%s)', async (plan) => {
     const r = await run(['sheet', plan, '--format', 'json']);
     expect(r.stderr).toBe('');
@@ -235,9 +272,9 @@ describe('panform sheet misuse and bad input', () => {
   });
 
   it('turns flags into options', () => {
-    expect(toSheetOptions('p.yaml', {})).toEqual({ plan: 'p.yaml', format: 'text', paper: 'a4', out: undefined, mail: undefined, catalog: undefined });
-    expect(toSheetOptions('p.yaml', { json: true, paper: 'Letter', mail: 'ines@tidewater.example', out: 'x', catalog: 'c.yaml' })).toEqual({
-      plan: 'p.yaml', format: 'json', paper: 'letter', out: 'x', mail: 'ines@tidewater.example', catalog: 'c.yaml',
+    expect(toSheetOptions('p.yaml', {})).toEqual({ plan: 'p.yaml', format: 'text', paper: 'a4', out: undefined, mail: undefined, catalog: undefined, allowLate: false });
+    expect(toSheetOptions('p.yaml', { json: true, paper: 'Letter', mail: 'ines@tidewater.example', out: 'x', catalog: 'c.yaml', allowLate: true })).toEqual({
+      plan: 'p.yaml', format: 'json', paper: 'letter', out: 'x', mail: 'ines@tidewater.example', catalog: 'c.yaml', allowLate: true,
     });
   });
 

@@ -18,9 +18,9 @@
 //   Soakers follow the same rule with their soaking hours.
 import { lookupIngredient, type Catalog, type Formula, type Mixer, type Order } from '../model.ts';
 import { scaleFormula, ScaleError, sum, type ScaledBuild, type ScaleResult } from '../scale.ts';
-import type { IngredientKind } from '../schema/shapes.ts';
+import type { AllergenCode, IngredientKind } from '../schema/shapes.ts';
 import { INGREDIENT_KINDS } from '../schema/vocabulary.ts';
-import { AllergenError } from '../allergens.ts';
+import { AllergenError, allergenSummary } from '../allergens.ts';
 import { cautionFacts, cautionsFor, type CautionSet } from '../cautions.ts';
 import { computeIce, computeWaterTemperature, HOT_WATER_CELSIUS, WARM_WATER_ADVICE, WARM_WATER_CELSIUS } from '../temperature.ts';
 import { formatTemperature } from '../units.ts';

@@ -1,7 +1,8 @@
 // `panform check [paths..]`: schema and trade checks of formulas, the catalog and plans, one
 // line per finding. Reading files happens here; the checks themselves are in shared/check/.
 import { Command } from 'commander';
-import { closeSync, openSync, readdirSync, readSync, statSync } from 'node:fs';
+import { readdirSync, statSync } from 'node:fs';
+import { readFileText } from '#server/load/read';
 import { basename, dirname, join, relative, resolve } from 'node:path';
 import { checkFileText, fileStem } from '#shared/check/check-file';
 import type { KnownFormula } from '#shared/check/plan';
@@ -31,8 +32,6 @@ export interface CheckReport {
 
 type FileKind = 'formula' | 'catalog' | 'plan';
 const DEFAULT_PATH = 'formulas';
-/** A formula file is a few kB; anything far larger is not one, and is not read whole. */
-const MAX_BYTES = 2 * 1024 * 1024;
 
 export function classify(path: string, catalogPath?: string): FileKind {
   if (basename(path) === CATALOG_FILE || (catalogPath !== undefined && resolve(path) === resolve(catalogPath))) return 'catalog';
@@ -85,26 +84,8 @@ export function listFiles(paths: string[]): string[] {
 
 /** The file's text, or a finding when it cannot be read or is too large to be a formula file. */
 function readForCheck(path: string): { text: string } | { finding: Finding } {
-  const at = (message: string): { finding: Finding } => ({ finding: { file: path, line: 1, col: 1, severity: 'error', message } });
-  try {
-    const size = statSync(path).size;
-    if (size > MAX_BYTES) return at(`the file is ${(size / 1024 / 1024).toFixed(1)} MB; a formula, catalog or plan file is a few kB, so this is not one`);
-    const fd = openSync(path, 'r');
-    try {
-      const buf = Buffer.alloc(size);
-      let read = 0;
-      while (read < size) {
-        const n = readSync(fd, buf, read, size - read, read);
-        if (n === 0) break;
-        read += n;
-      }
-      return { text: buf.subarray(0, read).toString('utf8') };
-    } finally {
-      closeSync(fd);
-    }
-  } catch (e) {
-    return at(`cannot read the file: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
-  }
+  const r = readFileText(path);
+  return 'text' in r ? r : { finding: { file: path, line: 1, col: 1, severity: 'error', message: r.problem } };
 }
 
 /** Reads and checks every file; returns the findings, sorted. Throws UsageError for a bad path. */

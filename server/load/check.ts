@@ -4,14 +4,10 @@
 import { createHash } from 'node:crypto';
 import type { FormulaFigures } from '#shared/api';
 import type { Catalog, Formula, Plan } from '#shared/model';
-import { parseCatalogText, parseFormulaText, parsePlanText, sortFindings, type Finding } from '#shared/parse';
-import { ScaleError } from '#shared/scale';
+import { sortFindings, type Finding } from '#shared/parse';
 import { referenceFigures } from '#shared/figures';
-import { checkCatalog } from '#shared/check/catalog';
 import { checkFileText, fileStem } from '#shared/check/check-file';
-import { checkFormula } from '#shared/check/formula';
-import { checkPlan, type KnownFormula } from '#shared/check/plan';
-import type { FormulaFile } from '#shared/schema/shapes';
+import type { KnownFormula } from '#shared/check/plan';
 import type { LoadFile, LoadInput } from './read.ts';
 
 export interface CheckedCatalog {
@@ -61,82 +57,64 @@ export interface CheckContext {
  */
 export function checkLoadInput(input: LoadInput, extra: ExtraCheck[] = [], ctx: CheckContext = {}): CheckResult {
   const findings: Finding[] = [];
+  const unread = (f: LoadFile) => {
+    if (f.problem === undefined) return false;
+    findings.push({ file: f.path, line: 1, col: 1, severity: 'error', message: f.problem });
+    return true;
+  };
   let catalog: CheckedCatalog | null = null;
-  let catalogBroken = false;
   const catalogFile = input.files.find((f) => f.kind === 'catalog');
-  if (catalogFile) {
-    const parsed = parseCatalogText(catalogFile.text, catalogFile.path);
-    if (parsed.ok) {
-      findings.push(...checkCatalog({ file: catalogFile.path, catalog: parsed.value, source: parsed.source }));
-      catalog = { file: catalogFile, value: parsed.value, raw: parsed.raw as Record<string, unknown> };
-    } else {
-      findings.push(...checkFileText({ kind: 'catalog', file: catalogFile.path, text: catalogFile.text }).findings);
-    }
-    catalogBroken = findings.some((f) => f.severity === 'error');
+  if (catalogFile && !unread(catalogFile)) {
+    const res = checkFileText({ kind: 'catalog', file: catalogFile.path, text: catalogFile.text });
+    findings.push(...res.findings);
+    if (res.kind === 'catalog' && res.raw !== undefined && res.value) catalog = { file: catalogFile, value: res.value, raw: res.raw as Record<string, unknown> };
   }
   const cat = catalog?.value ?? {};
   const formulas: CheckedFormula[] = [];
   const plans: CheckedPlan[] = [];
   const seenIds = new Map<string, string>();
   const seenDates = new Map<string, string>();
+  // What plans may name: every formula file of the load, as `panform check` sees the folder (a
+  // formula with errors is reported in its own file, not again in each plan that orders it).
+  const known = new Map<string, KnownFormula>(ctx.folderFormulas ?? []);
   for (const file of input.files) {
     if (file.kind !== 'formula') continue;
-    const parsed = parseFormulaText(file.text, file.path);
-    if (!parsed.ok) {
-      findings.push(...checkFileText({ kind: 'formula', file: file.path, text: file.text, catalog: null }).findings);
-      continue;
-    }
-    const at = (pointer: string) => ({ file: file.path, ...parsed.source.locate(pointer), severity: 'error' as const, pointer });
-    const f = parsed.value;
-    const own = checkFormula({
+    known.set(fileStem(file.path), {});
+    if (unread(file)) continue;
+    const res = checkFileText({
+      kind: 'formula',
       file: file.path,
-      formula: f,
-      raw: parsed.raw as FormulaFile,
-      source: parsed.source,
-      expectedId: fileStem(file.path),
-      catalog: catalogFile ? (catalogBroken ? null : cat) : null,
+      text: file.text,
+      catalog: catalog?.value ?? null,
       noCatalog: catalogFile ? `the catalog ${catalogFile.path} has errors` : 'no ingredients.yaml was found beside it or in its parent folder',
     });
-    findings.push(...own);
-    if (own.some((x) => x.severity === 'error')) continue;
+    findings.push(...res.findings);
+    if (res.kind === 'formula' && res.value) known.set(fileStem(file.path), { status: res.value.status });
+    if (res.kind !== 'formula' || !res.value || res.raw === undefined || !res.source) continue;
+    const f = res.value;
     const before = seenIds.get(f.id);
     if (before) {
-      findings.push({ ...at('/id'), message: `the id "${f.id}" is also used by ${before}` });
+      findings.push({ file: file.path, ...res.source.locate('/id'), severity: 'error', pointer: '/id', message: `the id "${f.id}" is also used by ${before}` });
       continue;
     }
     seenIds.set(f.id, file.path);
-    let figures: FormulaFigures;
-    try {
-      figures = referenceFigures(f, cat);
-    } catch (e) {
-      if (!(e instanceof ScaleError)) throw e;
-      findings.push({ ...at('/yield'), message: `the reference batch cannot be computed: ${e.message}` });
-      continue;
-    }
-    formulas.push({ file, value: f, raw: parsed.raw, hash: contentHash(file.text), figures });
+    // Checked above (checkFileText scales the formula's own batch), so this cannot throw.
+    formulas.push({ file, value: f, raw: res.raw, hash: contentHash(file.text), figures: referenceFigures(f, cat) });
   }
   // Plans see the formulas of this load, and for a load of single files those on disk beside them.
-  const known = new Map<string, KnownFormula>(ctx.folderFormulas ?? []);
-  for (const f of formulas) known.set(f.value.id, { status: f.value.status });
   for (const file of input.files) {
-    if (file.kind !== 'plan') continue;
-    const parsed = parsePlanText(file.text, file.path);
+    if (file.kind !== 'plan' || unread(file)) continue;
     const folder = file.path.includes('/plans/') ? `${file.path.slice(0, file.path.indexOf('/plans/'))}/` : './';
-    if (!parsed.ok) {
-      findings.push(...checkFileText({ kind: 'plan', file: file.path, text: file.text, formulas: known, formulasDir: folder }).findings);
-      continue;
-    }
-    const own = checkPlan({ file: file.path, plan: parsed.value, source: parsed.source, fileStem: fileStem(file.path), formulas: known, formulasDir: folder });
-    findings.push(...own);
-    if (own.some((x) => x.severity === 'error')) continue;
-    const before = seenDates.get(parsed.value.date);
+    const res = checkFileText({ kind: 'plan', file: file.path, text: file.text, formulas: known, formulasDir: folder });
+    findings.push(...res.findings);
+    if (res.kind !== 'plan' || !res.value || res.raw === undefined || !res.source) continue;
+    const before = seenDates.get(res.value.date);
     if (before) {
-      const where = parsed.source.locate('/date');
-      findings.push({ file: file.path, ...where, severity: 'error', pointer: '/date', message: `the date ${parsed.value.date} is also planned in ${before}` });
+      findings.push({ file: file.path, ...res.source.locate('/date'), severity: 'error', pointer: '/date', message: `the date ${res.value.date} is also planned in ${before}` });
       continue;
     }
-    seenDates.set(parsed.value.date, file.path);
-    plans.push({ file, value: parsed.value, raw: parsed.raw, hash: contentHash(file.text) });
+    seenDates.set(res.value.date, file.path);
+    plans.push({ file, value: res.value, raw: res.raw, hash: contentHash(file.text) });
   }
   if (!findings.some((f) => f.severity === 'error')) {
     for (const check of extra) findings.push(...check({ catalog, formulas, plans }));

@@ -1,9 +1,10 @@
 // Reading what a load will take in: the files under the given paths, their text, and where known
 // the git commit and author that last touched each one. The I/O edge of the load core.
 import { execFile } from 'node:child_process';
-import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { closeSync, existsSync, openSync, readdirSync, readSync, statSync } from 'node:fs';
 import { basename, dirname, join, relative, resolve, sep } from 'node:path';
 import { promisify } from 'node:util';
+import { MAX_FILE_BYTES, tooLargeProblem } from '#shared/check/check-file';
 
 const run = promisify(execFile);
 
@@ -18,6 +19,8 @@ export interface LoadFile {
   /** The path recorded in the database: `<folder>/<file>`, e.g. `formulas/harbour-ciabatta.yaml`. */
   path: string;
   text: string;
+  /** Why the file could not be read as text (too large, unreadable); `text` is then empty. */
+  problem?: string;
   gitCommit: string | null;
   gitAuthor: string | null;
 }
@@ -112,11 +115,13 @@ export async function readLoadInput(paths: string[], opts: { git?: boolean } = {
   const git = opts.git === false ? null : await readGitInfo(list.map((f) => f.absPath));
   const files: LoadFile[] = list.map((f) => {
     const g = git?.files.get(f.absPath);
+    const read = readFileText(f.absPath);
     return {
       kind: f.kind,
       absPath: f.absPath,
       path: [basename(f.root), ...relative(f.root, f.absPath).split(sep)].join('/'),
-      text: readFileSync(f.absPath, 'utf8'),
+      text: 'text' in read ? read.text : '',
+      ...('problem' in read ? { problem: read.problem } : {}),
       gitCommit: g?.commit ?? null,
       gitAuthor: g?.author ?? null,
     };
@@ -129,6 +134,32 @@ export async function readLoadInput(paths: string[], opts: { git?: boolean } = {
     }
   }
   return { files, complete, gitCommit: git?.head ?? null, folderFormulas };
+}
+
+/**
+ * A formula, catalog or plan file's text, for `panform check` and for a load alike: a file larger
+ * than MAX_FILE_BYTES is not one of them and is not read whole (nor kept in the server's memory).
+ */
+export function readFileText(path: string): { text: string } | { problem: string } {
+  try {
+    const size = statSync(path).size;
+    if (size > MAX_FILE_BYTES) return { problem: tooLargeProblem(size) };
+    const fd = openSync(path, 'r');
+    try {
+      const buf = Buffer.alloc(size);
+      let read = 0;
+      while (read < size) {
+        const n = readSync(fd, buf, read, size - read, read);
+        if (n === 0) break;
+        read += n;
+      }
+      return { text: buf.subarray(0, read).toString('utf8') };
+    } finally {
+      closeSync(fd);
+    }
+  } catch (e) {
+    return { problem: `cannot read the file: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}` };
+  }
 }
 
 interface GitInfo {

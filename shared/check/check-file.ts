@@ -2,7 +2,7 @@
 // checks for its kind. Every problem is a located Finding; nothing throws for any input. Pure:
 // the caller reads the file (and the catalog or the formula folder it needs) and passes them in.
 import {
-  parseCatalogText, parseFormulaText, parsePlanText, sortFindings, type Finding, type Parsed,
+  parseCatalogText, parseFormulaText, parsePlanText, sortFindings, type Finding, type Parsed, type SourceMap,
 } from '../parse.ts';
 import type { Catalog, Formula, Plan } from '../model.ts';
 import type { FormulaFile, SchemaKind } from '../schema/shapes.ts';
@@ -10,6 +10,9 @@ import { checkCatalog } from './catalog.ts';
 import { explainSchemaFindings, locateQuantityProblems } from './explain.ts';
 import { checkFormula } from './formula.ts';
 import { checkPlan, type KnownFormula } from './plan.ts';
+import { checkStoredText } from './stored-text.ts';
+import { referenceFigures } from '../figures.ts';
+import { ScaleError } from '../scale.ts';
 
 export type CheckRequest =
   | {
@@ -23,10 +26,18 @@ export type CheckRequest =
   | { kind: 'catalog'; file: string; text: string }
   | { kind: 'plan'; file: string; text: string; formulas: ReadonlyMap<string, KnownFormula>; formulasDir: string };
 
+/** `value` and `raw` (the file's data as parsed) are set when the file has no error. */
 export type CheckResult =
-  | { kind: 'formula'; findings: Finding[]; value?: Formula }
-  | { kind: 'catalog'; findings: Finding[]; value?: Catalog }
-  | { kind: 'plan'; findings: Finding[]; value?: Plan };
+  | { kind: 'formula'; findings: Finding[]; value?: Formula; raw?: unknown; source?: SourceMap }
+  | { kind: 'catalog'; findings: Finding[]; value?: Catalog; raw?: unknown; source?: SourceMap }
+  | { kind: 'plan'; findings: Finding[]; value?: Plan; raw?: unknown; source?: SourceMap };
+
+/** A formula, catalog or plan file is a few kB; anything far larger is not one, and is not read whole. */
+export const MAX_FILE_BYTES = 2 * 1024 * 1024;
+
+export function tooLargeProblem(bytes: number): string {
+  return `the file is ${(bytes / 1024 / 1024).toFixed(1)} MB; a formula, catalog or plan file is a few kB (at most ${MAX_FILE_BYTES / 1024 / 1024} MB), so this is not one`;
+}
 
 /** "formulas/plans/2026-12-03.yaml" → "2026-12-03". */
 export function fileStem(file: string): string {
@@ -82,6 +93,8 @@ function run(req: CheckRequest): CheckResult {
     case 'formula': {
       const parsed = parseFormulaText(req.text, req.file);
       if (!parsed.ok) return { kind: 'formula', findings: parseFindings('formula', parsed, req.file, req.text) };
+      const stored = checkStoredText(parsed.raw, req.file, parsed.source);
+      if (stored.length > 0) return { kind: 'formula', findings: stored };
       const findings = checkFormula({
         file: req.file,
         formula: parsed.value,
@@ -91,16 +104,22 @@ function run(req: CheckRequest): CheckResult {
         catalog: req.catalog,
         noCatalog: req.noCatalog,
       });
-      return { kind: 'formula', findings, value: parsed.value };
+      if (req.catalog && !findings.some((f) => f.severity === 'error')) findings.push(...checkReferenceBatch(parsed.value, req.catalog, req.file, parsed.source));
+      return withValue({ kind: 'formula', findings, value: parsed.value, raw: parsed.raw, source: parsed.source });
     }
     case 'catalog': {
       const parsed = parseCatalogText(req.text, req.file);
       if (!parsed.ok) return { kind: 'catalog', findings: parseFindings('catalog', parsed, req.file, req.text) };
-      return { kind: 'catalog', findings: checkCatalog({ file: req.file, catalog: parsed.value, source: parsed.source }), value: parsed.value };
+      const stored = checkStoredText(parsed.raw, req.file, parsed.source);
+      if (stored.length > 0) return { kind: 'catalog', findings: stored };
+      const findings = checkCatalog({ file: req.file, catalog: parsed.value, source: parsed.source });
+      return withValue({ kind: 'catalog', findings, value: parsed.value, raw: parsed.raw, source: parsed.source });
     }
     case 'plan': {
       const parsed = parsePlanText(req.text, req.file);
       if (!parsed.ok) return { kind: 'plan', findings: parseFindings('plan', parsed, req.file, req.text) };
+      const stored = checkStoredText(parsed.raw, req.file, parsed.source);
+      if (stored.length > 0) return { kind: 'plan', findings: stored };
       const findings = checkPlan({
         file: req.file,
         plan: parsed.value,
@@ -109,7 +128,24 @@ function run(req: CheckRequest): CheckResult {
         formulas: req.formulas,
         formulasDir: req.formulasDir,
       });
-      return { kind: 'plan', findings, value: parsed.value };
+      return withValue({ kind: 'plan', findings, value: parsed.value, raw: parsed.raw, source: parsed.source });
     }
+  }
+}
+
+/** The value and data only for a file without errors: nothing else may use it. */
+function withValue(r: CheckResult): CheckResult {
+  if (!r.findings.some((f) => f.severity === 'error')) return r;
+  return { kind: r.kind, findings: r.findings, value: r.value } as CheckResult;
+}
+
+/** The formula's own batch (its yield) must scale: the figures it is listed and compared by come from it. */
+function checkReferenceBatch(formula: Formula, catalog: Catalog, file: string, source: SourceMap): Finding[] {
+  try {
+    referenceFigures(formula, catalog);
+    return [];
+  } catch (e) {
+    if (!(e instanceof ScaleError)) throw e;
+    return [{ file, ...source.locate('/yield'), severity: 'error', pointer: '/yield', message: `the formula's own batch (its yield) cannot be scaled: ${e.message}` }];
   }
 }

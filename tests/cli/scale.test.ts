@@ -1,9 +1,12 @@
-// `panform scale` through the built CLI: tables, JSON, CSV, water, and one clear line for every misuse.
+// `panform scale`: the JSON and every refusal through the command's own functions in-process;
+// the built CLI for finding a formula by id, the tables, CSV and the exit codes.
 import { copyFileSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { collectScale, command as scaleCommand, scaleJson, toScaleOptions } from '../../cli/commands/scale.ts';
 import { buildCli, type BuiltCli } from './arithmetic-cli.ts';
+import { parseFlags, refusal } from './flags.ts';
 
 const FIXTURES = join('tests', 'fixtures', 'arithmetic');
 const fixture = (id: string) => join(FIXTURES, `${id}.yaml`);
@@ -31,11 +34,13 @@ interface Json {
   mixingWater: { waterTemperature: number; factors: number; ice: number | null; tapWater: number | null } | null;
 }
 
+type RawFlags = Parameters<typeof toScaleOptions>[0];
+
+/** What `panform scale <args> --json` prints, collected in-process. */
 async function json(args: string[]): Promise<Json> {
-  const r = await cli.run(['scale', ...args, '--json']);
-  expect(r.stderr).toBe('');
-  expect(r.code).toBe(0);
-  return JSON.parse(r.stdout) as Json;
+  const { operands, options } = parseFlags<RawFlags>(scaleCommand, [...args, '--json']);
+  const opts = toScaleOptions(options);
+  return JSON.parse(JSON.stringify(scaleJson(collectScale(operands[0], opts), opts))) as Json;
 }
 
 describe('panform scale --json', () => {
@@ -180,11 +185,24 @@ describe('panform scale: misuse and bad input', () => {
     [['--room', '30', '--flour-temp', '30', '--friction', '20'], 1, 'panform: lean-straight: the water would have to be -5.0 °C, below the 0 °C that ice can bring it to'],
     [['--room', '22', '--flour-temp', '20', '--friction', '11', '--preferment-temp', '20'], 2, 'panform: lean-straight has 0 pre-ferment(s) but --preferment-temp was given 1 times'],
   ])('refuses %j with exit %d and one clear line', async (args, code, message) => {
+    const r = await refusal(() => {
+      const { operands, options } = parseFlags<RawFlags>(scaleCommand, [fixture('lean-straight'), ...args]);
+      const opts = toScaleOptions(options);
+      collectScale(operands[0], opts);
+    });
+    expect(r.code).toBe(code);
+    expect(r.line).toContain(message);
+  });
+
+  it.each([
+    [['--pieces', '0'], 2, 'panform: --pieces must be a whole number of at least 1; got 0'],
+    [['--room', '30', '--flour-temp', '30', '--friction', '20'], 1, 'panform: lean-straight: the water would have to be -5.0 °C'],
+  ])('prints a refusal of %j as one line on stderr, exit %d, no stack trace', async (args, code, message) => {
     const r = await cli.run(['scale', fixture('lean-straight'), ...args]);
     expect(r.code).toBe(code);
     expect(r.stdout).toBe('');
     expect(r.stderr.split('\n')[0]).toContain(message);
-    expect(r.stderr).not.toMatch(/\n\s+at /); // no stack trace
+    expect(r.stderr).not.toMatch(/\n\s+at /);
   });
 
   it('refuses an unknown --units with exit 2', async () => {

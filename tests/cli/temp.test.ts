@@ -1,6 +1,9 @@
-// `panform temp` through the built CLI: °C and °F, ice, friction, and clear refusals.
+// `panform temp`: °C and °F, ice, friction and every refusal through the command's own functions
+// in-process; the built CLI for the text, the exit codes and --help.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { collectTemp, command as tempCommand, toTempOptions } from '../../cli/commands/temp.ts';
 import { buildCli, type BuiltCli } from './arithmetic-cli.ts';
+import { parseFlags, refusal } from './flags.ts';
 
 let cli: BuiltCli;
 beforeAll(async () => {
@@ -8,11 +11,12 @@ beforeAll(async () => {
 });
 afterAll(() => cli?.dispose());
 
+type RawFlags = Parameters<typeof toTempOptions>[0];
+
+/** What `panform temp <args> --json` prints, collected in-process. */
 async function json(args: string[]): Promise<Record<string, unknown>> {
-  const r = await cli.run(['temp', ...args, '--json']);
-  expect(r.stderr).toBe('');
-  expect(r.code).toBe(0);
-  return JSON.parse(r.stdout) as Record<string, unknown>;
+  const { options } = parseFlags<RawFlags>(tempCommand, [...args, '--json']);
+  return JSON.parse(JSON.stringify(collectTemp(toTempOptions(options)))) as Record<string, unknown>;
 }
 
 describe('panform temp --json', () => {
@@ -79,6 +83,15 @@ describe('panform temp: misuse and targets out of reach', () => {
     [['--ddt', '22', '--room', '30', '--flour', '30', '--friction', '13'], 1, 'panform: the water would have to be -7.0 °C, below the 0 °C that ice can bring it to'],
     [['--fahrenheit', '--ddt', '72', '--room', '86', '--flour', '86', '--friction', '24'], 1, 'panform: the water would have to be 20.0 °F, below the 32 °F that ice can bring it to'],
   ])('refuses %j with exit %d and one clear line', async (args, code, message) => {
+    const r = await refusal(() => collectTemp(toTempOptions(parseFlags<RawFlags>(tempCommand, args).options)));
+    expect(r.code).toBe(code);
+    expect(r.line).toContain(message);
+  });
+
+  it.each([
+    [['--ddt', 'warm', '--room', '22', '--flour', '20', '--friction', '13'], 2, 'panform: --ddt: not a temperature: "warm"'],
+    [['--ddt', '22', '--room', '30', '--flour', '30', '--friction', '13'], 1, 'panform: the water would have to be -7.0 °C'],
+  ])('prints a refusal of %j as one line on stderr, exit %d, no stack trace', async (args, code, message) => {
     const r = await cli.run(['temp', ...args]);
     expect(r.code).toBe(code);
     expect(r.stdout).toBe('');

@@ -4,6 +4,7 @@
 // its own loading state).
 import type { QueryClient } from '@tanstack/react-query';
 import { redirect, type LoaderFunctionArgs } from 'react-router';
+import { getAccountsQueryOptions } from '../features/accounts/api/accounts.ts';
 import { getChangesQueryOptions } from '../features/changes/api/get-changes.ts';
 import { getRevisionsQueryOptions } from '../features/changes/api/get-revisions.ts';
 import { getMeQueryOptions } from '../features/auth/api/get-me.ts';
@@ -46,6 +47,11 @@ export function createLoaders(queryClient: QueryClient) {
     plan: (async ({ request, params }) => {
       if (params.date) void queryClient.prefetchQuery(getPlanQueryOptions(params.date));
       await requirePermission(queryClient, request, 'read:plan');
+      return null;
+    }) satisfies Loader,
+    accounts: (async ({ request }) => {
+      await requirePermission(queryClient, request, 'manage:users');
+      void queryClient.prefetchQuery(getAccountsQueryOptions());
       return null;
     }) satisfies Loader,
     changes: (async ({ request }) => {

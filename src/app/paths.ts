@@ -31,4 +31,5 @@ export const paths = {
     getHref: (id: string, range?: { from?: number; to?: number }) => `/changes/${encodeURIComponent(id)}${q(range ?? {})}`,
   },
   account: { path: '/account', getHref: () => '/account' },
+  accounts: { path: '/accounts', getHref: () => '/accounts' },
 } as const;

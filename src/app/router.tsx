@@ -45,6 +45,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             { path: paths.changes.path, loader: loaders.changes, lazy: page(() => import('./routes/changes.tsx')) },
             { path: paths.formulaChanges.path, loader: loaders.formulaChanges, lazy: page(() => import('./routes/formula-changes.tsx')) },
             { path: paths.account.path, lazy: page(() => import('./routes/account.tsx')) },
+            { path: paths.accounts.path, loader: loaders.accounts, lazy: page(() => import('./routes/accounts.tsx')) },
             { path: '*', Component: NotFoundView },
           ],
         },

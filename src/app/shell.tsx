@@ -15,6 +15,7 @@ export function AppShell() {
     { to: paths.formulas.getHref(), label: 'Formulas', show: true },
     { to: paths.plans.getHref(), label: 'Bake days', show: can('read:plan') },
     { to: paths.changes.getHref(), label: 'Changes', show: can('read:history') },
+    { to: paths.accounts.getHref(), label: 'Accounts', show: can('manage:users') },
   ].filter((l) => l.show);
 
   return (

@@ -1,6 +1,6 @@
 // The trade's usual ranges (common practice, no single source). Values outside them are
-// warnings, never errors: a baker may have a reason. Sources where there is one:
-// trade-references §8 (pre-ferments) and §3 (dough temperature).
+// warnings, never errors: a baker may have a reason. Each band names its source where there is
+// one (Hamelman, Bread, Wiley 2004; Gisslen, Professional Baking, Wiley), else "common practice".
 
 export interface Band {
   min: number;
@@ -10,7 +10,7 @@ export interface Band {
 export const PRACTICE = {
   /** Poolish: equal weights of flour and water, about 100 % (common practice). */
   poolishHydration: { min: 90, max: 110 } as Band,
-  /** Biga: stiff at 50–60 % (Hamelman, Bread, "Biga"; Gisslen), or poolish-like near 100 %. */
+  /** Biga: stiff at 50–60 % (Hamelman, Bread, "Biga"; Gisslen, Professional Baking), or poolish-like near 100 %. */
   bigaStiffHydration: { min: 50, max: 60 } as Band,
   bigaLiquidHydration: { min: 90, max: 110 } as Band,
   /** Levain: stiff about 50–60 %, liquid 100–125 % (common practice). */
@@ -19,7 +19,7 @@ export const PRACTICE = {
   salt: { min: 1.5, max: 3 } as Band,
   /** Hydration, counting the water in milk, eggs and butter (common practice for bread doughs). */
   hydration: { min: 50, max: 100 } as Band,
-  /** Desired dough temperature, °C (common practice; Gisslen gives 25.5–26.7 °C as usual). */
+  /** Desired dough temperature, °C (common practice; Gisslen, Professional Baking, gives 78–80 °F, 25.5–26.7 °C, as usual). */
   doughTemperature: { min: 20, max: 30 } as Band,
   /** Pre-fermented flour, percent of the total flour (common practice). */
   prefermentedFlourMax: 60,

@@ -12,6 +12,7 @@ import { AllergensPanel } from '../../features/formulas/components/allergens-pan
 import { Cautions, cautionsWithIce } from '../../features/formulas/components/cautions.tsx';
 import { CostPanel } from '../../features/formulas/components/cost-panel.tsx';
 import { BuildTable, DerivedFigures, FinalDoughTable, OverallTable } from '../../features/formulas/components/formula-tables.tsx';
+import { FinishesTable } from '../../features/formulas/components/finishes-table.tsx';
 import { LabelPanel } from '../../features/formulas/components/label-panel.tsx';
 import { ProcessSteps } from '../../features/formulas/components/process-steps.tsx';
 import { ScaleControl } from '../../features/formulas/components/scale-control.tsx';
@@ -144,6 +145,7 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
           {restReady && (
             <Panel title="How it is made" id="process" className="order-7">
               <ProcessSteps steps={formula.process} />
+              {formula.finishes.length > 0 && <FinishesTable formula={formula} pieces={scaled.pieces ?? Math.floor(scaled.dividedDough / formula.yield.pieceGrams)} />}
               {formula.notes && <p className="mt-3 text-muted">{formula.notes}</p>}
             </Panel>
           )}

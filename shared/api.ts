@@ -112,11 +112,19 @@ export interface FormulaDetail {
   path: string;
 }
 
-export interface RevisionSummary {
-  revision: number;
-  contentHash: string;
+/** The commit a revision was loaded from, when the formulas folder is a git repository. */
+export interface RevisionCommit {
   gitCommit: string | null;
   gitAuthor: string | null;
+  /** The commit's author date (ISO 8601). */
+  gitDate: string | null;
+  /** The commit message's subject line. */
+  gitMessage: string | null;
+}
+
+export interface RevisionSummary extends RevisionCommit {
+  revision: number;
+  contentHash: string;
   loadedAt: string;
   figures: FormulaFigures;
 }
@@ -132,6 +140,8 @@ export interface RevisionDiffResponse {
   formula: string;
   from: number;
   to: number;
+  /** Each side's commit: why it changed. */
+  commits: { from: RevisionCommit; to: RevisionCommit };
   diff: FormulaDiff;
 }
 

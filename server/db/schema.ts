@@ -43,6 +43,9 @@ export const formulaRevisionsTable = pgTable(
     figures: jsonb('figures').notNull(),
     gitCommit: text('git_commit'),
     gitAuthor: text('git_author'),
+    /** The commit's author date and subject line, when the file was committed as loaded. */
+    gitDate: timestamp('git_date', { withTimezone: true }),
+    gitMessage: text('git_message'),
     loadId: integer('load_id').notNull(),
     loadedAt: timestamp('loaded_at', { withTimezone: true }).notNull().defaultNow(),
   },
@@ -73,6 +76,8 @@ export const usersTable = pgTable('users', {
   email: text('email').notNull().unique(),
   name: text('name').notNull().default(''),
   role: text('role').notNull(), // admin | author | reviewer | bench
+  /** Units the viewer and its prints show: metric | us (shared/units.ts UnitSystem). */
+  unitSystem: text('unit_system').notNull().default('metric'),
   passwordHash: text('password_hash').notNull(),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   passwordChangedAt: timestamp('password_changed_at', { withTimezone: true }).notNull().defaultNow(),

@@ -23,6 +23,9 @@ export interface LoadFile {
   problem?: string;
   gitCommit: string | null;
   gitAuthor: string | null;
+  /** The commit's author date (ISO 8601) and subject line. */
+  gitDate: string | null;
+  gitMessage: string | null;
 }
 
 export interface LoadInput {
@@ -124,6 +127,8 @@ export async function readLoadInput(paths: string[], opts: { git?: boolean } = {
       ...('problem' in read ? { problem: read.problem } : {}),
       gitCommit: g?.commit ?? null,
       gitAuthor: g?.author ?? null,
+      gitDate: g?.date ?? null,
+      gitMessage: g?.message ?? null,
     };
   });
   let folderFormulas: Map<string, { status?: string }> | undefined;
@@ -164,7 +169,16 @@ export function readFileText(path: string): { text: string } | { problem: string
 
 interface GitInfo {
   head: string | null;
-  files: Map<string, { commit: string; author: string }>;
+  files: Map<string, GitFileCommit>;
+}
+
+export interface GitFileCommit {
+  commit: string;
+  author: string;
+  /** Author date, ISO 8601. */
+  date: string;
+  /** Subject line of the message. */
+  message: string;
 }
 
 /**
@@ -186,7 +200,7 @@ export async function readGitInfo(absPaths: string[]): Promise<GitInfo | null> {
     const r = relative(top, p);
     if (!r.startsWith('..')) rel.set(r.split(sep).join('/'), p);
   }
-  const files = new Map<string, { commit: string; author: string }>();
+  const files = new Map<string, GitFileCommit>();
   let head: string | null = null;
   try {
     head = (await run('git', ['rev-parse', 'HEAD'], { cwd: top })).stdout.trim() || null;
@@ -202,15 +216,15 @@ export async function readGitInfo(absPaths: string[]): Promise<GitInfo | null> {
       maxBuffer: 64 * 1024 * 1024,
     });
     for (const entry of status.stdout.split('\0')) if (entry.length > 3) dirty.add(entry.slice(3));
-    const log = await run('git', ['-c', 'core.quotePath=false', 'log', '--format=%x01%H%x00%an', '--name-only', '--no-renames', '--', ...pathspecs], {
+    const log = await run('git', ['-c', 'core.quotePath=false', 'log', '--format=%x01%H%x00%an%x00%aI%x00%s', '--name-only', '--no-renames', '--', ...pathspecs], {
       cwd: top,
       maxBuffer: 256 * 1024 * 1024,
     });
-    let current: { commit: string; author: string } | null = null;
+    let current: GitFileCommit | null = null;
     for (const line of log.stdout.split('\n')) {
       if (line.startsWith('\u0001')) {
-        const [commit, author] = line.slice(1).split('\0');
-        current = { commit, author };
+        const [commit, author, date, message] = line.slice(1).split('\0');
+        current = { commit, author, date, message };
       } else if (line && current && rel.has(line) && !dirty.has(line)) {
         const abs = rel.get(line)!;
         if (!files.has(abs)) files.set(abs, current);

@@ -165,6 +165,8 @@ export async function writeLoad(
           figures: f.figures,
           gitCommit: f.file.gitCommit,
           gitAuthor: f.file.gitAuthor,
+          gitDate: f.file.gitDate ? new Date(f.file.gitDate) : null,
+          gitMessage: f.file.gitMessage,
           loadId,
           loadedAt: startedAt,
         });

@@ -5,7 +5,7 @@ import { createHash } from 'node:crypto';
 import { and, desc, eq, inArray } from 'drizzle-orm';
 import { Router, type Request, type Response } from 'express';
 import type {
-  ChangeListResponse, FormulaDetail, FormulaListResponse, FormulaSummary, RevisionDiffResponse, RevisionListResponse, RevisionSummary,
+  ChangeListResponse, FormulaDetail, FormulaListResponse, FormulaSummary, RevisionDiffResponse, RevisionCommit, RevisionListResponse, RevisionSummary,
 } from '#shared/api';
 import { AllergenError, allergenSummary, formulaIngredientNames } from '#shared/allergens';
 import { computeCost } from '#shared/cost';
@@ -162,19 +162,24 @@ export function formulaDetail(entry: FormulaEntry, catalog: Catalog, role: Role,
   };
 }
 
-function revisionSummary(r: {
-  revision: number;
-  contentHash: string;
-  gitCommit: string | null;
-  gitAuthor: string | null;
-  loadedAt: Date;
-  figures: unknown;
-}): RevisionSummary {
+type CommitColumns = { gitCommit: string | null; gitAuthor: string | null; gitDate: Date | null; gitMessage: string | null };
+
+function revisionCommit(r: CommitColumns): RevisionCommit {
+  return { gitCommit: r.gitCommit, gitAuthor: r.gitAuthor, gitDate: r.gitDate?.toISOString() ?? null, gitMessage: r.gitMessage };
+}
+
+const COMMIT_COLUMNS = {
+  gitCommit: formulaRevisionsTable.gitCommit,
+  gitAuthor: formulaRevisionsTable.gitAuthor,
+  gitDate: formulaRevisionsTable.gitDate,
+  gitMessage: formulaRevisionsTable.gitMessage,
+};
+
+function revisionSummary(r: CommitColumns & { revision: number; contentHash: string; loadedAt: Date; figures: unknown }): RevisionSummary {
   return {
     revision: r.revision,
     contentHash: r.contentHash,
-    gitCommit: r.gitCommit,
-    gitAuthor: r.gitAuthor,
+    ...revisionCommit(r),
     loadedAt: r.loadedAt.toISOString(),
     figures: pickFigures(r.figures),
   };
@@ -282,8 +287,7 @@ export function formulasRouter(ctx: ServerContext): Router {
       .select({
         revision: formulaRevisionsTable.revision,
         contentHash: formulaRevisionsTable.contentHash,
-        gitCommit: formulaRevisionsTable.gitCommit,
-        gitAuthor: formulaRevisionsTable.gitAuthor,
+        ...COMMIT_COLUMNS,
         loadedAt: formulaRevisionsTable.loadedAt,
         figures: formulaRevisionsTable.figures,
       })
@@ -302,10 +306,11 @@ export function formulasRouter(ctx: ServerContext): Router {
     const from = queryInteger(req, 'from', { min: 1, max: 1_000_000 }) ?? to - 1;
     if (from < 1) throw invalid(`"${entry.id}" has only revision ${to}; there is nothing to compare it with`, [{ path: 'from', message: 'no earlier revision' }]);
     const rows = await ctx.db
-      .select({ revision: formulaRevisionsTable.revision, content: formulaRevisionsTable.content })
+      .select({ revision: formulaRevisionsTable.revision, content: formulaRevisionsTable.content, ...COMMIT_COLUMNS })
       .from(formulaRevisionsTable)
       .where(and(eq(formulaRevisionsTable.formulaId, entry.id), inArray(formulaRevisionsTable.revision, [from, to])));
     const byRevision = new Map(rows.map((row) => [row.revision, row.content]));
+    const commitOf = (n: number) => revisionCommit(rows.find((row) => row.revision === n)!);
     const missing = [from, to].filter((n) => !byRevision.has(n));
     if (missing.length > 0) throw notFound(`"${entry.id}" has no revision ${missing.join(' or ')}`);
     let before: Formula;
@@ -316,7 +321,13 @@ export function formulasRouter(ctx: ServerContext): Router {
     } catch (e) {
       throw new HttpError(500, { error: 'internal', message: `a stored revision of "${entry.id}" cannot be read: ${(e as Error).message}` });
     }
-    const body: RevisionDiffResponse = { formula: entry.id, from, to, diff: diffFormulas(before, after, snapshot.catalog) };
+    const body: RevisionDiffResponse = {
+      formula: entry.id,
+      from,
+      to,
+      commits: { from: commitOf(from), to: commitOf(to) },
+      diff: diffFormulas(before, after, snapshot.catalog),
+    };
     res.json(body);
   });
 
@@ -330,8 +341,7 @@ export function formulasRouter(ctx: ServerContext): Router {
         status: formulasTable.status,
         revision: formulaRevisionsTable.revision,
         contentHash: formulaRevisionsTable.contentHash,
-        gitCommit: formulaRevisionsTable.gitCommit,
-        gitAuthor: formulaRevisionsTable.gitAuthor,
+        ...COMMIT_COLUMNS,
         loadedAt: formulaRevisionsTable.loadedAt,
         figures: formulaRevisionsTable.figures,
       })

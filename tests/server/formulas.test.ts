@@ -1,5 +1,6 @@
 // What each role receives from the formula, plan and catalog routes: bench never gets a cost, a
 // price, a draft or a retired formula; scaling on the server follows the shared arithmetic.
+import { execFileSync } from 'node:child_process';
 import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import http from 'node:http';
 import { tmpdir } from 'node:os';
@@ -275,7 +276,11 @@ describe('history', () => {
       cpSync(resolve('formulas'), folder, { recursive: true });
       const file = join(folder, 'harbour-ciabatta.yaml');
       writeFileSync(file, readFileSync(file, 'utf8').replace(/^  water: 78$/m, '  water: 80'));
-      await loadFolder(handle, folder, { git: false });
+      const git = (...args: string[]) => execFileSync('git', ['-c', 'user.name=Ines Marlow', '-c', 'user.email=ines@tidewater.example', ...args], { cwd: folder });
+      git('init', '-q');
+      git('add', '.');
+      git('commit', '-qm', 'Ciabatta: two more points of water for the new flour');
+      await loadFolder(handle, folder, { git: true });
     } finally {
       rmSync(folder, { recursive: true, force: true });
     }
@@ -290,9 +295,12 @@ describe('history', () => {
     expect(revisions.revisions.map((r) => r.revision)).toEqual([after.revision, before.revision]);
     const diff = await get<RevisionDiffResponse>('/api/formulas/harbour-ciabatta/diff', 'reviewer');
     expect(diff).toMatchObject({ formula: 'harbour-ciabatta', from: before.revision, to: after.revision });
+    // Why it changed: the commit it was loaded from.
+    expect(diff.commits.to).toMatchObject({ gitAuthor: 'Ines Marlow', gitMessage: 'Ciabatta: two more points of water for the new flour' });
+    expect(diff.commits.to.gitDate).toMatch(/^\d{4}-\d\d-\d\dT/);
     expect(diff.diff.ingredients).toEqual(expect.arrayContaining([expect.objectContaining({ ingredient: 'water' })]));
     const changes = await get<ChangeListResponse>('/api/changes', 'reviewer');
-    expect(changes.changes[0]).toMatchObject({ formula: 'harbour-ciabatta', revision: after.revision });
+    expect(changes.changes[0]).toMatchObject({ formula: 'harbour-ciabatta', revision: after.revision, gitMessage: 'Ciabatta: two more points of water for the new flour' });
 
     expect((await getJson(`${t.url}/api/formulas/harbour-ciabatta/diff?from=1&to=99`, cookie.reviewer)).status).toBe(404);
     expect((await getJson(`${t.url}/api/formulas/harbour-ciabatta/diff?from=x`, cookie.reviewer)).status).toBe(422);

@@ -42,6 +42,27 @@ forEachDatabase('loading a formulas folder', (setup) => {
     expect(row.path).toBe('formulas/generated-0000.yaml');
   });
 
+  it('keeps the commit of a revision loaded from a git repository: author, date and message', async () => {
+    const { execFileSync } = await import('node:child_process');
+    const h = await setup.fresh();
+    const { dir } = tempFolder(1, false);
+    const git = (...args: string[]) =>
+      execFileSync('git', ['-c', 'user.name=Ines Marlow', '-c', 'user.email=ines@tidewater.example', ...args], {
+        cwd: dir,
+        encoding: 'utf8',
+        env: { ...process.env, GIT_AUTHOR_DATE: '2026-11-30T05:10:00+00:00', GIT_COMMITTER_DATE: '2026-11-30T05:10:00+00:00' },
+      }).trim();
+    git('init', '-q');
+    git('add', '.');
+    git('commit', '-qm', 'More water in the rolls: the new flour drinks more');
+    await loadFolder(h, dir, { git: true });
+    const [rev] = await h.db.select().from(formulaRevisionsTable).where(eq(formulaRevisionsTable.formulaId, 'generated-0000'));
+    expect(rev.gitCommit).toBe(git('rev-parse', 'HEAD'));
+    expect(rev.gitAuthor).toBe('Ines Marlow');
+    expect(rev.gitDate?.toISOString()).toBe('2026-11-30T05:10:00.000Z');
+    expect(rev.gitMessage).toBe('More water in the rolls: the new flour drinks more');
+  });
+
   it('keeps one revision when the same files are loaded twice', async () => {
     const h = await setup.fresh();
     const { dir, ids } = tempFolder(3);

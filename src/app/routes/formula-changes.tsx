@@ -6,6 +6,7 @@ import { PageHeading, Panel } from '../../components/panel.tsx';
 import { QueryState } from '../../components/query-state.tsx';
 import { useRevisionDiff } from '../../features/changes/api/get-revision-diff.ts';
 import { useRevisions } from '../../features/changes/api/get-revisions.ts';
+import { CommitNote } from '../../features/changes/components/commit-note.tsx';
 import { RevisionDiffView } from '../../features/changes/components/revision-diff.tsx';
 import { RevisionList } from '../../features/changes/components/revision-list.tsx';
 import { RevisionPicker } from '../../features/changes/components/revision-picker.tsx';
@@ -57,7 +58,12 @@ function Revisions({ id, revisions }: { id: string; revisions: RevisionSummary[]
               ) : (
                 <PanelBoundary title="Comparison" resetKeys={[from, to]}>
                   <QueryState query={diff} label="Comparing…" inline>
-                    {(d) => <RevisionDiffView diff={d.diff} from={d.from} to={d.to} />}
+                    {(d) => (
+                      <>
+                        <CommitNote commit={d.commits.to} className="mb-4" />
+                        <RevisionDiffView diff={d.diff} from={d.from} to={d.to} />
+                      </>
+                    )}
                   </QueryState>
                 </PanelBoundary>
               )}

@@ -1,6 +1,7 @@
 import { Link } from 'react-router';
 import type { ChangeListResponse } from '#shared/api';
 import { percent, shortDateTime } from '../../../lib/format.ts';
+import { CommitNote } from './commit-note.tsx';
 
 type Change = ChangeListResponse['changes'][number];
 
@@ -18,10 +19,9 @@ export function ChangeList({ changes, hrefOf }: { changes: Change[]; hrefOf: (c:
             <span className="min-w-0 flex-1">
               <span className="block text-xl font-semibold">{c.title}</span>
               <span className="block text-muted">
-                {c.revision === 1 ? 'first version' : `changed since r${c.revision - 1}`} · {shortDateTime(c.loadedAt)}
-                {c.gitAuthor && <> · {c.gitAuthor}</>}
-                {c.gitCommit && <span className="figure"> · {c.gitCommit.slice(0, 8)}</span>}
+                {c.revision === 1 ? 'first version' : `changed since r${c.revision - 1}`} · loaded {shortDateTime(c.loadedAt)}
               </span>
+              <CommitNote commit={c} />
             </span>
             <span className="figure text-right text-muted">
               {percent(c.figures.hydration)} water · {percent(c.figures.prefermentedFlour)} pre-fermented

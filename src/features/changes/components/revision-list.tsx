@@ -1,4 +1,5 @@
 import type { RevisionSummary } from '#shared/api';
+import { CommitNote } from './commit-note.tsx';
 import { percent, shortDateTime, weight } from '../../../lib/format.ts';
 
 /** Every loaded revision of one formula with its key figures, newest first. */
@@ -27,7 +28,7 @@ export function RevisionList({ revisions, from, to }: { revisions: RevisionSumma
                 </th>
                 <td className="py-1.5 pr-3">
                   {shortDateTime(r.loadedAt)}
-                  {r.gitAuthor && <span className="block text-sm text-muted">{r.gitAuthor}{r.gitCommit ? ` · ${r.gitCommit.slice(0, 8)}` : ''}</span>}
+                  <CommitNote commit={r} />
                 </td>
                 <td className="figure py-1.5 pr-3 text-right">{percent(r.figures.hydration)}</td>
                 <td className="figure py-1.5 pr-3 text-right">{percent(r.figures.prefermentedFlour)}</td>

@@ -1,9 +1,12 @@
-// `panform convert` through the built CLI.
+// `panform convert`: conversions, JSON and refusals through the command's own functions
+// in-process; the built CLI for a catalog found in the working folder, exit codes and --help.
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { collectConvert, command as convertCommand, convertText, toConvertOptions } from '../../cli/commands/convert.ts';
 import { buildCli, type BuiltCli } from './arithmetic-cli.ts';
+import { parseFlags, refusal } from './flags.ts';
 
 let cli: BuiltCli;
 let empty: string;
@@ -18,6 +21,12 @@ afterAll(() => {
 
 const run = (args: string[], cwd = empty) => cli.run(['convert', ...args], { cwd });
 
+/** What `panform convert <args>` collects, in-process (yeast factors from the demo catalog, which sets none of its own). */
+async function collect(args: string[]) {
+  const { operands, options } = parseFlags<Parameters<typeof toConvertOptions>[2]>(convertCommand, args);
+  return collectConvert(toConvertOptions(operands[0], operands.slice(1), options));
+}
+
 describe('panform convert', () => {
   it.each([
     [['2', 'lb', 'g'], '2 lb ≈ 907 g'], // NIST SP 811 App. B.8: 1 lb = 453.592 37 g exactly; 907.18474 g to the gram
@@ -30,21 +39,22 @@ describe('panform convert', () => {
     [['10', 'g', 'fresh', 'active-dry'], '10 g fresh yeast = 4 g active dry yeast (× 0.4)'], // Hamelman, Bread (Wiley 2004): × 0.4
     [['4', 'g', 'active-dry', 'instant'], '4 g active dry yeast = 3.3 g instant yeast (× 0.825)'], // Hamelman's factors: 0.33 / 0.4
   ])('converts %j', async (args, line) => {
-    const r = await run(args);
-    expect(r.code).toBe(0);
-    expect(r.stdout.split('\n')[0]).toBe(line);
+    expect(convertText(await collect(args)).split('\n')[0]).toBe(line);
   });
 
-  it('prints JSON with --json, unrounded', async () => {
-    const r = await run(['2', 'lb', 'g', '--json']);
-    expect(JSON.parse(r.stdout)).toMatchObject({ kind: 'mass', value: 2, from: 'lb', to: 'g', result: 907.18474 }); // NIST SP 811 App. B.8
-    const t = JSON.parse((await run(['78', 'F', 'C', '--json'])).stdout);
-    expect(t.result).toBeCloseTo(25.5555555556, 9); // NIST SP 811 App. B.8: (78 − 32)/1.8
+  it('prints the first line through the built CLI, exit 0', async () => {
+    const r = await run(['2', 'lb', 'g']);
+    expect(r.code).toBe(0);
+    expect(r.stdout.split('\n')[0]).toBe('2 lb ≈ 907 g'); // NIST SP 811 App. B.8: 1 lb = 453.592 37 g exactly
+  });
+
+  it('collects the unrounded result for --json', async () => {
+    expect(await collect(['2', 'lb', 'g', '--json'])).toMatchObject({ kind: 'mass', value: 2, from: 'lb', to: 'g', result: 907.18474 }); // NIST SP 811 App. B.8
+    expect((await collect(['78', 'F', 'C', '--json'])).result).toBeCloseTo(25.5555555556, 9); // NIST SP 811 App. B.8: (78 − 32)/1.8
   });
 
   it('rounds the temperature difference line too', async () => {
-    const r = await run(['78', 'F', 'C']);
-    expect(r.stdout.replace(/\n\s+/g, ' ')).toContain('78 °F-degrees ≈ 43.3 °C-degrees'); // NIST SP 811 App. B.8: a difference converts by 5/9 alone
+    expect(convertText(await collect(['78', 'F', 'C'])).replace(/\n\s+/g, ' ')).toContain('78 °F-degrees ≈ 43.3 °C-degrees'); // NIST SP 811 App. B.8: a difference converts by 5/9 alone
   });
 
   it('takes the yeast factor from the catalog when it sets one', async () => {
@@ -65,10 +75,14 @@ describe('panform convert', () => {
     [['three', 'lb', 'g'], 'panform: not a number: "three"'],
     [['3', 'lb'], 'panform: give a value and two units (three for yeast); got 1 unit(s)'],
   ])('refuses %j with exit 2 and one clear line', async (args, message) => {
-    const r = await run(args);
+    expect(await refusal(() => collect(args))).toEqual({ code: 2, line: message });
+  });
+
+  it('prints a refusal as one line on stderr, exit 2', async () => {
+    const r = await run(['3', 'stone', 'g']);
     expect(r.code).toBe(2);
     expect(r.stdout).toBe('');
-    expect(r.stderr.split('\n')[0]).toBe(message);
+    expect(r.stderr.split('\n')[0]).toBe('panform: unknown unit "stone"');
   });
 
   it('shows an example in --help', async () => {

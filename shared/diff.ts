@@ -1,5 +1,5 @@
 // What changed between two versions of a formula, in baker's terms: ingredient lines added,
-// removed or re-percented; pre-ferments and soakers; process steps; yield, loss, dough temperature,
+// removed or re-percented; pre-ferments and soakers; process steps; yield, loss, bake loss, finishes, dough temperature,
 // title and status; and the figures of each version's reference batch side by side. Pure.
 import type { FormulaFigures } from './api.ts';
 import type { Catalog, Formula, Line, Preferment, Soaker, Step } from './model.ts';
@@ -70,7 +70,7 @@ export interface FormulaDiff {
   id: string;
   title: string;
   change: ChangeKind | 'unchanged';
-  /** id, title, status, category, description, tags, yield, loss, dough temperature, may contain, notes. */
+  /** id, title, status, category, description, tags, yield, loss, bake loss, dough temperature, finishes, may contain, notes. */
   fields: FieldChange[];
   flour: LineChange[];
   ingredients: LineChange[];
@@ -253,6 +253,8 @@ function figuresOf(f: Formula | null, catalog: Catalog, problems: string[], side
 }
 
 const batch = (f: Formula | null) => (f ? `${f.yield.pieces} × ${formatNumber(f.yield.pieceGrams)} g` : null);
+const pctOrNull = (p: number | undefined) => (p === undefined ? null : `${formatNumber(p)} %`);
+const finishes = (f: Formula | null) => list(f?.finishes.map((x) => `${x.ingredient} ${formatNumber(x.perPieceGrams)} g a piece (${x.use})`));
 const list = (xs: string[] | undefined) => (xs && xs.length > 0 ? xs.join(', ') : null);
 
 /**
@@ -273,7 +275,9 @@ export function diffFormulas(before: Formula | null, after: Formula | null, cata
   field(fields, 'tags', 'tags', list(a?.tags), list(b?.tags));
   field(fields, 'yield', 'yield (reference batch)', batch(a), batch(b));
   field(fields, 'loss', 'loss', a ? `${formatNumber(a.loss)} %` : null, b ? `${formatNumber(b.loss)} %` : null);
+  field(fields, 'bakeLoss', 'bake loss', pctOrNull(a?.bakeLoss), pctOrNull(b?.bakeLoss));
   field(fields, 'doughTemperature', 'dough temperature', temp(a?.doughTemperature), temp(b?.doughTemperature));
+  field(fields, 'finishes', 'finishes', finishes(a), finishes(b));
   field(fields, 'mayContain', 'may contain', list(a?.mayContain), list(b?.mayContain));
   field(fields, 'notes', 'notes', a?.notes ?? null, b?.notes ?? null);
 

@@ -90,6 +90,14 @@ describe('diffFormulas', () => {
     ]);
   });
 
+  it('names a changed bake loss and changed finishes, which change the label', () => {
+    const after = { ...OLD, bakeLoss: 12, finishes: [{ ingredient: 'whole milk', perPieceGrams: 3, use: 'wash' as const }] };
+    expect(diffFormulas(OLD, after, CATALOG).fields).toEqual([
+      { field: 'bakeLoss', label: 'bake loss', before: null, after: '12 %' },
+      { field: 'finishes', label: 'finishes', before: null, after: 'whole milk 3 g a piece (wash)' },
+    ]);
+  });
+
   it('matches process steps in order and reports changed settings, added and unchanged steps', () => {
     expect(d.process).toEqual([
       { change: 'changed', step: 'mix', beforeIndex: 1, afterIndex: 1, before: 'mix 10 min', after: 'mix 12 min', fields: ['minutes'] },

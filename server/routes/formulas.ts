@@ -17,7 +17,7 @@ import { scaleFormula, ScaleError, type ScaleTarget } from '#shared/scale';
 import type { FormulaFile } from '#shared/schema/shapes';
 import { FORMULA_STATUSES } from '#shared/schema/vocabulary';
 import { matchesSearch, searchWords } from '#shared/search';
-import { parseMassArgument, QuantityError } from '#shared/units';
+import { BatchError, parseBatch } from '#shared/batch';
 import { requirePermission } from '../auth/guards.ts';
 import type { ServerContext } from '../context.ts';
 import { formulaRevisionsTable, formulasTable } from '../db/schema.ts';
@@ -27,11 +27,8 @@ import { pickFigures } from '#shared/figures';
 import type { FormulaEntry, Snapshot } from './data.ts';
 import { formulaCautions } from '#shared/cautions';
 
-const MAX_PIECES = 100_000;
 /** Answers kept per load; beyond this (many different scalings) they are computed each time. */
 const MEMO_LIMIT = 2_000;
-/** 10 t of dough: far beyond any mixer, small enough to keep the arithmetic meaningful. */
-const MAX_GRAMS = 10_000_000;
 
 /** A catalog entry without its price, for roles that may not see costs. */
 export function withoutPrice(item: CatalogItem): CatalogItem {
@@ -95,32 +92,17 @@ function usable(entry: FormulaEntry): Formula {
   return entry.formula;
 }
 
-function massQuery(req: Request, name: string): number | undefined {
-  const text = queryString(req, name, 40);
-  if (text === undefined || text.trim() === '') return undefined;
-  let grams: number;
+/** `?pieces=N[&piece=W]`, `?mix=W` or `?flour=W` (shared/batch.ts); none: the formula's own yield. */
+export function readScaleTarget(req: Request, formula: Formula): ScaleTarget {
   try {
-    grams = parseMassArgument(text);
+    return parseBatch({ pieces: queryString(req, 'pieces', 40), piece: queryString(req, 'piece', 40), mix: queryString(req, 'mix', 40), flour: queryString(req, 'flour', 40) }) ?? {
+      by: 'pieces',
+      pieces: formula.yield.pieces,
+    };
   } catch (e) {
-    if (e instanceof QuantityError) throw invalid(`${name} must be a weight like 320 g or 2.5 kg (a bare number is grams); got "${text}"`, [{ path: name, message: 'not a weight' }]);
+    if (e instanceof BatchError) throw invalid(e.hint ? `${e.message} (${e.hint})` : e.message, [{ path: e.field, message: e.message }]);
     throw e;
   }
-  if (!(grams > 0) || grams > MAX_GRAMS) throw invalid(`${name} must be above 0 g and at most ${MAX_GRAMS / 1_000_000} t; got "${text}"`, [{ path: name, message: 'out of range' }]);
-  return grams;
-}
-
-/** `?pieces=N[&piece=W]`, `?mix=W` or `?flour=W`; none: the formula's own yield. */
-export function readScaleTarget(req: Request, formula: Formula): ScaleTarget {
-  const pieces = queryInteger(req, 'pieces', { min: 1, max: MAX_PIECES });
-  const piece = massQuery(req, 'piece');
-  const mix = massQuery(req, 'mix');
-  const flour = massQuery(req, 'flour');
-  const given = [pieces !== undefined || piece !== undefined, mix !== undefined, flour !== undefined].filter(Boolean).length;
-  if (given > 1) throw invalid('scale by one of pieces (with piece), mix or flour, not several', [{ path: 'pieces', message: 'conflicts with mix/flour' }]);
-  if (mix !== undefined) return { by: 'mix', grams: mix };
-  if (flour !== undefined) return { by: 'flour', grams: flour };
-  if (pieces !== undefined || piece !== undefined) return { by: 'pieces', pieces: pieces ?? formula.yield.pieces, pieceGrams: piece };
-  return { by: 'pieces', pieces: formula.yield.pieces };
 }
 
 function scaleOr422(formula: Formula, catalog: Catalog, target: ScaleTarget) {

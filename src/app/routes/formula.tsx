@@ -98,7 +98,7 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
       <div className="flex flex-col gap-4 lg:grid lg:grid-cols-[minmax(0,1fr)_24rem] lg:items-start print:block">
         <div className="contents lg:col-start-2 lg:row-start-1 lg:block lg:space-y-4 print:block print:space-y-2">
           <Panel title="Batch size" className="order-1 print:hidden" id="scale">
-            <ScaleControl formula={formula} target={target} onChange={setTarget} />
+            <ScaleControl formula={formula} target={target} mixedDough={scaled.mixedDough} onChange={setTarget} />
             {problem && (
               <div className="mt-3">
                 <Notice title="Cannot scale to that">{problem}</Notice>

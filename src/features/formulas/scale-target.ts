@@ -1,17 +1,22 @@
 // The batch a formula is scaled to, kept in the URL so a scaled formula can be bookmarked,
 // shared and printed: ?pieces=60&piece=320 (grams) or ?mix=28500 (grams of mixed dough).
+// Read by shared/batch.ts like the CLI's flags and the API's query; an address it refuses (edited
+// by hand) shows the written batch.
+import { BatchError, parseBatch } from '#shared/batch';
 import type { Formula } from '#shared/model';
 import type { ScaleTarget } from '#shared/scale';
 
 export function targetFromSearch(params: URLSearchParams, formula: Formula): ScaleTarget {
-  const mix = positive(params.get('mix'));
-  if (mix !== null) return { by: 'mix', grams: mix };
-  const pieces = positive(params.get('pieces'));
-  const piece = positive(params.get('piece'));
-  if (pieces !== null || piece !== null) {
-    return { by: 'pieces', pieces: pieces ?? formula.yield.pieces, pieceGrams: piece ?? formula.yield.pieceGrams };
+  let target: ScaleTarget | null;
+  try {
+    const field = (name: string) => params.get(name) ?? undefined;
+    target = parseBatch({ pieces: field('pieces'), piece: field('piece'), mix: field('mix'), flour: field('flour') });
+  } catch (e) {
+    if (e instanceof BatchError) return writtenBatch(formula);
+    throw e;
   }
-  return writtenBatch(formula);
+  if (target === null) return writtenBatch(formula);
+  return target.by === 'pieces' ? { ...target, pieceGrams: target.pieceGrams ?? formula.yield.pieceGrams } : target;
 }
 
 export function writtenBatch(formula: Formula): ScaleTarget {
@@ -30,10 +35,4 @@ export function searchFromTarget(target: ScaleTarget, formula: Formula): Record<
   const out: Record<string, string> = { pieces: String(target.pieces) };
   if (target.pieceGrams !== undefined && target.pieceGrams !== formula.yield.pieceGrams) out.piece = String(target.pieceGrams);
   return out;
-}
-
-function positive(text: string | null): number | null {
-  if (text === null || text.trim() === '') return null;
-  const n = Number(text);
-  return Number.isFinite(n) && n > 0 ? n : null;
 }

@@ -12,7 +12,18 @@ type Mode = 'pieces' | 'mix';
  * How big a batch: pieces × piece weight, or a weight of mixed dough. Every valid keystroke
  * becomes the new target at once; a half-typed number waits.
  */
-export function ScaleControl({ formula, target, onChange }: { formula: Formula; target: ScaleTarget; onChange: (t: ScaleTarget) => void }) {
+export function ScaleControl({
+  formula,
+  target,
+  mixedDough,
+  onChange,
+}: {
+  formula: Formula;
+  target: ScaleTarget;
+  /** The mixed dough of the batch shown now (shared/scale.ts), where a switch to dough weight starts. */
+  mixedDough: number;
+  onChange: (t: ScaleTarget) => void;
+}) {
   const mode: Mode = target.by === 'mix' ? 'mix' : 'pieces';
   const piecesNow = target.by === 'pieces' ? target.pieces : formula.yield.pieces;
   const pieceNow = target.by === 'pieces' ? (target.pieceGrams ?? formula.yield.pieceGrams) : formula.yield.pieceGrams;
@@ -42,8 +53,7 @@ export function ScaleControl({ formula, target, onChange }: { formula: Formula; 
     if (m === mode) return;
     if (m === 'pieces') onChange({ by: 'pieces', pieces: piecesValue && !piecesError ? piecesValue : formula.yield.pieces, pieceGrams: pieceValue && !pieceError ? pieceValue : formula.yield.pieceGrams });
     else {
-      const start = target.by === 'pieces' ? (target.pieces * (target.pieceGrams ?? formula.yield.pieceGrams)) / (1 - formula.loss / 100) : 10_000;
-      const kg = Math.round(start / 100) / 10;
+      const kg = Math.round(mixedDough / 100) / 10;
       setMixKg(trim(kg));
       onChange({ by: 'mix', grams: kg * 1000 });
     }

@@ -38,7 +38,7 @@ export function parseBatch(fields: BatchFields, name: (f: BatchField) => string 
   const given = (f: BatchField) => fields[f] !== undefined && fields[f]!.trim() !== '';
   const modes = (['pieces', 'mix', 'flour'] as const).filter(given);
   if (modes.length > 1) {
-    throw new BatchError(modes[1], `${name(modes[0])} and ${name(modes[1])} cannot be used together`, `give one of ${name('pieces')} N [${name('piece')} W], ${name('mix')} W or ${name('flour')} W`);
+    throw new BatchError(modes[0], `${name(modes[0])} and ${name(modes[1])} cannot be used together`, `give one of ${name('pieces')} N [${name('piece')} W], ${name('mix')} W or ${name('flour')} W`);
   }
   if (given('piece') && !given('pieces')) throw new BatchError('piece', `${name('piece')} needs ${name('pieces')}`, `e.g. ${name('pieces')} 18 with ${name('piece')} 900g`);
   if (given('pieces')) {

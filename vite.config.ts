@@ -47,6 +47,8 @@ export default defineConfig({
   test: {
     include: ['tests/**/*.test.ts', 'tests/**/*.test.tsx'],
     setupFiles: ['tests/setup/fail-on-console.ts'],
+    // The CLI is built once per run for the tests that run it as a process.
+    globalSetup: ['tests/setup/cli-build.ts'],
     testTimeout: 30_000,
     hookTimeout: 60_000,
     pool: 'forks',

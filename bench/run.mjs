@@ -98,7 +98,7 @@ function newestMtime(paths) {
 }
 
 function ensureBuilt(opts) {
-  const cliOut = join(ROOT, 'dist', 'cli', 'panform.cjs');
+  const cliOut = join(ROOT, 'dist', 'cli', 'index.js');
   const webOut = join(ROOT, 'dist', 'web', 'index.html');
   const missing = !existsSync(cliOut) || !existsSync(webOut);
   const built = Math.min(missing ? 0 : statSync(cliOut).mtimeMs, missing ? 0 : statSync(webOut).mtimeMs);

@@ -1,7 +1,6 @@
 // Which module each command lives in. Only the command named on the command line is imported, so
 // a command starts without loading the others' dependencies (the database, the PDF library, the
-// server). The quick ones (QUICK_COMMANDS in scripts/cli-bundle.mjs) also ship as one CommonJS
-// bundle each, which cli/launch.ts starts from a V8 code cache.
+// server).
 import type { Command } from 'commander';
 
 export type CommandModule = { command: Command };

@@ -1,5 +1,4 @@
-// Every command as ES modules (compiled to dist/cli/index.js; cli/launch.ts starts it for the
-// commands that have no quick bundle).
+// The `panform` program (compiled to dist/cli/index.js, which bin/panform.js runs).
 import { COMMANDS } from './command-table.ts';
 import { runCli } from './program.ts';
 

@@ -1,23 +1,10 @@
-// The ajv validators of the three file schemas, compiled on first use. The CLI bundle replaces
-// this module with standalone code generated at build time from the committed JSON Schemas
-// (scripts/standalone-validators.mjs, wired in scripts/build.mjs), so `panform` does not load
-// the ajv compiler and TypeBox, nor compile the schemas, on every start. Both must give the same
-// errors: tests/reliability/standalone-validators.test.ts compares them.
-import { Ajv, type ValidateFunction } from 'ajv';
-import { SCHEMAS, type SchemaKind } from './shapes.ts';
-
-/** Keep equal to AJV_OPTIONS in scripts/standalone-validators.mjs. */
-export const AJV_OPTIONS = { allErrors: true, strict: false, allowUnionTypes: true } as const;
-
-let ajv: Ajv | undefined;
-const validators = new Map<SchemaKind, ValidateFunction>();
+// The ajv validators of the three file schemas. They are compiled ahead of time by
+// `npm run schema` into validators.generated.ts (committed), so checking a file runs no ajv
+// compiler and no TypeBox, and the CLI, the server and the tests all run the same code.
+import type { ValidateFunction } from 'ajv';
+import type { SchemaKind } from './shapes.ts';
+import * as generated from './validators.generated.ts';
 
 export function validatorFor(kind: SchemaKind): ValidateFunction {
-  let v = validators.get(kind);
-  if (!v) {
-    ajv ??= new Ajv({ ...AJV_OPTIONS });
-    v = ajv.compile(SCHEMAS[kind]);
-    validators.set(kind, v);
-  }
-  return v;
+  return (generated as unknown as Record<SchemaKind, ValidateFunction>)[kind];
 }

@@ -1,11 +1,8 @@
-// Builds the CLI the way scripts/build.mjs does, into a private folder per test file, so that
-// tests running in parallel never see another file's build half-written; then runs it as
-// `node panform.cjs <args>` (what bin/panform.js loads).
+// Runs the CLI built once for the whole test run (tests/setup/cli-build.ts) as a separate
+// process: `node index.js <args>`, what bin/panform.js runs.
 import { execFile } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { buildCliBundle } from '../../scripts/cli-bundle.mjs';
+import { inject } from 'vitest';
 
 export const ROOT = fileURLToPath(new URL('../..', import.meta.url));
 
@@ -16,24 +13,17 @@ export interface CliRun {
 }
 
 export interface BuiltCli {
-  /** The folder the CLI was built into. */
-  dir: string;
+  /** The entry file of the built CLI. */
+  entry: string;
   run(args: string[], opts?: { cwd?: string; input?: string }): Promise<CliRun>;
   dispose(): void;
 }
 
+/** The CLI built for this test run (no build here; kept async and disposable for the callers). */
 export async function buildCli(): Promise<BuiltCli> {
-  // Inside node_modules so the bundle's bare imports (pdfkit, express ...) resolve as in dist/.
-  const outdir = mkdtempSync(join(ROOT, 'node_modules', '.cache-panform-cli-'));
-  try {
-    await buildCliBundle({ root: ROOT, outdir, logLevel: 'silent' });
-  } catch (e) {
-    rmSync(outdir, { recursive: true, force: true });
-    throw e;
-  }
-  const entry = join(outdir, 'panform.cjs');
+  const entry = inject('panformCli');
   return {
-    dir: outdir,
+    entry,
     run(args, opts = {}) {
       return new Promise((resolve) => {
         const child = execFile(process.execPath, [entry, ...args], { cwd: opts.cwd ?? ROOT, env: { ...process.env, NO_COLOR: '1' } }, (err, stdout, stderr) => {
@@ -45,7 +35,7 @@ export async function buildCli(): Promise<BuiltCli> {
       });
     },
     dispose() {
-      rmSync(outdir, { recursive: true, force: true });
+      // The build belongs to the run; tests/setup/cli-build.ts removes it at the end.
     },
   };
 }

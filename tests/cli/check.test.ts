@@ -1,22 +1,19 @@
-import { execFileSync, spawnSync } from 'node:child_process';
-import { cpSync, existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { cpSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 
-// End to end: the built CLI, as a baker runs it (`node bin/panform.js check`).
+// End to end: the built CLI (built once per test run, tests/setup/cli-build.ts), as a baker runs it.
 const ROOT = new URL('../../', import.meta.url).pathname;
-const ENTRY = join(ROOT, 'dist/cli/panform.cjs');
 
 function run(args: string[], cwd = ROOT) {
-  const r = spawnSync(process.execPath, [join(ROOT, 'bin/panform.js'), 'check', ...args], { cwd, encoding: 'utf8' });
+  const r = spawnSync(process.execPath, [inject('panformCli'), 'check', ...args], { cwd, encoding: 'utf8' });
   return { code: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
 let scratch: string;
 beforeAll(() => {
-  // `npm install` builds dist/ (prepare); build the CLI here only when it is missing.
-  if (!existsSync(ENTRY)) execFileSync(process.execPath, ['scripts/build.mjs', '--cli'], { cwd: ROOT, stdio: 'pipe' });
   scratch = mkdtempSync(join(tmpdir(), 'panform-check-'));
 });
 afterAll(() => {

@@ -5,7 +5,7 @@
 // - 50 clients reading formulas and plans for a few seconds get no error (the bench runs the long
 //   version: 200 clients for 30 s, `npm run bench`);
 // - the server stops cleanly and starts again on the same directory, also after being killed.
-// The CLI is built as shipped (cli-build.ts) and runs as a separate process, like a baker's
+// The CLI is built as shipped, once per test run (tests/setup/cli-build.ts), and runs as a separate process, like a baker's
 // terminal would start it.
 import { spawn, type ChildProcess } from 'node:child_process';
 import { cpSync, existsSync, mkdtempSync, rmSync, unlinkSync, writeFileSync } from 'node:fs';
@@ -14,18 +14,17 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { setTimeout as sleep } from 'node:timers/promises';
 import fc from 'fast-check';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { generateFormulaYaml, writeGeneratedFolder } from '../../bench/generate-formulas.mjs';
 import { createUser } from '../../server/auth/users.ts';
 import { LOCK_FILE, migrateDatabase, openDatabase } from '../../server/db/client.ts';
 import { loadFolder } from '../../server/load/index.ts';
 import { readLoadedState } from '../setup/databases.ts';
 import { TEST_SCRYPT } from '../server/harness.ts';
-import { buildCliForTests, type CliBuild } from './cli-build.ts';
 import { fuzzRuns } from './generators.ts';
 
 const ROOT = process.cwd();
-let cli: CliBuild;
+let cli: { entry: string };
 const USER = { email: 'night-shift@tidewater.example', password: 'proof-box-at-26-degrees', role: 'bench' as const };
 /** Kills per run of the suite: 4, or more with PANFORM_FUZZ_RUNS (npm run test:large). */
 const KILLS = process.env.PANFORM_FUZZ_RUNS ? Math.min(25, Math.max(4, Math.round(fuzzRuns(1000) / 1000))) : 4;
@@ -109,7 +108,7 @@ async function waitFor(what: string, test: () => boolean | Promise<boolean>, tim
 }
 
 beforeAll(async () => {
-  cli = await buildCliForTests(ROOT);
+  cli = { entry: inject('panformCli') };
   work = mkdtempSync(join(tmpdir(), 'panform-faults-'));
   folderA = join(work, 'formulas-a');
   folderB = join(work, 'formulas-b');
@@ -149,7 +148,6 @@ beforeAll(async () => {
 afterAll(async () => {
   for (const c of children) c.kill('SIGKILL');
   if (work) rmSync(work, { recursive: true, force: true });
-  cli?.dispose();
 });
 
 describe('a load killed at a random moment', () => {

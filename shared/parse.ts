@@ -1,17 +1,8 @@
-// Reads the text of a formula, catalog or plan file: YAML with source positions, then the
-// JSON Schema (ajv), then normalization. Every problem is a located Finding; nothing throws for
-// bad input. Pure: the caller reads the file and passes its text in.
-//
-// Two YAML readers, one meaning. js-yaml reads a well-formed file quickly (a cold start of the
-// `yaml` package's lexer costs several times a bare Node start on a 2-core machine); the `yaml`
-// package, with source positions and precise messages, is used when the quick read fails (a
-// syntax error, an alias, a tag js-yaml would read differently) and, lazily, the first time a
-// finding needs a line and column. Both read YAML 1.2's core schema; tests/shared/yaml-readers
-// checks they agree wherever the quick read is taken.
+// Reads the text of a formula, catalog or plan file: YAML with source positions (the `yaml`
+// package), then the JSON Schema (ajv), then normalization. Every problem is a located Finding;
+// nothing throws for bad input. Pure: the caller reads the file and passes its text in.
 import type { ErrorObject } from 'ajv';
-import { createRequire } from 'node:module';
-import { CORE_SCHEMA, load as quickLoad } from 'js-yaml';
-import type { Document, LineCounter, Node } from 'yaml';
+import { isMap, isPair, isScalar, isSeq, LineCounter, parseDocument, type Document, type Node } from 'yaml';
 import type { CatalogFile, FormulaFile, PlanFile, SchemaKind } from './schema/shapes.ts';
 import { validatorFor } from './schema/validators.ts';
 import { normalizeCatalog, normalizeFormula, normalizePlan, type Catalog, type Formula, type Plan } from './model.ts';
@@ -19,16 +10,6 @@ import { QuantityError } from './units.ts';
 
 import type { Finding } from './findings.ts';
 export { formatFinding, sortFindings, type Finding, type Severity } from './findings.ts';
-
-type YamlPackage = typeof import('yaml');
-let yamlPackage: YamlPackage | undefined;
-/**
- * The `yaml` package, loaded the first time the full reader is needed. Loading it is not free
- * (compiling it takes a tenth of a bare Node start), and a well-formed file never needs it.
- */
-function fullYaml(): YamlPackage {
-  return (yamlPackage ??= createRequire(import.meta.url)('yaml') as YamlPackage);
-}
 
 export interface SourceMap {
   /** Position of the value at a JSON pointer (or of its nearest existing parent). */
@@ -58,7 +39,6 @@ export function decodePointer(pointer: string): string[] {
 }
 
 function makeSourceMap(doc: Document, lc: LineCounter): SourceMap {
-  const { isMap, isPair, isScalar, isSeq } = fullYaml();
   const pos = (offset: number) => {
     const p = lc.linePos(offset);
     return { line: p.line, col: p.col };
@@ -151,51 +131,6 @@ function pruneAjvErrors(errors: ErrorObject[]): ErrorObject[] {
   return out;
 }
 
-/**
- * Texts where js-yaml and the `yaml` package part ways (found by tests/shared/yaml-readers and
- * its fuzzing) go to the full reader. None of these appears in a Panform file written by hand or
- * by `panform init`; they cost only speed, never meaning.
- */
-const NEEDS_FULL_READER = [
-  /[0-9.][eE][-+]?[0-9]{3}/, // a float that overflows: js-yaml keeps "1e309" a string, the core schema makes it .inf
-  /\r(?!\n)/, // a lone carriage return: a line break to js-yaml, refused by `yaml`
-  /\t/, // tabs: the two differ on where they may stand in the indentation
-  /^[ ]*(---|\.\.\.|%)/m, // document markers and directives
-  /(^|[\s{[,-])[:?](?=[\s,\]}]|$)/m, // an empty or complex key (a lone ":" or "?")
-  /(^|[\s{[,-])(~|null|Null|NULL)[ ]*[:,}\]]/m, // a null key: "" to `yaml`, "null" to js-yaml
-  /(^|[\s{[,-])[&!][^\s]/m, // anchors and tags ("&name", "!tag"); a lone "&" in a note is plain text
-  /[|>][-+]?[0-9]/, // a block scalar with an explicit indentation
-];
-
-/**
- * The quick read: plain data, or null when the text must go through the full reader. Aliases
- * are refused here (the full reader bounds their expansion), and so is anything js-yaml rejects.
- */
-export function quickReadYaml(body: string): { data: unknown } | null {
-  if (NEEDS_FULL_READER.some((re) => re.test(body))) return null;
-  try {
-    return { data: quickLoad(body, { schema: CORE_SCHEMA, maxAliases: 0 }) };
-  } catch {
-    return null;
-  }
-}
-
-/** Positions found by the full reader the first time one is asked for. */
-function lazySourceMap(body: string): SourceMap {
-  let real: SourceMap | undefined;
-  return {
-    locate(pointer, which) {
-      if (!real) {
-        const { LineCounter, parseDocument } = fullYaml();
-        const lc = new LineCounter();
-        const doc = parseDocument(body, { lineCounter: lc, uniqueKeys: true, prettyErrors: false });
-        real = makeSourceMap(doc, lc);
-      }
-      return real.locate(pointer, which);
-    },
-  };
-}
-
 /** YAML text → plain data with positions, or located findings. Never throws. */
 export function parseYamlText(text: string, file: string): { ok: true; data: unknown; source: SourceMap } | { ok: false; findings: Finding[] } {
   const at = (line: number, col: number, message: string): Finding => ({ file, line, col, severity: 'error', message });
@@ -205,14 +140,7 @@ export function parseYamlText(text: string, file: string): { ok: true; data: unk
   if (!/^\s*[^\s#]/m.test(body)) {
     return { ok: false, findings: [at(1, 1, 'the file is empty')] };
   }
-  const quick = quickReadYaml(body);
-  if (quick) return { ok: true, data: quick.data, source: lazySourceMap(body) };
-  return parseYamlFully(body, at);
-}
-
-/** The full reader: every syntax problem located, aliases expanded within bounds. */
-function parseYamlFully(body: string, at: (line: number, col: number, message: string) => Finding): { ok: true; data: unknown; source: SourceMap } | { ok: false; findings: Finding[] } {
-  const { LineCounter, parseDocument } = fullYaml();
+  // Every syntax problem located; aliases expanded within bounds.
   const lc = new LineCounter();
   let doc: Document;
   try {

@@ -1,5 +1,5 @@
-// Builds the CLI + server bundle (esbuild, scripts/cli-bundle.mjs) and the viewer (Vite: the
-// browser's build in dist/web, the server's first-render build in dist/ssr).
+// Builds the CLI + server bundle (esbuild, scripts/cli-bundle.mjs) into dist/cli and the viewer
+// (Vite) into dist/web.
 // Run by `npm run build` and by `prepare` on `npm install`; `--cli` builds the CLI alone.
 import { renameSync, rmSync } from 'node:fs';
 import { buildCliBundle } from './cli-bundle.mjs';

@@ -3,6 +3,7 @@
 import { existsSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import helmet from 'helmet';
 import express, { Router, type Express, type NextFunction, type Request, type Response } from 'express';
 import { csrfProtection } from './auth/csrf.ts';
 import { DEFAULT_SCRYPT, hashPassword, randomPassword, type ScryptParams } from './auth/password.ts';
@@ -12,8 +13,6 @@ import type { OutgoingMail, ServerContext } from './context.ts';
 import type { DatabaseHandle } from './db/client.ts';
 import type { Env } from './env.ts';
 import { errorMiddleware, notFound } from './http/errors.ts';
-import { securityHeaders } from './http/security-headers.ts';
-import { createPageRenderer } from './ssr.ts';
 import { DataCache } from './routes/data.ts';
 import { formulasRouter } from './routes/formulas.ts';
 import { plansRouter } from './routes/plans.ts';
@@ -128,7 +127,7 @@ export function createApp(opts: AppOptions): Express {
   // icons), fetches to this origin, and PDFs of this origin in a frame for print preview.
   // Inline styles are allowed because React sets style attributes; inline scripts are not.
   app.use(
-    securityHeaders({
+    helmet({
       contentSecurityPolicy: {
         useDefaults: false,
         directives: {
@@ -209,16 +208,14 @@ export function createApp(opts: AppOptions): Express {
       }),
     );
   }
-  // Every other GET is a page of the single-page viewer: its index.html, never cached, so a new
-  // build is picked up at once. A signed-in visitor's formula page comes rendered (server/ssr.ts):
-  // per person, so private.
-  const pages = webDir ? createPageRenderer(webDir, context, log) : null;
-  app.use(async (req: Request, res: Response, next: NextFunction) => {
+  // Every other GET is a page of the single-page viewer: its index.html, the same for everyone,
+  // never cached, so a new build is picked up at once.
+  app.use((req: Request, res: Response, next: NextFunction) => {
     if (req.method !== 'GET' && req.method !== 'HEAD') {
       next();
       return;
     }
-    if (!pages) {
+    if (!webDir) {
       res.status(503).type('text/plain').send('The Panform viewer is not built. Run `npm run build`, then start the server again.\n');
       return;
     }
@@ -227,11 +224,9 @@ export function createApp(opts: AppOptions): Express {
       res.status(400).type('text/plain').send('That address is not a page of Panform.\n');
       return;
     }
-    const session = await sessionOf(req);
-    const url = new URL(req.originalUrl, 'http://panform.local');
-    const html = await pages.page(url.pathname, url.search, session?.user ?? null);
-    res.setHeader('Cache-Control', 'private, no-cache');
-    res.type('html').send(html);
+    res.sendFile(join(webDir, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } }, (err) => {
+      if (err) next(err);
+    });
   });
   app.use(errorMiddleware(log));
 

@@ -1,25 +1,15 @@
 // Providers and the app-wide error boundary: the outermost layer of error handling.
-import { QueryClientProvider, type QueryClient } from '@tanstack/react-query';
-import { useState, type ReactNode } from 'react';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { useState } from 'react';
 import { RouterProvider } from 'react-router/dom';
 import { ErrorBoundary } from '../components/error-boundary.tsx';
 import { GenericErrorView } from '../components/error-view.tsx';
 import { createQueryClient } from '../lib/query-client.ts';
 import { createAppRouter } from './router.tsx';
 
-/** With `start`, a query client and router made beforehand (a page the server rendered). */
-export function App({ start }: { start?: { queryClient: QueryClient; router: ReturnType<typeof createAppRouter> } }) {
-  const [queryClient] = useState(() => start?.queryClient ?? createQueryClient());
-  const [router] = useState(() => start?.router ?? createAppRouter(queryClient));
-  return (
-    <AppFrame queryClient={queryClient}>
-      <RouterProvider router={router} />
-    </AppFrame>
-  );
-}
-
-/** The providers around the router, the same in the browser and in the server's first render. */
-export function AppFrame({ queryClient, children }: { queryClient: QueryClient; children: ReactNode }) {
+export function App() {
+  const [queryClient] = useState(createQueryClient);
+  const [router] = useState(() => createAppRouter(queryClient));
   return (
     <ErrorBoundary
       fallback={(error) => (
@@ -28,7 +18,9 @@ export function AppFrame({ queryClient, children }: { queryClient: QueryClient; 
         </main>
       )}
     >
-      <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>
+      <QueryClientProvider client={queryClient}>
+        <RouterProvider router={router} />
+      </QueryClientProvider>
     </ErrorBoundary>
   );
 }

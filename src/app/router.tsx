@@ -1,7 +1,7 @@
 // The router: one table, pages loaded lazily (each its own chunk), loaders prefetching with the
 // same query options the pages read.
 import type { QueryClient } from '@tanstack/react-query';
-import { createBrowserRouter, redirect, type HydrationState, type RouteObject } from 'react-router';
+import { createBrowserRouter, redirect, type RouteObject } from 'react-router';
 import { NotFoundView } from '../components/error-view.tsx';
 import { Loading } from '../components/spinner.tsx';
 import { requireMe } from './guards.ts';
@@ -14,7 +14,6 @@ import { RootErrorBoundary, RouteErrorBoundary } from './route-error.tsx';
 const page = (load: () => Promise<{ default: React.ComponentType }>) => () =>
   load().then((m) => ({ Component: m.default, ErrorBoundary: RouteErrorBoundary }));
 
-/** The viewer's routes: the browser's router and the server's first render (src/ssr) share them. */
 export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
   const loaders = createLoaders(queryClient);
   const routes: RouteObject[] = [
@@ -55,7 +54,6 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
   return routes;
 }
 
-/** `hydrationData`: the loader answers of a page the server rendered (src/main.tsx). */
-export function createAppRouter(queryClient: QueryClient, routes = createAppRoutes(queryClient), hydrationData?: HydrationState) {
-  return createBrowserRouter(routes, hydrationData ? { hydrationData } : undefined);
+export function createAppRouter(queryClient: QueryClient) {
+  return createBrowserRouter(createAppRoutes(queryClient));
 }

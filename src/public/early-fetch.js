@@ -3,8 +3,6 @@
 // the server's time off the wait for the first weights. A plain script, copied as it is (Vite
 // `publicDir`), so it runs the moment it arrives.
 (function () {
-  // A page the server rendered carries its answers already (#panform-state, in the head).
-  if (document.getElementById('panform-state')) return;
   var started = new Map();
   function start(url) {
     started.set(url, fetch(url, { headers: { Accept: 'application/json' }, credentials: 'same-origin' }));

@@ -201,22 +201,15 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
       expect(await page.getByRole('link', { name: 'Changes' }).count()).toBe(0);
     }));
 
-  it('sends a formula page rendered, and takes it over without a mismatch', () =>
+  it('opens a formula page straight from its address, scaled as the address says', () =>
     withPage('bench', async (page) => {
-      // The server's HTML for a signed-in visitor already holds the weights.
+      // The page itself is the viewer's index.html for everyone (no one's data in it); the viewer
+      // fetches the formula.
       const cookie = (await page.context().cookies()).map((c) => `${c.name}=${c.value}`).join('; ');
       const res = await fetch(`${base}/formulas/harbour-ciabatta?pieces=24`, { headers: { cookie } });
-      expect(res.headers.get('cache-control')).toBe('private, no-cache');
-      const html = await res.text();
-      expect(html).toMatch(/<script type="application\/json" id="panform-state">/);
-      expect(html).toMatch(/data-testid="overall"/);
-      expect(html).toMatch(/<h1[^>]*>Harbour ciabatta<\/h1>/);
-      expect(html).not.toMatch(/<script>/);
-      // Signed out: the plain page, nothing of anyone's.
-      const plain = await (await fetch(`${base}/formulas/harbour-ciabatta`)).text();
-      expect(plain).not.toMatch(/panform-state/);
+      expect(res.headers.get('cache-control')).toBe('no-cache');
+      expect(await res.text()).not.toMatch(/Harbour ciabatta/);
 
-      // A hydration mismatch is a page error, which fails this test.
       await page.goto(`${base}/formulas/harbour-ciabatta?pieces=24`);
       await page.locator('[data-testid="overall"] tbody tr').first().waitFor();
       await page.getByRole('button', { name: 'One piece more' }).click();

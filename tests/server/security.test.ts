@@ -141,12 +141,12 @@ describe('security headers', () => {
 });
 
 describe('the viewer\'s files', () => {
-  it('serves index.html for the viewer\'s pages, never cached and never shared (a page may be rendered for one person)', async () => {
+  it('serves index.html for the viewer\'s pages, always revalidated (a new build is picked up at once)', async () => {
     for (const path of ['/', '/formulas/harbour-ciabatta', '/reset-password?token=abc']) {
       const res = await fetch(`${t.url}${path}`);
       expect(res.status, path).toBe(200);
       expect(res.headers.get('content-type')).toMatch(/text\/html/);
-      expect(res.headers.get('cache-control')).toBe('private, no-cache');
+      expect(res.headers.get('cache-control')).toBe('no-cache');
       expect(await res.text()).toContain('<div id="root">');
     }
   });

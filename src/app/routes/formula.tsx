@@ -20,7 +20,6 @@ import { WaterTemperatureHelper } from '../../features/formulas/components/water
 import { searchFromTarget, targetFromSearch } from '../../features/formulas/scale-target.ts';
 import { getErrorMessage } from '../../lib/errors.ts';
 import { useAfterFirstPaint } from '../../lib/use-after-first-paint.ts';
-import { useHydrated } from '../../lib/use-hydrated.ts';
 import { pieceWeight, shortDateTime, weight } from '../../lib/format.ts';
 import { paths } from '../paths.ts';
 
@@ -42,7 +41,6 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
   const canSeeCost = me?.permissions.includes('read:cost') ?? false;
   const canSeeHistory = me?.permissions.includes('read:history') ?? false;
   const restReady = useAfterFirstPaint();
-  const hydrated = useHydrated();
   const [ice, setIce] = useState(false);
 
   const targetKey = JSON.stringify(target);
@@ -74,7 +72,7 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
         }
         title={formula.title}
       >
-        <Button tone="primary" onClick={() => window.print()} disabled={!hydrated}>
+        <Button tone="primary" onClick={() => window.print()}>
           Print
         </Button>
         {canSeeHistory && (

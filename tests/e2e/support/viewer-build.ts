@@ -1,5 +1,4 @@
-// The e2e tests drive the built viewer (dist/web, and dist/ssr for the server's first render of
-// a formula page). Build them when missing or older than their sources. Only the Vite half of scripts/build.mjs runs here: the CLI half deletes and rewrites
+// The e2e tests drive the built viewer (dist/web). Build them when missing or older than their sources. Only the Vite half of scripts/build.mjs runs here: the CLI half deletes and rewrites
 // dist/cli, which other suites may be running at the same moment.
 import { execFileSync } from 'node:child_process';
 import { existsSync, readdirSync, statSync } from 'node:fs';
@@ -18,7 +17,7 @@ function newestMtime(path: string): number {
 
 export function viewerBuildIsStale(root = process.cwd()): boolean {
   const built = resolve(root, 'dist/web/index.html');
-  if (!existsSync(built) || !existsSync(resolve(root, 'dist/ssr/entry-server.js'))) return true;
+  if (!existsSync(built)) return true;
   const builtAt = statSync(built).mtimeMs;
   return SOURCES.some((s) => newestMtime(resolve(root, s)) > builtAt);
 }

@@ -4,7 +4,6 @@ import type { ScaleTarget } from '#shared/scale';
 import { readNumber, TextField } from '../../../components/field.tsx';
 import { pieceWeight } from '../../../lib/format.ts';
 import { isWrittenBatch, writtenBatch } from '../scale-target.ts';
-import { useHydrated } from '../../../lib/use-hydrated.ts';
 
 type Mode = 'pieces' | 'mix';
 
@@ -33,7 +32,6 @@ export function ScaleControl({
   const [piece, setPiece] = useState(trim(pieceNow));
   const [mixKg, setMixKg] = useState(mixNow === null ? '' : trim(mixNow / 1000));
   const groupId = useId();
-  const hydrated = useHydrated();
 
   // Follow the URL when it changes from outside (back button, reset).
   useEffect(() => setPieces(String(piecesNow)), [piecesNow]);
@@ -78,7 +76,7 @@ export function ScaleControl({
   );
 
   return (
-    <fieldset disabled={!hydrated} className="m-0 min-w-0 space-y-3 border-0 p-0 print:hidden" data-testid="scale-control">
+    <fieldset className="m-0 min-w-0 space-y-3 border-0 p-0 print:hidden" data-testid="scale-control">
       <div role="radiogroup" aria-labelledby={groupId} className="flex gap-1 rounded-xl border-2 border-line bg-sunk p-1">
         <span id={groupId} className="sr-only">
           Scale by

@@ -4,17 +4,17 @@
 //
 //   const pdf = await renderSheetPdf(sheet, { paper: 'a4' });   // Buffer
 //
-// The fonts are read from @fontsource/jetbrains-mono unless passed in as TrueType bytes.
+// The fonts are read from @fontsource/jetbrains-mono unless passed in.
 import PDFDocument from 'pdfkit';
 import { chartModel, colourOf, LEGEND, productionRange, type ChartModel } from '#shared/sheet/chart';
 import { presentSheet, type SheetSection, type SheetTable } from '#shared/sheet/present';
 import type { Sheet } from '#shared/sheet/types';
-import { readJetBrainsMonoTtf } from './fonts.ts';
+import { readJetBrainsMonoWoff } from './fonts.ts';
 
 export type Paper = 'a4' | 'letter';
 
 export interface PdfFonts {
-  /** TrueType bytes (not WOFF/WOFF2: see fonts.ts). */
+  /** Font bytes pdfkit reads: TrueType, OpenType or WOFF (not WOFF2: see fonts.ts). */
   regular: Uint8Array;
   bold: Uint8Array;
 }
@@ -277,7 +277,7 @@ function chart(w: Writer, m: ChartModel): void {
 }
 
 export async function renderSheetPdf(sheet: Sheet, options: PdfOptions = {}): Promise<Buffer> {
-  const fonts = options.fonts ?? { regular: readJetBrainsMonoTtf(400), bold: readJetBrainsMonoTtf(700) };
+  const fonts = options.fonts ?? { regular: readJetBrainsMonoWoff(400), bold: readJetBrainsMonoWoff(700) };
   const p = presentSheet(sheet);
   const doc = new PDFDocument({
     size: options.paper === 'letter' ? 'LETTER' : 'A4',

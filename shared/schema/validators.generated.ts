@@ -20,15 +20,15 @@ const runtime0 = function ucs2length(str) {
 };
 "use strict";
 export const formula = validate10;
-const schema11 = {"$schema":"http://json-schema.org/draft-07/schema#","additionalProperties":false,"$id":"https://panform.example/schema/formula.schema.json","title":"Panform formula","type":"object","required":["id","title","status","category","yield","flour","ingredients"],"properties":{"$schema":{"type":"string"},"id":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","description":"kebab-case; equals the file name.","type":"string"},"title":{"minLength":1,"type":"string"},"status":{"type":"string","enum":["draft","active","retired"]},"category":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","description":"e.g. lean, sourdough, rye, enriched, oil, rolls.","type":"string"},"description":{"type":"string"},"tags":{"uniqueItems":true,"type":"array","items":{"minLength":1,"type":"string"}},"yield":{"additionalProperties":false,"description":"The batch the formula is written for.","type":"object","required":["pieces","piece"],"properties":{"pieces":{"minimum":1,"type":"integer"},"piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"}}},"loss":{"description":"A percentage, e.g. \"2 %\" or 2.","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"dough_temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"flour":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"preferments":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","kind","share","ingredients"],"properties":{"name":{"minLength":1,"type":"string"},"kind":{"type":"string","enum":["poolish","biga","levain","sponge","old-dough","other"]},"share":{"description":"Share of the total flour that this pre-ferment holds, e.g. \"30 %\".","anyOf":[{"exclusiveMinimum":0,"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"ripen":{"additionalProperties":false,"description":"How long and how warm a pre-ferment ripens.","type":"object","required":["hours"],"properties":{"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"}}},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"Target temperature of the build when mixed.","type":"string"},"note":{"type":"string"}}}},"soakers":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","ingredients"],"properties":{"name":{"minLength":1,"type":"string"},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"soak":{"additionalProperties":false,"type":"object","required":["hours"],"properties":{"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"hot":{"description":"Made with boiling water (a scald).","type":"boolean"}}},"note":{"type":"string"}}}},"process":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["step"],"properties":{"step":{"type":"string","enum":["autolyse","mix","bulk","fold","divide","preshape","rest","shape","proof","retard","bake","cool","other"]},"minutes":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"folds":{"additionalProperties":false,"type":"object","required":["count","every"],"properties":{"count":{"minimum":1,"type":"integer"},"every":{"exclusiveMinimum":0,"description":"Minutes between folds.","type":"number"}}},"vessel":{"type":"string","enum":["deck","tray","pot","tin","stone"]},"covered":{"minimum":0,"description":"Minutes of the bake under a lid or cover.","type":"number"},"steam":{"type":"boolean"},"note":{"type":"string"}}}},"may_contain":{"uniqueItems":true,"type":"array","items":{"type":"string","enum":["wheat","rye","barley","oats","spelt","khorasan","crustaceans","eggs","fish","peanuts","soybeans","milk","almonds","hazelnuts","walnuts","cashews","pecans","brazil-nuts","pistachios","macadamia","celery","mustard","sesame","sulphites","lupin","molluscs"],"description":"An allergen code; the EU and US roll-ups are derived from these."}},"notes":{"type":"string"}}};
+const schema11 = {"$schema":"http://json-schema.org/draft-07/schema#","additionalProperties":false,"$id":"https://panform.example/schema/formula.schema.json","title":"Panform formula","type":"object","required":["id","title","status","category","yield","flour","ingredients"],"properties":{"$schema":{"type":"string"},"id":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","description":"kebab-case; equals the file name.","type":"string"},"title":{"minLength":1,"type":"string"},"status":{"type":"string","enum":["draft","active","retired"]},"category":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","description":"e.g. lean, sourdough, rye, enriched, oil, rolls.","type":"string"},"description":{"type":"string"},"tags":{"uniqueItems":true,"type":"array","items":{"minLength":1,"type":"string"}},"yield":{"additionalProperties":false,"description":"The batch the formula is written for.","type":"object","required":["pieces","piece"],"properties":{"pieces":{"minimum":1,"type":"integer"},"piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"}}},"loss":{"description":"A percentage, e.g. \"2 %\" or 2.","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"bake_loss":{"description":"Weight lost in the oven, in percent of the dough weight (taken as water). Default by category (common practice).","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"dough_temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"flour":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"preferments":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","kind","share","ingredients"],"properties":{"name":{"minLength":1,"type":"string"},"kind":{"type":"string","enum":["poolish","biga","levain","sponge","old-dough","other"]},"share":{"description":"Share of the total flour that this pre-ferment holds, e.g. \"30 %\".","anyOf":[{"exclusiveMinimum":0,"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"ripen":{"additionalProperties":false,"description":"How long and how warm a pre-ferment ripens.","type":"object","required":["hours"],"properties":{"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"}}},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"Target temperature of the build when mixed.","type":"string"},"note":{"type":"string"}}}},"soakers":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","ingredients"],"properties":{"name":{"minLength":1,"type":"string"},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"soak":{"additionalProperties":false,"type":"object","required":["hours"],"properties":{"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"hot":{"description":"Made with boiling water (a scald).","type":"boolean"}}},"note":{"type":"string"}}}},"process":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["step"],"properties":{"step":{"type":"string","enum":["autolyse","mix","bulk","fold","divide","preshape","rest","shape","proof","retard","bake","cool","other"]},"minutes":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"folds":{"additionalProperties":false,"type":"object","required":["count","every"],"properties":{"count":{"minimum":1,"type":"integer"},"every":{"exclusiveMinimum":0,"description":"Minutes between folds.","type":"number"}}},"vessel":{"type":"string","enum":["deck","tray","pot","tin","stone"]},"covered":{"minimum":0,"description":"Minutes of the bake under a lid or cover.","type":"number"},"steam":{"type":"boolean"},"note":{"type":"string"}}}},"finishes":{"type":"array","items":{"additionalProperties":false,"description":"What goes on or under the dough: counted in the ingredient statement, allergens and nutrition.","type":"object","required":["ingredient","per_piece","use"],"properties":{"ingredient":{"minLength":1,"description":"Catalog name of what goes on or under the piece.","type":"string"},"per_piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"Weight used on each piece, e.g. \"4 g\".","type":"string"},"use":{"type":"string","enum":["topping","wash","tray","dusting"],"description":"topping (on top), wash (brushed on), tray (oil or grease under the piece), dusting (flour on the piece or the peel)."},"note":{"type":"string"}}}},"may_contain":{"uniqueItems":true,"type":"array","items":{"type":"string","enum":["wheat","rye","barley","oats","spelt","khorasan","crustaceans","eggs","fish","peanuts","soybeans","milk","almonds","hazelnuts","walnuts","cashews","pecans","brazil-nuts","pistachios","macadamia","celery","mustard","sesame","sulphites","lupin","molluscs"],"description":"An allergen code; the EU and US roll-ups are derived from these."}},"notes":{"type":"string"}}};
 const func2 = Object.prototype.hasOwnProperty;
 const func3 = runtime0;
 const pattern0 = new RegExp("^[a-z0-9]+(-[a-z0-9]+)*$", "u");
 const pattern2 = new RegExp("^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$", "u");
 const pattern3 = new RegExp("^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$", "u");
-const pattern4 = new RegExp("^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$", "u");
-const pattern5 = new RegExp("^(.*)$", "u");
-const pattern9 = new RegExp("^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$", "u");
+const pattern5 = new RegExp("^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$", "u");
+const pattern6 = new RegExp("^(.*)$", "u");
+const pattern10 = new RegExp("^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$", "u");
 
 function validate10(data, {instancePath="", parentData, parentDataProperty, rootData=data}={}){
 /*# sourceURL="https://panform.example/schema/formula.schema.json" */;
@@ -467,11 +467,13 @@ vErrors = null;
 }
 }
 }
-if(data.dough_temperature !== undefined){
-let data12 = data.dough_temperature;
-if(typeof data12 === "string"){
-if(!pattern4.test(data12)){
-const err34 = {instancePath:instancePath+"/dough_temperature",schemaPath:"#/properties/dough_temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
+if(data.bake_loss !== undefined){
+let data12 = data.bake_loss;
+const _errs32 = errors;
+let valid6 = false;
+const _errs33 = errors;
+if(!(typeof data12 == "number")){
+const err34 = {instancePath:instancePath+"/bake_loss",schemaPath:"#/properties/bake_loss/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err34];
 }
@@ -480,9 +482,13 @@ vErrors.push(err34);
 }
 errors++;
 }
-}
-else {
-const err35 = {instancePath:instancePath+"/dough_temperature",schemaPath:"#/properties/dough_temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
+var _valid1 = _errs33 === errors;
+valid6 = valid6 || _valid1;
+if(!valid6){
+const _errs35 = errors;
+if(typeof data12 === "string"){
+if(!pattern3.test(data12)){
+const err35 = {instancePath:instancePath+"/bake_loss",schemaPath:"#/properties/bake_loss/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err35];
 }
@@ -492,13 +498,8 @@ vErrors.push(err35);
 errors++;
 }
 }
-if(data.flour !== undefined){
-let data13 = data.flour;
-if(data13 && typeof data13 == "object" && !Array.isArray(data13)){
-for(const key2 in data13){
-if(pattern5.test(key2)){
-if(!(typeof data13[key2] == "number")){
-const err36 = {instancePath:instancePath+"/flour/" + key2.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/flour/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "number"},message:"must be number"};
+else {
+const err36 = {instancePath:instancePath+"/bake_loss",schemaPath:"#/properties/bake_loss/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err36];
 }
@@ -507,11 +508,11 @@ vErrors.push(err36);
 }
 errors++;
 }
+var _valid1 = _errs35 === errors;
+valid6 = valid6 || _valid1;
 }
-}
-}
-else {
-const err37 = {instancePath:instancePath+"/flour",schemaPath:"#/properties/flour/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(!valid6){
+const err37 = {instancePath:instancePath+"/bake_loss",schemaPath:"#/properties/bake_loss/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
 if(vErrors === null){
 vErrors = [err37];
 }
@@ -520,14 +521,23 @@ vErrors.push(err37);
 }
 errors++;
 }
+else {
+errors = _errs32;
+if(vErrors !== null){
+if(_errs32){
+vErrors.length = _errs32;
 }
-if(data.ingredients !== undefined){
-let data15 = data.ingredients;
-if(data15 && typeof data15 == "object" && !Array.isArray(data15)){
-for(const key3 in data15){
-if(pattern5.test(key3)){
-if(!(typeof data15[key3] == "number")){
-const err38 = {instancePath:instancePath+"/ingredients/" + key3.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/ingredients/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "number"},message:"must be number"};
+else {
+vErrors = null;
+}
+}
+}
+}
+if(data.dough_temperature !== undefined){
+let data13 = data.dough_temperature;
+if(typeof data13 === "string"){
+if(!pattern5.test(data13)){
+const err38 = {instancePath:instancePath+"/dough_temperature",schemaPath:"#/properties/dough_temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err38];
 }
@@ -537,10 +547,8 @@ vErrors.push(err38);
 errors++;
 }
 }
-}
-}
 else {
-const err39 = {instancePath:instancePath+"/ingredients",schemaPath:"#/properties/ingredients/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err39 = {instancePath:instancePath+"/dough_temperature",schemaPath:"#/properties/dough_temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err39];
 }
@@ -550,15 +558,13 @@ vErrors.push(err39);
 errors++;
 }
 }
-if(data.preferments !== undefined){
-let data17 = data.preferments;
-if(Array.isArray(data17)){
-const len1 = data17.length;
-for(let i2=0; i2<len1; i2++){
-let data18 = data17[i2];
-if(data18 && typeof data18 == "object" && !Array.isArray(data18)){
-if(data18.name === undefined){
-const err40 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/required",keyword:"required",params:{missingProperty: "name"},message:"must have required property '"+"name"+"'"};
+if(data.flour !== undefined){
+let data14 = data.flour;
+if(data14 && typeof data14 == "object" && !Array.isArray(data14)){
+for(const key2 in data14){
+if(pattern6.test(key2)){
+if(!(typeof data14[key2] == "number")){
+const err40 = {instancePath:instancePath+"/flour/" + key2.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/flour/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err40];
 }
@@ -567,8 +573,11 @@ vErrors.push(err40);
 }
 errors++;
 }
-if(data18.kind === undefined){
-const err41 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/required",keyword:"required",params:{missingProperty: "kind"},message:"must have required property '"+"kind"+"'"};
+}
+}
+}
+else {
+const err41 = {instancePath:instancePath+"/flour",schemaPath:"#/properties/flour/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err41];
 }
@@ -577,8 +586,14 @@ vErrors.push(err41);
 }
 errors++;
 }
-if(data18.share === undefined){
-const err42 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/required",keyword:"required",params:{missingProperty: "share"},message:"must have required property '"+"share"+"'"};
+}
+if(data.ingredients !== undefined){
+let data16 = data.ingredients;
+if(data16 && typeof data16 == "object" && !Array.isArray(data16)){
+for(const key3 in data16){
+if(pattern6.test(key3)){
+if(!(typeof data16[key3] == "number")){
+const err42 = {instancePath:instancePath+"/ingredients/" + key3.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/ingredients/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err42];
 }
@@ -587,8 +602,11 @@ vErrors.push(err42);
 }
 errors++;
 }
-if(data18.ingredients === undefined){
-const err43 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/required",keyword:"required",params:{missingProperty: "ingredients"},message:"must have required property '"+"ingredients"+"'"};
+}
+}
+}
+else {
+const err43 = {instancePath:instancePath+"/ingredients",schemaPath:"#/properties/ingredients/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err43];
 }
@@ -597,9 +615,16 @@ vErrors.push(err43);
 }
 errors++;
 }
-for(const key4 in data18){
-if(!(((((((key4 === "name") || (key4 === "kind")) || (key4 === "share")) || (key4 === "ingredients")) || (key4 === "ripen")) || (key4 === "temperature")) || (key4 === "note"))){
-const err44 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key4},message:"must NOT have additional properties"};
+}
+if(data.preferments !== undefined){
+let data18 = data.preferments;
+if(Array.isArray(data18)){
+const len1 = data18.length;
+for(let i2=0; i2<len1; i2++){
+let data19 = data18[i2];
+if(data19 && typeof data19 == "object" && !Array.isArray(data19)){
+if(data19.name === undefined){
+const err44 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/required",keyword:"required",params:{missingProperty: "name"},message:"must have required property '"+"name"+"'"};
 if(vErrors === null){
 vErrors = [err44];
 }
@@ -608,12 +633,8 @@ vErrors.push(err44);
 }
 errors++;
 }
-}
-if(data18.name !== undefined){
-let data19 = data18.name;
-if(typeof data19 === "string"){
-if(func3(data19) < 1){
-const err45 = {instancePath:instancePath+"/preferments/" + i2+"/name",schemaPath:"#/properties/preferments/items/properties/name/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+if(data19.kind === undefined){
+const err45 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/required",keyword:"required",params:{missingProperty: "kind"},message:"must have required property '"+"kind"+"'"};
 if(vErrors === null){
 vErrors = [err45];
 }
@@ -622,9 +643,8 @@ vErrors.push(err45);
 }
 errors++;
 }
-}
-else {
-const err46 = {instancePath:instancePath+"/preferments/" + i2+"/name",schemaPath:"#/properties/preferments/items/properties/name/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data19.share === undefined){
+const err46 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/required",keyword:"required",params:{missingProperty: "share"},message:"must have required property '"+"share"+"'"};
 if(vErrors === null){
 vErrors = [err46];
 }
@@ -633,11 +653,8 @@ vErrors.push(err46);
 }
 errors++;
 }
-}
-if(data18.kind !== undefined){
-let data20 = data18.kind;
-if(typeof data20 !== "string"){
-const err47 = {instancePath:instancePath+"/preferments/" + i2+"/kind",schemaPath:"#/properties/preferments/items/properties/kind/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data19.ingredients === undefined){
+const err47 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/required",keyword:"required",params:{missingProperty: "ingredients"},message:"must have required property '"+"ingredients"+"'"};
 if(vErrors === null){
 vErrors = [err47];
 }
@@ -646,8 +663,9 @@ vErrors.push(err47);
 }
 errors++;
 }
-if(!((((((data20 === "poolish") || (data20 === "biga")) || (data20 === "levain")) || (data20 === "sponge")) || (data20 === "old-dough")) || (data20 === "other"))){
-const err48 = {instancePath:instancePath+"/preferments/" + i2+"/kind",schemaPath:"#/properties/preferments/items/properties/kind/enum",keyword:"enum",params:{allowedValues: schema11.properties.preferments.items.properties.kind.enum},message:"must be equal to one of the allowed values"};
+for(const key4 in data19){
+if(!(((((((key4 === "name") || (key4 === "kind")) || (key4 === "share")) || (key4 === "ingredients")) || (key4 === "ripen")) || (key4 === "temperature")) || (key4 === "note"))){
+const err48 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key4},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err48];
 }
@@ -657,14 +675,11 @@ vErrors.push(err48);
 errors++;
 }
 }
-if(data18.share !== undefined){
-let data21 = data18.share;
-const _errs51 = errors;
-let valid11 = false;
-const _errs52 = errors;
-if(typeof data21 == "number"){
-if(data21 <= 0 || isNaN(data21)){
-const err49 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf/0/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
+if(data19.name !== undefined){
+let data20 = data19.name;
+if(typeof data20 === "string"){
+if(func3(data20) < 1){
+const err49 = {instancePath:instancePath+"/preferments/" + i2+"/name",schemaPath:"#/properties/preferments/items/properties/name/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err49];
 }
@@ -675,7 +690,7 @@ errors++;
 }
 }
 else {
-const err50 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
+const err50 = {instancePath:instancePath+"/preferments/" + i2+"/name",schemaPath:"#/properties/preferments/items/properties/name/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err50];
 }
@@ -684,13 +699,11 @@ vErrors.push(err50);
 }
 errors++;
 }
-var _valid1 = _errs52 === errors;
-valid11 = valid11 || _valid1;
-if(!valid11){
-const _errs54 = errors;
-if(typeof data21 === "string"){
-if(!pattern3.test(data21)){
-const err51 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$"+"\""};
+}
+if(data19.kind !== undefined){
+let data21 = data19.kind;
+if(typeof data21 !== "string"){
+const err51 = {instancePath:instancePath+"/preferments/" + i2+"/kind",schemaPath:"#/properties/preferments/items/properties/kind/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err51];
 }
@@ -699,9 +712,8 @@ vErrors.push(err51);
 }
 errors++;
 }
-}
-else {
-const err52 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(!((((((data21 === "poolish") || (data21 === "biga")) || (data21 === "levain")) || (data21 === "sponge")) || (data21 === "old-dough")) || (data21 === "other"))){
+const err52 = {instancePath:instancePath+"/preferments/" + i2+"/kind",schemaPath:"#/properties/preferments/items/properties/kind/enum",keyword:"enum",params:{allowedValues: schema11.properties.preferments.items.properties.kind.enum},message:"must be equal to one of the allowed values"};
 if(vErrors === null){
 vErrors = [err52];
 }
@@ -710,11 +722,15 @@ vErrors.push(err52);
 }
 errors++;
 }
-var _valid1 = _errs54 === errors;
-valid11 = valid11 || _valid1;
 }
-if(!valid11){
-const err53 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(data19.share !== undefined){
+let data22 = data19.share;
+const _errs57 = errors;
+let valid12 = false;
+const _errs58 = errors;
+if(typeof data22 == "number"){
+if(data22 <= 0 || isNaN(data22)){
+const err53 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf/0/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
 if(vErrors === null){
 vErrors = [err53];
 }
@@ -723,25 +739,9 @@ vErrors.push(err53);
 }
 errors++;
 }
-else {
-errors = _errs51;
-if(vErrors !== null){
-if(_errs51){
-vErrors.length = _errs51;
 }
 else {
-vErrors = null;
-}
-}
-}
-}
-if(data18.ingredients !== undefined){
-let data22 = data18.ingredients;
-if(data22 && typeof data22 == "object" && !Array.isArray(data22)){
-for(const key5 in data22){
-if(pattern5.test(key5)){
-if(!(typeof data22[key5] == "number")){
-const err54 = {instancePath:instancePath+"/preferments/" + i2+"/ingredients/" + key5.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/preferments/items/properties/ingredients/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "number"},message:"must be number"};
+const err54 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err54];
 }
@@ -750,11 +750,13 @@ vErrors.push(err54);
 }
 errors++;
 }
-}
-}
-}
-else {
-const err55 = {instancePath:instancePath+"/preferments/" + i2+"/ingredients",schemaPath:"#/properties/preferments/items/properties/ingredients/type",keyword:"type",params:{type: "object"},message:"must be object"};
+var _valid2 = _errs58 === errors;
+valid12 = valid12 || _valid2;
+if(!valid12){
+const _errs60 = errors;
+if(typeof data22 === "string"){
+if(!pattern3.test(data22)){
+const err55 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err55];
 }
@@ -764,11 +766,8 @@ vErrors.push(err55);
 errors++;
 }
 }
-if(data18.ripen !== undefined){
-let data24 = data18.ripen;
-if(data24 && typeof data24 == "object" && !Array.isArray(data24)){
-if(data24.hours === undefined){
-const err56 = {instancePath:instancePath+"/preferments/" + i2+"/ripen",schemaPath:"#/properties/preferments/items/properties/ripen/required",keyword:"required",params:{missingProperty: "hours"},message:"must have required property '"+"hours"+"'"};
+else {
+const err56 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err56];
 }
@@ -777,9 +776,11 @@ vErrors.push(err56);
 }
 errors++;
 }
-for(const key6 in data24){
-if(!((key6 === "hours") || (key6 === "temperature"))){
-const err57 = {instancePath:instancePath+"/preferments/" + i2+"/ripen",schemaPath:"#/properties/preferments/items/properties/ripen/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key6},message:"must NOT have additional properties"};
+var _valid2 = _errs60 === errors;
+valid12 = valid12 || _valid2;
+}
+if(!valid12){
+const err57 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
 if(vErrors === null){
 vErrors = [err57];
 }
@@ -788,15 +789,25 @@ vErrors.push(err57);
 }
 errors++;
 }
+else {
+errors = _errs57;
+if(vErrors !== null){
+if(_errs57){
+vErrors.length = _errs57;
 }
-if(data24.hours !== undefined){
-let data25 = data24.hours;
-const _errs64 = errors;
-let valid14 = false;
-const _errs65 = errors;
-if(typeof data25 == "number"){
-if(data25 < 0 || isNaN(data25)){
-const err58 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf/0/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+else {
+vErrors = null;
+}
+}
+}
+}
+if(data19.ingredients !== undefined){
+let data23 = data19.ingredients;
+if(data23 && typeof data23 == "object" && !Array.isArray(data23)){
+for(const key5 in data23){
+if(pattern6.test(key5)){
+if(!(typeof data23[key5] == "number")){
+const err58 = {instancePath:instancePath+"/preferments/" + i2+"/ingredients/" + key5.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/preferments/items/properties/ingredients/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err58];
 }
@@ -806,8 +817,10 @@ vErrors.push(err58);
 errors++;
 }
 }
+}
+}
 else {
-const err59 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
+const err59 = {instancePath:instancePath+"/preferments/" + i2+"/ingredients",schemaPath:"#/properties/preferments/items/properties/ingredients/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err59];
 }
@@ -816,13 +829,12 @@ vErrors.push(err59);
 }
 errors++;
 }
-var _valid2 = _errs65 === errors;
-valid14 = valid14 || _valid2;
-if(!valid14){
-const _errs67 = errors;
-if(typeof data25 === "string"){
-if(!pattern9.test(data25)){
-const err60 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"+"\""};
+}
+if(data19.ripen !== undefined){
+let data25 = data19.ripen;
+if(data25 && typeof data25 == "object" && !Array.isArray(data25)){
+if(data25.hours === undefined){
+const err60 = {instancePath:instancePath+"/preferments/" + i2+"/ripen",schemaPath:"#/properties/preferments/items/properties/ripen/required",keyword:"required",params:{missingProperty: "hours"},message:"must have required property '"+"hours"+"'"};
 if(vErrors === null){
 vErrors = [err60];
 }
@@ -831,9 +843,9 @@ vErrors.push(err60);
 }
 errors++;
 }
-}
-else {
-const err61 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
+for(const key6 in data25){
+if(!((key6 === "hours") || (key6 === "temperature"))){
+const err61 = {instancePath:instancePath+"/preferments/" + i2+"/ripen",schemaPath:"#/properties/preferments/items/properties/ripen/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key6},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err61];
 }
@@ -842,11 +854,15 @@ vErrors.push(err61);
 }
 errors++;
 }
-var _valid2 = _errs67 === errors;
-valid14 = valid14 || _valid2;
 }
-if(!valid14){
-const err62 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(data25.hours !== undefined){
+let data26 = data25.hours;
+const _errs70 = errors;
+let valid15 = false;
+const _errs71 = errors;
+if(typeof data26 == "number"){
+if(data26 < 0 || isNaN(data26)){
+const err62 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf/0/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err62];
 }
@@ -855,23 +871,9 @@ vErrors.push(err62);
 }
 errors++;
 }
-else {
-errors = _errs64;
-if(vErrors !== null){
-if(_errs64){
-vErrors.length = _errs64;
 }
 else {
-vErrors = null;
-}
-}
-}
-}
-if(data24.temperature !== undefined){
-let data26 = data24.temperature;
-if(typeof data26 === "string"){
-if(!pattern4.test(data26)){
-const err63 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/temperature",schemaPath:"#/properties/preferments/items/properties/ripen/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
+const err63 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err63];
 }
@@ -880,9 +882,13 @@ vErrors.push(err63);
 }
 errors++;
 }
-}
-else {
-const err64 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/temperature",schemaPath:"#/properties/preferments/items/properties/ripen/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
+var _valid3 = _errs71 === errors;
+valid15 = valid15 || _valid3;
+if(!valid15){
+const _errs73 = errors;
+if(typeof data26 === "string"){
+if(!pattern10.test(data26)){
+const err64 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err64];
 }
@@ -892,9 +898,8 @@ vErrors.push(err64);
 errors++;
 }
 }
-}
 else {
-const err65 = {instancePath:instancePath+"/preferments/" + i2+"/ripen",schemaPath:"#/properties/preferments/items/properties/ripen/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err65 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err65];
 }
@@ -903,12 +908,11 @@ vErrors.push(err65);
 }
 errors++;
 }
+var _valid3 = _errs73 === errors;
+valid15 = valid15 || _valid3;
 }
-if(data18.temperature !== undefined){
-let data27 = data18.temperature;
-if(typeof data27 === "string"){
-if(!pattern4.test(data27)){
-const err66 = {instancePath:instancePath+"/preferments/" + i2+"/temperature",schemaPath:"#/properties/preferments/items/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
+if(!valid15){
+const err66 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
 if(vErrors === null){
 vErrors = [err66];
 }
@@ -917,9 +921,23 @@ vErrors.push(err66);
 }
 errors++;
 }
+else {
+errors = _errs70;
+if(vErrors !== null){
+if(_errs70){
+vErrors.length = _errs70;
 }
 else {
-const err67 = {instancePath:instancePath+"/preferments/" + i2+"/temperature",schemaPath:"#/properties/preferments/items/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
+vErrors = null;
+}
+}
+}
+}
+if(data25.temperature !== undefined){
+let data27 = data25.temperature;
+if(typeof data27 === "string"){
+if(!pattern5.test(data27)){
+const err67 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/temperature",schemaPath:"#/properties/preferments/items/properties/ripen/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err67];
 }
@@ -929,9 +947,8 @@ vErrors.push(err67);
 errors++;
 }
 }
-if(data18.note !== undefined){
-if(typeof data18.note !== "string"){
-const err68 = {instancePath:instancePath+"/preferments/" + i2+"/note",schemaPath:"#/properties/preferments/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
+else {
+const err68 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/temperature",schemaPath:"#/properties/preferments/items/properties/ripen/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err68];
 }
@@ -943,7 +960,7 @@ errors++;
 }
 }
 else {
-const err69 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err69 = {instancePath:instancePath+"/preferments/" + i2+"/ripen",schemaPath:"#/properties/preferments/items/properties/ripen/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err69];
 }
@@ -953,9 +970,11 @@ vErrors.push(err69);
 errors++;
 }
 }
-}
-else {
-const err70 = {instancePath:instancePath+"/preferments",schemaPath:"#/properties/preferments/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(data19.temperature !== undefined){
+let data28 = data19.temperature;
+if(typeof data28 === "string"){
+if(!pattern5.test(data28)){
+const err70 = {instancePath:instancePath+"/preferments/" + i2+"/temperature",schemaPath:"#/properties/preferments/items/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err70];
 }
@@ -965,15 +984,8 @@ vErrors.push(err70);
 errors++;
 }
 }
-if(data.soakers !== undefined){
-let data29 = data.soakers;
-if(Array.isArray(data29)){
-const len2 = data29.length;
-for(let i3=0; i3<len2; i3++){
-let data30 = data29[i3];
-if(data30 && typeof data30 == "object" && !Array.isArray(data30)){
-if(data30.name === undefined){
-const err71 = {instancePath:instancePath+"/soakers/" + i3,schemaPath:"#/properties/soakers/items/required",keyword:"required",params:{missingProperty: "name"},message:"must have required property '"+"name"+"'"};
+else {
+const err71 = {instancePath:instancePath+"/preferments/" + i2+"/temperature",schemaPath:"#/properties/preferments/items/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err71];
 }
@@ -982,8 +994,10 @@ vErrors.push(err71);
 }
 errors++;
 }
-if(data30.ingredients === undefined){
-const err72 = {instancePath:instancePath+"/soakers/" + i3,schemaPath:"#/properties/soakers/items/required",keyword:"required",params:{missingProperty: "ingredients"},message:"must have required property '"+"ingredients"+"'"};
+}
+if(data19.note !== undefined){
+if(typeof data19.note !== "string"){
+const err72 = {instancePath:instancePath+"/preferments/" + i2+"/note",schemaPath:"#/properties/preferments/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err72];
 }
@@ -992,9 +1006,10 @@ vErrors.push(err72);
 }
 errors++;
 }
-for(const key7 in data30){
-if(!((((key7 === "name") || (key7 === "ingredients")) || (key7 === "soak")) || (key7 === "note"))){
-const err73 = {instancePath:instancePath+"/soakers/" + i3,schemaPath:"#/properties/soakers/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key7},message:"must NOT have additional properties"};
+}
+}
+else {
+const err73 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err73];
 }
@@ -1004,11 +1019,9 @@ vErrors.push(err73);
 errors++;
 }
 }
-if(data30.name !== undefined){
-let data31 = data30.name;
-if(typeof data31 === "string"){
-if(func3(data31) < 1){
-const err74 = {instancePath:instancePath+"/soakers/" + i3+"/name",schemaPath:"#/properties/soakers/items/properties/name/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+}
+else {
+const err74 = {instancePath:instancePath+"/preferments",schemaPath:"#/properties/preferments/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err74];
 }
@@ -1018,8 +1031,15 @@ vErrors.push(err74);
 errors++;
 }
 }
-else {
-const err75 = {instancePath:instancePath+"/soakers/" + i3+"/name",schemaPath:"#/properties/soakers/items/properties/name/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data.soakers !== undefined){
+let data30 = data.soakers;
+if(Array.isArray(data30)){
+const len2 = data30.length;
+for(let i3=0; i3<len2; i3++){
+let data31 = data30[i3];
+if(data31 && typeof data31 == "object" && !Array.isArray(data31)){
+if(data31.name === undefined){
+const err75 = {instancePath:instancePath+"/soakers/" + i3,schemaPath:"#/properties/soakers/items/required",keyword:"required",params:{missingProperty: "name"},message:"must have required property '"+"name"+"'"};
 if(vErrors === null){
 vErrors = [err75];
 }
@@ -1028,14 +1048,8 @@ vErrors.push(err75);
 }
 errors++;
 }
-}
-if(data30.ingredients !== undefined){
-let data32 = data30.ingredients;
-if(data32 && typeof data32 == "object" && !Array.isArray(data32)){
-for(const key8 in data32){
-if(pattern5.test(key8)){
-if(!(typeof data32[key8] == "number")){
-const err76 = {instancePath:instancePath+"/soakers/" + i3+"/ingredients/" + key8.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/soakers/items/properties/ingredients/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(data31.ingredients === undefined){
+const err76 = {instancePath:instancePath+"/soakers/" + i3,schemaPath:"#/properties/soakers/items/required",keyword:"required",params:{missingProperty: "ingredients"},message:"must have required property '"+"ingredients"+"'"};
 if(vErrors === null){
 vErrors = [err76];
 }
@@ -1044,11 +1058,9 @@ vErrors.push(err76);
 }
 errors++;
 }
-}
-}
-}
-else {
-const err77 = {instancePath:instancePath+"/soakers/" + i3+"/ingredients",schemaPath:"#/properties/soakers/items/properties/ingredients/type",keyword:"type",params:{type: "object"},message:"must be object"};
+for(const key7 in data31){
+if(!((((key7 === "name") || (key7 === "ingredients")) || (key7 === "soak")) || (key7 === "note"))){
+const err77 = {instancePath:instancePath+"/soakers/" + i3,schemaPath:"#/properties/soakers/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key7},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err77];
 }
@@ -1058,11 +1070,11 @@ vErrors.push(err77);
 errors++;
 }
 }
-if(data30.soak !== undefined){
-let data34 = data30.soak;
-if(data34 && typeof data34 == "object" && !Array.isArray(data34)){
-if(data34.hours === undefined){
-const err78 = {instancePath:instancePath+"/soakers/" + i3+"/soak",schemaPath:"#/properties/soakers/items/properties/soak/required",keyword:"required",params:{missingProperty: "hours"},message:"must have required property '"+"hours"+"'"};
+if(data31.name !== undefined){
+let data32 = data31.name;
+if(typeof data32 === "string"){
+if(func3(data32) < 1){
+const err78 = {instancePath:instancePath+"/soakers/" + i3+"/name",schemaPath:"#/properties/soakers/items/properties/name/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err78];
 }
@@ -1071,9 +1083,9 @@ vErrors.push(err78);
 }
 errors++;
 }
-for(const key9 in data34){
-if(!(((key9 === "hours") || (key9 === "temperature")) || (key9 === "hot"))){
-const err79 = {instancePath:instancePath+"/soakers/" + i3+"/soak",schemaPath:"#/properties/soakers/items/properties/soak/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key9},message:"must NOT have additional properties"};
+}
+else {
+const err79 = {instancePath:instancePath+"/soakers/" + i3+"/name",schemaPath:"#/properties/soakers/items/properties/name/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err79];
 }
@@ -1083,14 +1095,13 @@ vErrors.push(err79);
 errors++;
 }
 }
-if(data34.hours !== undefined){
-let data35 = data34.hours;
-const _errs90 = errors;
-let valid20 = false;
-const _errs91 = errors;
-if(typeof data35 == "number"){
-if(data35 < 0 || isNaN(data35)){
-const err80 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf/0/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+if(data31.ingredients !== undefined){
+let data33 = data31.ingredients;
+if(data33 && typeof data33 == "object" && !Array.isArray(data33)){
+for(const key8 in data33){
+if(pattern6.test(key8)){
+if(!(typeof data33[key8] == "number")){
+const err80 = {instancePath:instancePath+"/soakers/" + i3+"/ingredients/" + key8.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/soakers/items/properties/ingredients/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err80];
 }
@@ -1100,8 +1111,10 @@ vErrors.push(err80);
 errors++;
 }
 }
+}
+}
 else {
-const err81 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
+const err81 = {instancePath:instancePath+"/soakers/" + i3+"/ingredients",schemaPath:"#/properties/soakers/items/properties/ingredients/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err81];
 }
@@ -1110,13 +1123,12 @@ vErrors.push(err81);
 }
 errors++;
 }
-var _valid3 = _errs91 === errors;
-valid20 = valid20 || _valid3;
-if(!valid20){
-const _errs93 = errors;
-if(typeof data35 === "string"){
-if(!pattern9.test(data35)){
-const err82 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"+"\""};
+}
+if(data31.soak !== undefined){
+let data35 = data31.soak;
+if(data35 && typeof data35 == "object" && !Array.isArray(data35)){
+if(data35.hours === undefined){
+const err82 = {instancePath:instancePath+"/soakers/" + i3+"/soak",schemaPath:"#/properties/soakers/items/properties/soak/required",keyword:"required",params:{missingProperty: "hours"},message:"must have required property '"+"hours"+"'"};
 if(vErrors === null){
 vErrors = [err82];
 }
@@ -1125,9 +1137,9 @@ vErrors.push(err82);
 }
 errors++;
 }
-}
-else {
-const err83 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
+for(const key9 in data35){
+if(!(((key9 === "hours") || (key9 === "temperature")) || (key9 === "hot"))){
+const err83 = {instancePath:instancePath+"/soakers/" + i3+"/soak",schemaPath:"#/properties/soakers/items/properties/soak/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key9},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err83];
 }
@@ -1136,11 +1148,15 @@ vErrors.push(err83);
 }
 errors++;
 }
-var _valid3 = _errs93 === errors;
-valid20 = valid20 || _valid3;
 }
-if(!valid20){
-const err84 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(data35.hours !== undefined){
+let data36 = data35.hours;
+const _errs96 = errors;
+let valid21 = false;
+const _errs97 = errors;
+if(typeof data36 == "number"){
+if(data36 < 0 || isNaN(data36)){
+const err84 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf/0/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err84];
 }
@@ -1149,23 +1165,9 @@ vErrors.push(err84);
 }
 errors++;
 }
-else {
-errors = _errs90;
-if(vErrors !== null){
-if(_errs90){
-vErrors.length = _errs90;
 }
 else {
-vErrors = null;
-}
-}
-}
-}
-if(data34.temperature !== undefined){
-let data36 = data34.temperature;
-if(typeof data36 === "string"){
-if(!pattern4.test(data36)){
-const err85 = {instancePath:instancePath+"/soakers/" + i3+"/soak/temperature",schemaPath:"#/properties/soakers/items/properties/soak/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
+const err85 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err85];
 }
@@ -1174,9 +1176,13 @@ vErrors.push(err85);
 }
 errors++;
 }
-}
-else {
-const err86 = {instancePath:instancePath+"/soakers/" + i3+"/soak/temperature",schemaPath:"#/properties/soakers/items/properties/soak/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
+var _valid4 = _errs97 === errors;
+valid21 = valid21 || _valid4;
+if(!valid21){
+const _errs99 = errors;
+if(typeof data36 === "string"){
+if(!pattern10.test(data36)){
+const err86 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err86];
 }
@@ -1186,9 +1192,8 @@ vErrors.push(err86);
 errors++;
 }
 }
-if(data34.hot !== undefined){
-if(typeof data34.hot !== "boolean"){
-const err87 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hot",schemaPath:"#/properties/soakers/items/properties/soak/properties/hot/type",keyword:"type",params:{type: "boolean"},message:"must be boolean"};
+else {
+const err87 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err87];
 }
@@ -1197,10 +1202,11 @@ vErrors.push(err87);
 }
 errors++;
 }
+var _valid4 = _errs99 === errors;
+valid21 = valid21 || _valid4;
 }
-}
-else {
-const err88 = {instancePath:instancePath+"/soakers/" + i3+"/soak",schemaPath:"#/properties/soakers/items/properties/soak/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(!valid21){
+const err88 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
 if(vErrors === null){
 vErrors = [err88];
 }
@@ -1209,10 +1215,23 @@ vErrors.push(err88);
 }
 errors++;
 }
+else {
+errors = _errs96;
+if(vErrors !== null){
+if(_errs96){
+vErrors.length = _errs96;
 }
-if(data30.note !== undefined){
-if(typeof data30.note !== "string"){
-const err89 = {instancePath:instancePath+"/soakers/" + i3+"/note",schemaPath:"#/properties/soakers/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
+else {
+vErrors = null;
+}
+}
+}
+}
+if(data35.temperature !== undefined){
+let data37 = data35.temperature;
+if(typeof data37 === "string"){
+if(!pattern5.test(data37)){
+const err89 = {instancePath:instancePath+"/soakers/" + i3+"/soak/temperature",schemaPath:"#/properties/soakers/items/properties/soak/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err89];
 }
@@ -1222,9 +1241,8 @@ vErrors.push(err89);
 errors++;
 }
 }
-}
 else {
-const err90 = {instancePath:instancePath+"/soakers/" + i3,schemaPath:"#/properties/soakers/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err90 = {instancePath:instancePath+"/soakers/" + i3+"/soak/temperature",schemaPath:"#/properties/soakers/items/properties/soak/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err90];
 }
@@ -1234,9 +1252,9 @@ vErrors.push(err90);
 errors++;
 }
 }
-}
-else {
-const err91 = {instancePath:instancePath+"/soakers",schemaPath:"#/properties/soakers/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(data35.hot !== undefined){
+if(typeof data35.hot !== "boolean"){
+const err91 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hot",schemaPath:"#/properties/soakers/items/properties/soak/properties/hot/type",keyword:"type",params:{type: "boolean"},message:"must be boolean"};
 if(vErrors === null){
 vErrors = [err91];
 }
@@ -1246,15 +1264,9 @@ vErrors.push(err91);
 errors++;
 }
 }
-if(data.process !== undefined){
-let data39 = data.process;
-if(Array.isArray(data39)){
-const len3 = data39.length;
-for(let i4=0; i4<len3; i4++){
-let data40 = data39[i4];
-if(data40 && typeof data40 == "object" && !Array.isArray(data40)){
-if(data40.step === undefined){
-const err92 = {instancePath:instancePath+"/process/" + i4,schemaPath:"#/properties/process/items/required",keyword:"required",params:{missingProperty: "step"},message:"must have required property '"+"step"+"'"};
+}
+else {
+const err92 = {instancePath:instancePath+"/soakers/" + i3+"/soak",schemaPath:"#/properties/soakers/items/properties/soak/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err92];
 }
@@ -1263,9 +1275,10 @@ vErrors.push(err92);
 }
 errors++;
 }
-for(const key10 in data40){
-if(!(func2.call(schema11.properties.process.items.properties, key10))){
-const err93 = {instancePath:instancePath+"/process/" + i4,schemaPath:"#/properties/process/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key10},message:"must NOT have additional properties"};
+}
+if(data31.note !== undefined){
+if(typeof data31.note !== "string"){
+const err93 = {instancePath:instancePath+"/soakers/" + i3+"/note",schemaPath:"#/properties/soakers/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err93];
 }
@@ -1275,10 +1288,9 @@ vErrors.push(err93);
 errors++;
 }
 }
-if(data40.step !== undefined){
-let data41 = data40.step;
-if(typeof data41 !== "string"){
-const err94 = {instancePath:instancePath+"/process/" + i4+"/step",schemaPath:"#/properties/process/items/properties/step/type",keyword:"type",params:{type: "string"},message:"must be string"};
+}
+else {
+const err94 = {instancePath:instancePath+"/soakers/" + i3,schemaPath:"#/properties/soakers/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err94];
 }
@@ -1287,8 +1299,10 @@ vErrors.push(err94);
 }
 errors++;
 }
-if(!(((((((((((((data41 === "autolyse") || (data41 === "mix")) || (data41 === "bulk")) || (data41 === "fold")) || (data41 === "divide")) || (data41 === "preshape")) || (data41 === "rest")) || (data41 === "shape")) || (data41 === "proof")) || (data41 === "retard")) || (data41 === "bake")) || (data41 === "cool")) || (data41 === "other"))){
-const err95 = {instancePath:instancePath+"/process/" + i4+"/step",schemaPath:"#/properties/process/items/properties/step/enum",keyword:"enum",params:{allowedValues: schema11.properties.process.items.properties.step.enum},message:"must be equal to one of the allowed values"};
+}
+}
+else {
+const err95 = {instancePath:instancePath+"/soakers",schemaPath:"#/properties/soakers/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err95];
 }
@@ -1298,14 +1312,15 @@ vErrors.push(err95);
 errors++;
 }
 }
-if(data40.minutes !== undefined){
-let data42 = data40.minutes;
-const _errs109 = errors;
-let valid24 = false;
-const _errs110 = errors;
-if(typeof data42 == "number"){
-if(data42 < 0 || isNaN(data42)){
-const err96 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf/0/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+if(data.process !== undefined){
+let data40 = data.process;
+if(Array.isArray(data40)){
+const len3 = data40.length;
+for(let i4=0; i4<len3; i4++){
+let data41 = data40[i4];
+if(data41 && typeof data41 == "object" && !Array.isArray(data41)){
+if(data41.step === undefined){
+const err96 = {instancePath:instancePath+"/process/" + i4,schemaPath:"#/properties/process/items/required",keyword:"required",params:{missingProperty: "step"},message:"must have required property '"+"step"+"'"};
 if(vErrors === null){
 vErrors = [err96];
 }
@@ -1314,9 +1329,9 @@ vErrors.push(err96);
 }
 errors++;
 }
-}
-else {
-const err97 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
+for(const key10 in data41){
+if(!(func2.call(schema11.properties.process.items.properties, key10))){
+const err97 = {instancePath:instancePath+"/process/" + i4,schemaPath:"#/properties/process/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key10},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err97];
 }
@@ -1325,13 +1340,11 @@ vErrors.push(err97);
 }
 errors++;
 }
-var _valid4 = _errs110 === errors;
-valid24 = valid24 || _valid4;
-if(!valid24){
-const _errs112 = errors;
-if(typeof data42 === "string"){
-if(!pattern9.test(data42)){
-const err98 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"+"\""};
+}
+if(data41.step !== undefined){
+let data42 = data41.step;
+if(typeof data42 !== "string"){
+const err98 = {instancePath:instancePath+"/process/" + i4+"/step",schemaPath:"#/properties/process/items/properties/step/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err98];
 }
@@ -1340,9 +1353,8 @@ vErrors.push(err98);
 }
 errors++;
 }
-}
-else {
-const err99 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(!(((((((((((((data42 === "autolyse") || (data42 === "mix")) || (data42 === "bulk")) || (data42 === "fold")) || (data42 === "divide")) || (data42 === "preshape")) || (data42 === "rest")) || (data42 === "shape")) || (data42 === "proof")) || (data42 === "retard")) || (data42 === "bake")) || (data42 === "cool")) || (data42 === "other"))){
+const err99 = {instancePath:instancePath+"/process/" + i4+"/step",schemaPath:"#/properties/process/items/properties/step/enum",keyword:"enum",params:{allowedValues: schema11.properties.process.items.properties.step.enum},message:"must be equal to one of the allowed values"};
 if(vErrors === null){
 vErrors = [err99];
 }
@@ -1351,11 +1363,15 @@ vErrors.push(err99);
 }
 errors++;
 }
-var _valid4 = _errs112 === errors;
-valid24 = valid24 || _valid4;
 }
-if(!valid24){
-const err100 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(data41.minutes !== undefined){
+let data43 = data41.minutes;
+const _errs115 = errors;
+let valid25 = false;
+const _errs116 = errors;
+if(typeof data43 == "number"){
+if(data43 < 0 || isNaN(data43)){
+const err100 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf/0/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err100];
 }
@@ -1364,26 +1380,9 @@ vErrors.push(err100);
 }
 errors++;
 }
-else {
-errors = _errs109;
-if(vErrors !== null){
-if(_errs109){
-vErrors.length = _errs109;
 }
 else {
-vErrors = null;
-}
-}
-}
-}
-if(data40.hours !== undefined){
-let data43 = data40.hours;
-const _errs115 = errors;
-let valid25 = false;
-const _errs116 = errors;
-if(typeof data43 == "number"){
-if(data43 < 0 || isNaN(data43)){
-const err101 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf/0/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+const err101 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err101];
 }
@@ -1392,9 +1391,13 @@ vErrors.push(err101);
 }
 errors++;
 }
-}
-else {
-const err102 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
+var _valid5 = _errs116 === errors;
+valid25 = valid25 || _valid5;
+if(!valid25){
+const _errs118 = errors;
+if(typeof data43 === "string"){
+if(!pattern10.test(data43)){
+const err102 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err102];
 }
@@ -1403,13 +1406,9 @@ vErrors.push(err102);
 }
 errors++;
 }
-var _valid5 = _errs116 === errors;
-valid25 = valid25 || _valid5;
-if(!valid25){
-const _errs118 = errors;
-if(typeof data43 === "string"){
-if(!pattern9.test(data43)){
-const err103 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"+"\""};
+}
+else {
+const err103 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err103];
 }
@@ -1418,27 +1417,16 @@ vErrors.push(err103);
 }
 errors++;
 }
+var _valid5 = _errs118 === errors;
+valid25 = valid25 || _valid5;
 }
-else {
-const err104 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(!valid25){
+const err104 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
 if(vErrors === null){
 vErrors = [err104];
 }
 else {
 vErrors.push(err104);
-}
-errors++;
-}
-var _valid5 = _errs118 === errors;
-valid25 = valid25 || _valid5;
-}
-if(!valid25){
-const err105 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
-if(vErrors === null){
-vErrors = [err105];
-}
-else {
-vErrors.push(err105);
 }
 errors++;
 }
@@ -1454,11 +1442,25 @@ vErrors = null;
 }
 }
 }
-if(data40.temperature !== undefined){
-let data44 = data40.temperature;
-if(typeof data44 === "string"){
-if(!pattern4.test(data44)){
-const err106 = {instancePath:instancePath+"/process/" + i4+"/temperature",schemaPath:"#/properties/process/items/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
+if(data41.hours !== undefined){
+let data44 = data41.hours;
+const _errs121 = errors;
+let valid26 = false;
+const _errs122 = errors;
+if(typeof data44 == "number"){
+if(data44 < 0 || isNaN(data44)){
+const err105 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf/0/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+if(vErrors === null){
+vErrors = [err105];
+}
+else {
+vErrors.push(err105);
+}
+errors++;
+}
+}
+else {
+const err106 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err106];
 }
@@ -1467,9 +1469,13 @@ vErrors.push(err106);
 }
 errors++;
 }
-}
-else {
-const err107 = {instancePath:instancePath+"/process/" + i4+"/temperature",schemaPath:"#/properties/process/items/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
+var _valid6 = _errs122 === errors;
+valid26 = valid26 || _valid6;
+if(!valid26){
+const _errs124 = errors;
+if(typeof data44 === "string"){
+if(!pattern10.test(data44)){
+const err107 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err107];
 }
@@ -1479,11 +1485,8 @@ vErrors.push(err107);
 errors++;
 }
 }
-if(data40.folds !== undefined){
-let data45 = data40.folds;
-if(data45 && typeof data45 == "object" && !Array.isArray(data45)){
-if(data45.count === undefined){
-const err108 = {instancePath:instancePath+"/process/" + i4+"/folds",schemaPath:"#/properties/process/items/properties/folds/required",keyword:"required",params:{missingProperty: "count"},message:"must have required property '"+"count"+"'"};
+else {
+const err108 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err108];
 }
@@ -1492,8 +1495,11 @@ vErrors.push(err108);
 }
 errors++;
 }
-if(data45.every === undefined){
-const err109 = {instancePath:instancePath+"/process/" + i4+"/folds",schemaPath:"#/properties/process/items/properties/folds/required",keyword:"required",params:{missingProperty: "every"},message:"must have required property '"+"every"+"'"};
+var _valid6 = _errs124 === errors;
+valid26 = valid26 || _valid6;
+}
+if(!valid26){
+const err109 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
 if(vErrors === null){
 vErrors = [err109];
 }
@@ -1502,9 +1508,23 @@ vErrors.push(err109);
 }
 errors++;
 }
-for(const key11 in data45){
-if(!((key11 === "count") || (key11 === "every"))){
-const err110 = {instancePath:instancePath+"/process/" + i4+"/folds",schemaPath:"#/properties/process/items/properties/folds/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key11},message:"must NOT have additional properties"};
+else {
+errors = _errs121;
+if(vErrors !== null){
+if(_errs121){
+vErrors.length = _errs121;
+}
+else {
+vErrors = null;
+}
+}
+}
+}
+if(data41.temperature !== undefined){
+let data45 = data41.temperature;
+if(typeof data45 === "string"){
+if(!pattern5.test(data45)){
+const err110 = {instancePath:instancePath+"/process/" + i4+"/temperature",schemaPath:"#/properties/process/items/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err110];
 }
@@ -1514,10 +1534,8 @@ vErrors.push(err110);
 errors++;
 }
 }
-if(data45.count !== undefined){
-let data46 = data45.count;
-if(!((typeof data46 == "number") && (!(data46 % 1) && !isNaN(data46)))){
-const err111 = {instancePath:instancePath+"/process/" + i4+"/folds/count",schemaPath:"#/properties/process/items/properties/folds/properties/count/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
+else {
+const err111 = {instancePath:instancePath+"/process/" + i4+"/temperature",schemaPath:"#/properties/process/items/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err111];
 }
@@ -1526,9 +1544,12 @@ vErrors.push(err111);
 }
 errors++;
 }
-if(typeof data46 == "number"){
-if(data46 < 1 || isNaN(data46)){
-const err112 = {instancePath:instancePath+"/process/" + i4+"/folds/count",schemaPath:"#/properties/process/items/properties/folds/properties/count/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
+}
+if(data41.folds !== undefined){
+let data46 = data41.folds;
+if(data46 && typeof data46 == "object" && !Array.isArray(data46)){
+if(data46.count === undefined){
+const err112 = {instancePath:instancePath+"/process/" + i4+"/folds",schemaPath:"#/properties/process/items/properties/folds/required",keyword:"required",params:{missingProperty: "count"},message:"must have required property '"+"count"+"'"};
 if(vErrors === null){
 vErrors = [err112];
 }
@@ -1537,13 +1558,8 @@ vErrors.push(err112);
 }
 errors++;
 }
-}
-}
-if(data45.every !== undefined){
-let data47 = data45.every;
-if(typeof data47 == "number"){
-if(data47 <= 0 || isNaN(data47)){
-const err113 = {instancePath:instancePath+"/process/" + i4+"/folds/every",schemaPath:"#/properties/process/items/properties/folds/properties/every/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
+if(data46.every === undefined){
+const err113 = {instancePath:instancePath+"/process/" + i4+"/folds",schemaPath:"#/properties/process/items/properties/folds/required",keyword:"required",params:{missingProperty: "every"},message:"must have required property '"+"every"+"'"};
 if(vErrors === null){
 vErrors = [err113];
 }
@@ -1552,9 +1568,9 @@ vErrors.push(err113);
 }
 errors++;
 }
-}
-else {
-const err114 = {instancePath:instancePath+"/process/" + i4+"/folds/every",schemaPath:"#/properties/process/items/properties/folds/properties/every/type",keyword:"type",params:{type: "number"},message:"must be number"};
+for(const key11 in data46){
+if(!((key11 === "count") || (key11 === "every"))){
+const err114 = {instancePath:instancePath+"/process/" + i4+"/folds",schemaPath:"#/properties/process/items/properties/folds/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key11},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err114];
 }
@@ -1564,9 +1580,10 @@ vErrors.push(err114);
 errors++;
 }
 }
-}
-else {
-const err115 = {instancePath:instancePath+"/process/" + i4+"/folds",schemaPath:"#/properties/process/items/properties/folds/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data46.count !== undefined){
+let data47 = data46.count;
+if(!((typeof data47 == "number") && (!(data47 % 1) && !isNaN(data47)))){
+const err115 = {instancePath:instancePath+"/process/" + i4+"/folds/count",schemaPath:"#/properties/process/items/properties/folds/properties/count/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
 if(vErrors === null){
 vErrors = [err115];
 }
@@ -1575,11 +1592,9 @@ vErrors.push(err115);
 }
 errors++;
 }
-}
-if(data40.vessel !== undefined){
-let data48 = data40.vessel;
-if(typeof data48 !== "string"){
-const err116 = {instancePath:instancePath+"/process/" + i4+"/vessel",schemaPath:"#/properties/process/items/properties/vessel/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(typeof data47 == "number"){
+if(data47 < 1 || isNaN(data47)){
+const err116 = {instancePath:instancePath+"/process/" + i4+"/folds/count",schemaPath:"#/properties/process/items/properties/folds/properties/count/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
 if(vErrors === null){
 vErrors = [err116];
 }
@@ -1588,8 +1603,13 @@ vErrors.push(err116);
 }
 errors++;
 }
-if(!(((((data48 === "deck") || (data48 === "tray")) || (data48 === "pot")) || (data48 === "tin")) || (data48 === "stone"))){
-const err117 = {instancePath:instancePath+"/process/" + i4+"/vessel",schemaPath:"#/properties/process/items/properties/vessel/enum",keyword:"enum",params:{allowedValues: schema11.properties.process.items.properties.vessel.enum},message:"must be equal to one of the allowed values"};
+}
+}
+if(data46.every !== undefined){
+let data48 = data46.every;
+if(typeof data48 == "number"){
+if(data48 <= 0 || isNaN(data48)){
+const err117 = {instancePath:instancePath+"/process/" + i4+"/folds/every",schemaPath:"#/properties/process/items/properties/folds/properties/every/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
 if(vErrors === null){
 vErrors = [err117];
 }
@@ -1599,11 +1619,8 @@ vErrors.push(err117);
 errors++;
 }
 }
-if(data40.covered !== undefined){
-let data49 = data40.covered;
-if(typeof data49 == "number"){
-if(data49 < 0 || isNaN(data49)){
-const err118 = {instancePath:instancePath+"/process/" + i4+"/covered",schemaPath:"#/properties/process/items/properties/covered/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+else {
+const err118 = {instancePath:instancePath+"/process/" + i4+"/folds/every",schemaPath:"#/properties/process/items/properties/folds/properties/every/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err118];
 }
@@ -1613,8 +1630,9 @@ vErrors.push(err118);
 errors++;
 }
 }
+}
 else {
-const err119 = {instancePath:instancePath+"/process/" + i4+"/covered",schemaPath:"#/properties/process/items/properties/covered/type",keyword:"type",params:{type: "number"},message:"must be number"};
+const err119 = {instancePath:instancePath+"/process/" + i4+"/folds",schemaPath:"#/properties/process/items/properties/folds/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err119];
 }
@@ -1624,9 +1642,10 @@ vErrors.push(err119);
 errors++;
 }
 }
-if(data40.steam !== undefined){
-if(typeof data40.steam !== "boolean"){
-const err120 = {instancePath:instancePath+"/process/" + i4+"/steam",schemaPath:"#/properties/process/items/properties/steam/type",keyword:"type",params:{type: "boolean"},message:"must be boolean"};
+if(data41.vessel !== undefined){
+let data49 = data41.vessel;
+if(typeof data49 !== "string"){
+const err120 = {instancePath:instancePath+"/process/" + i4+"/vessel",schemaPath:"#/properties/process/items/properties/vessel/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err120];
 }
@@ -1635,10 +1654,8 @@ vErrors.push(err120);
 }
 errors++;
 }
-}
-if(data40.note !== undefined){
-if(typeof data40.note !== "string"){
-const err121 = {instancePath:instancePath+"/process/" + i4+"/note",schemaPath:"#/properties/process/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(!(((((data49 === "deck") || (data49 === "tray")) || (data49 === "pot")) || (data49 === "tin")) || (data49 === "stone"))){
+const err121 = {instancePath:instancePath+"/process/" + i4+"/vessel",schemaPath:"#/properties/process/items/properties/vessel/enum",keyword:"enum",params:{allowedValues: schema11.properties.process.items.properties.vessel.enum},message:"must be equal to one of the allowed values"};
 if(vErrors === null){
 vErrors = [err121];
 }
@@ -1648,9 +1665,11 @@ vErrors.push(err121);
 errors++;
 }
 }
-}
-else {
-const err122 = {instancePath:instancePath+"/process/" + i4,schemaPath:"#/properties/process/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data41.covered !== undefined){
+let data50 = data41.covered;
+if(typeof data50 == "number"){
+if(data50 < 0 || isNaN(data50)){
+const err122 = {instancePath:instancePath+"/process/" + i4+"/covered",schemaPath:"#/properties/process/items/properties/covered/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err122];
 }
@@ -1660,9 +1679,8 @@ vErrors.push(err122);
 errors++;
 }
 }
-}
 else {
-const err123 = {instancePath:instancePath+"/process",schemaPath:"#/properties/process/type",keyword:"type",params:{type: "array"},message:"must be array"};
+const err123 = {instancePath:instancePath+"/process/" + i4+"/covered",schemaPath:"#/properties/process/items/properties/covered/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err123];
 }
@@ -1672,14 +1690,9 @@ vErrors.push(err123);
 errors++;
 }
 }
-if(data.may_contain !== undefined){
-let data52 = data.may_contain;
-if(Array.isArray(data52)){
-const len4 = data52.length;
-for(let i5=0; i5<len4; i5++){
-let data53 = data52[i5];
-if(typeof data53 !== "string"){
-const err124 = {instancePath:instancePath+"/may_contain/" + i5,schemaPath:"#/properties/may_contain/items/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data41.steam !== undefined){
+if(typeof data41.steam !== "boolean"){
+const err124 = {instancePath:instancePath+"/process/" + i4+"/steam",schemaPath:"#/properties/process/items/properties/steam/type",keyword:"type",params:{type: "boolean"},message:"must be boolean"};
 if(vErrors === null){
 vErrors = [err124];
 }
@@ -1688,8 +1701,10 @@ vErrors.push(err124);
 }
 errors++;
 }
-if(!((((((((((((((((((((((((((data53 === "wheat") || (data53 === "rye")) || (data53 === "barley")) || (data53 === "oats")) || (data53 === "spelt")) || (data53 === "khorasan")) || (data53 === "crustaceans")) || (data53 === "eggs")) || (data53 === "fish")) || (data53 === "peanuts")) || (data53 === "soybeans")) || (data53 === "milk")) || (data53 === "almonds")) || (data53 === "hazelnuts")) || (data53 === "walnuts")) || (data53 === "cashews")) || (data53 === "pecans")) || (data53 === "brazil-nuts")) || (data53 === "pistachios")) || (data53 === "macadamia")) || (data53 === "celery")) || (data53 === "mustard")) || (data53 === "sesame")) || (data53 === "sulphites")) || (data53 === "lupin")) || (data53 === "molluscs"))){
-const err125 = {instancePath:instancePath+"/may_contain/" + i5,schemaPath:"#/properties/may_contain/items/enum",keyword:"enum",params:{allowedValues: schema11.properties.may_contain.items.enum},message:"must be equal to one of the allowed values"};
+}
+if(data41.note !== undefined){
+if(typeof data41.note !== "string"){
+const err125 = {instancePath:instancePath+"/process/" + i4+"/note",schemaPath:"#/properties/process/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err125];
 }
@@ -1699,18 +1714,9 @@ vErrors.push(err125);
 errors++;
 }
 }
-let i6 = data52.length;
-let j1;
-if(i6 > 1){
-const indices1 = {};
-for(;i6--;){
-let item1 = data52[i6];
-if(typeof item1 !== "string"){
-continue;
 }
-if(typeof indices1[item1] == "number"){
-j1 = indices1[item1];
-const err126 = {instancePath:instancePath+"/may_contain",schemaPath:"#/properties/may_contain/uniqueItems",keyword:"uniqueItems",params:{i: i6, j: j1},message:"must NOT have duplicate items (items ## "+j1+" and "+i6+" are identical)"};
+else {
+const err126 = {instancePath:instancePath+"/process/" + i4,schemaPath:"#/properties/process/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err126];
 }
@@ -1718,14 +1724,11 @@ else {
 vErrors.push(err126);
 }
 errors++;
-break;
-}
-indices1[item1] = i6;
 }
 }
 }
 else {
-const err127 = {instancePath:instancePath+"/may_contain",schemaPath:"#/properties/may_contain/type",keyword:"type",params:{type: "array"},message:"must be array"};
+const err127 = {instancePath:instancePath+"/process",schemaPath:"#/properties/process/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err127];
 }
@@ -1735,9 +1738,15 @@ vErrors.push(err127);
 errors++;
 }
 }
-if(data.notes !== undefined){
-if(typeof data.notes !== "string"){
-const err128 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data.finishes !== undefined){
+let data53 = data.finishes;
+if(Array.isArray(data53)){
+const len4 = data53.length;
+for(let i5=0; i5<len4; i5++){
+let data54 = data53[i5];
+if(data54 && typeof data54 == "object" && !Array.isArray(data54)){
+if(data54.ingredient === undefined){
+const err128 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/required",keyword:"required",params:{missingProperty: "ingredient"},message:"must have required property '"+"ingredient"+"'"};
 if(vErrors === null){
 vErrors = [err128];
 }
@@ -1746,10 +1755,8 @@ vErrors.push(err128);
 }
 errors++;
 }
-}
-}
-else {
-const err129 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data54.per_piece === undefined){
+const err129 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/required",keyword:"required",params:{missingProperty: "per_piece"},message:"must have required property '"+"per_piece"+"'"};
 if(vErrors === null){
 vErrors = [err129];
 }
@@ -1758,13 +1765,230 @@ vErrors.push(err129);
 }
 errors++;
 }
+if(data54.use === undefined){
+const err130 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/required",keyword:"required",params:{missingProperty: "use"},message:"must have required property '"+"use"+"'"};
+if(vErrors === null){
+vErrors = [err130];
+}
+else {
+vErrors.push(err130);
+}
+errors++;
+}
+for(const key12 in data54){
+if(!((((key12 === "ingredient") || (key12 === "per_piece")) || (key12 === "use")) || (key12 === "note"))){
+const err131 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key12},message:"must NOT have additional properties"};
+if(vErrors === null){
+vErrors = [err131];
+}
+else {
+vErrors.push(err131);
+}
+errors++;
+}
+}
+if(data54.ingredient !== undefined){
+let data55 = data54.ingredient;
+if(typeof data55 === "string"){
+if(func3(data55) < 1){
+const err132 = {instancePath:instancePath+"/finishes/" + i5+"/ingredient",schemaPath:"#/properties/finishes/items/properties/ingredient/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+if(vErrors === null){
+vErrors = [err132];
+}
+else {
+vErrors.push(err132);
+}
+errors++;
+}
+}
+else {
+const err133 = {instancePath:instancePath+"/finishes/" + i5+"/ingredient",schemaPath:"#/properties/finishes/items/properties/ingredient/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err133];
+}
+else {
+vErrors.push(err133);
+}
+errors++;
+}
+}
+if(data54.per_piece !== undefined){
+let data56 = data54.per_piece;
+if(typeof data56 === "string"){
+if(!pattern2.test(data56)){
+const err134 = {instancePath:instancePath+"/finishes/" + i5+"/per_piece",schemaPath:"#/properties/finishes/items/properties/per_piece/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
+if(vErrors === null){
+vErrors = [err134];
+}
+else {
+vErrors.push(err134);
+}
+errors++;
+}
+}
+else {
+const err135 = {instancePath:instancePath+"/finishes/" + i5+"/per_piece",schemaPath:"#/properties/finishes/items/properties/per_piece/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err135];
+}
+else {
+vErrors.push(err135);
+}
+errors++;
+}
+}
+if(data54.use !== undefined){
+let data57 = data54.use;
+if(typeof data57 !== "string"){
+const err136 = {instancePath:instancePath+"/finishes/" + i5+"/use",schemaPath:"#/properties/finishes/items/properties/use/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err136];
+}
+else {
+vErrors.push(err136);
+}
+errors++;
+}
+if(!((((data57 === "topping") || (data57 === "wash")) || (data57 === "tray")) || (data57 === "dusting"))){
+const err137 = {instancePath:instancePath+"/finishes/" + i5+"/use",schemaPath:"#/properties/finishes/items/properties/use/enum",keyword:"enum",params:{allowedValues: schema11.properties.finishes.items.properties.use.enum},message:"must be equal to one of the allowed values"};
+if(vErrors === null){
+vErrors = [err137];
+}
+else {
+vErrors.push(err137);
+}
+errors++;
+}
+}
+if(data54.note !== undefined){
+if(typeof data54.note !== "string"){
+const err138 = {instancePath:instancePath+"/finishes/" + i5+"/note",schemaPath:"#/properties/finishes/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err138];
+}
+else {
+vErrors.push(err138);
+}
+errors++;
+}
+}
+}
+else {
+const err139 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err139];
+}
+else {
+vErrors.push(err139);
+}
+errors++;
+}
+}
+}
+else {
+const err140 = {instancePath:instancePath+"/finishes",schemaPath:"#/properties/finishes/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(vErrors === null){
+vErrors = [err140];
+}
+else {
+vErrors.push(err140);
+}
+errors++;
+}
+}
+if(data.may_contain !== undefined){
+let data59 = data.may_contain;
+if(Array.isArray(data59)){
+const len5 = data59.length;
+for(let i6=0; i6<len5; i6++){
+let data60 = data59[i6];
+if(typeof data60 !== "string"){
+const err141 = {instancePath:instancePath+"/may_contain/" + i6,schemaPath:"#/properties/may_contain/items/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err141];
+}
+else {
+vErrors.push(err141);
+}
+errors++;
+}
+if(!((((((((((((((((((((((((((data60 === "wheat") || (data60 === "rye")) || (data60 === "barley")) || (data60 === "oats")) || (data60 === "spelt")) || (data60 === "khorasan")) || (data60 === "crustaceans")) || (data60 === "eggs")) || (data60 === "fish")) || (data60 === "peanuts")) || (data60 === "soybeans")) || (data60 === "milk")) || (data60 === "almonds")) || (data60 === "hazelnuts")) || (data60 === "walnuts")) || (data60 === "cashews")) || (data60 === "pecans")) || (data60 === "brazil-nuts")) || (data60 === "pistachios")) || (data60 === "macadamia")) || (data60 === "celery")) || (data60 === "mustard")) || (data60 === "sesame")) || (data60 === "sulphites")) || (data60 === "lupin")) || (data60 === "molluscs"))){
+const err142 = {instancePath:instancePath+"/may_contain/" + i6,schemaPath:"#/properties/may_contain/items/enum",keyword:"enum",params:{allowedValues: schema11.properties.may_contain.items.enum},message:"must be equal to one of the allowed values"};
+if(vErrors === null){
+vErrors = [err142];
+}
+else {
+vErrors.push(err142);
+}
+errors++;
+}
+}
+let i7 = data59.length;
+let j1;
+if(i7 > 1){
+const indices1 = {};
+for(;i7--;){
+let item1 = data59[i7];
+if(typeof item1 !== "string"){
+continue;
+}
+if(typeof indices1[item1] == "number"){
+j1 = indices1[item1];
+const err143 = {instancePath:instancePath+"/may_contain",schemaPath:"#/properties/may_contain/uniqueItems",keyword:"uniqueItems",params:{i: i7, j: j1},message:"must NOT have duplicate items (items ## "+j1+" and "+i7+" are identical)"};
+if(vErrors === null){
+vErrors = [err143];
+}
+else {
+vErrors.push(err143);
+}
+errors++;
+break;
+}
+indices1[item1] = i7;
+}
+}
+}
+else {
+const err144 = {instancePath:instancePath+"/may_contain",schemaPath:"#/properties/may_contain/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(vErrors === null){
+vErrors = [err144];
+}
+else {
+vErrors.push(err144);
+}
+errors++;
+}
+}
+if(data.notes !== undefined){
+if(typeof data.notes !== "string"){
+const err145 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err145];
+}
+else {
+vErrors.push(err145);
+}
+errors++;
+}
+}
+}
+else {
+const err146 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err146];
+}
+else {
+vErrors.push(err146);
+}
+errors++;
+}
 validate10.errors = vErrors;
 return errors === 0;
 }
 
 export const catalog = validate11;
-const schema12 = {"$schema":"http://json-schema.org/draft-07/schema#","$id":"https://panform.example/schema/catalog.schema.json","title":"Panform ingredient catalog","type":"object","patternProperties":{"^(.*)$":{"additionalProperties":false,"type":"object","required":["kind"],"properties":{"kind":{"type":"string","enum":["flour","water","salt","yeast","sugar","fat","dairy","egg","seed","inclusion","culture","improver","other"]},"water":{"description":"Water content in percent of its weight.","anyOf":[{"minimum":0,"maximum":100,"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"allergens":{"uniqueItems":true,"type":"array","items":{"type":"string","enum":["wheat","rye","barley","oats","spelt","khorasan","crustaceans","eggs","fish","peanuts","soybeans","milk","almonds","hazelnuts","walnuts","cashews","pecans","brazil-nuts","pistachios","macadamia","celery","mustard","sesame","sulphites","lupin","molluscs"],"description":"An allergen code; the EU and US roll-ups are derived from these."}},"yeast":{"type":"string","enum":["fresh","active-dry","instant"]},"yeast_factor":{"exclusiveMinimum":0,"description":"Grams of this yeast that replace 1 g of fresh yeast (default: fresh 1, active-dry 0.4, instant 0.33).","type":"number"},"hydration":{"description":"A percentage, e.g. \"2 %\" or 2.","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"fed_with":{"minLength":1,"type":"string"},"cost_per_kg":{"minimum":0,"type":"number"},"cost_date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","type":"string"},"components":{"minItems":1,"type":"array","items":{"minLength":1,"type":"string"}},"label":{"minLength":1,"description":"Name on the ingredient statement.","type":"string"},"note":{"type":"string"}}}}};
-const pattern21 = new RegExp("^[0-9]{4}-[0-9]{2}-[0-9]{2}$", "u");
+const schema12 = {"$schema":"http://json-schema.org/draft-07/schema#","$id":"https://panform.example/schema/catalog.schema.json","title":"Panform ingredient catalog","type":"object","patternProperties":{"^(.*)$":{"additionalProperties":false,"type":"object","required":["kind"],"properties":{"kind":{"type":"string","enum":["flour","water","salt","yeast","sugar","fat","dairy","egg","seed","inclusion","culture","improver","other"]},"water":{"description":"Water content in percent of its weight.","anyOf":[{"minimum":0,"maximum":100,"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"allergens":{"uniqueItems":true,"type":"array","items":{"type":"string","enum":["wheat","rye","barley","oats","spelt","khorasan","crustaceans","eggs","fish","peanuts","soybeans","milk","almonds","hazelnuts","walnuts","cashews","pecans","brazil-nuts","pistachios","macadamia","celery","mustard","sesame","sulphites","lupin","molluscs"],"description":"An allergen code; the EU and US roll-ups are derived from these."}},"yeast":{"type":"string","enum":["fresh","active-dry","instant"]},"yeast_factor":{"exclusiveMinimum":0,"description":"Grams of this yeast that replace 1 g of fresh yeast (default: fresh 1, active-dry 0.4, instant 0.33).","type":"number"},"hydration":{"description":"A percentage, e.g. \"2 %\" or 2.","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"fed_with":{"minLength":1,"type":"string"},"cost_per_kg":{"minimum":0,"type":"number"},"cost_date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","type":"string"},"components":{"minItems":1,"type":"array","items":{"minLength":1,"type":"string"}},"label":{"minLength":1,"description":"Name on the ingredient statement.","type":"string"},"labels":{"additionalProperties":false,"description":"The name on the statement for one market, where it differs from label.","type":"object","properties":{"eu":{"minLength":1,"type":"string"},"us":{"minLength":1,"type":"string"}}},"nutrients":{"additionalProperties":false,"description":"Per 100 g, grams unless the key says mg.","type":"object","required":["fat","saturates","carbohydrate","sugars","fibre","protein","sodium_mg","source"],"properties":{"fat":{"minimum":0,"maximum":100,"description":"Fat, g per 100 g.","type":"number"},"saturates":{"minimum":0,"maximum":100,"description":"Saturated fatty acids, g per 100 g.","type":"number"},"carbohydrate":{"minimum":0,"maximum":100,"description":"Total carbohydrate (by difference, fibre included), g per 100 g.","type":"number"},"sugars":{"minimum":0,"maximum":100,"description":"Total sugars, g per 100 g.","type":"number"},"fibre":{"minimum":0,"maximum":100,"description":"Dietary fibre, g per 100 g.","type":"number"},"protein":{"minimum":0,"maximum":100,"description":"Protein, g per 100 g.","type":"number"},"sodium_mg":{"minimum":0,"maximum":100000,"description":"Sodium, mg per 100 g.","type":"number"},"source":{"minLength":1,"description":"Where the values come from: a supplier specification, or a food composition table and its number.","type":"string"}}},"note":{"type":"string"}}}}};
+const pattern23 = new RegExp("^[0-9]{4}-[0-9]{2}-[0-9]{2}$", "u");
 
 function validate11(data, {instancePath="", parentData, parentDataProperty, rootData=data}={}){
 /*# sourceURL="https://panform.example/schema/catalog.schema.json" */;
@@ -1772,7 +1996,7 @@ let vErrors = null;
 let errors = 0;
 if(data && typeof data == "object" && !Array.isArray(data)){
 for(const key0 in data){
-if(pattern5.test(key0)){
+if(pattern6.test(key0)){
 let data0 = data[key0];
 if(data0 && typeof data0 == "object" && !Array.isArray(data0)){
 if(data0.kind === undefined){
@@ -2138,7 +2362,7 @@ errors++;
 if(data0.cost_date !== undefined){
 let data10 = data0.cost_date;
 if(typeof data10 === "string"){
-if(!pattern21.test(data10)){
+if(!pattern23.test(data10)){
 const err26 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/cost_date",schemaPath:"#/patternProperties/%5E(.*)%24/properties/cost_date/pattern",keyword:"pattern",params:{pattern: "^[0-9]{4}-[0-9]{2}-[0-9]{2}$"},message:"must match pattern \""+"^[0-9]{4}-[0-9]{2}-[0-9]{2}$"+"\""};
 if(vErrors === null){
 vErrors = [err26];
@@ -2236,9 +2460,12 @@ vErrors.push(err33);
 errors++;
 }
 }
-if(data0.note !== undefined){
-if(typeof data0.note !== "string"){
-const err34 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/note",schemaPath:"#/patternProperties/%5E(.*)%24/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data0.labels !== undefined){
+let data14 = data0.labels;
+if(data14 && typeof data14 == "object" && !Array.isArray(data14)){
+for(const key2 in data14){
+if(!((key2 === "eu") || (key2 === "us"))){
+const err34 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key2},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err34];
 }
@@ -2248,9 +2475,11 @@ vErrors.push(err34);
 errors++;
 }
 }
-}
-else {
-const err35 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data14.eu !== undefined){
+let data15 = data14.eu;
+if(typeof data15 === "string"){
+if(func3(data15) < 1){
+const err35 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels/eu",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/properties/eu/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err35];
 }
@@ -2260,15 +2489,464 @@ vErrors.push(err35);
 errors++;
 }
 }
-}
-}
 else {
-const err36 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err36 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels/eu",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/properties/eu/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err36];
 }
 else {
 vErrors.push(err36);
+}
+errors++;
+}
+}
+if(data14.us !== undefined){
+let data16 = data14.us;
+if(typeof data16 === "string"){
+if(func3(data16) < 1){
+const err37 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels/us",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/properties/us/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+if(vErrors === null){
+vErrors = [err37];
+}
+else {
+vErrors.push(err37);
+}
+errors++;
+}
+}
+else {
+const err38 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels/us",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/properties/us/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err38];
+}
+else {
+vErrors.push(err38);
+}
+errors++;
+}
+}
+}
+else {
+const err39 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err39];
+}
+else {
+vErrors.push(err39);
+}
+errors++;
+}
+}
+if(data0.nutrients !== undefined){
+let data17 = data0.nutrients;
+if(data17 && typeof data17 == "object" && !Array.isArray(data17)){
+if(data17.fat === undefined){
+const err40 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "fat"},message:"must have required property '"+"fat"+"'"};
+if(vErrors === null){
+vErrors = [err40];
+}
+else {
+vErrors.push(err40);
+}
+errors++;
+}
+if(data17.saturates === undefined){
+const err41 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "saturates"},message:"must have required property '"+"saturates"+"'"};
+if(vErrors === null){
+vErrors = [err41];
+}
+else {
+vErrors.push(err41);
+}
+errors++;
+}
+if(data17.carbohydrate === undefined){
+const err42 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "carbohydrate"},message:"must have required property '"+"carbohydrate"+"'"};
+if(vErrors === null){
+vErrors = [err42];
+}
+else {
+vErrors.push(err42);
+}
+errors++;
+}
+if(data17.sugars === undefined){
+const err43 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "sugars"},message:"must have required property '"+"sugars"+"'"};
+if(vErrors === null){
+vErrors = [err43];
+}
+else {
+vErrors.push(err43);
+}
+errors++;
+}
+if(data17.fibre === undefined){
+const err44 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "fibre"},message:"must have required property '"+"fibre"+"'"};
+if(vErrors === null){
+vErrors = [err44];
+}
+else {
+vErrors.push(err44);
+}
+errors++;
+}
+if(data17.protein === undefined){
+const err45 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "protein"},message:"must have required property '"+"protein"+"'"};
+if(vErrors === null){
+vErrors = [err45];
+}
+else {
+vErrors.push(err45);
+}
+errors++;
+}
+if(data17.sodium_mg === undefined){
+const err46 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "sodium_mg"},message:"must have required property '"+"sodium_mg"+"'"};
+if(vErrors === null){
+vErrors = [err46];
+}
+else {
+vErrors.push(err46);
+}
+errors++;
+}
+if(data17.source === undefined){
+const err47 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "source"},message:"must have required property '"+"source"+"'"};
+if(vErrors === null){
+vErrors = [err47];
+}
+else {
+vErrors.push(err47);
+}
+errors++;
+}
+for(const key3 in data17){
+if(!((((((((key3 === "fat") || (key3 === "saturates")) || (key3 === "carbohydrate")) || (key3 === "sugars")) || (key3 === "fibre")) || (key3 === "protein")) || (key3 === "sodium_mg")) || (key3 === "source"))){
+const err48 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key3},message:"must NOT have additional properties"};
+if(vErrors === null){
+vErrors = [err48];
+}
+else {
+vErrors.push(err48);
+}
+errors++;
+}
+}
+if(data17.fat !== undefined){
+let data18 = data17.fat;
+if(typeof data18 == "number"){
+if(data18 > 100 || isNaN(data18)){
+const err49 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fat",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fat/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
+if(vErrors === null){
+vErrors = [err49];
+}
+else {
+vErrors.push(err49);
+}
+errors++;
+}
+if(data18 < 0 || isNaN(data18)){
+const err50 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fat",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fat/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+if(vErrors === null){
+vErrors = [err50];
+}
+else {
+vErrors.push(err50);
+}
+errors++;
+}
+}
+else {
+const err51 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fat",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fat/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(vErrors === null){
+vErrors = [err51];
+}
+else {
+vErrors.push(err51);
+}
+errors++;
+}
+}
+if(data17.saturates !== undefined){
+let data19 = data17.saturates;
+if(typeof data19 == "number"){
+if(data19 > 100 || isNaN(data19)){
+const err52 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/saturates",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/saturates/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
+if(vErrors === null){
+vErrors = [err52];
+}
+else {
+vErrors.push(err52);
+}
+errors++;
+}
+if(data19 < 0 || isNaN(data19)){
+const err53 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/saturates",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/saturates/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+if(vErrors === null){
+vErrors = [err53];
+}
+else {
+vErrors.push(err53);
+}
+errors++;
+}
+}
+else {
+const err54 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/saturates",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/saturates/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(vErrors === null){
+vErrors = [err54];
+}
+else {
+vErrors.push(err54);
+}
+errors++;
+}
+}
+if(data17.carbohydrate !== undefined){
+let data20 = data17.carbohydrate;
+if(typeof data20 == "number"){
+if(data20 > 100 || isNaN(data20)){
+const err55 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/carbohydrate",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/carbohydrate/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
+if(vErrors === null){
+vErrors = [err55];
+}
+else {
+vErrors.push(err55);
+}
+errors++;
+}
+if(data20 < 0 || isNaN(data20)){
+const err56 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/carbohydrate",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/carbohydrate/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+if(vErrors === null){
+vErrors = [err56];
+}
+else {
+vErrors.push(err56);
+}
+errors++;
+}
+}
+else {
+const err57 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/carbohydrate",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/carbohydrate/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(vErrors === null){
+vErrors = [err57];
+}
+else {
+vErrors.push(err57);
+}
+errors++;
+}
+}
+if(data17.sugars !== undefined){
+let data21 = data17.sugars;
+if(typeof data21 == "number"){
+if(data21 > 100 || isNaN(data21)){
+const err58 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sugars",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sugars/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
+if(vErrors === null){
+vErrors = [err58];
+}
+else {
+vErrors.push(err58);
+}
+errors++;
+}
+if(data21 < 0 || isNaN(data21)){
+const err59 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sugars",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sugars/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+if(vErrors === null){
+vErrors = [err59];
+}
+else {
+vErrors.push(err59);
+}
+errors++;
+}
+}
+else {
+const err60 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sugars",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sugars/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(vErrors === null){
+vErrors = [err60];
+}
+else {
+vErrors.push(err60);
+}
+errors++;
+}
+}
+if(data17.fibre !== undefined){
+let data22 = data17.fibre;
+if(typeof data22 == "number"){
+if(data22 > 100 || isNaN(data22)){
+const err61 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fibre",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fibre/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
+if(vErrors === null){
+vErrors = [err61];
+}
+else {
+vErrors.push(err61);
+}
+errors++;
+}
+if(data22 < 0 || isNaN(data22)){
+const err62 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fibre",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fibre/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+if(vErrors === null){
+vErrors = [err62];
+}
+else {
+vErrors.push(err62);
+}
+errors++;
+}
+}
+else {
+const err63 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fibre",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fibre/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(vErrors === null){
+vErrors = [err63];
+}
+else {
+vErrors.push(err63);
+}
+errors++;
+}
+}
+if(data17.protein !== undefined){
+let data23 = data17.protein;
+if(typeof data23 == "number"){
+if(data23 > 100 || isNaN(data23)){
+const err64 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/protein",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/protein/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
+if(vErrors === null){
+vErrors = [err64];
+}
+else {
+vErrors.push(err64);
+}
+errors++;
+}
+if(data23 < 0 || isNaN(data23)){
+const err65 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/protein",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/protein/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+if(vErrors === null){
+vErrors = [err65];
+}
+else {
+vErrors.push(err65);
+}
+errors++;
+}
+}
+else {
+const err66 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/protein",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/protein/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(vErrors === null){
+vErrors = [err66];
+}
+else {
+vErrors.push(err66);
+}
+errors++;
+}
+}
+if(data17.sodium_mg !== undefined){
+let data24 = data17.sodium_mg;
+if(typeof data24 == "number"){
+if(data24 > 100000 || isNaN(data24)){
+const err67 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sodium_mg",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sodium_mg/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100000},message:"must be <= 100000"};
+if(vErrors === null){
+vErrors = [err67];
+}
+else {
+vErrors.push(err67);
+}
+errors++;
+}
+if(data24 < 0 || isNaN(data24)){
+const err68 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sodium_mg",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sodium_mg/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+if(vErrors === null){
+vErrors = [err68];
+}
+else {
+vErrors.push(err68);
+}
+errors++;
+}
+}
+else {
+const err69 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sodium_mg",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sodium_mg/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(vErrors === null){
+vErrors = [err69];
+}
+else {
+vErrors.push(err69);
+}
+errors++;
+}
+}
+if(data17.source !== undefined){
+let data25 = data17.source;
+if(typeof data25 === "string"){
+if(func3(data25) < 1){
+const err70 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/source",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/source/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+if(vErrors === null){
+vErrors = [err70];
+}
+else {
+vErrors.push(err70);
+}
+errors++;
+}
+}
+else {
+const err71 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/source",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/source/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err71];
+}
+else {
+vErrors.push(err71);
+}
+errors++;
+}
+}
+}
+else {
+const err72 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err72];
+}
+else {
+vErrors.push(err72);
+}
+errors++;
+}
+}
+if(data0.note !== undefined){
+if(typeof data0.note !== "string"){
+const err73 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/note",schemaPath:"#/patternProperties/%5E(.*)%24/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err73];
+}
+else {
+vErrors.push(err73);
+}
+errors++;
+}
+}
+}
+else {
+const err74 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err74];
+}
+else {
+vErrors.push(err74);
+}
+errors++;
+}
+}
+}
+}
+else {
+const err75 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err75];
+}
+else {
+vErrors.push(err75);
 }
 errors++;
 }
@@ -2278,7 +2956,7 @@ return errors === 0;
 
 export const plan = validate12;
 const schema13 = {"$schema":"http://json-schema.org/draft-07/schema#","additionalProperties":false,"$id":"https://panform.example/schema/plan.schema.json","title":"Panform production plan","type":"object","required":["date","ready_by","conditions","mixers","orders"],"properties":{"$schema":{"type":"string"},"date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","type":"string"},"ready_by":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"First bake out of the oven, \"HH:MM\".","type":"string"},"conditions":{"additionalProperties":false,"type":"object","required":["room","flour","tap_water"],"properties":{"room":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"flour":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"tap_water":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"preferment":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"}}},"mixers":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","capacity","friction"],"properties":{"name":{"minLength":1,"type":"string"},"capacity":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"minimum":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"friction":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"Temperature rise from mixing, as a difference.","type":"string"}}}},"orders":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["formula","pieces"],"properties":{"formula":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","type":"string"},"pieces":{"minimum":1,"type":"integer"},"piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"mixer":{"minLength":1,"type":"string"},"customer":{"type":"string"}}}},"ranges":{"description":"Which end of a step range the timeline uses; default mid.","anyOf":[{"const":"short","type":"string"},{"const":"mid","type":"string"},{"const":"long","type":"string"}]},"notes":{"type":"string"}}};
-const pattern23 = new RegExp("^([01][0-9]|2[0-3]):[0-5][0-9]$", "u");
+const pattern25 = new RegExp("^([01][0-9]|2[0-3]):[0-5][0-9]$", "u");
 
 function validate12(data, {instancePath="", parentData, parentDataProperty, rootData=data}={}){
 /*# sourceURL="https://panform.example/schema/plan.schema.json" */;
@@ -2362,7 +3040,7 @@ errors++;
 if(data.date !== undefined){
 let data1 = data.date;
 if(typeof data1 === "string"){
-if(!pattern21.test(data1)){
+if(!pattern23.test(data1)){
 const err7 = {instancePath:instancePath+"/date",schemaPath:"#/properties/date/pattern",keyword:"pattern",params:{pattern: "^[0-9]{4}-[0-9]{2}-[0-9]{2}$"},message:"must match pattern \""+"^[0-9]{4}-[0-9]{2}-[0-9]{2}$"+"\""};
 if(vErrors === null){
 vErrors = [err7];
@@ -2387,7 +3065,7 @@ errors++;
 if(data.ready_by !== undefined){
 let data2 = data.ready_by;
 if(typeof data2 === "string"){
-if(!pattern23.test(data2)){
+if(!pattern25.test(data2)){
 const err9 = {instancePath:instancePath+"/ready_by",schemaPath:"#/properties/ready_by/pattern",keyword:"pattern",params:{pattern: "^([01][0-9]|2[0-3]):[0-5][0-9]$"},message:"must match pattern \""+"^([01][0-9]|2[0-3]):[0-5][0-9]$"+"\""};
 if(vErrors === null){
 vErrors = [err9];
@@ -2457,7 +3135,7 @@ errors++;
 if(data3.room !== undefined){
 let data4 = data3.room;
 if(typeof data4 === "string"){
-if(!pattern4.test(data4)){
+if(!pattern5.test(data4)){
 const err15 = {instancePath:instancePath+"/conditions/room",schemaPath:"#/properties/conditions/properties/room/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err15];
@@ -2482,7 +3160,7 @@ errors++;
 if(data3.flour !== undefined){
 let data5 = data3.flour;
 if(typeof data5 === "string"){
-if(!pattern4.test(data5)){
+if(!pattern5.test(data5)){
 const err17 = {instancePath:instancePath+"/conditions/flour",schemaPath:"#/properties/conditions/properties/flour/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err17];
@@ -2507,7 +3185,7 @@ errors++;
 if(data3.tap_water !== undefined){
 let data6 = data3.tap_water;
 if(typeof data6 === "string"){
-if(!pattern4.test(data6)){
+if(!pattern5.test(data6)){
 const err19 = {instancePath:instancePath+"/conditions/tap_water",schemaPath:"#/properties/conditions/properties/tap_water/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err19];
@@ -2532,7 +3210,7 @@ errors++;
 if(data3.preferment !== undefined){
 let data7 = data3.preferment;
 if(typeof data7 === "string"){
-if(!pattern4.test(data7)){
+if(!pattern5.test(data7)){
 const err21 = {instancePath:instancePath+"/conditions/preferment",schemaPath:"#/properties/conditions/properties/preferment/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err21];
@@ -2703,7 +3381,7 @@ errors++;
 if(data9.friction !== undefined){
 let data13 = data9.friction;
 if(typeof data13 === "string"){
-if(!pattern4.test(data13)){
+if(!pattern5.test(data13)){
 const err35 = {instancePath:instancePath+"/mixers/" + i0+"/friction",schemaPath:"#/properties/mixers/items/properties/friction/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err35];

@@ -9,7 +9,6 @@ import type { KnownFormula } from '#shared/check/plan';
 import type { Catalog } from '#shared/model';
 import { formatFinding, parseYamlText, sortFindings, type Finding } from '#shared/parse';
 import { ExitError, UsageError } from '../errors.ts';
-import { fitText } from '../print/width.ts';
 import { CATALOG_FILE, findCatalogPath, formulasDirForPlan } from '../files.ts';
 import { compareText } from '#shared/text';
 
@@ -233,7 +232,8 @@ Examples:
       const { files, findings, errors, warnings, checked } = report;
       process.stdout.write(`${JSON.stringify({ files, findings, errors, warnings, checked }, null, 2)}\n`);
     } else {
-      process.stdout.write(fitText(printCheck(report)));
+      // One line per finding, never wrapped: `file:line:col` is what editors and CI jump to.
+      process.stdout.write(printCheck(report));
     }
     // Exit 1 when there is an error; the findings are already printed.
     if (report.errors > 0) throw new ExitError(1, '');

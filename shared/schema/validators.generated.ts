@@ -20,7 +20,7 @@ const runtime0 = function ucs2length(str) {
 };
 "use strict";
 export const formula = validate10;
-const schema11 = {"$schema":"http://json-schema.org/draft-07/schema#","additionalProperties":false,"$id":"https://panform.example/schema/formula.schema.json","title":"Panform formula","type":"object","required":["id","title","status","category","yield","flour","ingredients"],"properties":{"$schema":{"type":"string"},"id":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","description":"kebab-case; equals the file name.","type":"string"},"title":{"minLength":1,"type":"string"},"status":{"type":"string","enum":["draft","active","retired"]},"category":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","description":"e.g. lean, sourdough, rye, enriched, oil, rolls.","type":"string"},"description":{"type":"string"},"tags":{"uniqueItems":true,"type":"array","items":{"minLength":1,"type":"string"}},"yield":{"additionalProperties":false,"description":"The batch the formula is written for.","type":"object","required":["pieces","piece"],"properties":{"pieces":{"minimum":1,"type":"integer"},"piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"}}},"loss":{"description":"A percentage, e.g. \"2 %\" or 2.","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"bake_loss":{"description":"Weight lost in the oven, in percent of the dough weight (taken as water). Default by category (common practice).","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"dough_temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"flour":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"preferments":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","kind","share","ingredients"],"properties":{"name":{"minLength":1,"type":"string"},"kind":{"type":"string","enum":["poolish","biga","levain","sponge","old-dough","other"]},"share":{"description":"Share of the total flour that this pre-ferment holds, e.g. \"30 %\".","anyOf":[{"exclusiveMinimum":0,"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"ripen":{"additionalProperties":false,"description":"How long and how warm a pre-ferment ripens.","type":"object","required":["hours"],"properties":{"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"}}},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"Target temperature of the build when mixed.","type":"string"},"note":{"type":"string"}}}},"soakers":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","ingredients"],"properties":{"name":{"minLength":1,"type":"string"},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"soak":{"additionalProperties":false,"type":"object","required":["hours"],"properties":{"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"hot":{"description":"Made with boiling water (a scald).","type":"boolean"}}},"note":{"type":"string"}}}},"process":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["step"],"properties":{"step":{"type":"string","enum":["autolyse","mix","bulk","fold","divide","preshape","rest","shape","proof","retard","bake","cool","other"]},"minutes":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"folds":{"additionalProperties":false,"type":"object","required":["count","every"],"properties":{"count":{"minimum":1,"type":"integer"},"every":{"exclusiveMinimum":0,"description":"Minutes between folds.","type":"number"}}},"vessel":{"type":"string","enum":["deck","tray","pot","tin","stone"]},"covered":{"minimum":0,"description":"Minutes of the bake under a lid or cover.","type":"number"},"steam":{"type":"boolean"},"note":{"type":"string"}}}},"finishes":{"type":"array","items":{"additionalProperties":false,"description":"What goes on or under the dough: counted in the ingredient statement, allergens and nutrition.","type":"object","required":["ingredient","per_piece","use"],"properties":{"ingredient":{"minLength":1,"description":"Catalog name of what goes on or under the piece.","type":"string"},"per_piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"Weight used on each piece, e.g. \"4 g\".","type":"string"},"use":{"type":"string","enum":["topping","wash","tray","dusting"],"description":"topping (on top), wash (brushed on), tray (oil or grease under the piece), dusting (flour on the piece or the peel)."},"note":{"type":"string"}}}},"may_contain":{"uniqueItems":true,"type":"array","items":{"type":"string","enum":["wheat","rye","barley","oats","spelt","khorasan","crustaceans","eggs","fish","peanuts","soybeans","milk","almonds","hazelnuts","walnuts","cashews","pecans","brazil-nuts","pistachios","macadamia","celery","mustard","sesame","sulphites","lupin","molluscs"],"description":"An allergen code; the EU and US roll-ups are derived from these."}},"notes":{"type":"string"}}};
+const schema11 = {"$schema":"http://json-schema.org/draft-07/schema#","additionalProperties":false,"$id":"https://panform.example/schema/formula.schema.json","title":"Panform formula","type":"object","required":["id","title","status","category","yield","flour","ingredients"],"properties":{"$schema":{"type":"string"},"id":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","description":"kebab-case; equals the file name.","type":"string"},"title":{"minLength":1,"type":"string"},"status":{"type":"string","enum":["draft","active","retired"]},"category":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","description":"e.g. lean, sourdough, rye, enriched, oil, rolls.","type":"string"},"description":{"type":"string"},"tags":{"uniqueItems":true,"type":"array","items":{"minLength":1,"type":"string"}},"yield":{"additionalProperties":false,"description":"The batch the formula is written for.","type":"object","required":["pieces","piece"],"properties":{"pieces":{"minimum":1,"type":"integer"},"piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"}}},"loss":{"description":"A percentage, e.g. \"2 %\" or 2.","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"bake_loss":{"description":"Weight lost in the oven, in percent of the dough weight (taken as water). Default by category (common practice).","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"dough_temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"flour":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"preferments":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","kind","share","ingredients"],"properties":{"name":{"minLength":1,"type":"string"},"kind":{"type":"string","enum":["poolish","biga","levain","sponge","old-dough","other"]},"share":{"description":"Share of the total flour that this pre-ferment holds, e.g. \"30 %\".","anyOf":[{"exclusiveMinimum":0,"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"ripen":{"additionalProperties":false,"description":"How long and how warm a pre-ferment ripens.","type":"object","required":["hours"],"properties":{"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"}}},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"Target temperature of the build when mixed.","type":"string"},"note":{"type":"string"}}}},"soakers":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","ingredients"],"properties":{"name":{"minLength":1,"type":"string"},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"soak":{"additionalProperties":false,"type":"object","required":["hours"],"properties":{"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"hot":{"description":"Made with boiling water (a scald).","type":"boolean"}}},"note":{"type":"string"}}}},"process":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["step"],"properties":{"step":{"type":"string","enum":["autolyse","mix","bulk","fold","divide","preshape","rest","shape","proof","retard","bake","cool","other"]},"minutes":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"folds":{"additionalProperties":false,"type":"object","required":["count","every"],"properties":{"count":{"minimum":1,"type":"integer"},"every":{"exclusiveMinimum":0,"description":"Minutes between folds.","type":"number"}}},"vessel":{"type":"string","enum":["deck","tray","pot","tin","stone"]},"covered":{"minimum":0,"description":"Minutes of the bake under a lid or cover.","type":"number"},"steam":{"type":"boolean"},"per_slot":{"exclusiveMinimum":0,"description":"Bake: pieces that fill one oven slot (tray or peel place); below 1 when a piece takes more than one slot.","type":"number"},"seconds_per_piece":{"exclusiveMinimum":0,"description":"Divide, preshape or shape: one person's handling time per piece, in seconds.","type":"number"},"note":{"type":"string"}}}},"finishes":{"type":"array","items":{"additionalProperties":false,"description":"What goes on or under the dough: counted in the ingredient statement, allergens and nutrition.","type":"object","required":["ingredient","per_piece","use"],"properties":{"ingredient":{"minLength":1,"description":"Catalog name of what goes on or under the piece.","type":"string"},"per_piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"Weight used on each piece, e.g. \"4 g\".","type":"string"},"use":{"type":"string","enum":["topping","wash","tray","dusting"],"description":"topping (on top), wash (brushed on), tray (oil or grease under the piece), dusting (flour on the piece or the peel)."},"note":{"type":"string"}}}},"may_contain":{"uniqueItems":true,"type":"array","items":{"type":"string","enum":["wheat","rye","barley","oats","spelt","khorasan","crustaceans","eggs","fish","peanuts","soybeans","milk","almonds","hazelnuts","walnuts","cashews","pecans","brazil-nuts","pistachios","macadamia","celery","mustard","sesame","sulphites","lupin","molluscs"],"description":"An allergen code; the EU and US roll-ups are derived from these."}},"notes":{"type":"string"}}};
 const func2 = Object.prototype.hasOwnProperty;
 const func3 = runtime0;
 const pattern0 = new RegExp("^[a-z0-9]+(-[a-z0-9]+)*$", "u");
@@ -1702,9 +1702,11 @@ vErrors.push(err124);
 errors++;
 }
 }
-if(data41.note !== undefined){
-if(typeof data41.note !== "string"){
-const err125 = {instancePath:instancePath+"/process/" + i4+"/note",schemaPath:"#/properties/process/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data41.per_slot !== undefined){
+let data52 = data41.per_slot;
+if(typeof data52 == "number"){
+if(data52 <= 0 || isNaN(data52)){
+const err125 = {instancePath:instancePath+"/process/" + i4+"/per_slot",schemaPath:"#/properties/process/items/properties/per_slot/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
 if(vErrors === null){
 vErrors = [err125];
 }
@@ -1714,9 +1716,8 @@ vErrors.push(err125);
 errors++;
 }
 }
-}
 else {
-const err126 = {instancePath:instancePath+"/process/" + i4,schemaPath:"#/properties/process/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err126 = {instancePath:instancePath+"/process/" + i4+"/per_slot",schemaPath:"#/properties/process/items/properties/per_slot/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err126];
 }
@@ -1726,9 +1727,11 @@ vErrors.push(err126);
 errors++;
 }
 }
-}
-else {
-const err127 = {instancePath:instancePath+"/process",schemaPath:"#/properties/process/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(data41.seconds_per_piece !== undefined){
+let data53 = data41.seconds_per_piece;
+if(typeof data53 == "number"){
+if(data53 <= 0 || isNaN(data53)){
+const err127 = {instancePath:instancePath+"/process/" + i4+"/seconds_per_piece",schemaPath:"#/properties/process/items/properties/seconds_per_piece/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
 if(vErrors === null){
 vErrors = [err127];
 }
@@ -1738,15 +1741,8 @@ vErrors.push(err127);
 errors++;
 }
 }
-if(data.finishes !== undefined){
-let data53 = data.finishes;
-if(Array.isArray(data53)){
-const len4 = data53.length;
-for(let i5=0; i5<len4; i5++){
-let data54 = data53[i5];
-if(data54 && typeof data54 == "object" && !Array.isArray(data54)){
-if(data54.ingredient === undefined){
-const err128 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/required",keyword:"required",params:{missingProperty: "ingredient"},message:"must have required property '"+"ingredient"+"'"};
+else {
+const err128 = {instancePath:instancePath+"/process/" + i4+"/seconds_per_piece",schemaPath:"#/properties/process/items/properties/seconds_per_piece/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err128];
 }
@@ -1755,8 +1751,10 @@ vErrors.push(err128);
 }
 errors++;
 }
-if(data54.per_piece === undefined){
-const err129 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/required",keyword:"required",params:{missingProperty: "per_piece"},message:"must have required property '"+"per_piece"+"'"};
+}
+if(data41.note !== undefined){
+if(typeof data41.note !== "string"){
+const err129 = {instancePath:instancePath+"/process/" + i4+"/note",schemaPath:"#/properties/process/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err129];
 }
@@ -1765,8 +1763,10 @@ vErrors.push(err129);
 }
 errors++;
 }
-if(data54.use === undefined){
-const err130 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/required",keyword:"required",params:{missingProperty: "use"},message:"must have required property '"+"use"+"'"};
+}
+}
+else {
+const err130 = {instancePath:instancePath+"/process/" + i4,schemaPath:"#/properties/process/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err130];
 }
@@ -1775,9 +1775,10 @@ vErrors.push(err130);
 }
 errors++;
 }
-for(const key12 in data54){
-if(!((((key12 === "ingredient") || (key12 === "per_piece")) || (key12 === "use")) || (key12 === "note"))){
-const err131 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key12},message:"must NOT have additional properties"};
+}
+}
+else {
+const err131 = {instancePath:instancePath+"/process",schemaPath:"#/properties/process/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err131];
 }
@@ -1787,11 +1788,15 @@ vErrors.push(err131);
 errors++;
 }
 }
-if(data54.ingredient !== undefined){
-let data55 = data54.ingredient;
-if(typeof data55 === "string"){
-if(func3(data55) < 1){
-const err132 = {instancePath:instancePath+"/finishes/" + i5+"/ingredient",schemaPath:"#/properties/finishes/items/properties/ingredient/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+if(data.finishes !== undefined){
+let data55 = data.finishes;
+if(Array.isArray(data55)){
+const len4 = data55.length;
+for(let i5=0; i5<len4; i5++){
+let data56 = data55[i5];
+if(data56 && typeof data56 == "object" && !Array.isArray(data56)){
+if(data56.ingredient === undefined){
+const err132 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/required",keyword:"required",params:{missingProperty: "ingredient"},message:"must have required property '"+"ingredient"+"'"};
 if(vErrors === null){
 vErrors = [err132];
 }
@@ -1800,9 +1805,8 @@ vErrors.push(err132);
 }
 errors++;
 }
-}
-else {
-const err133 = {instancePath:instancePath+"/finishes/" + i5+"/ingredient",schemaPath:"#/properties/finishes/items/properties/ingredient/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data56.per_piece === undefined){
+const err133 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/required",keyword:"required",params:{missingProperty: "per_piece"},message:"must have required property '"+"per_piece"+"'"};
 if(vErrors === null){
 vErrors = [err133];
 }
@@ -1811,12 +1815,8 @@ vErrors.push(err133);
 }
 errors++;
 }
-}
-if(data54.per_piece !== undefined){
-let data56 = data54.per_piece;
-if(typeof data56 === "string"){
-if(!pattern2.test(data56)){
-const err134 = {instancePath:instancePath+"/finishes/" + i5+"/per_piece",schemaPath:"#/properties/finishes/items/properties/per_piece/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
+if(data56.use === undefined){
+const err134 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/required",keyword:"required",params:{missingProperty: "use"},message:"must have required property '"+"use"+"'"};
 if(vErrors === null){
 vErrors = [err134];
 }
@@ -1825,9 +1825,9 @@ vErrors.push(err134);
 }
 errors++;
 }
-}
-else {
-const err135 = {instancePath:instancePath+"/finishes/" + i5+"/per_piece",schemaPath:"#/properties/finishes/items/properties/per_piece/type",keyword:"type",params:{type: "string"},message:"must be string"};
+for(const key12 in data56){
+if(!((((key12 === "ingredient") || (key12 === "per_piece")) || (key12 === "use")) || (key12 === "note"))){
+const err135 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key12},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err135];
 }
@@ -1837,10 +1837,11 @@ vErrors.push(err135);
 errors++;
 }
 }
-if(data54.use !== undefined){
-let data57 = data54.use;
-if(typeof data57 !== "string"){
-const err136 = {instancePath:instancePath+"/finishes/" + i5+"/use",schemaPath:"#/properties/finishes/items/properties/use/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data56.ingredient !== undefined){
+let data57 = data56.ingredient;
+if(typeof data57 === "string"){
+if(func3(data57) < 1){
+const err136 = {instancePath:instancePath+"/finishes/" + i5+"/ingredient",schemaPath:"#/properties/finishes/items/properties/ingredient/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err136];
 }
@@ -1849,8 +1850,9 @@ vErrors.push(err136);
 }
 errors++;
 }
-if(!((((data57 === "topping") || (data57 === "wash")) || (data57 === "tray")) || (data57 === "dusting"))){
-const err137 = {instancePath:instancePath+"/finishes/" + i5+"/use",schemaPath:"#/properties/finishes/items/properties/use/enum",keyword:"enum",params:{allowedValues: schema11.properties.finishes.items.properties.use.enum},message:"must be equal to one of the allowed values"};
+}
+else {
+const err137 = {instancePath:instancePath+"/finishes/" + i5+"/ingredient",schemaPath:"#/properties/finishes/items/properties/ingredient/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err137];
 }
@@ -1860,9 +1862,11 @@ vErrors.push(err137);
 errors++;
 }
 }
-if(data54.note !== undefined){
-if(typeof data54.note !== "string"){
-const err138 = {instancePath:instancePath+"/finishes/" + i5+"/note",schemaPath:"#/properties/finishes/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data56.per_piece !== undefined){
+let data58 = data56.per_piece;
+if(typeof data58 === "string"){
+if(!pattern2.test(data58)){
+const err138 = {instancePath:instancePath+"/finishes/" + i5+"/per_piece",schemaPath:"#/properties/finishes/items/properties/per_piece/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err138];
 }
@@ -1872,9 +1876,8 @@ vErrors.push(err138);
 errors++;
 }
 }
-}
 else {
-const err139 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err139 = {instancePath:instancePath+"/finishes/" + i5+"/per_piece",schemaPath:"#/properties/finishes/items/properties/per_piece/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err139];
 }
@@ -1884,9 +1887,10 @@ vErrors.push(err139);
 errors++;
 }
 }
-}
-else {
-const err140 = {instancePath:instancePath+"/finishes",schemaPath:"#/properties/finishes/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(data56.use !== undefined){
+let data59 = data56.use;
+if(typeof data59 !== "string"){
+const err140 = {instancePath:instancePath+"/finishes/" + i5+"/use",schemaPath:"#/properties/finishes/items/properties/use/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err140];
 }
@@ -1895,15 +1899,8 @@ vErrors.push(err140);
 }
 errors++;
 }
-}
-if(data.may_contain !== undefined){
-let data59 = data.may_contain;
-if(Array.isArray(data59)){
-const len5 = data59.length;
-for(let i6=0; i6<len5; i6++){
-let data60 = data59[i6];
-if(typeof data60 !== "string"){
-const err141 = {instancePath:instancePath+"/may_contain/" + i6,schemaPath:"#/properties/may_contain/items/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(!((((data59 === "topping") || (data59 === "wash")) || (data59 === "tray")) || (data59 === "dusting"))){
+const err141 = {instancePath:instancePath+"/finishes/" + i5+"/use",schemaPath:"#/properties/finishes/items/properties/use/enum",keyword:"enum",params:{allowedValues: schema11.properties.finishes.items.properties.use.enum},message:"must be equal to one of the allowed values"};
 if(vErrors === null){
 vErrors = [err141];
 }
@@ -1912,8 +1909,10 @@ vErrors.push(err141);
 }
 errors++;
 }
-if(!((((((((((((((((((((((((((data60 === "wheat") || (data60 === "rye")) || (data60 === "barley")) || (data60 === "oats")) || (data60 === "spelt")) || (data60 === "khorasan")) || (data60 === "crustaceans")) || (data60 === "eggs")) || (data60 === "fish")) || (data60 === "peanuts")) || (data60 === "soybeans")) || (data60 === "milk")) || (data60 === "almonds")) || (data60 === "hazelnuts")) || (data60 === "walnuts")) || (data60 === "cashews")) || (data60 === "pecans")) || (data60 === "brazil-nuts")) || (data60 === "pistachios")) || (data60 === "macadamia")) || (data60 === "celery")) || (data60 === "mustard")) || (data60 === "sesame")) || (data60 === "sulphites")) || (data60 === "lupin")) || (data60 === "molluscs"))){
-const err142 = {instancePath:instancePath+"/may_contain/" + i6,schemaPath:"#/properties/may_contain/items/enum",keyword:"enum",params:{allowedValues: schema11.properties.may_contain.items.enum},message:"must be equal to one of the allowed values"};
+}
+if(data56.note !== undefined){
+if(typeof data56.note !== "string"){
+const err142 = {instancePath:instancePath+"/finishes/" + i5+"/note",schemaPath:"#/properties/finishes/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err142];
 }
@@ -1923,18 +1922,9 @@ vErrors.push(err142);
 errors++;
 }
 }
-let i7 = data59.length;
-let j1;
-if(i7 > 1){
-const indices1 = {};
-for(;i7--;){
-let item1 = data59[i7];
-if(typeof item1 !== "string"){
-continue;
 }
-if(typeof indices1[item1] == "number"){
-j1 = indices1[item1];
-const err143 = {instancePath:instancePath+"/may_contain",schemaPath:"#/properties/may_contain/uniqueItems",keyword:"uniqueItems",params:{i: i7, j: j1},message:"must NOT have duplicate items (items ## "+j1+" and "+i7+" are identical)"};
+else {
+const err143 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err143];
 }
@@ -1942,14 +1932,11 @@ else {
 vErrors.push(err143);
 }
 errors++;
-break;
-}
-indices1[item1] = i7;
 }
 }
 }
 else {
-const err144 = {instancePath:instancePath+"/may_contain",schemaPath:"#/properties/may_contain/type",keyword:"type",params:{type: "array"},message:"must be array"};
+const err144 = {instancePath:instancePath+"/finishes",schemaPath:"#/properties/finishes/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err144];
 }
@@ -1959,9 +1946,14 @@ vErrors.push(err144);
 errors++;
 }
 }
-if(data.notes !== undefined){
-if(typeof data.notes !== "string"){
-const err145 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data.may_contain !== undefined){
+let data61 = data.may_contain;
+if(Array.isArray(data61)){
+const len5 = data61.length;
+for(let i6=0; i6<len5; i6++){
+let data62 = data61[i6];
+if(typeof data62 !== "string"){
+const err145 = {instancePath:instancePath+"/may_contain/" + i6,schemaPath:"#/properties/may_contain/items/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err145];
 }
@@ -1970,15 +1962,73 @@ vErrors.push(err145);
 }
 errors++;
 }
-}
-}
-else {
-const err146 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(!((((((((((((((((((((((((((data62 === "wheat") || (data62 === "rye")) || (data62 === "barley")) || (data62 === "oats")) || (data62 === "spelt")) || (data62 === "khorasan")) || (data62 === "crustaceans")) || (data62 === "eggs")) || (data62 === "fish")) || (data62 === "peanuts")) || (data62 === "soybeans")) || (data62 === "milk")) || (data62 === "almonds")) || (data62 === "hazelnuts")) || (data62 === "walnuts")) || (data62 === "cashews")) || (data62 === "pecans")) || (data62 === "brazil-nuts")) || (data62 === "pistachios")) || (data62 === "macadamia")) || (data62 === "celery")) || (data62 === "mustard")) || (data62 === "sesame")) || (data62 === "sulphites")) || (data62 === "lupin")) || (data62 === "molluscs"))){
+const err146 = {instancePath:instancePath+"/may_contain/" + i6,schemaPath:"#/properties/may_contain/items/enum",keyword:"enum",params:{allowedValues: schema11.properties.may_contain.items.enum},message:"must be equal to one of the allowed values"};
 if(vErrors === null){
 vErrors = [err146];
 }
 else {
 vErrors.push(err146);
+}
+errors++;
+}
+}
+let i7 = data61.length;
+let j1;
+if(i7 > 1){
+const indices1 = {};
+for(;i7--;){
+let item1 = data61[i7];
+if(typeof item1 !== "string"){
+continue;
+}
+if(typeof indices1[item1] == "number"){
+j1 = indices1[item1];
+const err147 = {instancePath:instancePath+"/may_contain",schemaPath:"#/properties/may_contain/uniqueItems",keyword:"uniqueItems",params:{i: i7, j: j1},message:"must NOT have duplicate items (items ## "+j1+" and "+i7+" are identical)"};
+if(vErrors === null){
+vErrors = [err147];
+}
+else {
+vErrors.push(err147);
+}
+errors++;
+break;
+}
+indices1[item1] = i7;
+}
+}
+}
+else {
+const err148 = {instancePath:instancePath+"/may_contain",schemaPath:"#/properties/may_contain/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(vErrors === null){
+vErrors = [err148];
+}
+else {
+vErrors.push(err148);
+}
+errors++;
+}
+}
+if(data.notes !== undefined){
+if(typeof data.notes !== "string"){
+const err149 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err149];
+}
+else {
+vErrors.push(err149);
+}
+errors++;
+}
+}
+}
+else {
+const err150 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err150];
+}
+else {
+vErrors.push(err150);
 }
 errors++;
 }
@@ -2955,8 +3005,9 @@ return errors === 0;
 }
 
 export const plan = validate12;
-const schema13 = {"$schema":"http://json-schema.org/draft-07/schema#","additionalProperties":false,"$id":"https://panform.example/schema/plan.schema.json","title":"Panform production plan","type":"object","required":["date","ready_by","conditions","mixers","orders"],"properties":{"$schema":{"type":"string"},"date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","type":"string"},"ready_by":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"First bake out of the oven, \"HH:MM\".","type":"string"},"conditions":{"additionalProperties":false,"type":"object","required":["room","flour","tap_water"],"properties":{"room":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"flour":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"tap_water":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"preferment":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"}}},"mixers":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","capacity","friction"],"properties":{"name":{"minLength":1,"type":"string"},"capacity":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"minimum":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"friction":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"Temperature rise from mixing, as a difference.","type":"string"}}}},"orders":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["formula","pieces"],"properties":{"formula":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","type":"string"},"pieces":{"minimum":1,"type":"integer"},"piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"mixer":{"minLength":1,"type":"string"},"customer":{"type":"string"}}}},"ranges":{"description":"Which end of a step range the timeline uses; default mid.","anyOf":[{"const":"short","type":"string"},{"const":"mid","type":"string"},{"const":"long","type":"string"}]},"notes":{"type":"string"}}};
+const schema13 = {"$schema":"http://json-schema.org/draft-07/schema#","additionalProperties":false,"$id":"https://panform.example/schema/plan.schema.json","title":"Panform production plan","type":"object","required":["date","ready_by","conditions","mixers","orders"],"properties":{"$schema":{"type":"string"},"date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","type":"string"},"ready_by":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"First bake out of the oven, \"HH:MM\".","type":"string"},"conditions":{"additionalProperties":false,"type":"object","required":["room","flour","tap_water"],"properties":{"room":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"flour":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"tap_water":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"preferment":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"}}},"mixers":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","capacity","friction"],"properties":{"name":{"minLength":1,"type":"string"},"capacity":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"minimum":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"friction":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"Temperature rise from mixing, as a difference.","type":"string"},"clean_down":{"minimum":0,"description":"Minutes to clean the bowl and hook before a dough without an allergen follows one with it.","type":"number"}}}},"ovens":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","decks","slots"],"properties":{"name":{"minLength":1,"type":"string"},"decks":{"minimum":1,"description":"Independent chambers, each with its own temperature (a rack oven: 1).","type":"integer"},"slots":{"minimum":1,"description":"Trays or peel places per deck.","type":"integer"},"heat":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$","description":"How fast a deck heats up, e.g. \"4 °C/min\".","type":"string"},"cool":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$","description":"How fast a deck cools down, e.g. \"2 °C/min\".","type":"string"},"steam":{"description":"The oven can steam.","type":"boolean"},"fan":{"description":"A fan (convection or rack) oven: trays, tins and pots, no bread on the sole.","type":"boolean"}}}},"bench":{"minItems":1,"description":"Shifts of people for dividing, preshaping and shaping.","type":"array","items":{"additionalProperties":false,"type":"object","required":["from","to","people"],"properties":{"from":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"Start, \"HH:MM\".","type":"string"},"to":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"End, \"HH:MM\"; a time not after `from` ends the next day.","type":"string"},"people":{"minimum":1,"description":"People on the bench for dividing, preshaping and shaping.","type":"integer"},"date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","description":"The day the shift starts; default the plan's date.","type":"string"}}}},"orders":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["formula","pieces"],"properties":{"formula":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","type":"string"},"pieces":{"minimum":1,"type":"integer"},"piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"mixer":{"minLength":1,"type":"string"},"oven":{"minLength":1,"description":"The oven to bake it in; default any oven that suits the bake.","type":"string"},"customer":{"type":"string"},"due":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"When the last piece must be out of the oven, \"HH:MM\" on the plan's date; default ready_by.","type":"string"}}}},"ranges":{"description":"Which end of a step range the timeline uses; default mid.","anyOf":[{"const":"short","type":"string"},{"const":"mid","type":"string"},{"const":"long","type":"string"}]},"notes":{"type":"string"}}};
 const pattern25 = new RegExp("^([01][0-9]|2[0-3]):[0-5][0-9]$", "u");
+const pattern33 = new RegExp("^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$", "u");
 
 function validate12(data, {instancePath="", parentData, parentDataProperty, rootData=data}={}){
 /*# sourceURL="https://panform.example/schema/plan.schema.json" */;
@@ -3014,7 +3065,7 @@ vErrors.push(err4);
 errors++;
 }
 for(const key0 in data){
-if(!((((((((key0 === "$schema") || (key0 === "date")) || (key0 === "ready_by")) || (key0 === "conditions")) || (key0 === "mixers")) || (key0 === "orders")) || (key0 === "ranges")) || (key0 === "notes"))){
+if(!(func2.call(schema13.properties, key0))){
 const err5 = {instancePath,schemaPath:"#/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key0},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err5];
@@ -3292,7 +3343,7 @@ vErrors.push(err27);
 errors++;
 }
 for(const key2 in data9){
-if(!((((key2 === "name") || (key2 === "capacity")) || (key2 === "minimum")) || (key2 === "friction"))){
+if(!(((((key2 === "name") || (key2 === "capacity")) || (key2 === "minimum")) || (key2 === "friction")) || (key2 === "clean_down"))){
 const err28 = {instancePath:instancePath+"/mixers/" + i0,schemaPath:"#/properties/mixers/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key2},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err28];
@@ -3403,9 +3454,11 @@ vErrors.push(err36);
 errors++;
 }
 }
-}
-else {
-const err37 = {instancePath:instancePath+"/mixers/" + i0,schemaPath:"#/properties/mixers/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data9.clean_down !== undefined){
+let data14 = data9.clean_down;
+if(typeof data14 == "number"){
+if(data14 < 0 || isNaN(data14)){
+const err37 = {instancePath:instancePath+"/mixers/" + i0+"/clean_down",schemaPath:"#/properties/mixers/items/properties/clean_down/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err37];
 }
@@ -3415,9 +3468,8 @@ vErrors.push(err37);
 errors++;
 }
 }
-}
 else {
-const err38 = {instancePath:instancePath+"/mixers",schemaPath:"#/properties/mixers/type",keyword:"type",params:{type: "array"},message:"must be array"};
+const err38 = {instancePath:instancePath+"/mixers/" + i0+"/clean_down",schemaPath:"#/properties/mixers/items/properties/clean_down/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err38];
 }
@@ -3427,11 +3479,9 @@ vErrors.push(err38);
 errors++;
 }
 }
-if(data.orders !== undefined){
-let data14 = data.orders;
-if(Array.isArray(data14)){
-if(data14.length < 1){
-const err39 = {instancePath:instancePath+"/orders",schemaPath:"#/properties/orders/minItems",keyword:"minItems",params:{limit: 1},message:"must NOT have fewer than 1 items"};
+}
+else {
+const err39 = {instancePath:instancePath+"/mixers/" + i0,schemaPath:"#/properties/mixers/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err39];
 }
@@ -3440,12 +3490,10 @@ vErrors.push(err39);
 }
 errors++;
 }
-const len1 = data14.length;
-for(let i1=0; i1<len1; i1++){
-let data15 = data14[i1];
-if(data15 && typeof data15 == "object" && !Array.isArray(data15)){
-if(data15.formula === undefined){
-const err40 = {instancePath:instancePath+"/orders/" + i1,schemaPath:"#/properties/orders/items/required",keyword:"required",params:{missingProperty: "formula"},message:"must have required property '"+"formula"+"'"};
+}
+}
+else {
+const err40 = {instancePath:instancePath+"/mixers",schemaPath:"#/properties/mixers/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err40];
 }
@@ -3454,8 +3502,12 @@ vErrors.push(err40);
 }
 errors++;
 }
-if(data15.pieces === undefined){
-const err41 = {instancePath:instancePath+"/orders/" + i1,schemaPath:"#/properties/orders/items/required",keyword:"required",params:{missingProperty: "pieces"},message:"must have required property '"+"pieces"+"'"};
+}
+if(data.ovens !== undefined){
+let data15 = data.ovens;
+if(Array.isArray(data15)){
+if(data15.length < 1){
+const err41 = {instancePath:instancePath+"/ovens",schemaPath:"#/properties/ovens/minItems",keyword:"minItems",params:{limit: 1},message:"must NOT have fewer than 1 items"};
 if(vErrors === null){
 vErrors = [err41];
 }
@@ -3464,9 +3516,12 @@ vErrors.push(err41);
 }
 errors++;
 }
-for(const key3 in data15){
-if(!(((((key3 === "formula") || (key3 === "pieces")) || (key3 === "piece")) || (key3 === "mixer")) || (key3 === "customer"))){
-const err42 = {instancePath:instancePath+"/orders/" + i1,schemaPath:"#/properties/orders/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key3},message:"must NOT have additional properties"};
+const len1 = data15.length;
+for(let i1=0; i1<len1; i1++){
+let data16 = data15[i1];
+if(data16 && typeof data16 == "object" && !Array.isArray(data16)){
+if(data16.name === undefined){
+const err42 = {instancePath:instancePath+"/ovens/" + i1,schemaPath:"#/properties/ovens/items/required",keyword:"required",params:{missingProperty: "name"},message:"must have required property '"+"name"+"'"};
 if(vErrors === null){
 vErrors = [err42];
 }
@@ -3475,12 +3530,8 @@ vErrors.push(err42);
 }
 errors++;
 }
-}
-if(data15.formula !== undefined){
-let data16 = data15.formula;
-if(typeof data16 === "string"){
-if(!pattern0.test(data16)){
-const err43 = {instancePath:instancePath+"/orders/" + i1+"/formula",schemaPath:"#/properties/orders/items/properties/formula/pattern",keyword:"pattern",params:{pattern: "^[a-z0-9]+(-[a-z0-9]+)*$"},message:"must match pattern \""+"^[a-z0-9]+(-[a-z0-9]+)*$"+"\""};
+if(data16.decks === undefined){
+const err43 = {instancePath:instancePath+"/ovens/" + i1,schemaPath:"#/properties/ovens/items/required",keyword:"required",params:{missingProperty: "decks"},message:"must have required property '"+"decks"+"'"};
 if(vErrors === null){
 vErrors = [err43];
 }
@@ -3489,9 +3540,8 @@ vErrors.push(err43);
 }
 errors++;
 }
-}
-else {
-const err44 = {instancePath:instancePath+"/orders/" + i1+"/formula",schemaPath:"#/properties/orders/items/properties/formula/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data16.slots === undefined){
+const err44 = {instancePath:instancePath+"/ovens/" + i1,schemaPath:"#/properties/ovens/items/required",keyword:"required",params:{missingProperty: "slots"},message:"must have required property '"+"slots"+"'"};
 if(vErrors === null){
 vErrors = [err44];
 }
@@ -3500,11 +3550,9 @@ vErrors.push(err44);
 }
 errors++;
 }
-}
-if(data15.pieces !== undefined){
-let data17 = data15.pieces;
-if(!((typeof data17 == "number") && (!(data17 % 1) && !isNaN(data17)))){
-const err45 = {instancePath:instancePath+"/orders/" + i1+"/pieces",schemaPath:"#/properties/orders/items/properties/pieces/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
+for(const key3 in data16){
+if(!(((((((key3 === "name") || (key3 === "decks")) || (key3 === "slots")) || (key3 === "heat")) || (key3 === "cool")) || (key3 === "steam")) || (key3 === "fan"))){
+const err45 = {instancePath:instancePath+"/ovens/" + i1,schemaPath:"#/properties/ovens/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key3},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err45];
 }
@@ -3513,9 +3561,12 @@ vErrors.push(err45);
 }
 errors++;
 }
-if(typeof data17 == "number"){
-if(data17 < 1 || isNaN(data17)){
-const err46 = {instancePath:instancePath+"/orders/" + i1+"/pieces",schemaPath:"#/properties/orders/items/properties/pieces/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
+}
+if(data16.name !== undefined){
+let data17 = data16.name;
+if(typeof data17 === "string"){
+if(func3(data17) < 1){
+const err46 = {instancePath:instancePath+"/ovens/" + i1+"/name",schemaPath:"#/properties/ovens/items/properties/name/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err46];
 }
@@ -3525,12 +3576,8 @@ vErrors.push(err46);
 errors++;
 }
 }
-}
-if(data15.piece !== undefined){
-let data18 = data15.piece;
-if(typeof data18 === "string"){
-if(!pattern2.test(data18)){
-const err47 = {instancePath:instancePath+"/orders/" + i1+"/piece",schemaPath:"#/properties/orders/items/properties/piece/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
+else {
+const err47 = {instancePath:instancePath+"/ovens/" + i1+"/name",schemaPath:"#/properties/ovens/items/properties/name/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err47];
 }
@@ -3540,8 +3587,10 @@ vErrors.push(err47);
 errors++;
 }
 }
-else {
-const err48 = {instancePath:instancePath+"/orders/" + i1+"/piece",schemaPath:"#/properties/orders/items/properties/piece/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data16.decks !== undefined){
+let data18 = data16.decks;
+if(!((typeof data18 == "number") && (!(data18 % 1) && !isNaN(data18)))){
+const err48 = {instancePath:instancePath+"/ovens/" + i1+"/decks",schemaPath:"#/properties/ovens/items/properties/decks/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
 if(vErrors === null){
 vErrors = [err48];
 }
@@ -3550,12 +3599,9 @@ vErrors.push(err48);
 }
 errors++;
 }
-}
-if(data15.mixer !== undefined){
-let data19 = data15.mixer;
-if(typeof data19 === "string"){
-if(func3(data19) < 1){
-const err49 = {instancePath:instancePath+"/orders/" + i1+"/mixer",schemaPath:"#/properties/orders/items/properties/mixer/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+if(typeof data18 == "number"){
+if(data18 < 1 || isNaN(data18)){
+const err49 = {instancePath:instancePath+"/ovens/" + i1+"/decks",schemaPath:"#/properties/ovens/items/properties/decks/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
 if(vErrors === null){
 vErrors = [err49];
 }
@@ -3565,8 +3611,11 @@ vErrors.push(err49);
 errors++;
 }
 }
-else {
-const err50 = {instancePath:instancePath+"/orders/" + i1+"/mixer",schemaPath:"#/properties/orders/items/properties/mixer/type",keyword:"type",params:{type: "string"},message:"must be string"};
+}
+if(data16.slots !== undefined){
+let data19 = data16.slots;
+if(!((typeof data19 == "number") && (!(data19 % 1) && !isNaN(data19)))){
+const err50 = {instancePath:instancePath+"/ovens/" + i1+"/slots",schemaPath:"#/properties/ovens/items/properties/slots/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
 if(vErrors === null){
 vErrors = [err50];
 }
@@ -3575,10 +3624,9 @@ vErrors.push(err50);
 }
 errors++;
 }
-}
-if(data15.customer !== undefined){
-if(typeof data15.customer !== "string"){
-const err51 = {instancePath:instancePath+"/orders/" + i1+"/customer",schemaPath:"#/properties/orders/items/properties/customer/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(typeof data19 == "number"){
+if(data19 < 1 || isNaN(data19)){
+const err51 = {instancePath:instancePath+"/ovens/" + i1+"/slots",schemaPath:"#/properties/ovens/items/properties/slots/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
 if(vErrors === null){
 vErrors = [err51];
 }
@@ -3589,8 +3637,11 @@ errors++;
 }
 }
 }
-else {
-const err52 = {instancePath:instancePath+"/orders/" + i1,schemaPath:"#/properties/orders/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data16.heat !== undefined){
+let data20 = data16.heat;
+if(typeof data20 === "string"){
+if(!pattern33.test(data20)){
+const err52 = {instancePath:instancePath+"/ovens/" + i1+"/heat",schemaPath:"#/properties/ovens/items/properties/heat/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err52];
 }
@@ -3600,9 +3651,8 @@ vErrors.push(err52);
 errors++;
 }
 }
-}
 else {
-const err53 = {instancePath:instancePath+"/orders",schemaPath:"#/properties/orders/type",keyword:"type",params:{type: "array"},message:"must be array"};
+const err53 = {instancePath:instancePath+"/ovens/" + i1+"/heat",schemaPath:"#/properties/ovens/items/properties/heat/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err53];
 }
@@ -3612,13 +3662,11 @@ vErrors.push(err53);
 errors++;
 }
 }
-if(data.ranges !== undefined){
-let data21 = data.ranges;
-const _errs48 = errors;
-let valid8 = false;
-const _errs49 = errors;
-if(typeof data21 !== "string"){
-const err54 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/0/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data16.cool !== undefined){
+let data21 = data16.cool;
+if(typeof data21 === "string"){
+if(!pattern33.test(data21)){
+const err54 = {instancePath:instancePath+"/ovens/" + i1+"/cool",schemaPath:"#/properties/ovens/items/properties/cool/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err54];
 }
@@ -3627,8 +3675,9 @@ vErrors.push(err54);
 }
 errors++;
 }
-if("short" !== data21){
-const err55 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/0/const",keyword:"const",params:{allowedValue: "short"},message:"must be equal to constant"};
+}
+else {
+const err55 = {instancePath:instancePath+"/ovens/" + i1+"/cool",schemaPath:"#/properties/ovens/items/properties/cool/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err55];
 }
@@ -3637,12 +3686,10 @@ vErrors.push(err55);
 }
 errors++;
 }
-var _valid0 = _errs49 === errors;
-valid8 = valid8 || _valid0;
-if(!valid8){
-const _errs51 = errors;
-if(typeof data21 !== "string"){
-const err56 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
+}
+if(data16.steam !== undefined){
+if(typeof data16.steam !== "boolean"){
+const err56 = {instancePath:instancePath+"/ovens/" + i1+"/steam",schemaPath:"#/properties/ovens/items/properties/steam/type",keyword:"type",params:{type: "boolean"},message:"must be boolean"};
 if(vErrors === null){
 vErrors = [err56];
 }
@@ -3651,8 +3698,10 @@ vErrors.push(err56);
 }
 errors++;
 }
-if("mid" !== data21){
-const err57 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/1/const",keyword:"const",params:{allowedValue: "mid"},message:"must be equal to constant"};
+}
+if(data16.fan !== undefined){
+if(typeof data16.fan !== "boolean"){
+const err57 = {instancePath:instancePath+"/ovens/" + i1+"/fan",schemaPath:"#/properties/ovens/items/properties/fan/type",keyword:"type",params:{type: "boolean"},message:"must be boolean"};
 if(vErrors === null){
 vErrors = [err57];
 }
@@ -3661,12 +3710,10 @@ vErrors.push(err57);
 }
 errors++;
 }
-var _valid0 = _errs51 === errors;
-valid8 = valid8 || _valid0;
-if(!valid8){
-const _errs53 = errors;
-if(typeof data21 !== "string"){
-const err58 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/2/type",keyword:"type",params:{type: "string"},message:"must be string"};
+}
+}
+else {
+const err58 = {instancePath:instancePath+"/ovens/" + i1,schemaPath:"#/properties/ovens/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err58];
 }
@@ -3675,8 +3722,10 @@ vErrors.push(err58);
 }
 errors++;
 }
-if("long" !== data21){
-const err59 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/2/const",keyword:"const",params:{allowedValue: "long"},message:"must be equal to constant"};
+}
+}
+else {
+const err59 = {instancePath:instancePath+"/ovens",schemaPath:"#/properties/ovens/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err59];
 }
@@ -3685,12 +3734,12 @@ vErrors.push(err59);
 }
 errors++;
 }
-var _valid0 = _errs53 === errors;
-valid8 = valid8 || _valid0;
 }
-}
-if(!valid8){
-const err60 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(data.bench !== undefined){
+let data24 = data.bench;
+if(Array.isArray(data24)){
+if(data24.length < 1){
+const err60 = {instancePath:instancePath+"/bench",schemaPath:"#/properties/bench/minItems",keyword:"minItems",params:{limit: 1},message:"must NOT have fewer than 1 items"};
 if(vErrors === null){
 vErrors = [err60];
 }
@@ -3699,11 +3748,503 @@ vErrors.push(err60);
 }
 errors++;
 }
+const len2 = data24.length;
+for(let i2=0; i2<len2; i2++){
+let data25 = data24[i2];
+if(data25 && typeof data25 == "object" && !Array.isArray(data25)){
+if(data25.from === undefined){
+const err61 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/required",keyword:"required",params:{missingProperty: "from"},message:"must have required property '"+"from"+"'"};
+if(vErrors === null){
+vErrors = [err61];
+}
 else {
-errors = _errs48;
+vErrors.push(err61);
+}
+errors++;
+}
+if(data25.to === undefined){
+const err62 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/required",keyword:"required",params:{missingProperty: "to"},message:"must have required property '"+"to"+"'"};
+if(vErrors === null){
+vErrors = [err62];
+}
+else {
+vErrors.push(err62);
+}
+errors++;
+}
+if(data25.people === undefined){
+const err63 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/required",keyword:"required",params:{missingProperty: "people"},message:"must have required property '"+"people"+"'"};
+if(vErrors === null){
+vErrors = [err63];
+}
+else {
+vErrors.push(err63);
+}
+errors++;
+}
+for(const key4 in data25){
+if(!((((key4 === "from") || (key4 === "to")) || (key4 === "people")) || (key4 === "date"))){
+const err64 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key4},message:"must NOT have additional properties"};
+if(vErrors === null){
+vErrors = [err64];
+}
+else {
+vErrors.push(err64);
+}
+errors++;
+}
+}
+if(data25.from !== undefined){
+let data26 = data25.from;
+if(typeof data26 === "string"){
+if(!pattern25.test(data26)){
+const err65 = {instancePath:instancePath+"/bench/" + i2+"/from",schemaPath:"#/properties/bench/items/properties/from/pattern",keyword:"pattern",params:{pattern: "^([01][0-9]|2[0-3]):[0-5][0-9]$"},message:"must match pattern \""+"^([01][0-9]|2[0-3]):[0-5][0-9]$"+"\""};
+if(vErrors === null){
+vErrors = [err65];
+}
+else {
+vErrors.push(err65);
+}
+errors++;
+}
+}
+else {
+const err66 = {instancePath:instancePath+"/bench/" + i2+"/from",schemaPath:"#/properties/bench/items/properties/from/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err66];
+}
+else {
+vErrors.push(err66);
+}
+errors++;
+}
+}
+if(data25.to !== undefined){
+let data27 = data25.to;
+if(typeof data27 === "string"){
+if(!pattern25.test(data27)){
+const err67 = {instancePath:instancePath+"/bench/" + i2+"/to",schemaPath:"#/properties/bench/items/properties/to/pattern",keyword:"pattern",params:{pattern: "^([01][0-9]|2[0-3]):[0-5][0-9]$"},message:"must match pattern \""+"^([01][0-9]|2[0-3]):[0-5][0-9]$"+"\""};
+if(vErrors === null){
+vErrors = [err67];
+}
+else {
+vErrors.push(err67);
+}
+errors++;
+}
+}
+else {
+const err68 = {instancePath:instancePath+"/bench/" + i2+"/to",schemaPath:"#/properties/bench/items/properties/to/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err68];
+}
+else {
+vErrors.push(err68);
+}
+errors++;
+}
+}
+if(data25.people !== undefined){
+let data28 = data25.people;
+if(!((typeof data28 == "number") && (!(data28 % 1) && !isNaN(data28)))){
+const err69 = {instancePath:instancePath+"/bench/" + i2+"/people",schemaPath:"#/properties/bench/items/properties/people/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
+if(vErrors === null){
+vErrors = [err69];
+}
+else {
+vErrors.push(err69);
+}
+errors++;
+}
+if(typeof data28 == "number"){
+if(data28 < 1 || isNaN(data28)){
+const err70 = {instancePath:instancePath+"/bench/" + i2+"/people",schemaPath:"#/properties/bench/items/properties/people/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
+if(vErrors === null){
+vErrors = [err70];
+}
+else {
+vErrors.push(err70);
+}
+errors++;
+}
+}
+}
+if(data25.date !== undefined){
+let data29 = data25.date;
+if(typeof data29 === "string"){
+if(!pattern23.test(data29)){
+const err71 = {instancePath:instancePath+"/bench/" + i2+"/date",schemaPath:"#/properties/bench/items/properties/date/pattern",keyword:"pattern",params:{pattern: "^[0-9]{4}-[0-9]{2}-[0-9]{2}$"},message:"must match pattern \""+"^[0-9]{4}-[0-9]{2}-[0-9]{2}$"+"\""};
+if(vErrors === null){
+vErrors = [err71];
+}
+else {
+vErrors.push(err71);
+}
+errors++;
+}
+}
+else {
+const err72 = {instancePath:instancePath+"/bench/" + i2+"/date",schemaPath:"#/properties/bench/items/properties/date/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err72];
+}
+else {
+vErrors.push(err72);
+}
+errors++;
+}
+}
+}
+else {
+const err73 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err73];
+}
+else {
+vErrors.push(err73);
+}
+errors++;
+}
+}
+}
+else {
+const err74 = {instancePath:instancePath+"/bench",schemaPath:"#/properties/bench/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(vErrors === null){
+vErrors = [err74];
+}
+else {
+vErrors.push(err74);
+}
+errors++;
+}
+}
+if(data.orders !== undefined){
+let data30 = data.orders;
+if(Array.isArray(data30)){
+if(data30.length < 1){
+const err75 = {instancePath:instancePath+"/orders",schemaPath:"#/properties/orders/minItems",keyword:"minItems",params:{limit: 1},message:"must NOT have fewer than 1 items"};
+if(vErrors === null){
+vErrors = [err75];
+}
+else {
+vErrors.push(err75);
+}
+errors++;
+}
+const len3 = data30.length;
+for(let i3=0; i3<len3; i3++){
+let data31 = data30[i3];
+if(data31 && typeof data31 == "object" && !Array.isArray(data31)){
+if(data31.formula === undefined){
+const err76 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/required",keyword:"required",params:{missingProperty: "formula"},message:"must have required property '"+"formula"+"'"};
+if(vErrors === null){
+vErrors = [err76];
+}
+else {
+vErrors.push(err76);
+}
+errors++;
+}
+if(data31.pieces === undefined){
+const err77 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/required",keyword:"required",params:{missingProperty: "pieces"},message:"must have required property '"+"pieces"+"'"};
+if(vErrors === null){
+vErrors = [err77];
+}
+else {
+vErrors.push(err77);
+}
+errors++;
+}
+for(const key5 in data31){
+if(!(((((((key5 === "formula") || (key5 === "pieces")) || (key5 === "piece")) || (key5 === "mixer")) || (key5 === "oven")) || (key5 === "customer")) || (key5 === "due"))){
+const err78 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key5},message:"must NOT have additional properties"};
+if(vErrors === null){
+vErrors = [err78];
+}
+else {
+vErrors.push(err78);
+}
+errors++;
+}
+}
+if(data31.formula !== undefined){
+let data32 = data31.formula;
+if(typeof data32 === "string"){
+if(!pattern0.test(data32)){
+const err79 = {instancePath:instancePath+"/orders/" + i3+"/formula",schemaPath:"#/properties/orders/items/properties/formula/pattern",keyword:"pattern",params:{pattern: "^[a-z0-9]+(-[a-z0-9]+)*$"},message:"must match pattern \""+"^[a-z0-9]+(-[a-z0-9]+)*$"+"\""};
+if(vErrors === null){
+vErrors = [err79];
+}
+else {
+vErrors.push(err79);
+}
+errors++;
+}
+}
+else {
+const err80 = {instancePath:instancePath+"/orders/" + i3+"/formula",schemaPath:"#/properties/orders/items/properties/formula/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err80];
+}
+else {
+vErrors.push(err80);
+}
+errors++;
+}
+}
+if(data31.pieces !== undefined){
+let data33 = data31.pieces;
+if(!((typeof data33 == "number") && (!(data33 % 1) && !isNaN(data33)))){
+const err81 = {instancePath:instancePath+"/orders/" + i3+"/pieces",schemaPath:"#/properties/orders/items/properties/pieces/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
+if(vErrors === null){
+vErrors = [err81];
+}
+else {
+vErrors.push(err81);
+}
+errors++;
+}
+if(typeof data33 == "number"){
+if(data33 < 1 || isNaN(data33)){
+const err82 = {instancePath:instancePath+"/orders/" + i3+"/pieces",schemaPath:"#/properties/orders/items/properties/pieces/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
+if(vErrors === null){
+vErrors = [err82];
+}
+else {
+vErrors.push(err82);
+}
+errors++;
+}
+}
+}
+if(data31.piece !== undefined){
+let data34 = data31.piece;
+if(typeof data34 === "string"){
+if(!pattern2.test(data34)){
+const err83 = {instancePath:instancePath+"/orders/" + i3+"/piece",schemaPath:"#/properties/orders/items/properties/piece/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
+if(vErrors === null){
+vErrors = [err83];
+}
+else {
+vErrors.push(err83);
+}
+errors++;
+}
+}
+else {
+const err84 = {instancePath:instancePath+"/orders/" + i3+"/piece",schemaPath:"#/properties/orders/items/properties/piece/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err84];
+}
+else {
+vErrors.push(err84);
+}
+errors++;
+}
+}
+if(data31.mixer !== undefined){
+let data35 = data31.mixer;
+if(typeof data35 === "string"){
+if(func3(data35) < 1){
+const err85 = {instancePath:instancePath+"/orders/" + i3+"/mixer",schemaPath:"#/properties/orders/items/properties/mixer/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+if(vErrors === null){
+vErrors = [err85];
+}
+else {
+vErrors.push(err85);
+}
+errors++;
+}
+}
+else {
+const err86 = {instancePath:instancePath+"/orders/" + i3+"/mixer",schemaPath:"#/properties/orders/items/properties/mixer/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err86];
+}
+else {
+vErrors.push(err86);
+}
+errors++;
+}
+}
+if(data31.oven !== undefined){
+let data36 = data31.oven;
+if(typeof data36 === "string"){
+if(func3(data36) < 1){
+const err87 = {instancePath:instancePath+"/orders/" + i3+"/oven",schemaPath:"#/properties/orders/items/properties/oven/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+if(vErrors === null){
+vErrors = [err87];
+}
+else {
+vErrors.push(err87);
+}
+errors++;
+}
+}
+else {
+const err88 = {instancePath:instancePath+"/orders/" + i3+"/oven",schemaPath:"#/properties/orders/items/properties/oven/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err88];
+}
+else {
+vErrors.push(err88);
+}
+errors++;
+}
+}
+if(data31.customer !== undefined){
+if(typeof data31.customer !== "string"){
+const err89 = {instancePath:instancePath+"/orders/" + i3+"/customer",schemaPath:"#/properties/orders/items/properties/customer/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err89];
+}
+else {
+vErrors.push(err89);
+}
+errors++;
+}
+}
+if(data31.due !== undefined){
+let data38 = data31.due;
+if(typeof data38 === "string"){
+if(!pattern25.test(data38)){
+const err90 = {instancePath:instancePath+"/orders/" + i3+"/due",schemaPath:"#/properties/orders/items/properties/due/pattern",keyword:"pattern",params:{pattern: "^([01][0-9]|2[0-3]):[0-5][0-9]$"},message:"must match pattern \""+"^([01][0-9]|2[0-3]):[0-5][0-9]$"+"\""};
+if(vErrors === null){
+vErrors = [err90];
+}
+else {
+vErrors.push(err90);
+}
+errors++;
+}
+}
+else {
+const err91 = {instancePath:instancePath+"/orders/" + i3+"/due",schemaPath:"#/properties/orders/items/properties/due/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err91];
+}
+else {
+vErrors.push(err91);
+}
+errors++;
+}
+}
+}
+else {
+const err92 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err92];
+}
+else {
+vErrors.push(err92);
+}
+errors++;
+}
+}
+}
+else {
+const err93 = {instancePath:instancePath+"/orders",schemaPath:"#/properties/orders/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(vErrors === null){
+vErrors = [err93];
+}
+else {
+vErrors.push(err93);
+}
+errors++;
+}
+}
+if(data.ranges !== undefined){
+let data39 = data.ranges;
+const _errs86 = errors;
+let valid14 = false;
+const _errs87 = errors;
+if(typeof data39 !== "string"){
+const err94 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/0/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err94];
+}
+else {
+vErrors.push(err94);
+}
+errors++;
+}
+if("short" !== data39){
+const err95 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/0/const",keyword:"const",params:{allowedValue: "short"},message:"must be equal to constant"};
+if(vErrors === null){
+vErrors = [err95];
+}
+else {
+vErrors.push(err95);
+}
+errors++;
+}
+var _valid0 = _errs87 === errors;
+valid14 = valid14 || _valid0;
+if(!valid14){
+const _errs89 = errors;
+if(typeof data39 !== "string"){
+const err96 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err96];
+}
+else {
+vErrors.push(err96);
+}
+errors++;
+}
+if("mid" !== data39){
+const err97 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/1/const",keyword:"const",params:{allowedValue: "mid"},message:"must be equal to constant"};
+if(vErrors === null){
+vErrors = [err97];
+}
+else {
+vErrors.push(err97);
+}
+errors++;
+}
+var _valid0 = _errs89 === errors;
+valid14 = valid14 || _valid0;
+if(!valid14){
+const _errs91 = errors;
+if(typeof data39 !== "string"){
+const err98 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/2/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err98];
+}
+else {
+vErrors.push(err98);
+}
+errors++;
+}
+if("long" !== data39){
+const err99 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/2/const",keyword:"const",params:{allowedValue: "long"},message:"must be equal to constant"};
+if(vErrors === null){
+vErrors = [err99];
+}
+else {
+vErrors.push(err99);
+}
+errors++;
+}
+var _valid0 = _errs91 === errors;
+valid14 = valid14 || _valid0;
+}
+}
+if(!valid14){
+const err100 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(vErrors === null){
+vErrors = [err100];
+}
+else {
+vErrors.push(err100);
+}
+errors++;
+}
+else {
+errors = _errs86;
 if(vErrors !== null){
-if(_errs48){
-vErrors.length = _errs48;
+if(_errs86){
+vErrors.length = _errs86;
 }
 else {
 vErrors = null;
@@ -3713,24 +4254,24 @@ vErrors = null;
 }
 if(data.notes !== undefined){
 if(typeof data.notes !== "string"){
-const err61 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string"};
+const err101 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
-vErrors = [err61];
+vErrors = [err101];
 }
 else {
-vErrors.push(err61);
+vErrors.push(err101);
 }
 errors++;
 }
 }
 }
 else {
-const err62 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err102 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
-vErrors = [err62];
+vErrors = [err102];
 }
 else {
-vErrors.push(err62);
+vErrors.push(err102);
 }
 errors++;
 }

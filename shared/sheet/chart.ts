@@ -1,7 +1,7 @@
 // The timeline as a chart: one row per build and per mix, a bar per step, hour ticks. The HTML
 // page draws it as SVG and the PDF with vector shapes, from this one model. Pure; no I/O.
 import { clockOf, localDateTime, minuteOf } from './time.ts';
-import type { Sheet, TimelineStep } from './types.ts';
+import type { Sheet, TimelineEntry, TimelineStep } from './types.ts';
 
 export interface ChartBar {
   step: TimelineStep;
@@ -11,6 +11,8 @@ export interface ChartBar {
   window: boolean;
   /** Fold times, minutes. */
   folds: number[];
+  /** The timeline entry drawn (its times, temperature and label for a tooltip). */
+  entry: TimelineEntry;
 }
 
 export interface ChartRow {
@@ -85,6 +87,7 @@ export function chartModel(sheet: Sheet, range?: ChartRange): ChartModel {
       to: e.endMinute,
       window: Boolean(e.window),
       folds: (e.folds ?? []).map((f) => minuteOf(f, sheet.date)),
+      entry: e,
     });
   }
   const all = sheet.timeline;

@@ -1,6 +1,7 @@
 // The night's work as a chart: one lane per build and per mix, time running left to right.
 // On screen the lane names stay put while the hours scroll; on paper one picture fits the page.
 import { useLayoutEffect, useRef, useState, type ReactNode } from 'react';
+import { chartModel, type ChartRow } from '#shared/sheet/chart';
 import type { Sheet, TimelineEntry } from '#shared/sheet/types';
 import { dayParts } from '../../../lib/format.ts';
 
@@ -40,41 +41,28 @@ const AXIS_H = 46;
 const PAD = 70;
 
 interface Layout {
-  lanes: { key: string; label: string; build: boolean }[];
-  laneOf: (e: TimelineEntry) => number;
+  /** Lanes, time span and "out by" from shared/sheet/chart.ts, as on the printed sheet. */
+  rows: ChartRow[];
   start: number;
   end: number;
   ready: number;
   height: number;
 }
 
-const laneKey = (e: TimelineEntry) => `${e.formula}|${e.label}|${e.step === 'build' || e.step === 'soak' ? 'b' : 'm'}`;
-
 function layout(sheet: Sheet): Layout {
-  const lanes: Layout['lanes'] = [];
-  const index = new Map<string, number>();
-  for (const e of sheet.timeline) {
-    const key = laneKey(e);
-    if (!index.has(key)) {
-      index.set(key, lanes.length);
-      lanes.push({ key, label: e.label, build: e.step === 'build' || e.step === 'soak' });
-    }
-  }
-  const ready = minuteOfDay(sheet.readyBy, sheet.date);
-  const start = Math.floor(Math.min(...sheet.timeline.map((e) => e.startMinute)) / 60) * 60;
-  const end = Math.ceil(Math.max(ready, ...sheet.timeline.map((e) => e.endMinute)) / 60) * 60;
-  return { lanes, laneOf: (e) => index.get(laneKey(e)) ?? 0, start, end, ready, height: AXIS_H + lanes.length * LANE_H + 8 };
+  const model = chartModel(sheet);
+  return { rows: model.rows, start: model.from, end: model.to, ready: model.readyBy, height: AXIS_H + model.rows.length * LANE_H + 8 };
 }
 
 function LaneLabels({ l, width, names = true }: { l: Layout; width: number; names?: boolean }) {
   return (
     <>
-      {l.lanes.map((lane, i) => (
-        <g key={lane.key}>
+      {l.rows.map((row, i) => (
+        <g key={i} data-lane={names ? row.label : undefined}>
           {i % 2 === 0 && <rect x={0} y={AXIS_H + i * LANE_H} width={width} height={LANE_H} fill="var(--color-sunk)" opacity="0.5" />}
           {names && (
-            <text x={8} y={AXIS_H + i * LANE_H + LANE_H / 2 + 5} fontSize="15" fontWeight={lane.build ? 400 : 700} fill="var(--color-ink)">
-              {lane.label.length > 24 ? `${lane.label.slice(0, 23)}…` : lane.label}
+            <text x={8} y={AXIS_H + i * LANE_H + LANE_H / 2 + 5} fontSize="15" fontWeight={row.bars.some((b) => b.window) ? 400 : 700} fill="var(--color-ink)">
+              {row.label.length > 24 ? `${row.label.slice(0, 23)}…` : row.label}
             </text>
           )}
         </g>
@@ -114,11 +102,13 @@ function Bars({ l, left, px, sheet }: { l: Layout; left: number; px: number; she
           </text>
         </g>
       ))}
-      {sheet.timeline.map((e, i) => {
-        const y = AXIS_H + l.laneOf(e) * LANE_H + 6;
+      {l.rows.flatMap((row, lane) => row.bars.map((bar, k) => ({ bar, lane, key: `${lane}-${k}` }))).map(({ bar, lane, key: i }) => {
+        const e = bar.entry;
+        const y = AXIS_H + lane * LANE_H + 6;
         const h = LANE_H - 12;
-        const x0 = x(e.startMinute);
-        const w = (e.endMinute - e.startMinute) * px;
+        const x0 = x(bar.from);
+        // Cooling past the last bake runs off the edge, as on the printed sheet.
+        const w = (Math.min(bar.to, l.end) - bar.from) * px;
         const tip = `${e.label}: ${STEP_WORD[e.step] ?? e.step} ${e.start.slice(11)}–${e.end.slice(11)}${e.temperature !== undefined ? `, ${Math.round(e.temperature)} °C` : ''}${e.window ? ' (window to make it)' : ''}`;
         if (w < 3) {
           return (
@@ -196,7 +186,7 @@ export function TimelineChart({ sheet }: { sheet: Sheet }) {
 
   if (!l) return <p className="text-muted">Nothing to schedule.</p>;
   const chartW = span * px + PAD;
-  const title = `Timeline: ${l.lanes.length} builds and mixes, ${dayName(l.start, sheet.date)} ${clock(l.start)} to ${dayName(l.end, sheet.date)} ${clock(l.end)}`;
+  const title = `Timeline: ${l.rows.length} builds and mixes, ${dayName(l.start, sheet.date)} ${clock(l.start)} to ${dayName(l.end, sheet.date)} ${clock(l.end)}`;
 
   return (
     <figure className="m-0" data-testid="timeline">
@@ -267,13 +257,6 @@ function Key({ color, hatch, children }: { color: string; hatch?: boolean; child
       {children}
     </span>
   );
-}
-
-/** Minutes from the plan date's midnight for a "YYYY-MM-DDTHH:MM". */
-function minuteOfDay(t: string, planDate: string): number {
-  const day = Date.UTC(+planDate.slice(0, 4), +planDate.slice(5, 7) - 1, +planDate.slice(8, 10));
-  const at = Date.UTC(+t.slice(0, 4), +t.slice(5, 7) - 1, +t.slice(8, 10), +t.slice(11, 13), +t.slice(14, 16));
-  return Math.round((at - day) / 60_000);
 }
 
 function clock(m: number): string {

@@ -18,6 +18,7 @@ import { formulasRouter } from './routes/formulas.ts';
 import { plansRouter } from './routes/plans.ts';
 import { sessionRouter } from './routes/session.ts';
 import { usersRouter } from './routes/users.ts';
+import { createInternalUsersRouter } from './routes/internal-users.ts';
 import { sendMail as sendMailDefault } from './mail.ts';
 import { MailOutbox } from './mail-outbox.ts';
 
@@ -38,6 +39,8 @@ export interface AppOptions {
   webDir?: string | null;
   /** Mounted at /api/internal/load (the local load channel) when given. */
   internalLoadRouter?: express.Router;
+  /** The lock file's token: mounts /api/internal/users (`panform user` while this server holds the folder). */
+  localChannelToken?: string;
   log?: (message: string) => void;
 }
 
@@ -167,6 +170,8 @@ export function createApp(opts: AppOptions): Express {
       loadRouter,
     );
   }
+
+  if (opts.localChannelToken) app.use('/api/internal/users', createInternalUsersRouter(context, opts.localChannelToken));
 
   const api = Router();
   // The busiest routes first: each request is matched against the routes in this order.

@@ -1,14 +1,13 @@
 // `panform serve --demo` (what `npm start` runs): on an empty database, load the demo bakery's
 // formulas and create one account per role with a random password, written once to a file only
 // its owner can read.
-import { chmodSync, existsSync, writeFileSync } from 'node:fs';
+import { chmodSync, existsSync, mkdirSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { ROLES, type Role } from '#shared/permissions';
 import { randomPassword, type ScryptParams } from './auth/password.ts';
 import { countUsers, createUser } from './auth/users.ts';
 import type { DatabaseHandle } from './db/client.ts';
-import { privateDir } from './private-files.ts';
 import { formulasTable } from './db/schema.ts';
 import { loadFolder, type LoadSummary } from './load/index.ts';
 
@@ -76,7 +75,8 @@ export function formatAccounts(accounts: DemoAccount[]): string {
 }
 
 function writeAccountsFile(path: string, accounts: DemoAccount[]): void {
-  privateDir(dirname(path));
+  // A folder made here is private; one that exists (the user's choice) is left as it is.
+  mkdirSync(dirname(path), { recursive: true, mode: 0o700 });
   const text = [
     '# Panform demo accounts, created by `panform serve --demo` on an empty database.',
     '# Shown once; keep this file private or delete it once you have signed in.',

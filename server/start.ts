@@ -61,7 +61,7 @@ export async function startServer(opts: StartOptions): Promise<RunningServer> {
   const finalEnv: Env = env.publicUrlSet ? env : { ...env, port, publicUrl: `http://localhost:${port}` };
   let app: ReturnType<typeof createApp>;
   try {
-    app = createApp({ handle, env: finalEnv, ...appOptions, internalLoadRouter: loadRouter });
+    app = createApp({ handle, env: finalEnv, localChannelToken: handle.lock?.info.token, ...appOptions, internalLoadRouter: loadRouter });
   } catch (e) {
     server.close();
     throw e;

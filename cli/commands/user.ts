@@ -1,6 +1,8 @@
 // `panform user add|list|remove|reset`: accounts and roles, in the same database the server uses.
 // Passwords are typed at a prompt (twice), or read from standard input for scripts.
+import { userInfo } from 'node:os';
 import { Command, Option } from 'commander';
+import type { AccountListEntry as UserListEntry } from '#server/routes/internal-users';
 import { InputError, UsageError } from '../errors.ts';
 
 const ROLE_CHOICES = ['admin', 'author', 'reviewer', 'bench'] as const;
@@ -9,20 +11,117 @@ interface DataOption {
   data?: string;
 }
 
-async function openDb(opts: DataOption) {
-  const { openMigratedDatabase, DatabaseLockedError } = await import('#server/db/client');
+type Role = (typeof ROLE_CHOICES)[number];
+
+/** Who changes accounts, for the audit list: the system user running the command. */
+function actor(): string {
+  let name = process.env.USER ?? '';
   try {
-    return await openMigratedDatabase(opts.data ? { dataDir: opts.data } : {});
+    name = userInfo().username;
+  } catch {
+    // keep $USER
+  }
+  return `panform user (${name || 'unknown'})`;
+}
+
+/** The account changes `panform user` makes, on the database itself or through the running server. */
+interface Accounts {
+  list(): Promise<UserListEntry[]>;
+  exists(email: string): Promise<boolean>;
+  add(input: { email: string; role: Role; name: string; password: string }): Promise<void>;
+  remove(email: string): Promise<boolean>;
+  reset(email: string, password: string): Promise<void>;
+  close(): Promise<void>;
+}
+
+/** The database directly; while `panform serve` holds the PGlite folder, the server over the local channel. */
+async function openAccounts(opts: DataOption): Promise<Accounts> {
+  const { openMigratedDatabase, DatabaseLockedError } = await import('#server/db/client');
+  let handle;
+  try {
+    handle = await openMigratedDatabase(opts.data ? { dataDir: opts.data } : {});
   } catch (e) {
-    if (e instanceof DatabaseLockedError) {
-      throw new InputError(
-        `${e.message}; accounts cannot be changed while it holds the database`,
-        [],
-        'stop the server (Ctrl+C in its terminal), run this command, then start the server again',
-      );
-    }
+    if (e instanceof DatabaseLockedError) return serverAccounts(e.dataDir, e.lock);
     throw new InputError(`cannot open the database: ${(e as Error).message}`);
   }
+  const db = handle.db;
+  const [{ addAccount, removeAccount, resetPassword, AccountRuleError }, { findUserByEmail, DuplicateUserError }, { accountList }] = await Promise.all([
+    import('#server/auth/accounts'),
+    import('#server/auth/users'),
+    import('#server/routes/internal-users'),
+  ]);
+  const rule = (e: unknown): never => {
+    if (e instanceof DuplicateUserError || e instanceof AccountRuleError) throw new InputError(e.message);
+    throw e;
+  };
+  return {
+    list: () => accountList({ db }),
+    exists: async (email) => (await findUserByEmail(db, email)) !== undefined,
+    async add(input) {
+      await addAccount(db, input, actor()).catch(rule);
+    },
+    async remove(email) {
+      const user = await findUserByEmail(db, email);
+      if (!user) return false;
+      await removeAccount(db, user, actor()).catch(rule);
+      return true;
+    },
+    async reset(email, password) {
+      const user = await findUserByEmail(db, email);
+      if (!user) throw new InputError(`no account for ${email}`);
+      await resetPassword(db, user, password, actor());
+    },
+    close: () => handle.close(),
+  };
+}
+
+function serverAccounts(dataDir: string, lock: import('#server/db/client').LockInfo | null): Accounts {
+  if (!lock?.port) {
+    throw new InputError(
+      lock ? `the database in ${dataDir} is in use by another Panform process (pid ${lock.pid}) that is not a server` : `the database in ${dataDir} is in use by another user's Panform process`,
+      [],
+      'wait for it to finish, then run this command again',
+    );
+  }
+  const call = async (body: Record<string, unknown>): Promise<{ ok: boolean; message?: string; error?: string; users?: UserListEntry[] }> => {
+    const { LOAD_TOKEN_HEADER } = await import('#server/routes/internal-load');
+    let res: Response;
+    try {
+      res = await fetch(`http://127.0.0.1:${lock.port}/api/internal/users`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json', [LOAD_TOKEN_HEADER]: lock.token },
+        body: JSON.stringify({ ...body, by: actor() }),
+        signal: AbortSignal.timeout(60_000),
+      });
+    } catch (e) {
+      throw new InputError(`the Panform server (pid ${lock.pid}, port ${lock.port}) holds ${dataDir} but did not answer: ${(e as Error).message}`);
+    }
+    const out = (await res.json().catch(() => null)) as { ok: boolean; message?: string; error?: string; users?: UserListEntry[] } | null;
+    if (!out) throw new InputError(`the process on port ${lock.port} did not answer as a Panform server (HTTP ${res.status}); nothing was changed`);
+    return out;
+  };
+  const must = async (body: Record<string, unknown>) => {
+    const out = await call(body);
+    if (!out.ok) throw new InputError(out.message ?? 'the server refused the change');
+    return out;
+  };
+  return {
+    list: async () => (await must({ action: 'list' })).users ?? [],
+    exists: async (email) => ((await must({ action: 'list' })).users ?? []).some((u) => u.email === email),
+    async add(input) {
+      await must({ action: 'add', ...input });
+    },
+    async remove(email) {
+      const out = await call({ action: 'remove', email });
+      if (!out.ok && out.error === 'not_found') return false;
+      if (!out.ok) throw new InputError(out.message ?? 'the server refused the change');
+      return true;
+    },
+    async reset(email, password) {
+      await must({ action: 'reset', email, password });
+    },
+    close: async () => {},
+  };
 }
 
 async function readStdin(): Promise<string> {
@@ -73,26 +172,19 @@ const add = new Command('add')
   .action(async (email: string, raw: { role: (typeof ROLE_CHOICES)[number]; name?: string; passwordStdin?: boolean } & DataOption) => {
     const opts = { email: await checkEmail(email), role: raw.role, name: raw.name ?? '', stdin: raw.passwordStdin === true, data: raw.data };
     const password = await newPassword(opts.stdin, opts.email);
-    const { createUser, DuplicateUserError } = await import('#server/auth/users');
-    const handle = await openDb(opts);
+    const accounts = await openAccounts(opts);
     try {
-      await createUser(handle.db, { email: opts.email, role: opts.role, name: opts.name, password });
-    } catch (e) {
-      if (e instanceof DuplicateUserError) throw new InputError(e.message, [], `change its password with \`panform user reset ${opts.email}\``);
-      throw e;
+      if (await accounts.exists(opts.email)) {
+        throw new InputError(`an account for ${opts.email} already exists`, [], `change its password with \`panform user reset ${opts.email}\``);
+      }
+      await accounts.add({ email: opts.email, role: opts.role, name: opts.name, password });
     } finally {
-      await handle.close();
+      await accounts.close();
     }
     process.stdout.write(`Added ${opts.email} (${opts.role}).\n`);
   });
 
-export interface UserListEntry {
-  email: string;
-  name: string;
-  role: string;
-  createdAt: string;
-  passwordChangedAt: string;
-}
+export type { UserListEntry };
 
 const list = new Command('list')
   .description('list the accounts')
@@ -100,19 +192,12 @@ const list = new Command('list')
   .addOption(dataOption())
   .addHelpText('after', '\nExample:\n  $ panform user list\n  $ panform user list --json')
   .action(async (raw: { json?: boolean } & DataOption) => {
-    const { listUsers } = await import('#server/auth/users');
-    const handle = await openDb(raw);
+    const accounts = await openAccounts(raw);
     let users: UserListEntry[];
     try {
-      users = (await listUsers(handle.db)).map((u) => ({
-        email: u.email,
-        name: u.name,
-        role: u.role,
-        createdAt: u.createdAt.toISOString(),
-        passwordChangedAt: u.passwordChangedAt.toISOString(),
-      }));
+      users = await accounts.list();
     } finally {
-      await handle.close();
+      await accounts.close();
     }
     if (raw.json) {
       process.stdout.write(`${JSON.stringify(users, null, 2)}\n`);
@@ -134,13 +219,12 @@ const remove = new Command('remove')
   .addHelpText('after', '\nExample:\n  $ panform user remove jonah@tidewater.example')
   .action(async (email: string, raw: DataOption) => {
     const e = await checkEmail(email);
-    const { removeUser } = await import('#server/auth/users');
-    const handle = await openDb(raw);
+    const accounts = await openAccounts(raw);
     let removed: boolean;
     try {
-      removed = await removeUser(handle.db, e);
+      removed = await accounts.remove(e);
     } finally {
-      await handle.close();
+      await accounts.close();
     }
     if (!removed) throw new InputError(`no account for ${e}`, [], 'see the accounts with `panform user list`');
     process.stdout.write(`Removed ${e}.\n`);
@@ -154,16 +238,14 @@ const reset = new Command('reset')
   .addHelpText('after', '\nExample:\n  $ panform user reset ines@tidewater.example\n  $ printf "%s\\n" "$PASSWORD" | panform user reset ines@tidewater.example --password-stdin')
   .action(async (email: string, raw: { passwordStdin?: boolean } & DataOption) => {
     const e = await checkEmail(email);
-    const { findUserByEmail, setPassword } = await import('#server/auth/users');
-    const handle = await openDb(raw);
+    const accounts = await openAccounts(raw);
     try {
       // Check the account first so nobody types a password for nothing.
-      const user = await findUserByEmail(handle.db, e);
-      if (!user) throw new InputError(`no account for ${e}`, [], `add it with \`panform user add ${e} --role ROLE\``);
+      if (!(await accounts.exists(e))) throw new InputError(`no account for ${e}`, [], `add it with \`panform user add ${e} --role ROLE\``);
       const password = await newPassword(raw.passwordStdin === true, e);
-      await setPassword(handle.db, user.id, password);
+      await accounts.reset(e, password);
     } finally {
-      await handle.close();
+      await accounts.close();
     }
     process.stdout.write(`New password set for ${e}; its sessions are signed out.\n`);
   });

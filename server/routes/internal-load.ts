@@ -4,7 +4,7 @@
 // same load core in its own process, one load at a time.
 import { createHash, timingSafeEqual } from 'node:crypto';
 import { isAbsolute } from 'node:path';
-import express, { Router, type Request, type Response } from 'express';
+import express, { Router, type Request, type RequestHandler, type Response } from 'express';
 import type { Finding } from '#shared/parse';
 import type { DatabaseHandle } from '../db/client.ts';
 import { applyLoad, LoadPathError, prepareLoad, type LoadSummary } from '../load/index.ts';
@@ -46,16 +46,13 @@ function send(res: Response, status: number, body: InternalLoadResponse): void {
   res.status(status).set('Cache-Control', 'no-store').json(body);
 }
 
-export function createInternalLoadRouter(opts: InternalLoadOptions): Router {
-  const { handle, dataDir, token } = opts;
-  const log = opts.log ?? ((m: string) => process.stderr.write(`${m}\n`));
-  const router = Router();
-  // One load at a time; a second waits for the first.
-  let queue: Promise<unknown> = Promise.resolve();
-
-  // Who may talk to us is decided before any body is read: the socket's own address (never a
-  // forwarded header), then the token.
-  router.use((req: Request, res: Response, next) => {
+/**
+ * Who may use a local channel (loads, and `panform user` while a server holds the folder) is
+ * decided before any body is read: the socket's own address (never a forwarded header), then the
+ * token from the lock file.
+ */
+export function localChannelGuard(token: string): RequestHandler {
+  return (req: Request, res: Response, next) => {
     if (!LOOPBACK.has(req.socket.remoteAddress ?? '')) {
       send(res, 403, { ok: false, error: 'forbidden', message: 'the load channel answers only on this machine (loopback)' });
       return;
@@ -65,7 +62,17 @@ export function createInternalLoadRouter(opts: InternalLoadOptions): Router {
       return;
     }
     next();
-  });
+  };
+}
+
+export function createInternalLoadRouter(opts: InternalLoadOptions): Router {
+  const { handle, dataDir, token } = opts;
+  const log = opts.log ?? ((m: string) => process.stderr.write(`${m}\n`));
+  const router = Router();
+  // One load at a time; a second waits for the first.
+  let queue: Promise<unknown> = Promise.resolve();
+
+  router.use(localChannelGuard(token));
   router.use(express.json({ limit: '1mb', strict: true }));
 
   router.post('/', async (req: Request, res: Response) => {

@@ -70,17 +70,39 @@ describe('panform serve --demo', () => {
     });
     expect(signIn.status).toBe(200);
     const cookie = signIn.headers.getSetCookie()[0].split(';')[0];
+    const adminSignIn = await fetch(`${s.url}/api/session`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify({ email: 'admin@tidewater.example', password: accounts.get('admin') }),
+    });
+    const adminCookie = adminSignIn.headers.getSetCookie()[0].split(';')[0];
     const list = (await (await fetch(`${s.url}/api/formulas`, { headers: { cookie } })).json()) as { formulas: unknown[] };
     expect(list.formulas.length).toBe(9); // the 11 demo formulas less one draft and one retired
     const page = await fetch(`${s.url}/plans/2026-12-03`);
     expect(page.status).toBe(200);
     expect(await page.text()).toMatch(/<div id="root">/);
 
-    // While the server holds the folder, account changes are refused with a clear message.
-    const locked = await cli.run(['user', 'list', '--data', data]);
-    expect(locked.code).toBe(1);
-    expect(locked.stderr).toMatch(/in use by another Panform process .*serving on port/);
-    expect(locked.stderr).toMatch(/stop the server/);
+    // While the server holds the folder, `panform user` hands its changes to it.
+    const listed = await cli.run(['user', 'list', '--json', '--data', data]);
+    expect(listed.code, listed.stderr).toBe(0);
+    expect((JSON.parse(listed.stdout) as { email: string }[]).map((u) => u.email)).toContain('bench@tidewater.example');
+    const added = await cli.run(['user', 'add', 'odile@tidewater.example', '--role', 'bench', '--password-stdin', '--data', data], { input: 'rye and caraway\n' });
+    expect(added.code, added.stderr).toBe(0);
+    const odile = await fetch(`${s.url}/api/session`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify({ email: 'odile@tidewater.example', password: 'rye and caraway' }),
+    });
+    expect(odile.status).toBe(200);
+    const odileCookie = odile.headers.getSetCookie()[0].split(';')[0];
+    expect((await fetch(`${s.url}/api/me`, { headers: { cookie: odileCookie } })).status).toBe(200);
+    const removed = await cli.run(['user', 'remove', 'odile@tidewater.example', '--data', data]);
+    expect(removed.code, removed.stderr).toBe(0);
+    // Signed out at once, though the server keeps sessions in memory for a moment.
+    expect((await fetch(`${s.url}/api/me`, { headers: { cookie: odileCookie } })).status).toBe(401);
+    const audit = (await (await fetch(`${s.url}/api/audit`, { headers: { cookie: adminCookie } })).json()) as { entries: { action: string; actor: string; target: string }[] };
+    expect(audit.entries.slice(0, 2).map((e) => `${e.action} ${e.target}`)).toEqual(['account.remove odile@tidewater.example', 'account.add odile@tidewater.example']);
+    expect(audit.entries[0].actor).toMatch(/^panform user \(/);
 
     server!.kill('SIGTERM');
     expect(await s.exited).toBe(0);

@@ -1,4 +1,5 @@
 // The JSON the server sends and the viewer reads: one contract for both shells. Types only.
+import type { UnitSystem } from './units.ts';
 import type { ProductLabel } from './product-label.ts';
 import type { Catalog, Formula, Plan } from './model.ts';
 import type { Permission, Role } from './permissions.ts';
@@ -28,6 +29,13 @@ export interface UserInfo {
 export interface Me {
   user: UserInfo;
   permissions: Permission[];
+  /** The units this person reads weights and temperatures in (PUT /api/me/preferences). */
+  unitSystem: UnitSystem;
+}
+
+/** PUT /api/me/preferences */
+export interface PreferencesBody {
+  unitSystem: UnitSystem;
 }
 
 /** An account as admins see it (GET /api/users). */

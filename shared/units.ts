@@ -13,6 +13,10 @@ export type TemperatureUnit = 'C' | 'F';
 export type UnitSystem = 'metric' | 'us';
 
 export const MASS_UNITS: readonly MassUnit[] = ['g', 'kg', 'oz', 'lb'];
+export const UNIT_SYSTEMS: readonly UnitSystem[] = ['metric', 'us'];
+export const isUnitSystem = (v: unknown): v is UnitSystem => (UNIT_SYSTEMS as readonly unknown[]).includes(v);
+/** °F goes with US customary weights, °C with metric. */
+export const temperatureUnitOf = (system: UnitSystem): TemperatureUnit => (system === 'us' ? 'F' : 'C');
 const GRAMS_PER: Record<MassUnit, number> = { g: 1, kg: 1000, oz: GRAMS_PER_OUNCE, lb: GRAMS_PER_POUND };
 
 /** A problem with a value as written; `expected` says what would have been accepted. */

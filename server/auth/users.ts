@@ -4,6 +4,7 @@ import type { Database } from '../db/client.ts';
 import { sessionsTable, usersTable } from '../db/schema.ts';
 import { isRole, type Role } from '#shared/permissions';
 import type { UserInfo } from '#shared/api';
+import { isUnitSystem, type UnitSystem } from '#shared/units';
 import { hashPassword, type ScryptParams } from './password.ts';
 
 export interface UserRecord extends UserInfo {
@@ -42,6 +43,16 @@ export function toUserInfo(u: UserRecord): UserInfo {
 export async function findUserByEmail(db: Database, email: string): Promise<UserRecord | undefined> {
   const rows = await db.select().from(usersTable).where(eq(usersTable.email, normalizeEmail(email))).limit(1);
   return rows[0] ? toRecord(rows[0]) : undefined;
+}
+
+/** The units a person reads the viewer in; metric for an unknown value. */
+export async function readUnitSystem(db: Database, userId: number): Promise<UnitSystem> {
+  const rows = await db.select({ unitSystem: usersTable.unitSystem }).from(usersTable).where(eq(usersTable.id, userId)).limit(1);
+  return isUnitSystem(rows[0]?.unitSystem) ? rows[0].unitSystem : 'metric';
+}
+
+export async function writeUnitSystem(db: Database, userId: number, unitSystem: UnitSystem): Promise<void> {
+  await db.update(usersTable).set({ unitSystem }).where(eq(usersTable.id, userId));
 }
 
 export async function findUserById(db: Database, id: number): Promise<UserRecord | undefined> {

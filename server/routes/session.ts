@@ -3,11 +3,12 @@ import { and, eq, gt, isNull } from 'drizzle-orm';
 import { Router, type Request, type Response } from 'express';
 import type { Me } from '#shared/api';
 import { permissionsOf } from '#shared/permissions';
+import { isUnitSystem, UNIT_SYSTEMS, type UnitSystem } from '#shared/units';
 import { requireUser } from '../auth/guards.ts';
 import { checkNewPassword, MAX_PASSWORD_LENGTH, verifyPassword } from '../auth/password.ts';
 import { sendPasswordLink, sha256 } from '../auth/password-links.ts';
 import { SESSION_COOKIE } from '../auth/sessions.ts';
-import { findUserByEmail, normalizeEmail, setPassword, toUserInfo } from '../auth/users.ts';
+import { findUserByEmail, normalizeEmail, readUnitSystem, setPassword, toUserInfo, writeUnitSystem } from '../auth/users.ts';
 import type { ServerContext } from '../context.ts';
 import { passwordResetsTable } from '../db/schema.ts';
 import { readStringFields } from '../http/body.ts';
@@ -16,7 +17,7 @@ import { HttpError, invalid, rateLimited } from '../http/errors.ts';
 export { RESET_PAGE, RESET_TTL_MS } from '../auth/password-links.ts';
 
 /** GET /api/me's answer (the server's first render of a page uses it too). */
-export const me = (user: Me['user']): Me => ({ user, permissions: permissionsOf(user.role) });
+export const me = (user: Me['user'], unitSystem: UnitSystem = 'metric'): Me => ({ user, permissions: permissionsOf(user.role), unitSystem });
 
 function clientAddress(req: Request): string {
   return req.ip ?? req.socket.remoteAddress ?? 'unknown';
@@ -55,7 +56,7 @@ export function sessionRouter(ctx: ServerContext): Router {
     await ctx.limiters.signIn.succeeded(verdict);
     const { token } = await ctx.sessions.create(user.id);
     setSessionCookie(res, req, token, ctx.sessions.lifetimeMs);
-    res.status(200).json(me(toUserInfo(user)));
+    res.status(200).json(me(toUserInfo(user), await readUnitSystem(ctx.db, user.id)));
   });
 
   r.delete('/session', async (req, res) => {
@@ -66,8 +67,20 @@ export function sessionRouter(ctx: ServerContext): Router {
     res.status(204).end();
   });
 
-  r.get('/me', (req, res) => {
-    res.json(me(requireUser(req)));
+  r.get('/me', async (req, res) => {
+    const user = requireUser(req);
+    res.json(me(user, await readUnitSystem(ctx.db, user.id)));
+  });
+
+  // The person's own settings, kept on the account so every device they sign in on follows them.
+  r.put('/me/preferences', async (req, res) => {
+    const user = requireUser(req);
+    const { unitSystem } = readStringFields(req.body, { unitSystem: { max: 10 } });
+    if (!isUnitSystem(unitSystem)) {
+      throw invalid(`unitSystem must be one of ${UNIT_SYSTEMS.join(', ')}; got "${unitSystem}"`, [{ path: 'unitSystem', message: 'unknown unit system' }]);
+    }
+    await writeUnitSystem(ctx.db, user.id, unitSystem);
+    res.json(me(user, unitSystem));
   });
 
   // Public: ask for a reset link. Always 202, whether or not the address has an account, and the

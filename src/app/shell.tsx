@@ -1,7 +1,9 @@
 // The signed-in frame: the header with the places a role may go, and the page below it.
 import { NavLink, Outlet, useNavigation } from 'react-router';
 import type { Permission } from '#shared/permissions';
+import { useEffect } from 'react';
 import { Logo } from '../components/logo.tsx';
+import { setDeviceUnitSystem } from '../lib/units.ts';
 import { useMe } from '../features/auth/api/get-me.ts';
 import { paths } from './paths.ts';
 
@@ -10,6 +12,11 @@ const shortRole: Record<string, string> = { bench: 'Bench', reviewer: 'Head bake
 export function AppShell() {
   const me = useMe().data;
   const navigation = useNavigation();
+  // The account's units win over this device's memory of them, so every device follows the person.
+  const accountUnits = me?.unitSystem;
+  useEffect(() => {
+    if (accountUnits) setDeviceUnitSystem(accountUnits);
+  }, [accountUnits]);
   const can = (p: Permission) => me?.permissions.includes(p) ?? false;
   const links = [
     { to: paths.formulas.getHref(), label: 'Formulas', show: true },

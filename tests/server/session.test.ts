@@ -54,6 +54,22 @@ describe('signing in', () => {
     expect(await getJson(`${t.url}/api/me`, 'panform_session=made-up-token')).toMatchObject({ status: 401 });
   });
 
+  it('keeps the units setting on the account: metric at first, US once chosen, in /api/me and at the next sign-in', async () => {
+    const cookie = await t.signIn('reviewer');
+    expect((await getJson(`${t.url}/api/me`, cookie)).body).toMatchObject({ unitSystem: 'metric' });
+    const saved = await sendJson(`${t.url}/api/me/preferences`, 'PUT', { unitSystem: 'us' }, { cookie });
+    expect(saved).toMatchObject({ status: 200, body: { unitSystem: 'us', user: { role: 'reviewer' } } });
+    expect((await getJson(`${t.url}/api/me`, cookie)).body).toMatchObject({ unitSystem: 'us' });
+    const again = await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('reviewer'), password: PASSWORD });
+    expect(again.body).toMatchObject({ unitSystem: 'us' });
+    // Another person's setting is their own.
+    expect((await getJson(`${t.url}/api/me`, await t.signIn('bench'))).body).toMatchObject({ unitSystem: 'metric' });
+    const wrong = await sendJson(`${t.url}/api/me/preferences`, 'PUT', { unitSystem: 'imperial' }, { cookie });
+    expect(wrong).toMatchObject({ status: 422, body: { message: 'unitSystem must be one of metric, us; got "imperial"' } });
+    expect((await sendJson(`${t.url}/api/me/preferences`, 'PUT', { unitSystem: 'us' })).status).toBe(401);
+    await sendJson(`${t.url}/api/me/preferences`, 'PUT', { unitSystem: 'metric' }, { cookie });
+  });
+
   it('ends the session on sign-out: the old cookie no longer works and is cleared', async () => {
     const cookie = await t.signIn('author');
     const out = await fetch(`${t.url}/api/session`, { method: 'DELETE', headers: { cookie } });

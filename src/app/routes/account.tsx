@@ -3,6 +3,7 @@ import { PageHeading, Panel } from '../../components/panel.tsx';
 import { QueryState } from '../../components/query-state.tsx';
 import { useMe } from '../../features/auth/api/get-me.ts';
 import { useSignOut } from '../../features/auth/api/sign-out.ts';
+import { UnitsSetting } from '../../features/auth/components/units-setting.tsx';
 import { getErrorMessage } from '../../lib/errors.ts';
 import { permissionWord, roleWord } from '../../lib/roles.ts';
 import { paths } from '../paths.ts';
@@ -47,6 +48,9 @@ export default function AccountRoute() {
               </Button>
               {signOut.isError && <p className="mt-2 text-ember">{getErrorMessage(signOut.error)}</p>}
               <p className="mt-3 text-muted">On a shared tablet, sign out when you leave the bench.</p>
+            </Panel>
+            <Panel title="Units" id="units">
+              <UnitsSetting />
             </Panel>
             <Panel title="You can open" id="rights">
               <ul className="space-y-1 text-lg">

@@ -20,7 +20,8 @@ import { WaterTemperatureHelper } from '../../features/formulas/components/water
 import { searchFromTarget, targetFromSearch } from '../../features/formulas/scale-target.ts';
 import { getErrorMessage } from '../../lib/errors.ts';
 import { useAfterFirstPaint } from '../../lib/use-after-first-paint.ts';
-import { pieceWeight, shortDateTime, weight } from '../../lib/format.ts';
+import { shortDateTime } from '../../lib/format.ts';
+import { useUnits } from '../../lib/units.ts';
 import { paths } from '../paths.ts';
 
 export default function FormulaRoute() {
@@ -35,6 +36,7 @@ export default function FormulaRoute() {
 }
 
 function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined }) {
+  const { weight, pieceWeight } = useUnits();
   const { formula, catalog } = detail;
   const [params, setParams] = useSearchParams();
   const target = targetFromSearch(params, formula);

@@ -1,9 +1,11 @@
 import type { RevisionSummary } from '#shared/api';
 import { CommitNote } from './commit-note.tsx';
-import { percent, shortDateTime, weight } from '../../../lib/format.ts';
+import { percent, shortDateTime } from '../../../lib/format.ts';
+import { useUnits } from '../../../lib/units.ts';
 
 /** Every loaded revision of one formula with its key figures, newest first. */
 export function RevisionList({ revisions, from, to }: { revisions: RevisionSummary[]; from: number; to: number }) {
+  const { weight } = useUnits();
   return (
     <div className="overflow-x-auto">
       <table className="w-full border-collapse text-lg">

@@ -1,10 +1,11 @@
 import { computeCost, formatMoney } from '#shared/cost';
 import type { Catalog } from '#shared/model';
 import type { ScaleResult } from '#shared/scale';
-import { grams } from '../../../lib/format.ts';
+import { useUnits } from '../../../lib/units.ts';
 
 /** Ingredient cost of the batch on screen, from the catalog's prices (shown only to roles with read:cost). */
 export function CostPanel({ scaled, catalog, currency }: { scaled: ScaleResult; catalog: Catalog; currency: string }) {
+  const { grams } = useUnits();
   const cost = computeCost(scaled, catalog, { currency });
   const money = (n: number) => formatMoney(n, cost.currency);
   return (

@@ -1,9 +1,10 @@
 import { FINISH_USE_WORDS, finishAmounts } from '#shared/finishes';
 import type { Formula } from '#shared/model';
-import { grams, pieceWeight } from '../../../lib/format.ts';
+import { useUnits } from '../../../lib/units.ts';
 
 /** What goes on or under the pieces: per piece, and for the pieces on screen. */
 export function FinishesTable({ formula, pieces }: { formula: Formula; pieces: number }) {
+  const { grams, pieceWeight } = useUnits();
   const rows = finishAmounts(formula, pieces);
   return (
     <table className="mt-3 w-full text-base print:text-[9pt]" data-testid="finishes">

@@ -1,9 +1,11 @@
 import { Link } from 'react-router';
 import type { FormulaSummary } from '#shared/api';
 import { Badge, statusTone, statusWord } from '../../../components/panel.tsx';
-import { percent, pieceWeight, weight } from '../../../lib/format.ts';
+import { percent } from '../../../lib/format.ts';
+import { useUnits } from '../../../lib/units.ts';
 
 export function FormulaList({ formulas, hrefOf, busy }: { formulas: FormulaSummary[]; hrefOf: (id: string) => string; busy: boolean }) {
+  const { weight, pieceWeight } = useUnits();
   if (formulas.length === 0) {
     return (
       <p className="rounded-2xl border-2 border-dashed border-line p-6 text-center text-lg text-muted">

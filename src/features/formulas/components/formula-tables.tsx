@@ -1,7 +1,8 @@
 import type { Formula } from '#shared/model';
 import type { ScaleResult, ScaledBuild } from '#shared/scale';
 import { FigureTile, Ledger } from '../../../components/ledger.tsx';
-import { celsius, grams, hoursRange, percent, weight } from '../../../lib/format.ts';
+import { hoursRange, percent } from '../../../lib/format.ts';
+import { useUnits } from '../../../lib/units.ts';
 
 const kindWord: Record<string, string> = {
   poolish: 'poolish',
@@ -14,6 +15,7 @@ const kindWord: Record<string, string> = {
 };
 
 export function OverallTable({ scaled }: { scaled: ScaleResult }) {
+  const { grams } = useUnits();
   return (
     <Ledger
       testId="overall"
@@ -30,6 +32,7 @@ export function OverallTable({ scaled }: { scaled: ScaleResult }) {
 }
 
 export function BuildTable({ build, formula }: { build: ScaledBuild; formula: Formula }) {
+  const { grams, temperature } = useUnits();
   const pre = build.kind === 'soaker' ? undefined : formula.preferments.find((p) => p.name === build.name);
   const soak = build.kind === 'soaker' ? formula.soakers.find((s) => s.name === build.name) : undefined;
   const hours = pre ? pre.ripenHours : soak?.soakHours;
@@ -47,8 +50,8 @@ export function BuildTable({ build, formula }: { build: ScaledBuild; formula: Fo
         {[
           build.share !== undefined ? `${percent(build.share)} of the flour` : null,
           build.flour > 0 ? `${percent(build.hydration)} water to flour` : null,
-          hours ? `${build.kind === 'soaker' ? 'soak' : 'ripen'} ${hoursRange(hours)}${hold !== undefined ? ` at ${celsius(hold, 0)}` : ''}` : null,
-          off !== undefined ? `off the mixer at ${celsius(off, 0)}` : null,
+          hours ? `${build.kind === 'soaker' ? 'soak' : 'ripen'} ${hoursRange(hours)}${hold !== undefined ? ` at ${temperature(hold, 0)}` : ''}` : null,
+          off !== undefined ? `off the mixer at ${temperature(off, 0)}` : null,
           hot ? 'made with boiling water' : null,
         ]
           .filter(Boolean)
@@ -76,6 +79,7 @@ export function BuildTable({ build, formula }: { build: ScaledBuild; formula: Fo
 }
 
 export function FinalDoughTable({ scaled }: { scaled: ScaleResult }) {
+  const { grams } = useUnits();
   return (
     <Ledger
       testId="final-dough"
@@ -94,6 +98,7 @@ export function FinalDoughTable({ scaled }: { scaled: ScaleResult }) {
 }
 
 export function DerivedFigures({ scaled, formula }: { scaled: ScaleResult; formula: Formula }) {
+  const { weight, temperature } = useUnits();
   return (
     <dl className="grid grid-cols-2 gap-2 sm:grid-cols-3 xl:grid-cols-2 print:grid-cols-7 print:gap-x-3" data-testid="figures">
       <FigureTile term="Hydration" value={percent(scaled.hydration)} hint="all water ÷ all flour" />
@@ -108,7 +113,7 @@ export function DerivedFigures({ scaled, formula }: { scaled: ScaleResult; formu
         value={weight(scaled.dividedDough)}
         hint={scaled.loss > 0 ? `${percent(scaled.loss)} allowed for loss` : 'no loss allowed'}
       />
-      {formula.doughTemperature !== undefined && <FigureTile term="Dough off the mixer" value={celsius(formula.doughTemperature, 0)} />}
+      {formula.doughTemperature !== undefined && <FigureTile term="Dough off the mixer" value={temperature(formula.doughTemperature, 0)} />}
     </dl>
   );
 }

@@ -1,5 +1,6 @@
 import type { Step } from '#shared/model';
-import { celsius, minutes, minutesRange } from '../../../lib/format.ts';
+import { minutes, minutesRange } from '../../../lib/format.ts';
+import { useUnits } from '../../../lib/units.ts';
 
 const stepWord: Record<string, string> = {
   autolyse: 'Rest flour and water',
@@ -20,6 +21,7 @@ const stepWord: Record<string, string> = {
 const vesselWord: Record<string, string> = { deck: 'on the deck', tray: 'on trays', pot: 'in a lidded pot', tin: 'in tins', stone: 'on the stone' };
 
 export function ProcessSteps({ steps }: { steps: Step[] }) {
+  const { temperature } = useUnits();
   if (steps.length === 0) return <p className="text-muted">No steps written for this formula.</p>;
   return (
     <ol className="space-y-2 print:columns-2 print:gap-6 print:space-y-0" data-testid="process">
@@ -39,7 +41,7 @@ export function ProcessSteps({ steps }: { steps: Step[] }) {
                 <span className="text-lg font-semibold print:text-[9.5pt]">{stepWord[s.step] ?? s.step}</span>
                 {s.minutes && <span className="figure">{minutesRange(s.minutes)}</span>}
                 {s.temperature !== undefined && (
-                  <span className={`figure font-bold ${s.step === 'bake' ? 'text-ember' : s.step === 'retard' ? 'text-focus' : ''}`}>{celsius(s.temperature, 0)}</span>
+                  <span className={`figure font-bold ${s.step === 'bake' ? 'text-ember' : s.step === 'retard' ? 'text-focus' : ''}`}>{temperature(s.temperature, 0)}</span>
                 )}
               </p>
               {details.length > 0 && <p className="text-muted print:inline print:pl-1">{details.join(' · ')}</p>}

@@ -1,11 +1,16 @@
-import { useEffect, useId, useState } from 'react';
+import { useEffect, useState } from 'react';
 import type { Formula } from '#shared/model';
 import type { ScaleTarget } from '#shared/scale';
 import { readNumber, TextField } from '../../../components/field.tsx';
-import { pieceWeight } from '../../../lib/format.ts';
+import { Segmented } from '../../../components/segmented.tsx';
+import { useUnits } from '../../../lib/units.ts';
 import { isWrittenBatch, writtenBatch } from '../scale-target.ts';
 
 type Mode = 'pieces' | 'mix';
+const MODES = [
+  ['pieces', 'Pieces × weight'],
+  ['mix', 'Dough weight'],
+] as const;
 
 /**
  * How big a batch: pieces × piece weight, or a weight of mixed dough. Every valid keystroke
@@ -23,6 +28,7 @@ export function ScaleControl({
   mixedDough: number;
   onChange: (t: ScaleTarget) => void;
 }) {
+  const { pieceWeight } = useUnits();
   const mode: Mode = target.by === 'mix' ? 'mix' : 'pieces';
   const piecesNow = target.by === 'pieces' ? target.pieces : formula.yield.pieces;
   const pieceNow = target.by === 'pieces' ? (target.pieceGrams ?? formula.yield.pieceGrams) : formula.yield.pieceGrams;
@@ -31,7 +37,6 @@ export function ScaleControl({
   const [pieces, setPieces] = useState(String(piecesNow));
   const [piece, setPiece] = useState(trim(pieceNow));
   const [mixKg, setMixKg] = useState(mixNow === null ? '' : trim(mixNow / 1000));
-  const groupId = useId();
 
   // Follow the URL when it changes from outside (back button, reset).
   useEffect(() => setPieces(String(piecesNow)), [piecesNow]);
@@ -63,27 +68,9 @@ export function ScaleControl({
     onChange({ by: 'pieces', pieces: next, pieceGrams: pieceValue && !pieceError ? pieceValue : pieceNow });
   };
 
-  const tab = (m: Mode, label: string) => (
-    <button
-      type="button"
-      role="radio"
-      aria-checked={mode === m}
-      onClick={() => setMode(m)}
-      className={`min-h-12 flex-1 rounded-lg px-3 font-semibold ${mode === m ? 'bg-crust text-on-crust shadow-sm' : 'text-ink hover:bg-card'}`}
-    >
-      {label}
-    </button>
-  );
-
   return (
     <fieldset className="m-0 min-w-0 space-y-3 border-0 p-0 print:hidden" data-testid="scale-control">
-      <div role="radiogroup" aria-labelledby={groupId} className="flex gap-1 rounded-xl border-2 border-line bg-sunk p-1">
-        <span id={groupId} className="sr-only">
-          Scale by
-        </span>
-        {tab('pieces', 'Pieces × weight')}
-        {tab('mix', 'Dough weight')}
-      </div>
+      <Segmented<Mode> label="Scale by" options={MODES} value={mode} onChange={setMode} optionClassName="flex-1" />
       {mode === 'pieces' ? (
         <div className="grid grid-cols-[1fr_1fr] gap-3">
           <div>

@@ -3,7 +3,7 @@ import type { Formula } from '#shared/model';
 import type { ScaleResult } from '#shared/scale';
 import { planWater, type WaterPlan } from '#shared/temperature';
 import { readNumber, TextField } from '../../../components/field.tsx';
-import { celsius, grams } from '../../../lib/format.ts';
+import { useUnits } from '../../../lib/units.ts';
 import { getErrorMessage } from '../../../lib/errors.ts';
 
 /** Usual bakehouse readings to start from; the baker overwrites them with today's. */
@@ -17,6 +17,7 @@ export function finalMixWater(scaled: ScaleResult): number {
 
 /** `onIce` hears whether the water now takes ice, so the page's cautions can say how to handle it. */
 export function WaterTemperatureHelper({ formula, scaled, onIce }: { formula: Formula; scaled: ScaleResult; onIce?: (ice: boolean) => void }) {
+  const { grams, temperature } = useUnits();
   const [ddt, setDdt] = useState(String(formula.doughTemperature ?? 25));
   const [room, setRoom] = useState(START.room);
   const [flour, setFlour] = useState(START.flour);
@@ -68,7 +69,7 @@ export function WaterTemperatureHelper({ formula, scaled, onIce }: { formula: Fo
           <>
             <span className="block text-muted">Water for the final mix ({grams(water)})</span>
             <span className="figure block text-3xl font-bold" data-testid="water-temperature">
-              {celsius(plan.waterTemperature)}
+              {temperature(plan.waterTemperature)}
             </span>
             {plan.ice !== null && plan.ice > 0 && plan.tapWater !== null && (
               <span className="figure mt-1 block text-xl font-bold text-focus" data-testid="ice">

@@ -1,20 +1,22 @@
 import type { Sheet, SheetBuild, SheetMix } from '#shared/sheet/types';
 import { shortTime } from '#shared/sheet/time';
 import { Ledger } from '../../../components/ledger.tsx';
-import { celsius, grams, hoursRange, pieceWeight, weight } from '../../../lib/format.ts';
+import { hoursRange } from '../../../lib/format.ts';
+import { useUnits } from '../../../lib/units.ts';
 
 const kindWord: Record<string, string> = { poolish: 'poolish', biga: 'biga', levain: 'levain', sponge: 'sponge', 'old-dough': 'old dough', other: 'pre-ferment', soaker: 'soaker' };
 
 export function Conditions({ sheet }: { sheet: Sheet }) {
+  const { weight, temperature, degrees } = useUnits();
   const c = sheet.conditions;
   return (
     <dl className="flex flex-wrap gap-x-6 gap-y-2 text-lg print:text-[9pt]" data-testid="conditions">
-      <Item term="Room" value={celsius(c.room, 0)} />
-      <Item term="Flour" value={celsius(c.flour, 0)} />
-      <Item term="Tap water" value={celsius(c.tapWater, 0)} />
-      {c.preferment !== undefined && <Item term="Pre-ferments" value={celsius(c.preferment, 0)} />}
+      <Item term="Room" value={temperature(c.room, 0)} />
+      <Item term="Flour" value={temperature(c.flour, 0)} />
+      <Item term="Tap water" value={temperature(c.tapWater, 0)} />
+      {c.preferment !== undefined && <Item term="Pre-ferments" value={temperature(c.preferment, 0)} />}
       {sheet.mixers.map((m) => (
-        <Item key={m.name} term={`Mixer: ${m.name}`} value={`${weight(m.capacityGrams)} max · +${m.friction} °C`} />
+        <Item key={m.name} term={`Mixer: ${m.name}`} value={`${weight(m.capacityGrams)} max · +${degrees(m.friction)}`} />
       ))}
     </dl>
   );
@@ -30,10 +32,11 @@ function Item({ term, value }: { term: string; value: string }) {
 }
 
 function WaterLine({ temperature, ice, tapWater, water }: { temperature: number | null; ice: number; tapWater: number; water: number }) {
+  const { grams, temperature: shown } = useUnits();
   if (temperature === null) return <span className="text-muted">no target temperature written</span>;
   return (
     <span className="figure">
-      water <strong>{celsius(temperature)}</strong>
+      water <strong>{shown(temperature)}</strong>
       {ice > 0 ? (
         <strong className="text-focus">
           {' '}
@@ -47,6 +50,7 @@ function WaterLine({ temperature, ice, tapWater, water }: { temperature: number 
 }
 
 export function BuildCard({ build, date, titleOf }: { build: SheetBuild; date: string; titleOf: (id: string) => string }) {
+  const { grams, weight, temperature } = useUnits();
   return (
     <article className="break-inside-avoid rounded-xl border border-line bg-page/50 p-3 print:rounded-none print:border-0 print:border-t print:p-0 print:pt-1" data-testid="sheet-build">
       <header className="flex flex-wrap items-baseline justify-between gap-2">
@@ -65,7 +69,7 @@ export function BuildCard({ build, date, titleOf }: { build: SheetBuild; date: s
           <span>
             {' '}
             · {build.kind === 'soaker' ? 'soak' : 'ripen'} {hoursRange(build.hours)}
-            {build.holdTemperature !== null && <> at {celsius(build.holdTemperature, 0)}</>}
+            {build.holdTemperature !== null && <> at {temperature(build.holdTemperature, 0)}</>}
           </span>
         )}
       </p>
@@ -91,6 +95,7 @@ export function BuildCard({ build, date, titleOf }: { build: SheetBuild; date: s
 }
 
 export function MixCard({ mix, date }: { mix: SheetMix; date: string }) {
+  const { grams, weight, pieceWeight, temperature } = useUnits();
   return (
     <article className="break-inside-avoid rounded-xl border border-line bg-page/50 p-3 print:rounded-none print:border-0 print:border-t print:p-0 print:pt-1" data-testid="sheet-mix">
       <header className="flex flex-wrap items-baseline justify-between gap-2">
@@ -107,7 +112,7 @@ export function MixCard({ mix, date }: { mix: SheetMix; date: string }) {
         {mix.customer && <> · for {mix.customer}</>}
       </p>
       <p className="mb-1">
-        {mix.doughTemperature !== null && <span className="figure">dough {celsius(mix.doughTemperature, 0)} · </span>}
+        {mix.doughTemperature !== null && <span className="figure">dough {temperature(mix.doughTemperature, 0)} · </span>}
         <WaterLine temperature={mix.waterTemperature} ice={mix.ice} tapWater={mix.tapWater} water={mix.water} />
       </p>
       <Ledger
@@ -126,6 +131,7 @@ export function MixCard({ mix, date }: { mix: SheetMix; date: string }) {
 }
 
 export function PickList({ sheet }: { sheet: Sheet }) {
+  const { weight } = useUnits();
   return (
     <Ledger
       testId="pick-list"
@@ -137,6 +143,7 @@ export function PickList({ sheet }: { sheet: Sheet }) {
 }
 
 export function FormulaTotals({ sheet }: { sheet: Sheet }) {
+  const { weight } = useUnits();
   return (
     <table className="w-full border-collapse text-lg print:text-[9pt]">
       <thead>

@@ -3,6 +3,7 @@
 import { useLayoutEffect, useRef, useState, type ReactNode } from 'react';
 import { chartModel, type ChartRow } from '#shared/sheet/chart';
 import type { Sheet, TimelineEntry } from '#shared/sheet/types';
+import { Segmented } from '../../../components/segmented.tsx';
 import { dayParts } from '../../../lib/format.ts';
 
 const STEP_WORD: Record<string, string> = {
@@ -190,25 +191,17 @@ export function TimelineChart({ sheet }: { sheet: Sheet }) {
 
   return (
     <figure className="m-0" data-testid="timeline">
-      <div role="radiogroup" aria-label="Timeline view" className="mb-2 inline-flex gap-1 rounded-xl border-2 border-line bg-sunk p-1 print:hidden">
-        {(
-          [
-            ['fit', 'Whole night'],
-            ['near', 'Close up'],
-          ] as const
-        ).map(([value, word]) => (
-          <button
-            key={value}
-            type="button"
-            role="radio"
-            aria-checked={zoom === value}
-            onClick={() => setZoom(value)}
-            className={`min-h-11 rounded-lg px-4 font-semibold ${zoom === value ? 'bg-crust text-on-crust' : 'hover:bg-card'}`}
-          >
-            {word}
-          </button>
-        ))}
-      </div>
+      <Segmented
+        label="Timeline view"
+        options={[
+          ['fit', 'Whole night'],
+          ['near', 'Close up'],
+        ]}
+        value={zoom}
+        onChange={setZoom}
+        className="mb-2 inline-flex print:hidden"
+        optionClassName="px-4"
+      />
       <div className="flex overflow-hidden rounded-xl border border-line bg-page/40 print:hidden">
         <svg width={LABEL_W} height={l.height} className="shrink-0 border-r border-line" aria-hidden="true" fontFamily="var(--font-sans)">
           <LaneLabels l={l} width={LABEL_W} />

@@ -2,10 +2,11 @@
 // percent and minutes. `normalize…` turns a file that passed the schema into this shape.
 // Pure; no I/O.
 import type {
-  AllergenCode, CatalogFile, FinishUse, FormulaFile, FormulaStatus, IngredientKind, PlanFile, PrefermentKind, StepKind, YeastType,
+  AllergenCode, CatalogFile, FinishUse, FormulaFile, FormulaStatus, IngredientKind, MixerKind, PlanFile, PrefermentKind, StepKind, YeastType,
 } from './schema/shapes.ts';
+import { HAND_MIXING_RISE } from './temperature.ts';
 import {
-  parseMass, parsePercent, parseRange, parseRate, parseTemperature, parseTemperatureDelta, type NumberRange, type RangePick,
+  middleOf, parseMass, parsePercent, parseRange, parseRate, parseTemperature, parseTemperatureDelta, parseTemperatureRange, type NumberRange, type RangePick,
 } from './units.ts';
 
 export interface Line {
@@ -22,8 +23,10 @@ export interface Preferment {
   /** Baker's percent of the pre-ferment's own flour (seed flour included). */
   ingredients: Line[];
   ripenHours?: NumberRange;
-  /** °C */
+  /** °C: the middle of `ripenTemperatureRange`, what the build is aimed at. */
   ripenTemperature?: number;
+  /** °C, as written ("18-21 °C"; one temperature gives min = max). */
+  ripenTemperatureRange?: NumberRange;
   /** °C: the temperature the build should come off the mixer at. */
   temperature?: number;
   note?: string;
@@ -77,8 +80,12 @@ export interface Formula {
   loss: number;
   /** Percent of the dough's weight lost in the oven (water), when the formula gives it; see bakeLossOf in label.ts. */
   bakeLoss?: number;
-  /** °C */
+  /** °C: the desired dough temperature, the middle of `doughTemperatureRange`. */
   doughTemperature?: number;
+  /** °C, as written ("25-26 °C"; one temperature gives min = max). */
+  doughTemperatureRange?: NumberRange;
+  /** Water held back and added late in the mix: baker's percent (part of the water line) and °C. */
+  bassinage?: { percent: number; temperature: number };
   flour: Line[];
   ingredients: Line[];
   preferments: Preferment[];
@@ -127,10 +134,17 @@ export type Catalog = Record<string, CatalogItem>;
 
 export interface Mixer {
   name: string;
+  /** By hand, `capacityGrams` is the batch one person mixes. */
+  kind: MixerKind;
   capacityGrams: number;
   minimumGrams?: number;
-  /** °C-degrees (a difference). */
-  friction: number;
+  /**
+   * °C-degrees: how much warmer the dough comes off the mixer than its ingredients' average. In a
+   * sum of n temperatures the friction factor is n × rise (temperature.ts).
+   */
+  rise: number;
+  /** Where `rise` came from: the file's `rise`, its straight-dough `friction` ÷ 3, or the hand-mixing default. */
+  riseFrom: 'rise' | 'friction' | 'hand default';
   /** Minutes to clean it between a dough with an allergen and one without. */
   cleanDownMinutes?: number;
 }
@@ -178,6 +192,13 @@ export interface Plan {
   notes?: string;
 }
 
+/** A written temperature or range: its middle (what is aimed at) and the range; nothing when absent. */
+function temperatureRange(text: string | undefined): { middle?: number; range?: NumberRange } {
+  if (text === undefined) return {};
+  const range = parseTemperatureRange(text);
+  return { middle: middleOf(range), range };
+}
+
 const table = (t: Record<string, number> | undefined): Line[] =>
   Object.entries(t ?? {}).map(([ingredient, percent]) => ({ ingredient, percent }));
 
@@ -192,7 +213,9 @@ export function normalizeFormula(f: FormulaFile): Formula {
     yield: { pieces: f.yield.pieces, pieceGrams: parseMass(f.yield.piece) },
     loss: f.loss === undefined ? 0 : parsePercent(f.loss),
     bakeLoss: f.bake_loss === undefined ? undefined : parsePercent(f.bake_loss),
-    doughTemperature: f.dough_temperature === undefined ? undefined : parseTemperature(f.dough_temperature),
+    doughTemperature: temperatureRange(f.dough_temperature).middle,
+    doughTemperatureRange: temperatureRange(f.dough_temperature).range,
+    ...(f.bassinage ? { bassinage: { percent: f.bassinage.percent, temperature: parseTemperature(f.bassinage.temperature) } } : {}),
     flour: table(f.flour),
     ingredients: table(f.ingredients),
     preferments: (f.preferments ?? []).map((p) => ({
@@ -201,7 +224,8 @@ export function normalizeFormula(f: FormulaFile): Formula {
       share: parsePercent(p.share),
       ingredients: table(p.ingredients),
       ripenHours: p.ripen ? parseRange(p.ripen.hours) : undefined,
-      ripenTemperature: p.ripen?.temperature === undefined ? undefined : parseTemperature(p.ripen.temperature),
+      ripenTemperature: temperatureRange(p.ripen?.temperature).middle,
+      ripenTemperatureRange: temperatureRange(p.ripen?.temperature).range,
       temperature: p.temperature === undefined ? undefined : parseTemperature(p.temperature),
       note: p.note,
     })),
@@ -290,9 +314,10 @@ export function normalizePlan(p: PlanFile): Plan {
     },
     mixers: p.mixers.map((m) => ({
       name: m.name,
+      kind: m.kind ?? 'machine',
       capacityGrams: parseMass(m.capacity),
       minimumGrams: m.minimum === undefined ? undefined : parseMass(m.minimum),
-      friction: parseTemperatureDelta(m.friction),
+      ...mixerRise(m),
       cleanDownMinutes: m.clean_down,
     })),
     ovens: p.ovens?.map((o) => ({
@@ -317,6 +342,18 @@ export function normalizePlan(p: PlanFile): Plan {
     ranges: p.ranges ?? 'mid',
     notes: p.notes,
   };
+}
+
+/**
+ * A mixer's rise as the baker gives it: `rise` itself, or the friction factor found on a straight
+ * dough (three factors) ÷ 3; by hand with neither, the hand-mixing default. A machine with neither
+ * is refused by the plan check; NaN here keeps the arithmetic from guessing.
+ */
+function mixerRise(m: PlanFile['mixers'][number]): Pick<Mixer, 'rise' | 'riseFrom'> {
+  if (m.rise !== undefined) return { rise: parseTemperatureDelta(m.rise), riseFrom: 'rise' };
+  if (m.friction !== undefined) return { rise: parseTemperatureDelta(m.friction) / 3, riseFrom: 'friction' };
+  if (m.kind === 'hand') return { rise: HAND_MIXING_RISE, riseFrom: 'hand default' };
+  return { rise: Number.NaN, riseFrom: 'rise' };
 }
 
 /** What the catalog says of an ingredient, or a guess from its name when it is not listed. */

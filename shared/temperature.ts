@@ -1,22 +1,39 @@
 // Dough temperature: the water temperature for a desired dough temperature (DDT), the ice to
-// add when that water must be colder than the tap, and a mixer's friction worked back from a
+// add when that water must be colder than the tap, and a mixer's rise worked back from a
 // measured dough. Pure; no I/O.
 //
-// Conventions (docs/arithmetic.md):
-// - water = n·DDT − (room + flour + each pre-ferment + friction), where n counts room, flour,
-//   water and each pre-ferment: 3 without a pre-ferment, 4 with one, 5 with two ...
-//   Friction is a temperature *difference*. Because n counts the water too, the method gives
-//   the same water in °C and in °F as long as friction converts by 5/9 without the offset; the
-//   functions here work in whichever scale their inputs share.
+// Conventions (docs/arithmetic.md, "Dough temperature"):
+// - The multiplier method (J. Hamelman, "Bread: A Baker's Book of Techniques and Recipes", Wiley,
+//   appendix on desired dough temperature; from memory, page not checked): the dough comes off the
+//   mixer at the average of its n factor temperatures plus what the mixing adds, so
+//   water = n·DDT − (room + flour + each pre-ferment + friction factor), where n counts room,
+//   flour, water and each pre-ferment: 3 without a pre-ferment, 4 with one, 5 with two ...
+// - Friction is defined once, per mixer, as the baker measures it: the RISE, how much warmer the
+//   dough comes off the mixer than the average of its factors. In a sum of n temperatures the
+//   friction factor is n × rise (the method's own algebra: n·DDT = Σ factors + n·rise). A friction
+//   factor found on a straight dough (3 factors) converts to rise = factor ÷ 3.
+// - Friction is a temperature *difference*; because n counts the water too, the method gives the
+//   same water in °C and in °F as long as the rise converts by 5/9 without the offset.
 // - ice (at 0 °C) for W grams of water in all, tap water at T_tap, combined water at T_w (°C):
 //   ice = W·(T_tap − T_w) / (T_tap + L/c); tap water = W − ice. From the heat balance
 //   (W − I)·c·(T_tap − T_w) = I·L + I·c·T_w: the tap water melts the ice and warms the meltwater.
-// - friction from a measured dough: FF = n·actual − (room + flour + water + each pre-ferment).
+// - rise from a measured dough: rise = actual − (room + flour + water + each pre-ferment) / n.
 
-/** Latent heat of fusion of ice, J/g. Case Western Reserve University, Physics dept. demo "Specific Heat and Heat of Fusion". */
-export const LATENT_HEAT_OF_FUSION_OF_ICE = 334;
-/** Specific heat of liquid water, J/(g·K); within 10 % from 0 to 30 °C. Same source. */
-export const SPECIFIC_HEAT_OF_WATER = 4.18;
+/**
+ * Latent heat of fusion of ice at 0 °C, J/g: 333.55 (CRC Handbook of Chemistry and Physics,
+ * "Enthalpy of fusion" table, water 6.01 kJ/mol at 0 °C over 18.015 g/mol; from memory).
+ */
+export const LATENT_HEAT_OF_FUSION_OF_ICE = 333.55;
+/**
+ * Specific heat of liquid water, J/(g·K): 4.186, the 15 °C calorie (4.1855 J, NIST SP 811, Guide for
+ * the Use of the SI, Appendix B.8, "calorie (15 °C)") rounded; within 0.2 % from 0 to 40 °C.
+ */
+export const SPECIFIC_HEAT_OF_WATER = 4.186;
+/**
+ * A hand mix's rise, °C-degrees: about 1 °C, i.e. a straight-dough friction factor of about 3 °C
+ * (5 °F). Common practice; used when a hand "mixer" gives no rise of its own.
+ */
+export const HAND_MIXING_RISE = 1;
 /** Above this the water is hot enough to scald and to harm yeast (common practice). */
 export const HOT_WATER_CELSIUS = 50;
 /** Above this the water is too warm to pour onto yeast, though the dough is fine (common practice). */
@@ -55,8 +72,8 @@ export interface DoughTemperatureInputs {
   flour: number;
   /** One temperature per pre-ferment going into the dough (none for a straight dough). */
   preferments: readonly number[];
-  /** The mixer's friction: a temperature difference in the same scale's degrees. */
-  friction: number;
+  /** The mixer's rise: a temperature difference in the same scale's degrees. */
+  rise: number;
 }
 
 export interface WaterTemperature {
@@ -64,27 +81,35 @@ export interface WaterTemperature {
   water: number;
   /** n: room, flour, water and each pre-ferment. */
   factors: number;
+  /** n × rise */
+  frictionFactor: number;
   /** n·DDT */
   total: number;
-  /** room + flour + pre-ferments + friction */
+  /** room + flour + pre-ferments + friction factor */
   known: number;
+}
+
+/** The friction factor in a sum of `factors` temperatures: n × the mixer's rise. */
+export function frictionFactor(rise: number, factors: number): number {
+  return rise * factors;
 }
 
 function requireFinite(name: string, v: number): void {
   if (!Number.isFinite(v)) throw new TemperatureError(`${name} must be a number; got ${v}`);
 }
 
-/** n·DDT − (room + flour + pre-ferments + friction). Works in °C or °F (friction as a difference). */
+/** n·DDT − (room + flour + pre-ferments + n·rise). Works in °C or °F (rise as a difference). */
 export function computeWaterTemperature(i: DoughTemperatureInputs): WaterTemperature {
-  for (const [name, v] of [['desired dough temperature', i.ddt], ['room temperature', i.room], ['flour temperature', i.flour], ['friction', i.friction]] as const) {
+  for (const [name, v] of [['desired dough temperature', i.ddt], ['room temperature', i.room], ['flour temperature', i.flour], ["mixer's rise", i.rise]] as const) {
     requireFinite(name, v);
   }
   i.preferments.forEach((p, k) => requireFinite(`pre-ferment ${k + 1} temperature`, p));
   const factors = 3 + i.preferments.length;
   const total = factors * i.ddt;
-  let known = i.room + i.flour + i.friction;
+  const ff = frictionFactor(i.rise, factors);
+  let known = i.room + i.flour + ff;
   for (const p of i.preferments) known += p;
-  return { water: total - known, factors, total, known };
+  return { water: total - known, factors, frictionFactor: ff, total, known };
 }
 
 export interface FrictionInputs {
@@ -96,15 +121,29 @@ export interface FrictionInputs {
   preferments: readonly number[];
 }
 
-/** A mixer's friction from a measured dough: n·actual − (room + flour + water + pre-ferments). */
-export function computeFriction(i: FrictionInputs): { friction: number; factors: number } {
+export interface MeasuredFriction {
+  /** The mixer's rise, the one figure to keep: actual − the factors' average. */
+  rise: number;
+  /** n for this dough. */
+  factors: number;
+  /** n × rise: the friction factor of this dough's sum. */
+  frictionFactor: number;
+  /** 3 × rise: the same mixer's friction factor for a straight dough. */
+  straightDoughFactor: number;
+}
+
+/** A mixer's rise from a measured dough: actual − (room + flour + water + pre-ferments) / n. */
+export function computeFriction(i: FrictionInputs): MeasuredFriction {
   for (const [name, v] of [['measured dough temperature', i.measured], ['room temperature', i.room], ['flour temperature', i.flour], ['water temperature', i.water]] as const) {
     requireFinite(name, v);
   }
+  i.preferments.forEach((p, k) => requireFinite(`pre-ferment ${k + 1} temperature`, p));
   const factors = 3 + i.preferments.length;
   let known = i.room + i.flour + i.water;
   for (const p of i.preferments) known += p;
-  return { friction: factors * i.measured - known, factors };
+  const ff = factors * i.measured - known;
+  const rise = ff / factors;
+  return { rise, factors, frictionFactor: ff, straightDoughFactor: frictionFactor(rise, 3) };
 }
 
 export interface IceConstants {
@@ -151,6 +190,8 @@ export interface WaterPlan {
   /** °C */
   waterTemperature: number;
   factors: number;
+  /** n × rise, in the sum above. */
+  frictionFactor: number;
   /** g; null when the tap temperature or the water weight is not given. */
   ice: number | null;
   /** g; null likewise. */
@@ -193,5 +234,5 @@ export function planWater(i: WaterPlanInputs, unit: 'C' | 'F' = 'C'): WaterPlan 
       warnings.push(`the water must be warmer than the tap (${t(i.tap)}): warm it to ${t(w.water)}`);
     }
   }
-  return { waterTemperature: w.water, factors: w.factors, ice, tapWater, iceShare, warnings };
+  return { waterTemperature: w.water, factors: w.factors, frictionFactor: w.frictionFactor, ice, tapWater, iceShare, warnings };
 }

@@ -57,6 +57,7 @@ export function celsiusDeltaToFahrenheit(dc: number): number {
 const NUMBER = '(-?[0-9]+(?:\\.[0-9]+)?)';
 const MASS_RE = new RegExp(`^\\s*${NUMBER}\\s*(g|kg|oz|lb)\\s*$`, 'i');
 const TEMPERATURE_RE = new RegExp(`^\\s*${NUMBER}\\s*°?\\s*(C|F)\\s*$`, 'i');
+const TEMPERATURE_RANGE_RE = new RegExp(`^\\s*${NUMBER}\\s*(?:[-–]\\s*${NUMBER}\\s*)?°?\\s*(C|F)\\s*$`, 'i');
 const PERCENT_RE = new RegExp(`^\\s*${NUMBER}\\s*%?\\s*$`);
 const RANGE_RE = /^\s*([0-9]+(?:\.[0-9]+)?)\s*(?:[-–]\s*([0-9]+(?:\.[0-9]+)?))?\s*$/;
 
@@ -95,6 +96,33 @@ export function parseTemperatureWithUnit(text: string | number): Temperature {
     `not a temperature: ${JSON.stringify(text)}`,
     'a number and °C or °F (e.g. "25 °C")',
   );
+}
+
+/** "25 °C" → {25, 25}; "25-26 °C" or "77–79 °F" → a range in °C, smaller end first. */
+export function parseTemperatureRange(text: string | number): NumberRange {
+  if (typeof text === 'string') {
+    const m = TEMPERATURE_RANGE_RE.exec(text);
+    if (m) {
+      const c = (v: number) => (m[3].toUpperCase() === 'C' ? v : fahrenheitToCelsius(v));
+      const a = c(Number(m[1]));
+      const b = m[2] === undefined ? a : c(Number(m[2]));
+      if (b >= a) return { min: a, max: b };
+      throw new QuantityError(`temperature range runs backwards: ${JSON.stringify(text)}`, 'the lower temperature first (e.g. "25-26 °C")');
+    }
+  }
+  throw new QuantityError(`not a temperature or range: ${JSON.stringify(text)}`, 'a temperature such as "25 °C" or a range such as "25-26 °C"');
+}
+
+/** The middle of a range: what a range of temperatures is aimed at. */
+export function middleOf(r: NumberRange): number {
+  return (r.min + r.max) / 2;
+}
+
+/** "25 °C", or "25–26 °C" for a range. */
+export function formatTemperatureRange(r: NumberRange, unit: TemperatureUnit = 'C', decimals = 1): string {
+  if (r.min === r.max) return formatTemperature(r.min, unit, decimals);
+  const v = (c: number) => (unit === 'C' ? c : celsiusToFahrenheit(c)).toFixed(decimals);
+  return `${v(r.min)}–${v(r.max)} °${unit}`;
 }
 
 /** A temperature difference such as a mixer's friction: "13 °C" → 13; "20 °F" → 11.11 (no offset). */

@@ -4,9 +4,9 @@
 import { Command, Option } from 'commander';
 import { AllergenError } from '#shared/allergens';
 import { formulaCautions, type Caution } from '#shared/cautions';
-import type { Formula } from '#shared/model';
+import type { Catalog, Formula } from '#shared/model';
 import { ScaleError, scaleFormula, type ScaleResult, type ScaleTarget } from '#shared/scale';
-import { planWater, TemperatureError, type WaterPlan } from '#shared/temperature';
+import { planMixWater, type MixWater } from '#shared/dough-water';
 import {
   DEFAULT_RESOLUTION, parseResolution, parseTemperatureArgument, parseTemperatureDeltaArgument, QuantityError,
   type Resolution, type TemperatureUnit, type UnitSystem,
@@ -30,18 +30,21 @@ interface RawOptions {
   room?: string;
   flourTemp?: string;
   friction?: string;
+  rise?: string;
   tap?: string;
   prefermentTemp?: string[];
   fahrenheit?: boolean;
 }
 
 interface Conditions {
-  /** All °C; friction in °C-degrees. */
+  /** All °C; the rise in °C-degrees. */
   ddt?: number;
   room: number;
   flour: number;
-  friction: number;
+  /** The mixer's rise: --rise, or --friction (a straight-dough friction factor) ÷ 3. */
+  rise: number;
   tap?: number;
+  /** Measured tonight. */
   preferments: number[];
 }
 
@@ -55,17 +58,8 @@ export interface ScaleOptions {
   conditions: Conditions | null;
 }
 
-export interface WaterSection extends WaterPlan {
-  /** °C */
-  desiredDoughTemperature: number;
-  room: number;
-  flour: number;
-  /** °C-degrees */
-  friction: number;
-  preferments: { name: string; temperature: number }[];
+export interface WaterSection extends MixWater {
   tap: number | null;
-  /** Water weighed into the final dough, g (the builds' water is already in them). */
-  waterGrams: number;
 }
 
 export interface ScaleData {
@@ -103,22 +97,23 @@ export function toScaleOptions(o: RawOptions): ScaleOptions {
   }
 
   const unit: TemperatureUnit = o.fahrenheit ? 'F' : 'C';
-  const conditionFlags = { ddt: o.ddt, room: o.room, 'flour-temp': o.flourTemp, friction: o.friction, tap: o.tap, 'preferment-temp': o.prefermentTemp };
+  const conditionFlags = { ddt: o.ddt, room: o.room, 'flour-temp': o.flourTemp, friction: o.friction ?? o.rise, tap: o.tap, 'preferment-temp': o.prefermentTemp };
   const anyCondition = Object.values(conditionFlags).some((v) => v !== undefined);
   let conditions: Conditions | null = null;
   if (anyCondition) {
-    const missing = (['room', 'flour-temp', 'friction'] as const).filter((k) => conditionFlags[k] === undefined);
+    const missing = (['room', 'flour-temp', 'friction'] as const).filter((k) => conditionFlags[k] === undefined).map((k) => (k === 'friction' ? 'friction (or --rise)' : k));
     if (missing.length > 0) {
       throw new UsageError(
         `the water temperature needs ${missing.map((m) => `--${m}`).join(', ')}`,
-        'give --room, --flour-temp and --friction (and --tap for the ice), e.g. --room 22 --flour-temp 20 --friction 13 --tap 14',
+        'give --room, --flour-temp and --friction or --rise (and --tap for the ice), e.g. --room 22 --flour-temp 20 --friction 13 --tap 14',
       );
     }
+    if (o.friction !== undefined && o.rise !== undefined) throw new UsageError('give --friction or --rise, not both', '--rise 4.3 is the same mixer as --friction 13 (13 ÷ 3)');
     conditions = {
       ddt: o.ddt === undefined ? undefined : parseTemperatureFlag('--ddt', o.ddt, unit),
       room: parseTemperatureFlag('--room', o.room!, unit),
       flour: parseTemperatureFlag('--flour-temp', o.flourTemp!, unit),
-      friction: parseTemperatureFlag('--friction', o.friction!, unit, true),
+      rise: o.rise !== undefined ? parseTemperatureFlag('--rise', o.rise, unit, true) : parseTemperatureFlag('--friction', o.friction!, unit, true) / 3,
       tap: o.tap === undefined ? undefined : parseTemperatureFlag('--tap', o.tap, unit),
       preferments: (o.prefermentTemp ?? []).map((t) => parseTemperatureFlag('--preferment-temp', t, unit)),
     };
@@ -135,53 +130,25 @@ export function toScaleOptions(o: RawOptions): ScaleOptions {
   };
 }
 
-/** The water for the final dough, from the formula's pre-ferments and the conditions given. */
-function collectWater(formula: Formula, result: ScaleResult, c: Conditions, unit: TemperatureUnit): WaterSection {
-  const ddt = c.ddt ?? formula.doughTemperature;
-  if (ddt === undefined) {
+/** The water for the final dough: shared/dough-water.ts with the readings given. */
+function collectWater(formula: Formula, result: ScaleResult, catalog: Catalog, c: Conditions, unit: TemperatureUnit): WaterSection {
+  if (c.ddt === undefined && formula.doughTemperature === undefined) {
     throw new UsageError(`${formula.id} has no dough_temperature; give --ddt`, 'e.g. --ddt 25');
   }
   const n = formula.preferments.length;
-  let prefermentTemps: number[];
-  if (c.preferments.length === 0) {
-    prefermentTemps = formula.preferments.map((p) => {
-      const t = p.temperature ?? p.ripenTemperature;
-      if (t === undefined) {
-        throw new UsageError(
-          `the temperature of pre-ferment "${p.name}" is not in the formula; give --preferment-temp`,
-          'once for all pre-ferments, or once per pre-ferment in the formula\'s order',
-        );
-      }
-      return t;
-    });
-  } else if (c.preferments.length === 1 && n > 0) {
-    prefermentTemps = formula.preferments.map(() => c.preferments[0]);
-  } else if (c.preferments.length === n) {
-    prefermentTemps = c.preferments;
-  } else {
+  let measured: number[] = [];
+  if (c.preferments.length === 0) measured = [];
+  else if (c.preferments.length === 1 && n > 0) measured = formula.preferments.map(() => c.preferments[0]);
+  else if (c.preferments.length === n) measured = c.preferments;
+  else {
     throw new UsageError(
       `${formula.id} has ${n} pre-ferment(s) but --preferment-temp was given ${c.preferments.length} times`,
       n === 0 ? 'leave out --preferment-temp for a straight dough' : 'give it once for all pre-ferments, or once per pre-ferment in order',
     );
   }
-  const waterGrams = result.finalDoughWater;
-  let plan: WaterPlan;
-  try {
-    plan = planWater({ ddt, room: c.room, flour: c.flour, friction: c.friction, preferments: prefermentTemps, tap: c.tap, waterGrams }, unit);
-  } catch (e) {
-    if (e instanceof TemperatureError) throw new InputError(`${formula.id}: ${e.message}`);
-    throw e;
-  }
-  return {
-    ...plan,
-    desiredDoughTemperature: ddt,
-    room: c.room,
-    flour: c.flour,
-    friction: c.friction,
-    preferments: formula.preferments.map((p, i) => ({ name: p.name, temperature: prefermentTemps[i] })),
-    tap: c.tap ?? null,
-    waterGrams,
-  };
+  const water = planMixWater(formula, result, catalog, { ddt: c.ddt, room: c.room, flour: c.flour, tap: c.tap, rise: c.rise, measured }, unit);
+  if (!water.reachable) throw new InputError(`${formula.id}: ${water.warnings[0]}`);
+  return { ...water, tap: c.tap ?? null };
 }
 
 export function collectScale(formulaArg: string, opts: ScaleOptions): ScaleData {
@@ -194,10 +161,10 @@ export function collectScale(formulaArg: string, opts: ScaleOptions): ScaleData 
     if (e instanceof ScaleError) throw new InputError(e.message);
     throw e;
   }
-  const water = opts.conditions ? collectWater(formula, result, opts.conditions, opts.temperatureUnit) : null;
+  const water = opts.conditions ? collectWater(formula, result, catalog, opts.conditions, opts.temperatureUnit) : null;
   let cautions: Caution[];
   try {
-    cautions = formulaCautions(formula, catalog, { ice: (water?.ice ?? 0) > 0 });
+    cautions = formulaCautions(formula, catalog, { ice: (water?.main?.ice ?? 0) > 0 });
   } catch (e) {
     if (e instanceof AllergenError) throw new InputError(`${formula.id}: ${e.message}`);
     throw e;
@@ -213,19 +180,24 @@ export function scaleJson(data: ScaleData, opts: ScaleOptions): unknown {
     cautions,
     units: { weight: 'g', temperature: '°C', friction: '°C-degrees' },
     mixingWater: water && {
-      waterTemperature: water.waterTemperature,
+      waterTemperature: water.main?.temperature ?? null,
+      liquid: water.liquid?.names ?? null,
       factors: water.factors,
-      ice: water.ice,
-      tapWater: water.tapWater,
-      iceShare: water.iceShare,
-      waterGrams: water.waterGrams,
+      ice: water.main?.ice ?? null,
+      tapWater: water.main?.tapWater ?? null,
+      iceShare: water.main?.iceShare ?? null,
+      waterGrams: water.main?.grams ?? 0,
+      bassinage: water.bassinage,
       desiredDoughTemperature: water.desiredDoughTemperature,
+      doughTemperatureRange: water.doughTemperatureRange,
       room: water.room,
       flour: water.flour,
-      friction: water.friction,
+      rise: water.rise,
+      friction: water.frictionFactor,
       preferments: water.preferments,
       tap: water.tap,
-      warnings: water.warnings,
+      specificHeat: water.specificHeat,
+      warnings: [...water.warnings, ...water.advice],
     },
     resolution: opts.resolution,
   };
@@ -246,9 +218,10 @@ export const command = new Command('scale')
   .option('--ddt <t>', 'desired dough temperature (default: the formula\'s dough_temperature)')
   .option('--room <t>', 'room temperature')
   .option('--flour-temp <t>', 'flour temperature')
-  .option('--friction <t>', 'the mixer\'s friction, a temperature rise (°C-degrees, or °F-degrees with --fahrenheit)')
+  .option('--friction <t>', 'the mixer\'s friction factor found on a straight dough (3 factors); its rise is a third of it (°C-degrees, or °F-degrees with --fahrenheit)')
+  .option('--rise <t>', 'the mixer\'s rise: how much warmer dough comes off it than its ingredients\' average (instead of --friction)')
   .option('--tap <t>', 'tap water temperature, to work out the ice')
-  .option('--preferment-temp <t>', 'pre-ferment temperature (once for all, or once per pre-ferment)', (v: string, prev: string[] = []) => [...prev, v])
+  .option('--preferment-temp <t>', 'pre-ferment temperature measured tonight (once for all, or once per pre-ferment); default: its ripening temperature', (v: string, prev: string[] = []) => [...prev, v])
   .option('--fahrenheit', 'bare temperatures are °F (friction in °F-degrees); printed in °F')
   .addHelpText(
     'after',
@@ -261,7 +234,9 @@ Examples:
 
 Without --pieces, --mix or --flour the formula's own yield is scaled. Weights accept g, kg, oz
 or lb ("900 g", "2 lb"); a bare number is grams. Temperatures are °C unless --fahrenheit or
-written with their unit ("72F").`,
+written with their unit ("72F"). Water by the multiplier method: water = n·DDT − (room + flour +
+each pre-ferment + n × rise); a pre-ferment counts at its measured temperature, else its ripening
+temperature.`,
   )
   .action(async (formulaArg: string, raw: RawOptions) => {
     const opts = toScaleOptions(raw);

@@ -15,6 +15,7 @@ interface RawOptions {
   room?: string;
   flour?: string;
   friction?: string;
+  rise?: string;
   preferment?: string[];
   tap?: string;
   water?: string;
@@ -29,11 +30,12 @@ export type TempOptions =
       mode: 'water';
       unit: TemperatureUnit;
       json: boolean;
-      /** All °C; friction in °C-degrees. */
+      /** All °C; the rise in °C-degrees. */
       ddt: number;
       room: number;
       flour: number;
-      friction: number;
+      /** The mixer's rise: --rise, or --friction (a straight-dough friction factor) ÷ 3. */
+      rise: number;
       preferments: number[];
       tap?: number;
       waterGrams?: number;
@@ -69,8 +71,8 @@ export function toTempOptions(o: RawOptions): TempOptions {
   const t = (flag: string, v: string) => temperatureFlag(flag, v, unit);
   const preferments = (o.preferment ?? []).map((v) => t('--preferment', v));
   if (o.measured !== undefined) {
-    if (o.ddt !== undefined || o.friction !== undefined || o.tap !== undefined || o.water !== undefined) {
-      throw new UsageError('--measured works the friction out; it cannot be used with --ddt, --friction, --tap or --water');
+    if (o.ddt !== undefined || o.friction !== undefined || o.rise !== undefined || o.tap !== undefined || o.water !== undefined) {
+      throw new UsageError('--measured works the friction out; it cannot be used with --ddt, --friction, --rise, --tap or --water');
     }
     requireFlags(o, ['room', 'flour', 'waterTemp'], 'working out the friction');
     return {
@@ -79,7 +81,8 @@ export function toTempOptions(o: RawOptions): TempOptions {
     };
   }
   if (o.waterTemp !== undefined) throw new UsageError('--water-temp goes with --measured (to work out the friction)');
-  requireFlags(o, ['ddt', 'room', 'flour', 'friction'], 'the water temperature');
+  if (o.friction !== undefined && o.rise !== undefined) throw new UsageError('give --friction or --rise, not both', '--rise 4.3 is the same mixer as --friction 13 (13 ÷ 3)');
+  requireFlags(o, ['ddt', 'room', 'flour', o.rise !== undefined ? 'rise' : 'friction'], 'the water temperature');
   if (o.water !== undefined && o.tap === undefined) throw new UsageError('--water needs --tap (the ice depends on the tap water temperature)');
   let waterGrams: number | undefined;
   if (o.water !== undefined) {
@@ -95,7 +98,7 @@ export function toTempOptions(o: RawOptions): TempOptions {
   return {
     mode: 'water', unit, json: !!o.json, preferments,
     ddt: t('--ddt', o.ddt!), room: t('--room', o.room!), flour: t('--flour', o.flour!),
-    friction: temperatureFlag('--friction', o.friction!, unit, true),
+    rise: o.rise !== undefined ? temperatureFlag('--rise', o.rise, unit, true) : temperatureFlag('--friction', o.friction!, unit, true) / 3,
     tap: o.tap === undefined ? undefined : t('--tap', o.tap),
     waterGrams,
   };
@@ -110,8 +113,12 @@ export interface TempData {
   room: number;
   flour: number;
   preferments: number[];
-  /** A difference, in the unit's degrees. */
+  /** The mixer's rise, a difference in the unit's degrees. */
+  rise: number;
+  /** n × rise: the friction factor of this sum, in the unit's degrees. */
   friction: number;
+  /** 3 × rise: the same mixer's friction factor on a straight dough. */
+  straightDoughFriction: number;
   waterTemperature: number;
   measured: number | null;
   tap: number | null;
@@ -132,21 +139,23 @@ export function collectTemp(o: TempOptions): TempData {
     const r = computeFriction({ measured: o.measured, room: o.room, flour: o.flour, water: o.water, preferments: o.preferments });
     return {
       unit: o.unit, mode: 'friction', factors: r.factors, desiredDoughTemperature: null,
-      room: out(o.room), flour: out(o.flour), preferments: o.preferments.map(out), friction: outDelta(r.friction),
+      room: out(o.room), flour: out(o.flour), preferments: o.preferments.map(out),
+      rise: outDelta(r.rise), friction: outDelta(r.frictionFactor), straightDoughFriction: outDelta(r.straightDoughFactor),
       waterTemperature: out(o.water), measured: out(o.measured), tap: null, water: null, ice: null, tapWater: null, iceShare: null,
-      warnings: r.friction < 0 ? ['the friction works out below zero: check the measured temperatures'] : [],
+      warnings: r.rise < 0 ? ['the friction works out below zero: check the measured temperatures'] : [],
     };
   }
   let plan: WaterPlan;
   try {
-    plan = planWater({ ddt: o.ddt, room: o.room, flour: o.flour, friction: o.friction, preferments: o.preferments, tap: o.tap, waterGrams: o.waterGrams }, o.unit);
+    plan = planWater({ ddt: o.ddt, room: o.room, flour: o.flour, rise: o.rise, preferments: o.preferments, tap: o.tap, waterGrams: o.waterGrams }, o.unit);
   } catch (e) {
     if (e instanceof TemperatureError) throw new InputError(e.message);
     throw e;
   }
   return {
     unit: o.unit, mode: 'water', factors: plan.factors, desiredDoughTemperature: out(o.ddt),
-    room: out(o.room), flour: out(o.flour), preferments: o.preferments.map(out), friction: outDelta(o.friction),
+    room: out(o.room), flour: out(o.flour), preferments: o.preferments.map(out),
+    rise: outDelta(o.rise), friction: outDelta(plan.frictionFactor), straightDoughFriction: outDelta(o.rise * 3),
     waterTemperature: out(plan.waterTemperature), measured: null,
     tap: o.tap === undefined ? null : out(o.tap), water: o.waterGrams ?? null,
     ice: plan.ice, tapWater: plan.tapWater, iceShare: plan.iceShare, warnings: plan.warnings,
@@ -158,7 +167,8 @@ export const command = new Command('temp')
   .option('--ddt <t>', 'desired dough temperature')
   .option('--room <t>', 'room temperature')
   .option('--flour <t>', 'flour temperature')
-  .option('--friction <t>', 'the mixer\'s friction: the temperature rise while mixing (°C-degrees, or °F-degrees with --fahrenheit)')
+  .option('--friction <t>', 'the mixer\'s friction factor found on a straight dough (3 factors); its rise is a third of it (°C-degrees, or °F-degrees with --fahrenheit)')
+  .option('--rise <t>', 'the mixer\'s rise: how much warmer dough comes off it than its ingredients\' average (instead of --friction)')
   .option('--preferment <t>', 'a pre-ferment\'s temperature; repeat for each pre-ferment', (v: string, prev: string[] = []) => [...prev, v])
   .option('--tap <t>', 'tap water temperature (for the ice)')
   .option('--water <weight>', 'all the water the dough takes, e.g. "6.5 kg" or grams (for the ice)')
@@ -176,10 +186,12 @@ Examples:
   $ panform temp --fahrenheit --ddt 80 --room 75 --flour 65 --friction 35
   $ panform temp --measured 26 --room 22 --flour 20 --water-temp 18
 
-water = n·DDT − (room + flour + each pre-ferment + friction); n counts room, flour, water and
-each pre-ferment (3, or 4 with one pre-ferment). Friction is a temperature difference: 20 °F of
-friction is 11.1 °C, not −6.7 °C. Ice (at 0 °C) = water·(tap − target)/(tap + L/c), with
-L = 334 J/g and c = 4.18 J/(g·K). Bare numbers are °C unless --fahrenheit.`,
+The multiplier method: water = n·DDT − (room + flour + each pre-ferment + friction); n counts
+room, flour, water and each pre-ferment (3, or 4 with one pre-ferment). The friction is n × the
+mixer's rise, so one mixer's friction grows with n: --friction 13 (found on a straight dough) is a
+rise of 4.3 °C, 17.3 °C of friction with one pre-ferment. A temperature difference converts without
+the offset: 20 °F-degrees are 11.1 °C-degrees. Ice (at 0 °C) = water·(tap − target)/(tap + L/c),
+L = 333.55 J/g, c = 4.186 J/(g·K). Bare numbers are °C unless --fahrenheit.`,
   )
   .action(async (raw: RawOptions) => {
     const opts = toTempOptions(raw);

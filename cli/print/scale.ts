@@ -3,6 +3,8 @@ import type { ScaleData, ScaleOptions } from '../commands/scale.ts';
 import { renderCsv } from './csv.ts';
 import { percent, temperature, temperatureDelta, weight, type PrintUnits } from './format.ts';
 import { renderFacts, renderTable } from './table.ts';
+import { FRICTION_CONVENTION } from '#shared/dough-water';
+import { formatTemperatureRange } from '#shared/units';
 
 function describeTarget(data: ScaleData, u: PrintUnits): string {
   const r = data.result;
@@ -97,22 +99,31 @@ export function scaleText(data: ScaleData, opts: ScaleOptions): string {
 
   const w = data.water;
   if (w) {
+    const aim = w.doughTemperatureRange
+      ? `${formatTemperatureRange(w.doughTemperatureRange, u.temperature)}, aim ${temperature(w.desiredDoughTemperature, u)}`
+      : temperature(w.desiredDoughTemperature, u);
+    const liquidName = w.liquid === null || w.liquid.kind === 'water' ? 'water' : w.liquid.names.join(' and ');
     const wf: [string, string][] = [
-      ['desired dough temperature', temperature(w.desiredDoughTemperature, u)],
+      ['desired dough temperature', aim],
       ['room', temperature(w.room, u)],
       ['flour', temperature(w.flour, u)],
-      ...w.preferments.map((p): [string, string] => [`pre-ferment "${p.name}"`, temperature(p.temperature, u)]),
-      ['friction', temperatureDelta(w.friction, u)],
+      ...w.preferments.map((p): [string, string] => [`pre-ferment "${p.name}"`, `${temperature(p.temperature, u)} (${p.source})`]),
+      ['mixer rise', temperatureDelta(w.rise, u)],
+      ['friction', `${temperatureDelta(w.frictionFactor, u)} (${w.factors} × rise)`],
       ['factors', String(w.factors)],
-      ['water temperature', temperature(w.waterTemperature, u)],
-      ['water in the final dough', weight(w.waterGrams, u)],
     ];
-    if (w.tap !== null) wf.push(['tap water temperature', temperature(w.tap, u)]);
-    if (w.ice !== null && w.tapWater !== null) {
-      wf.push(['ice (at 0 °C)', weight(w.ice, u)], ['tap water', weight(w.tapWater, u)]);
+    if (w.main) {
+      wf.push([`${w.bassinage ? 'main ' : ''}${liquidName} temperature`, temperature(w.main.temperature, u)]);
+      wf.push([`${w.bassinage ? 'main ' : ''}${liquidName} in the final dough`, weight(w.main.grams, u)]);
     }
-    out.push(renderFacts('\nWater for the final dough', wf));
-    for (const m of w.warnings) out.push(`  caution: ${m}`);
+    if (w.bassinage) wf.push(['bassinage (held back, add late)', `${weight(w.bassinage.grams, u)} at ${temperature(w.bassinage.temperature, u)}`]);
+    if (w.tap !== null) wf.push(['tap water temperature', temperature(w.tap, u)]);
+    if (w.main && w.main.ice !== null && w.main.tapWater !== null) {
+      wf.push(['ice (at 0 °C)', weight(w.main.ice, u)], ['tap water', weight(w.main.tapWater, u)]);
+    }
+    if (w.liquid?.kind === 'other') wf.push(['specific heat', w.specificHeat]);
+    out.push(renderFacts(`\nWater for the final dough (${FRICTION_CONVENTION})`, wf));
+    for (const m of [...w.warnings, ...w.advice]) out.push(`  caution: ${m}`);
   }
   out.push('\nTake care', ...data.cautions.map((c) => `- ${c.text}`));
   return `${out.join('\n')}\n`;

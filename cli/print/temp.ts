@@ -11,13 +11,16 @@ export function tempText(d: TempData): string {
   facts.push(['room', t(d.room)], ['flour', t(d.flour)]);
   d.preferments.forEach((p, i) => facts.push([d.preferments.length > 1 ? `pre-ferment ${i + 1}` : 'pre-ferment', t(p)]));
   if (d.mode === 'water') {
-    facts.push(['friction', t(d.friction)], ['factors', String(d.factors)], ['water temperature', t(d.waterTemperature)]);
+    facts.push(['mixer rise', t(d.rise)], ['friction', `${t(d.friction)} (${d.factors} × rise)`], ['factors', String(d.factors)], ['water temperature', t(d.waterTemperature)]);
     if (d.tap !== null) facts.push(['tap water temperature', t(d.tap)]);
     if (d.water !== null) facts.push(['water in all', formatGrams(d.water)]);
     if (d.ice !== null && d.tapWater !== null) facts.push(['ice (at 0 °C)', formatGrams(d.ice)], ['tap water', formatGrams(d.tapWater)]);
     else if (d.iceShare !== null) facts.push(['ice per kg of water', formatGrams(d.iceShare * 1000)]);
   } else {
-    facts.push(['water temperature', t(d.waterTemperature)], ['factors', String(d.factors)], ['friction', t(d.friction)]);
+    facts.push(
+      ['water temperature', t(d.waterTemperature)], ['factors', String(d.factors)], ['mixer rise (keep this)', t(d.rise)],
+      ['friction in this sum', `${t(d.friction)} (${d.factors} × rise)`], ['friction on a straight dough', `${t(d.straightDoughFriction)} (3 × rise)`],
+    );
   }
   const title = d.mode === 'water' ? 'Water for the dough' : "The mixer's friction";
   const lines = [renderFacts(title, facts), ...d.warnings.map((w) => `  caution: ${w}`)];

@@ -42,7 +42,11 @@ export function checkPlan(input: PlanCheckInput): Finding[] {
     if (m.minimumGrams !== undefined && m.minimumGrams > m.capacityGrams) {
       out.error(at('minimum'), `the minimum of mixer ${quote(m.name)} (${grams(m.minimumGrams)}) is above its capacity (${grams(m.capacityGrams)})`);
     }
-    if (m.friction < 0) out.warning(at('friction'), `mixer ${quote(m.name)} has a negative friction (${m.friction} °C); mixing warms dough, it does not cool it`);
+    if (Number.isNaN(m.rise)) {
+      out.error(at(), `mixer ${quote(m.name)} gives no friction; give its rise (e.g. rise: 4 °C, how much warmer dough comes off it than its ingredients' average) or the friction factor found on a straight dough (friction: 13 °C)`);
+    } else if (m.rise < 0) {
+      out.warning(at(m.riseFrom === 'friction' ? 'friction' : 'rise'), `mixer ${quote(m.name)} has a negative ${m.riseFrom === 'friction' ? 'friction' : 'rise'}; mixing warms dough, it does not cool it`);
+    }
   });
 
   const ovenNames = new Set<string>();

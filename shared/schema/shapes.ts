@@ -4,7 +4,7 @@
 import { Type, type Static } from '@sinclair/typebox';
 import {
   ALLERGEN_CODES, BAKE_VESSELS, CLOCK_PATTERN, DATE_PATTERN, FINISH_USES, FORMULA_STATUSES, ID_PATTERN, INGREDIENT_KINDS, MASS_PATTERN,
-  PERCENT_PATTERN, PREFERMENT_KINDS, RANGE_PATTERN, RATE_PATTERN, STEP_KINDS, TEMPERATURE_PATTERN, YEAST_TYPES,
+  MIXER_KINDS, PERCENT_PATTERN, PREFERMENT_KINDS, RANGE_PATTERN, RATE_PATTERN, STEP_KINDS, TEMPERATURE_PATTERN, TEMPERATURE_RANGE_PATTERN, YEAST_TYPES,
 } from './vocabulary.ts';
 
 export * from './vocabulary.ts';
@@ -17,6 +17,11 @@ export const Mass = Type.String({
 export const Temperature = Type.String({
   pattern: TEMPERATURE_PATTERN,
   description: 'A temperature with its unit, e.g. "25 °C" or "77 °F".',
+});
+/** A temperature or a range such as "25-26 °C"; a range is aimed at its middle and shown whole. */
+export const TemperatureRange = Type.String({
+  pattern: TEMPERATURE_RANGE_PATTERN,
+  description: 'A temperature, or a range with one unit, e.g. "25 °C" or "25-26 °C" (aimed at the middle).',
 });
 export const Percent = Type.Union([Type.Number(), Type.String({ pattern: PERCENT_PATTERN })], {
   description: 'A percentage, e.g. "2 %" or 2.',
@@ -40,7 +45,7 @@ export const AllergenCode = Type.Unsafe<(typeof ALLERGEN_CODES)[number]>({
 export const Ripen = Type.Object(
   {
     hours: Range,
-    temperature: Type.Optional(Temperature),
+    temperature: Type.Optional(TemperatureRange),
   },
   { additionalProperties: false, description: 'How long and how warm a pre-ferment ripens.' },
 );
@@ -140,7 +145,14 @@ export const FormulaFile = Type.Object(
     bake_loss: Type.Optional(Type.Union([Type.Number(), Type.String({ pattern: PERCENT_PATTERN })], {
       description: 'Weight lost in the oven, in percent of the dough weight (taken as water). Default by category (common practice).',
     })),
-    dough_temperature: Type.Optional(Temperature),
+    dough_temperature: Type.Optional(TemperatureRange),
+    bassinage: Type.Optional(Type.Object(
+      {
+        percent: Type.Number({ exclusiveMinimum: 0, description: "Baker's percent of water held back, part of the formula's water line." }),
+        temperature: Temperature,
+      },
+      { additionalProperties: false, description: 'Water held back and added late in the mix (bassinage), with its own temperature.' },
+    )),
     flour: PercentTable,
     ingredients: PercentTable,
     preferments: Type.Optional(Type.Array(Preferment)),
@@ -210,9 +222,19 @@ export const CatalogFile = Type.Record(Type.String({ minLength: 1 }), CatalogEnt
 export const Mixer = Type.Object(
   {
     name: Type.String({ minLength: 1 }),
+    kind: Type.Optional(Type.Unsafe<(typeof MIXER_KINDS)[number]>({
+      type: 'string', enum: [...MIXER_KINDS], description: 'machine (default) or hand; by hand the capacity is the batch one person mixes.',
+    })),
     capacity: Mass,
     minimum: Type.Optional(Mass),
-    friction: Type.String({ pattern: TEMPERATURE_PATTERN, description: 'Temperature rise from mixing, as a difference.' }),
+    rise: Type.Optional(Type.String({
+      pattern: TEMPERATURE_PATTERN,
+      description: "The mixer's temperature rise: how much warmer a dough comes off it than its ingredients' average (a difference).",
+    })),
+    friction: Type.Optional(Type.String({
+      pattern: TEMPERATURE_PATTERN,
+      description: 'The friction factor found on a straight dough (three factors: room, flour, water), a difference; rise = friction / 3.',
+    })),
     clean_down: Type.Optional(Type.Number({
       minimum: 0,
       description: 'Minutes to clean the bowl and hook before a dough without an allergen follows one with it.',
@@ -301,6 +323,7 @@ export type YeastType = (typeof YEAST_TYPES)[number];
 export type FormulaStatus = (typeof FORMULA_STATUSES)[number];
 export type PrefermentKind = (typeof PREFERMENT_KINDS)[number];
 export type StepKind = (typeof STEP_KINDS)[number];
+export type MixerKind = (typeof MIXER_KINDS)[number];
 
 export const SCHEMAS = { formula: FormulaFile, catalog: CatalogFile, plan: PlanFile } as const;
 export type SchemaKind = keyof typeof SCHEMAS;

@@ -3,6 +3,8 @@
 // a batch never loads the schema builder. shapes.ts builds the schemas from these.
 export const MASS_PATTERN = '^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$';
 export const TEMPERATURE_PATTERN = '^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$';
+/** A temperature or a range of temperatures with one unit: "25 °C", "25-26 °C", "18–21 °C". */
+export const TEMPERATURE_RANGE_PATTERN = '^\\s*-?[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*-?[0-9]+(\\.[0-9]+)?)?\\s*°?\\s*(C|F)\\s*$';
 export const PERCENT_PATTERN = '^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$';
 export const RANGE_PATTERN = '^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$';
 /** A rate of temperature change: "4 °C/min" or "7 °F/min". */
@@ -22,6 +24,8 @@ export const INGREDIENT_KINDS = [
 ] as const;
 /** What a finish is for: on top of the piece, brushed on, under it in the tray or tin, or dusted on. */
 export const FINISH_USES = ['topping', 'wash', 'tray', 'dusting'] as const;
+/** How a plan's mixer works: a machine, or the bench's hands (a batch limit per person). */
+export const MIXER_KINDS = ['machine', 'hand'] as const;
 export const YEAST_TYPES = ['fresh', 'active-dry', 'instant'] as const;
 export const ALLERGEN_CODES = [
   'wheat', 'rye', 'barley', 'oats', 'spelt', 'khorasan', 'crustaceans', 'eggs', 'fish', 'peanuts', 'soybeans', 'milk',

@@ -6,11 +6,10 @@
 //   into the fewest EQUAL mixes that fit the mixer: the order's mixer, else the first mixer that
 //   takes the whole order (capacity and minimum), else the biggest. Pieces per mix are whole: when
 //   they do not divide evenly the first mixes divide one piece more.
-// - A mix's water temperature: n·DDT − (room + flour + each pre-ferment + friction), n = 3 + the
-//   number of pre-ferments; a pre-ferment's temperature is the plan's `conditions.preferment`, else
-//   its ripening temperature, else its build temperature, else the room's.
-// - A build's water temperature: 3·T − (room + flour), T its `temperature`, else its ripening
-//   temperature; no friction.
+// - A mix's water, bassinage and ice: planMixWater (dough-water.ts), with the mixer's rise and the
+//   plan's `conditions.preferment` only as the default for a pre-ferment that gives no temperature.
+// - A build's water temperature: planBuildWater (dough-water.ts), T its `temperature`, else its
+//   ripening temperature; the seed culture counted at the plan's pre-ferment default, else the room.
 // - Builds whose kind, ingredient percentages, ripening hours and temperatures are identical are
 //   made together, across formulas. A build must have ripened at least its minimum hours and at most
 //   its maximum at every final mix that takes it: mixUntil = first use − min hours, mixFrom = last
@@ -22,7 +21,8 @@ import type { AllergenCode, IngredientKind } from '../schema/shapes.ts';
 import { INGREDIENT_KINDS } from '../schema/vocabulary.ts';
 import { AllergenError, allergenSummary } from '../allergens.ts';
 import { cautionFacts, cautionsFor, type CautionSet } from '../cautions.ts';
-import { computeIce, computeWaterTemperature, HOT_WATER_CELSIUS, WARM_WATER_ADVICE, WARM_WATER_CELSIUS } from '../temperature.ts';
+import { planBuildWater, planMixWater, type MixWater } from '../dough-water.ts';
+import { computeIce, HOT_WATER_CELSIUS, WARM_WATER_ADVICE, WARM_WATER_CELSIUS } from '../temperature.ts';
 import { formatTemperature } from '../units.ts';
 import { bookBuilds, finishBookings, scheduleNight } from '../schedule/night.ts';
 import { clockMinutes, localDateTime, minuteOf } from './time.ts';
@@ -178,20 +178,26 @@ export function buildSheet(input: SheetInput): Sheet {
     const water = sum(ingredients.filter((l) => l.kind === 'water').map((l) => l.grams));
     let waterTemperature: number | null = null;
     let factors: SheetMix['factors'] = null;
+    let liquid: string | null = null;
+    let bassinage: SheetMix['bassinage'] = null;
     let ice = 0;
+    let w: MixWater | null = null;
     if (f.doughTemperature !== undefined) {
-      const prefT = f.preferments.map((pf) => plan.conditions.preferment ?? pf.ripenTemperature ?? pf.temperature ?? room);
-      factors = { room, flour: flourT, friction: p.mixer.friction, preferments: prefT, n: 3 + prefT.length };
-      waterTemperature = computeWaterTemperature({ ddt: f.doughTemperature, room, flour: flourT, friction: p.mixer.friction, preferments: prefT }).water;
-      ice = iceFor(water, tapWater, waterTemperature, `${f.id} mix ${p.mixNumber}/${p.of}`, warnings);
+      w = planMixWater(f, p.scaled, catalog, { room, flour: flourT, tap: tapWater, rise: p.mixer.rise, prefermentDefault: plan.conditions.preferment });
+      factors = { room, flour: flourT, rise: w.rise, friction: w.frictionFactor, preferments: w.preferments, n: w.factors };
+      waterTemperature = w.main?.temperature ?? null;
+      liquid = w.liquid ? w.liquid.names.join(' and ') : null;
+      bassinage = w.bassinage && { grams: w.bassinage.grams, temperature: w.bassinage.temperature };
+      ice = w.main?.ice ?? 0;
+      if (p.mixNumber === 1) for (const x of w.warnings) warnings.push(`${f.id} mix ${p.mixNumber}/${p.of}: ${x}`);
     } else if (p.mixNumber === 1) {
       warnings.push(`${f.id} has no dough_temperature; its mixes get no water temperature`);
     }
     return {
       formula: f.id, title: f.title, order: p.order, ...(p.o.customer ? { customer: p.o.customer } : {}),
       mixer: p.mixer.name, mixNumber: p.mixNumber, of: p.of, dough: p.scaled.mixedDough, flour: p.scaled.flour,
-      ingredients, doughTemperature: f.doughTemperature ?? null, factors, waterTemperature,
-      water, ice, tapWater: water - ice, pieces: p.pieces, pieceGrams: p.pieceGrams,
+      ingredients, doughTemperature: f.doughTemperature ?? null, doughTemperatureRange: w?.doughTemperatureRange ?? null, factors, waterTemperature,
+      liquid, water, ice, tapWater: water - ice - (bassinage?.grams ?? 0), bassinage, pieces: p.pieces, pieceGrams: p.pieceGrams,
       start: at(p.mixStart), end: at(p.mixEnd),
     };
   });
@@ -394,8 +400,9 @@ function makeBuilds(
       }));
       const water = sum(ingredients.filter((l) => l.kind === 'water').map((l) => l.grams));
       const target = what === 'preferment' ? (spec.temperature ?? spec.holdTemperature) : null;
+      const seedTemperature = ingredients.some((l) => l.seed) ? (conditions.preferment ?? conditions.room) : null;
       let waterTemperature =
-        target === null ? null : computeWaterTemperature({ ddt: target, room: conditions.room, flour: conditions.flour, friction: 0, preferments: [] }).water;
+        target === null ? null : planBuildWater(target, { room: conditions.room, flour: conditions.flour, seed: seedTemperature ?? undefined }).waterTemperature;
       if (waterTemperature !== null && waterTemperature < 0) {
         // A build that ripens cold (old dough in the cold room, say) cannot come off the mixer that cold.
         warnings.push(
@@ -422,6 +429,7 @@ function makeBuilds(
         uses,
         targetTemperature: target,
         waterTemperature,
+        seedTemperature: target === null ? null : seedTemperature,
         water,
         ice,
         tapWater: water - ice,

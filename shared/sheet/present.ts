@@ -2,7 +2,8 @@
 // the text, HTML and PDF renderers so that every format shows the same figures. Rounding happens
 // here (units.ts formatGrams) and nowhere earlier. Pure; no I/O.
 import { sum } from '../scale.ts';
-import { formatGrams, formatTemperature } from '../units.ts';
+import { FRICTION_CONVENTION } from '../dough-water.ts';
+import { formatGrams, formatTemperature, formatTemperatureRange } from '../units.ts';
 import { shortTime } from './time.ts';
 import type { Sheet, SheetBuild, SheetMix } from './types.ts';
 
@@ -69,7 +70,10 @@ function buildBlock(b: SheetBuild, sheet: Sheet): SheetBlock {
   lines.push(b.mixFrom ? `mix between ${when(b.mixFrom)} and ${when(b.mixUntil)}` : `mix before ${when(b.mixUntil)}`);
   const hold = [b.hours ? hoursText(b.hours) : null, b.holdTemperature !== null ? `at ${t(b.holdTemperature)}` : null].filter(Boolean).join(' ');
   if (hold) lines.push(`${b.kind === 'soaker' ? 'soak' : 'ripen'} ${hold}`);
-  if (b.waterTemperature !== null) lines.push(`water at ${t(b.waterTemperature)}${b.targetTemperature !== null ? ` for a build at ${t(b.targetTemperature)}` : ''}`);
+  if (b.waterTemperature !== null) {
+    const seed = b.seedTemperature !== null ? ` (seed counted at ${t(b.seedTemperature)})` : '';
+    lines.push(`water at ${t(b.waterTemperature)}${b.targetTemperature !== null ? ` for a build at ${t(b.targetTemperature)}` : ''}${seed}`);
+  }
   if (b.hot) lines.push('made with boiling water: pour with care');
   lines.push(`used at ${b.uses.map((u) => `${when(u.at)} (${u.formula} ${u.mixNumber}, ${g(u.grams)})`).join('; ')}`);
   if (b.note) lines.push(b.note);
@@ -99,12 +103,14 @@ function mixBlock(m: SheetMix, sheet: Sheet, repeated: boolean): SheetBlock {
   lines.push(`${m.mixer} · mix at ${span(m.start, m.end, sheet.date)}${m.customer ? ` · for ${m.customer}` : ''}`);
   if (m.waterTemperature !== null && m.doughTemperature !== null) {
     const f = m.factors!;
-    const pre = f.preferments.map((x) => ` − pre-ferment ${t(x)}`).join('');
-    lines.push(
-      `water at ${t(m.waterTemperature)} for dough at ${t(m.doughTemperature)} (${f.n} × ${t(m.doughTemperature)} − room ${t(f.room)} − flour ${t(f.flour)}${pre} − friction ${t(f.friction)})`,
-    );
+    const pre = f.preferments.map((x) => ` − ${x.name} ${t(x.temperature)} (${x.source})`).join('');
+    const aim = m.doughTemperatureRange ? `${formatTemperatureRange(m.doughTemperatureRange)}, aim ${t(m.doughTemperature)}` : t(m.doughTemperature);
+    const liquid = m.liquid === null || m.liquid === 'water' ? (m.bassinage ? 'main water' : 'water') : m.liquid;
+    const sum = `${f.n} × ${t(m.doughTemperature)} − room ${t(f.room)} − flour ${t(f.flour)}${pre} − friction ${t(f.friction)} (${f.n} × rise ${t(f.rise)})`;
+    lines.push(`${liquid} at ${t(m.waterTemperature)} for dough at ${aim} (${sum}${m.bassinage ? '; with the bassinage' : ''})`);
   }
-  if (m.ice > 0) lines.push(`ice ${g(m.ice)} + tap water ${g(m.tapWater)} = water ${g(m.water)}`);
+  if (m.bassinage) lines.push(`bassinage: hold back ${g(m.bassinage.grams)} of the water at ${t(m.bassinage.temperature)}; add it late in the mix`);
+  if (m.ice > 0) lines.push(`ice ${g(m.ice)} + tap water ${g(m.tapWater)}${m.bassinage ? ` + bassinage ${g(m.bassinage.grams)}` : ''} = water ${g(m.water)}`);
   lines.push(`divide ${m.pieces} × ${g(m.pieceGrams)}`);
   const rows: string[][] = [];
   const tick: boolean[] = [];
@@ -113,6 +119,10 @@ function mixBlock(m: SheetMix, sheet: Sheet, repeated: boolean): SheetBlock {
     rows.push([name, g(l.grams)]);
     tick.push(true);
     if (l.kind === 'water' && m.ice > 0) addIceRows(rows, tick, m.ice, m.tapWater, sheet.conditions.tapWater);
+    if (l.kind === 'water' && m.bassinage) {
+      rows.push([`  held back: bassinage (${t(m.bassinage.temperature)}), add late`, g(m.bassinage.grams)]);
+      tick.push(true);
+    }
   }
   return {
     title: `${m.title}${repeated ? ` (order ${m.order + 1})` : ''} · mix ${m.mixNumber} of ${m.of} · ${g(m.dough)}`,
@@ -126,8 +136,9 @@ export function presentSheet(sheet: Sheet): PresentedSheet {
   const c = sheet.conditions;
   const subtitle = [
     `first bake out of the oven at ${when(sheet.readyBy)}`,
-    `room ${t(c.room)} · flour ${t(c.flour)} · tap water ${t(c.tapWater)}${c.preferment !== undefined ? ` · pre-ferments ${t(c.preferment)}` : ''}`,
-    `mixers: ${sheet.mixers.map((m) => `${m.name} ${g(m.capacityGrams)}${m.minimumGrams !== undefined ? ` (min ${g(m.minimumGrams)})` : ''}, friction ${t(m.friction)}`).join(' · ')}`,
+    `room ${t(c.room)} · flour ${t(c.flour)} · tap water ${t(c.tapWater)}${c.preferment !== undefined ? ` · pre-ferments without a temperature of their own ${t(c.preferment)}` : ''}`,
+    `mixers: ${sheet.mixers.map((m) => `${m.name} ${m.kind === 'hand' ? `by hand, ${g(m.capacityGrams)} a person` : g(m.capacityGrams)}${m.minimumGrams !== undefined ? ` (min ${g(m.minimumGrams)})` : ''}, rise ${t(m.rise)}${m.riseFrom === 'friction' ? ` (straight-dough friction ${t(m.rise * 3)} ÷ 3)` : m.riseFrom === 'hand default' ? ' (hand mixing, common practice)' : ''}`).join(' · ')}`,
+    `water temperatures by the ${FRICTION_CONVENTION}; each pre-ferment at its own ripening temperature`,
   ];
   if (sheet.ranges !== 'mid') subtitle.push(`step ranges: ${sheet.ranges} end`);
   if (sheet.notes) subtitle.push(sheet.notes);

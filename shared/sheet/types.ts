@@ -1,6 +1,7 @@
 // The batch sheet as data: what `panform sheet --format json` prints and what the viewer and the
 // HTML/PDF renderers draw. The JSON keys are a contract (docs/batch-sheet.md); weights are grams,
 // unrounded; temperatures °C; times are local date-times "YYYY-MM-DDTHH:MM" on the plan's clock.
+import type { PrefermentTemperature } from '../dough-water.ts';
 import type { AllergenCode, IngredientKind, PrefermentKind, StepKind } from '../schema/shapes.ts';
 import type { Catalog, Formula, Oven, Plan, Shift } from '../model.ts';
 import type { NumberRange, RangePick } from '../units.ts';
@@ -57,8 +58,10 @@ export interface SheetBuild {
   uses: BuildUse[];
   /** °C the build should come off the mixer at (its `temperature`, else its ripening temperature). */
   targetTemperature: number | null;
-  /** °C; n = 3 (room, flour, water) with no friction. Null when the formula gives no target. */
+  /** °C; n = 3 (room, flour, water), 4 with a seed culture, no friction. Null when the formula gives no target. */
   waterTemperature: number | null;
+  /** °C the seed culture is counted at (the plan's pre-ferment default, else the room); null without a seed. */
+  seedTemperature: number | null;
   /** Water lines of the build, g; split into ice and tap water when the water must be colder than the tap. */
   water: number;
   ice: number;
@@ -81,9 +84,12 @@ export interface SheetBuild {
 export interface TemperatureFactors {
   room: number;
   flour: number;
+  /** The mixer's rise, °C-degrees. */
+  rise: number;
+  /** n × rise, °C-degrees: the friction in this sum. */
   friction: number;
-  /** One per pre-ferment in the dough, °C. */
-  preferments: number[];
+  /** One per pre-ferment in the dough: the temperature it counts at and where that came from. */
+  preferments: PrefermentTemperature[];
   /** 3 + the number of pre-ferments. */
   n: number;
 }
@@ -103,14 +109,24 @@ export interface SheetMix {
   flour: number;
   /** Final-dough lines: ingredients to weigh, and each pre-ferment and soaker as one line. */
   ingredients: SheetLine[];
-  /** °C the dough should come off the mixer at; null when the formula has none. */
+  /** °C the dough should come off the mixer at (the middle of a range); null when the formula has none. */
   doughTemperature: number | null;
+  /** °C: the formula's range, when it gives one. */
+  doughTemperatureRange: NumberRange | null;
   factors: TemperatureFactors | null;
-  /** °C for all the water of this mix (ice and tap water together); null without a dough temperature. */
+  /**
+   * °C for the water poured at the start (ice and tap water together; the bassinage apart); for a
+   * dough without water, its liquid's (see `liquid`). Null without a dough temperature or a liquid.
+   */
   waterTemperature: number | null;
+  /** What is tempered: "water", or the other liquid ("whole milk") of a dough without water. */
+  liquid: string | null;
+  /** Water lines of the mix, g (the bassinage included). */
   water: number;
   ice: number;
   tapWater: number;
+  /** Water held back and added late in the mix, at its own temperature. */
+  bassinage: { grams: number; temperature: number } | null;
   /** Whole pieces to divide from this mix, and their weight. */
   pieces: number;
   pieceGrams: number;

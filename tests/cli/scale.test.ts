@@ -109,25 +109,25 @@ describe('panform scale --json', () => {
     // 3·25 − (30 + 28 + 13) = 4 °C (by hand, dough_temperature 25 °C in the formula); 650 g of water in the final dough.
     expect(j.mixingWater!.waterTemperature).toBe(4);
     expect(j.mixingWater!.factors).toBe(3);
-    expect(j.mixingWater!.ice).toBeCloseTo((650 * 16) / (20 + 334 / 4.18), 6); // I = W·ΔT/(T_tap + L/c), L = 334 J/g, c = 4.18 J/(g·K) (Case Western Reserve University demo)
+    expect(j.mixingWater!.ice).toBeCloseTo((650 * 16) / (20 + 333.55 / 4.186), 6); // L = 333.55 J/g (CRC Handbook), c = 4.186 J/(g·K) (NIST SP 811 B.8)
     expect(j.mixingWater!.ice! + j.mixingWater!.tapWater!).toBeCloseTo(650, 9);
   });
 
-  it('counts each pre-ferment in the water temperature', async () => {
-    const j = await json([fixture('two-preferments'), '--room', '22', '--flour-temp', '20', '--friction', '11', '--preferment-temp', '20', '--preferment-temp', '18']);
+  it('counts each pre-ferment measured tonight in the water temperature, and the friction as 5 × the rise', async () => {
+    const j = await json([fixture('two-preferments'), '--room', '22', '--flour-temp', '20', '--rise', '4', '--preferment-temp', '21', '--preferment-temp', '17']);
     expect(j.mixingWater!.factors).toBe(5);
-    expect(j.mixingWater!.waterTemperature).toBe(5 * 25 - (22 + 20 + 11 + 20 + 18)); // 34 °C, by hand
+    expect(j.mixingWater!.waterTemperature).toBe(5 * 25 - (22 + 20 + 5 * 4 + 21 + 17)); // 25 °C, by hand (the multiplier method)
   });
 
-  it('uses the pre-ferments\' ripening temperatures when none is given', async () => {
-    const j = await json([fixture('two-preferments'), '--room', '22', '--flour-temp', '20', '--friction', '11']);
-    expect(j.mixingWater!.waterTemperature).toBe(5 * 25 - (22 + 20 + 11 + 20 + 18)); // ripen at 20 and 18 °C in the fixture
+  it('uses the pre-ferments\' ripening temperatures when none is measured', async () => {
+    const j = await json([fixture('two-preferments'), '--room', '22', '--flour-temp', '20', '--friction', '12']);
+    expect(j.mixingWater!.waterTemperature).toBe(5 * 25 - (22 + 20 + 5 * 4 + 20 + 18)); // ripen at 20 and 18 °C in the fixture; rise 12/3
   });
 
   it('reads bare temperatures as °F with --fahrenheit, friction as a difference', async () => {
-    const c = await json([fixture('lean-straight'), '--ddt', '25', '--room', '22', '--flour-temp', '20', '--friction', '11.11111111111111']);
-    const f = await json([fixture('lean-straight'), '--ddt', '77', '--room', '71.6', '--flour-temp', '68', '--friction', '20', '--fahrenheit']);
-    expect(f.mixingWater!.waterTemperature).toBeCloseTo(c.mixingWater!.waterTemperature, 9); // a difference: 20 °F-degrees × 5/9 = 11.11 °C-degrees
+    const c = await json([fixture('brief-straight'), '--ddt', '25', '--room', '22', '--flour-temp', '20', '--friction', '11.11111111111111']);
+    const f = await json([fixture('brief-straight'), '--ddt', '77', '--room', '71.6', '--flour-temp', '68', '--friction', '20', '--fahrenheit']);
+    expect(f.mixingWater!.waterTemperature).toBeCloseTo(c.mixingWater!.waterTemperature, 9); // NIST SP 811 B.8: a difference of 20 °F-degrees = 11.11 K
   });
 });
 

@@ -23,41 +23,47 @@ describe('panform temp --json', () => {
   it('gives example A in °F with --fahrenheit', async () => {
     const j = await json(['--fahrenheit', '--ddt', '80', '--room', '75', '--flour', '65', '--friction', '35']);
     expect(j.unit).toBe('F');
-    expect(j.waterTemperature as number).toBeCloseTo(65, 9); // Pizza Today, June 2018 dough column: 65 °F
+    expect(j.waterTemperature as number).toBeCloseTo(65, 9); // Pizza Today, June 2018, dough temperature example: 65 °F (from memory)
     expect(j.factors).toBe(3);
     expect(j).toHaveProperty('ice', null);
     expect(j).toHaveProperty('tapWater', null);
   });
 
   it('gives example C in °C, with friction converted as a difference', async () => {
-    const j = await json(['--ddt', '75F', '--room', '71F', '--flour', '71F', '--preferment', '71F', '--friction', '20F']);
+    // Cook's Illustrated, "Precise Water Temperature for the Perfect Loaf": (75 × 4) − 71 − 71 − 71 − 20 = 67 °F; its
+    // friction factor of 20 °F in a four-factor sum is a rise of 5 °F
+    const j = await json(['--ddt', '75F', '--room', '71F', '--flour', '71F', '--preferment', '71F', '--rise', '5F']);
     expect(j.unit).toBe('C');
-    expect(Math.abs((j.waterTemperature as number) - 19.444444444444443)).toBeLessThan(1e-9); // Cook's Illustrated's example in °C: (67 − 32)/1.8 = 19.444 °C
+    expect(Math.abs((j.waterTemperature as number) - 19.444444444444443)).toBeLessThan(1e-9); // (67 − 32)/1.8
     expect(j.factors).toBe(4);
+    expect(j.friction as number).toBeCloseTo(20 / 1.8, 9);
   });
 
   it('works out the ice and tap water in grams', async () => {
-    const j = await json(['--ddt', '26', '--room', '28', '--flour', '27', '--friction', '13', '--preferment', '24', '--tap', '22', '--water', '6.5 kg']);
-    expect(j.waterTemperature).toBe(12); // 4·26 − (28 + 27 + 24 + 13), by hand
-    expect(j.ice as number).toBeCloseTo((6500 * 10) / (22 + 334 / 4.18), 9); // I = W·ΔT/(T_tap + L/c), L = 334 J/g, c = 4.18 J/(g·K) (Case Western Reserve University demo)
+    const j = await json(['--ddt', '26', '--room', '28', '--flour', '27', '--rise', '3.25', '--preferment', '24', '--tap', '22', '--water', '6.5 kg']);
+    expect(j.waterTemperature).toBe(12); // 4·26 − (28 + 27 + 24 + 4 × 3.25), by hand
+    // ice = W·(tap − water)/(tap + L/c), L = 333.55 J/g (CRC Handbook, enthalpy of fusion), c = 4.186 J/(g·K) (NIST SP 811 B.8)
+    expect(j.ice as number).toBeCloseTo((6500 * 10) / (22 + 333.55 / 4.186), 9);
     expect((j.ice as number) + (j.tapWater as number)).toBeCloseTo(6500, 9);
   });
 
-  it('matches the published ice row: 1000 g from 20 °C tap to 10 °C', async () => {
+  it('needs 100.32 g of ice for 1000 g from a 20 °C tap to 10 °C', async () => {
     const j = await json(['--ddt', '20', '--room', '20', '--flour', '20', '--friction', '10', '--tap', '20', '--water', '1000']);
     expect(j.waterTemperature).toBe(10);
-    expect(j.ice as number).toBeCloseTo(100.1, 2); // hand-worked from the heat balance, L = 334, c = 4.18: 1000 × 10 / 99.904 = 100.10 g
+    expect(j.ice as number).toBeCloseTo(100.32, 2); // 1000 × 10 / (20 + 333.55/4.186), by hand
   });
 
   it('gives ice and tap water in grams and temperatures in °F with --fahrenheit', async () => {
     const j = await json(['--fahrenheit', '--ddt', '68', '--room', '68', '--flour', '68', '--friction', '18', '--tap', '68', '--water', '1000']);
     expect(j.waterTemperature as number).toBeCloseTo(50, 9); // 3·68 − (68 + 68 + 18) = 50 °F
-    expect(j.ice as number).toBeCloseTo(100.1, 2); // same as 20 °C → 10 °C: 100.10 g
+    expect(j.ice as number).toBeCloseTo(100.32, 2); // the same as 20 °C → 10 °C
   });
 
   it('works the friction back from a measured dough', async () => {
     const j = await json(['--fahrenheit', '--measured', '80', '--room', '75', '--flour', '65', '--water-temp', '65']);
-    expect(j.friction as number).toBeCloseTo(35, 9); // Pizza Today, June 2018: friction 35 °F
+    expect(j.friction as number).toBeCloseTo(35, 9); // Pizza Today, June 2018 (from memory): FF = 35 °F
+    expect(j.rise as number).toBeCloseTo(35 / 3, 9);
+    expect(j.straightDoughFriction as number).toBeCloseTo(35, 9);
     const c = await json(['--measured', '80F', '--room', '75F', '--flour', '65F', '--water-temp', '65F']);
     expect(c.friction as number).toBeCloseTo(35 / 1.8, 9); // the same friction as a °C difference
   });

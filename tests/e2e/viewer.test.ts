@@ -42,16 +42,16 @@ const CIABATTA = {
   sixtyPoolish: g('6 514'),
   // by mixed dough, 25 kg: flour 25 000 ÷ 1.8055 = 13 846.58 g; salt 0.022 × that = 304.62 g
   mix25Salt: g('305'),
-  // Water for the written batch at DDT 25 °C (the formula's), room 30, flour 20, friction 13,
-  // poolish 20 °C (the helper's starting values but room and tap): n·DDT − Σ = 4 × 25 − (30 + 20 +
-  // 20 + 13) = 17 °C (Cook's Illustrated, "Precise Water Temperature for the Perfect Loaf": n = 4
-  // with a pre-ferment).
-  waterTemperature: '17.0 °C',
-  // Ice from tap water at 20 °C: the final dough's water is (0.78 − 0.30) × 1808.53 = 868.10 g;
-  // ice = W·(T_tap − T_w)/(T_tap + L/c) = 868.10 × 3 / (20 + 334/4.18) = 26.07 g, with L = 334 J/g
-  // and c = 4.18 J/(g·K) (Case Western Reserve University physics demo "Specific Heat and Heat of
-  // Fusion").
-  ice: '26.1 g',
+  // Water for the written batch at DDT 25 °C (the formula's), room 30 and tap 20 typed, flour 20 from
+  // the 3 December plan, the spiral's rise 4.33 °C (its straight-dough friction 13 °C ÷ 3), the poolish
+  // at its 20 °C ripening temperature: 4 × 25 − (30 + 20 + 20 + 4 × 4.33) = 12.68 °C (the multiplier
+  // method, Cook's Illustrated, "Precise Water Temperature for the Perfect Loaf": n = 4 with a pre-ferment).
+  waterTemperature: '12.7 °C',
+  // Ice from tap water at 20 °C: the final dough's water is (0.78 − 0.30) × 1808.53 = 868.09 g;
+  // ice = W·(T_tap − T_w)/(T_tap + L/c) = 868.09 × 7.32 / (20 + 333.55/4.186) = 63.75 g, with
+  // L = 333.55 J/g (CRC Handbook of Chemistry and Physics, enthalpy of fusion of water) and
+  // c = 4.186 J/(g·K) (NIST SP 811, App. B.8, calorie at 15 °C).
+  ice: '63.7 g',
   // Cost at 60 pieces, catalog prices of 2026-11-02 per kg: bread flour 0.92, water 0.003, fine
   // salt 0.60, instant yeast 9.80. 10.8512 kg × 0.92 = 9.9831; 8.4639 × 0.003 = 0.0254; 0.238 73 ×
   // 0.60 = 0.1432; 0.037 98 × 9.80 = 0.3722; total 10.5239 ÷ 60 = 0.1754 per piece.
@@ -296,11 +296,15 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
       await screenshot(page, 'formula-scaled-by-dough', { width: 1280, height: 800 });
     }));
 
-  it('works out the water temperature and the ice for the mix', () =>
+  it('works out the water temperature and the ice from a bake day\'s conditions, and keeps the readings', () =>
     withPage('bench', async (page) => {
       await page.goto(`${base}/formulas/harbour-ciabatta`);
       const helper = page.getByTestId('water-helper');
       await helper.waitFor();
+      // Starts from the first bake day (3 December: flour 20 °C) and the ciabatta's spiral (friction 13 °C on a straight dough).
+      await page.waitForFunction(() => (document.querySelector('[data-testid="water-mixer"]') as HTMLSelectElement | null)?.value === 'spiral');
+      expect(await helper.getByLabel('Flour').inputValue()).toBe('20');
+      expect(await helper.getByLabel('Mixer rise').inputValue()).toBe('4.33');
       await helper.getByLabel('Room').fill('30');
       await helper.getByLabel('Tap water').fill('20');
       await page.waitForFunction(
@@ -308,7 +312,12 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
         CIABATTA.waterTemperature,
       );
       expect(await page.getByTestId('ice').textContent()).toContain(CIABATTA.ice);
+      expect(await page.getByTestId('water-convention').textContent()).toMatch(/friction = n × the mixer's rise/);
       await screenshot(page, 'formula-water-helper', { width: 1280, height: 800, fullPage: false });
+      // The readings stay on this device.
+      await page.reload();
+      await page.getByTestId('water-helper').getByLabel('Room').waitFor();
+      expect(await page.getByTestId('water-helper').getByLabel('Room').inputValue()).toBe('30');
     }));
 
   it('prints a typical formula on one page', () =>

@@ -44,8 +44,8 @@ describe('cautions on every surface', () => {
   it.each(ids)('%s: the CLI, the API with the viewer, and the sheet give one answer', (id) => {
     const f = formulas[id];
     const cli = collectScale(join(DEMO, `${id}.yaml`), toScaleOptions({ units: 'metric', ...HOT }));
-    // The milk buns take no water (their liquid is milk and egg), so no ice.
-    const ice = (cli.water?.ice ?? 0) > 0;
+    // The milk buns take no water (their liquid is milk, tempered without ice), so no ice.
+    const ice = (cli.water?.main?.ice ?? 0) > 0;
     expect(ice).toBe(id !== 'tidewater-milk-buns');
     const api = formulaDetail(entryOf(f), catalog, 'bench', { by: 'pieces', pieces: f.yield.pieces }).cautions;
     expect(api.map((c) => c.topic)).not.toContain('ice');

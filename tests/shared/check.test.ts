@@ -46,7 +46,7 @@ describe('checkFileText on each class of broken formula file', () => {
     [
       'unknown-field.yaml',
       [
-        '8:1 error unknown field "hydratoin" in the file (fields here: id, title, status, category, description, tags, yield, loss, bake_loss, dough_temperature, flour, ingredients, preferments, soakers, process, finishes, may_contain, notes)',
+        '8:1 error unknown field "hydratoin" in the file (fields here: id, title, status, category, description, tags, yield, loss, bake_loss, dough_temperature, bassinage, flour, ingredients, preferments, soakers, process, finishes, may_contain, notes)',
       ],
     ],
     ['bad-unit.yaml', ['5:29 error yield.piece is "320 grams": unknown unit "grams"; write a weight as a number and g, kg, oz or lb, e.g. "320 g"']],

@@ -71,7 +71,7 @@ describe('presentSheet', () => {
   it('shows the water temperature with its working', () => {
     const mixes = p.sections.find((s) => s.key === 'mixes')!;
     const i = sheet.mixes.findIndex((m) => m.formula === 'straight-rolls');
-    expect(mixes.blocks[i].lines).toContain('water at 6.0 °C for dough at 24.0 °C (3 × 24.0 °C − room 27.0 °C − flour 25.0 °C − friction 14.0 °C)');
+    expect(mixes.blocks[i].lines).toContain('water at 6.0 °C for dough at 24.0 °C (3 × 24.0 °C − room 27.0 °C − flour 25.0 °C − friction 14.0 °C (3 × rise 4.7 °C))');
     expect(mixes.blocks[i].lines).toContain('divide 300 × 90.0 g');
   });
 });

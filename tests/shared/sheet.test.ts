@@ -9,9 +9,9 @@ import type { Mixer, Plan } from '#shared/model';
 import { expectScheduleRules } from './schedule-rules.ts';
 import { DEMO_PLANS, FIXTURE_PLANS, SHEET_FIXTURES, readCatalogIn, readFormulaIn, sheetInput } from './sheet-fixtures.ts';
 
-// Ice: I = W·(T_tap − T_w) / (T_tap + L/c), L = 334 J/g, c = 4.18 J/(g·K)
-// (Case Western Reserve University physics demo "Specific Heat and Heat of Fusion"; the ice from the heat balance).
-const L_OVER_C = 334 / 4.18;
+// Ice: I = W·(T_tap − T_w) / (T_tap + L/c), L = 333.55 J/g (CRC Handbook of Chemistry and Physics,
+// enthalpy of fusion of water; from memory), c = 4.186 J/(g·K) (NIST SP 811 App. B.8, calorie at 15 °C).
+const L_OVER_C = 333.55 / 4.186;
 const iceFor = (w: number, tap: number, target: number) => (w * (tap - target)) / (tap + L_OVER_C);
 
 const HOT = FIXTURE_PLANS[0];
@@ -46,35 +46,42 @@ describe('buildSheet on the fixtures (known answers)', () => {
 
   it('works out the water temperature and the ice when the water must be colder than the tap', () => {
     const [m] = mixesOf(sheet, 'straight-rolls');
-    // 3·24 − (27 + 25 + 14) = 6 °C (n·DDT method: Pizza Today, June 2018 dough column)
+    // 3·24 − (27 + 25 + 3 × 14/3) = 6 °C (the multiplier method, Cook's Illustrated "Precise Water Temperature for the Perfect Loaf")
     expect(m.waterTemperature).toBeCloseTo(6, 9);
-    expect(m.factors).toEqual({ room: 27, flour: 25, friction: 14, preferments: [], n: 3 });
+    expect(m.factors).toEqual({ room: 27, flour: 25, rise: 14 / 3, friction: expect.closeTo(14, 9), preferments: [], n: 3 });
     // flour = 27 551.02 / 1.68; water 60 %
     const water = ((27000 / 0.98) / 1.68) * 0.6;
     expect(m.water).toBeCloseTo(water, 6);
     expect(m.ice).toBeCloseTo(iceFor(water, 20, 6), 6);
-    expect(m.ice).toBeCloseTo(1378.86, 1); // 9 839.65 · 14 / 99.904 (I = W·ΔT/(T_tap + L/c), L = 334 J/g, c = 4.18 J/(g·K), Case Western Reserve University demo)
+    expect(m.ice).toBeCloseTo(1381.91, 1); // 9 839.65 · 14 / (20 + 79.683), by hand
     expect(m.ice + m.tapWater).toBeCloseTo(m.water, 9);
   });
 
-  it('counts each pre-ferment in the water temperature, at its ripening temperature when the plan gives none', () => {
+  it('counts each pre-ferment at its ripening temperature, and the friction as 4 × the mixer rise', () => {
     const [m] = mixesOf(sheet, 'poolish-bread');
-    // 4·25 − (27 + 25 + 20 + 14) = 14 °C
-    expect(m.waterTemperature).toBeCloseTo(14, 9);
+    // 4·25 − (27 + 25 + 20 + 4 × 14/3) = 9.333 °C (the multiplier method; friction factor = n × rise)
+    expect(m.waterTemperature).toBeCloseTo(28 / 3, 9);
     expect(m.factors?.n).toBe(4);
+    expect(m.factors?.preferments).toEqual([{ name: 'poolish', temperature: 20, source: 'ripening' }]);
     const [rye] = mixesOf(sheet, 'seeded-rye');
-    // 4·27 − (27 + 25 + 24 + 8) = 24 °C: warmer than the 20 °C tap, so no ice
-    expect(rye.waterTemperature).toBeCloseTo(24, 9);
+    // 4·27 − (27 + 25 + 24 + 4 × 8/3) = 21.333 °C: warmer than the 20 °C tap, so no ice
+    expect(rye.waterTemperature).toBeCloseTo(64 / 3, 9);
     expect(rye.ice).toBe(0);
     expect(rye.tapWater).toBe(rye.water);
   });
 
-  it('uses the plan conditions.preferment for pre-ferments when it is given', () => {
-    const cold = buildSheet(sheetInput(COLD));
-    const [m] = mixesOf(cold, 'poolish-bread');
-    // 4·25 − (18 + 16 + 19 + 9) = 38 °C
-    expect(m.waterTemperature).toBeCloseTo(38, 9);
+  it('uses the plan conditions.preferment only for a pre-ferment that gives no temperature of its own', () => {
+    const cold = sheetInput(COLD);
+    const [m] = mixesOf(buildSheet(cold), 'poolish-bread');
+    // the poolish ripens at 20 °C: 4·25 − (18 + 16 + 20 + 4 × 9/3) = 34 °C; the plan's 19 °C is not used
+    expect(m.waterTemperature).toBeCloseTo(34, 9);
     expect(m.ice).toBe(0);
+    const bare = structuredClone(cold);
+    for (const f of Object.values(bare.formulas)) for (const p of f.preferments) delete p.ripenTemperature, delete p.temperature;
+    const [n] = mixesOf(buildSheet(bare), 'poolish-bread');
+    // no temperature of its own: the plan's 19 °C; 100 − (18 + 16 + 19 + 12) = 35 °C
+    expect(n.waterTemperature).toBeCloseTo(35, 9);
+    expect(n.factors?.preferments[0].source).toBe('plan default');
   });
 
   it('combines identical pre-ferments of two formulas into one build', () => {
@@ -89,8 +96,9 @@ describe('buildSheet on the fixtures (known answers)', () => {
     expect(b.grams).toBeCloseTo(bread + twin, 6);
     expect(sum(b.uses.map((u) => u.grams))).toBeCloseTo(b.grams, 6);
     expect(sum(b.ingredients.map((l) => l.grams))).toBeCloseTo(b.grams, 6);
-    // 3·20 − (27 + 25) = 8 °C for a poolish that ripens at 20 °C; the tap is 20 °C, so ice
+    // 3·20 − (27 + 25) = 8 °C for a poolish that ripens at 20 °C (no seed, no friction); the tap is 20 °C, so ice
     expect(b.waterTemperature).toBeCloseTo(8, 9);
+    expect(b.seedTemperature).toBeNull();
     expect(b.ice).toBeCloseTo(iceFor(b.water, 20, 8), 6);
   });
 
@@ -120,8 +128,10 @@ describe('buildSheet on the fixtures (known answers)', () => {
     // the seed is 20 % of the build's flour; its half-flour, half-water is taken from the fresh lines
     expect(seed.grams).toBeCloseTo(flour * 0.2, 9);
     expect(levain.ingredients.find((l) => l.ingredient === 'bread flour')!.grams).toBeCloseTo(flour - flour * 0.1, 9);
-    // 3·26 − (27 + 25) = 26 °C: the build's own temperature wins over its ripening temperature
-    expect(levain.waterTemperature).toBeCloseTo(26, 9);
+    // 4·26 − (27 + 25 + 27) = 25 °C: the build's own temperature wins over its ripening temperature, and the
+    // seed counts as a fourth factor at the room's 27 °C (the plan gives no pre-ferment default)
+    expect(levain.waterTemperature).toBeCloseTo(25, 9);
+    expect(levain.seedTemperature).toBe(27);
   });
 
   it('makes soakers with their soaking window', () => {
@@ -180,7 +190,7 @@ describe('buildSheet on the fixtures (known answers)', () => {
 describe('buildSheet refuses plans that cannot be mixed', () => {
   const base = sheetInput(HOT);
   const withPlan = (p: Partial<Plan>): SheetInput => ({ ...base, plan: { ...base.plan, ...p } });
-  const mixer = (m: Partial<Mixer>): Mixer => ({ name: 'tiny', capacityGrams: 5000, friction: 8, ...m });
+  const mixer = (m: Partial<Mixer>): Mixer => ({ name: 'tiny', kind: 'machine', capacityGrams: 5000, rise: 8 / 3, riseFrom: 'friction', ...m });
 
   it.each([
     ['one piece is bigger than the mixer', { mixers: [mixer({ capacityGrams: 800 })], orders: [{ formula: 'seeded-rye', pieces: 2 }] }, /one piece needs .* more than mixer "tiny"/],
@@ -213,7 +223,7 @@ describe('buildSheet refuses plans that cannot be mixed', () => {
     expect(sheet.mixes[0].mixer).toBe('small spiral');
     // 3·24 − (35 + 33 + 8) = −4 °C
     expect(sheet.mixes[0].waterTemperature).toBeCloseTo(-4, 9);
-    expect(sheet.warnings.join('\n')).toMatch(/colder than ice can make it/);
+    expect(sheet.warnings.join('\n')).toMatch(/below the 0 °C that ice can bring it to/);
     // The most ice can do: water at 0 °C
     expect(sheet.mixes[0].ice).toBeCloseTo(iceFor(sheet.mixes[0].water, 25, 0), 6);
   });
@@ -248,9 +258,9 @@ describe.each(ALL_PLANS)('buildSheet on %s', (path) => {
       if (f.doughTemperature === undefined) continue;
       const c = input.plan.conditions;
       const mixer = input.plan.mixers.find((x) => x.name === m.mixer)!;
-      const prefs = f.preferments.map((p) => c.preferment ?? p.ripenTemperature ?? p.temperature ?? c.room);
+      const prefs = f.preferments.map((p) => p.ripenTemperature ?? p.temperature ?? c.preferment ?? c.room);
       const n = 3 + prefs.length;
-      expect(m.waterTemperature).toBeCloseTo(n * f.doughTemperature - (c.room + c.flour + mixer.friction + sum(prefs)), 9);
+      expect(m.waterTemperature).toBeCloseTo(n * f.doughTemperature - (c.room + c.flour + n * mixer.rise + sum(prefs)), 9);
       const target = Math.max(0, m.waterTemperature!);
       expect(m.ice).toBeCloseTo(target < c.tapWater ? iceFor(m.water, c.tapWater, target) : 0, 6);
       expect(m.ice + m.tapWater).toBeCloseTo(m.water, 9);
@@ -299,14 +309,18 @@ describe.each(ALL_PLANS)('buildSheet on %s', (path) => {
 });
 
 describe('the demo plans', () => {
-  it.runIf(DEMO_PLANS.length > 1)('tells the bench when a mix water is too warm to pour onto yeast (the cold old dough of the wharf rolls)', () => {
-    // The old dough counts at its 4 °C ripening temperature, so the final mix needs 43 °C water:
-    // above the 40 °C that common practice pours onto yeast, below the 50 °C that scalds.
-    const sheet = buildSheet(sheetInput(DEMO_PLANS[1]));
-    const mix = mixesOf(sheet, 'wharf-rolls')[0];
-    expect(mix.waterTemperature).toBeCloseTo(43, 6);
-    expect(sheet.warnings).toContainEqual(expect.stringMatching(/^wharf-rolls mix 1\/1: the water will be 43\.0 °C, too warm to pour straight onto yeast/));
-    expect(sheet.warnings.join(' ')).not.toMatch(/wharf-rolls.*scald/);
+  it.runIf(DEMO_PLANS.length > 0)('counts the wharf rolls\' cold old dough and the rye sour at their own temperatures on 3 December', () => {
+    // The multiplier method (Cook's Illustrated, "Precise Water Temperature for the Perfect Loaf": n·DDT − the other factors),
+    // with the friction factor n × the mixer's rise (spiral: 13 °C found on a straight dough = rise 13/3; small spiral 10/3).
+    const sheet = buildSheet(sheetInput(DEMO_PLANS[0]));
+    const wharf = mixesOf(sheet, 'wharf-rolls')[0];
+    // old dough kept at 4 °C: 4·25 − (22 + 20 + 4 + 4 × 13/3) = 36.667 °C (the plan's 20 °C pre-ferment default is not used)
+    expect(wharf.waterTemperature).toBeCloseTo(110 / 3, 9);
+    expect(wharf.factors?.preferments).toEqual([{ name: 'old dough', temperature: 4, source: 'ripening' }]);
+    const rye = mixesOf(sheet, 'saltmere-seeded-rye')[0];
+    // rye sour ripened at 25 °C: 4·28 − (22 + 20 + 25 + 4 × 10/3) = 31.667 °C
+    expect(rye.waterTemperature).toBeCloseTo(95 / 3, 9);
+    expect(rye.factors?.preferments).toEqual([{ name: 'rye sour', temperature: 25, source: 'ripening' }]);
   });
 
   it.runIf(DEMO_PLANS.length > 0)('combine the poolish of two formulas that share it into one build', () => {
@@ -340,7 +354,7 @@ describe('property: for any plan, the mixes of an order add up to its scaled mix
   it('to 0.01 g, with equal mixes that fit, and the timeline rules kept', () => {
     fc.assert(
       fc.property(arbPlan, (g) => {
-        const mixers: Mixer[] = g.mixers.map((m, i) => ({ name: `mixer ${i + 1}`, capacityGrams: m.capacity, friction: m.friction }));
+        const mixers: Mixer[] = g.mixers.map((m, i) => ({ name: `mixer ${i + 1}`, kind: 'machine', capacityGrams: m.capacity, rise: m.friction / 3, riseFrom: 'friction' }));
         const readyBy = `${String(Math.floor(g.readyBy / 60)).padStart(2, '0')}:${String(g.readyBy % 60).padStart(2, '0')}`;
         const plan: Plan = {
           date: '2030-03-01',

@@ -1,6 +1,8 @@
+import { useQuery } from '@tanstack/react-query';
 import { useMemo, useState } from 'react';
 import { useParams, useSearchParams } from 'react-router';
 import type { FormulaDetail, Me } from '#shared/api';
+import type { Catalog, Formula, Plan } from '#shared/model';
 import { scaleFormula, type ScaleResult, type ScaleTarget } from '#shared/scale';
 import { Button, ButtonLink } from '../../components/button.tsx';
 import { PanelBoundary } from '../../components/error-boundary.tsx';
@@ -17,6 +19,8 @@ import { LabelPanel } from '../../features/formulas/components/label-panel.tsx';
 import { ProcessSteps } from '../../features/formulas/components/process-steps.tsx';
 import { ScaleControl } from '../../features/formulas/components/scale-control.tsx';
 import { WaterTemperatureHelper } from '../../features/formulas/components/water-temperature.tsx';
+import { getPlanQueryOptions } from '../../features/plans/api/get-plan.ts';
+import { usePlans } from '../../features/plans/api/get-plans.ts';
 import { searchFromTarget, targetFromSearch } from '../../features/formulas/scale-target.ts';
 import { getErrorMessage } from '../../lib/errors.ts';
 import { useAfterFirstPaint } from '../../lib/use-after-first-paint.ts';
@@ -110,8 +114,8 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
           </Panel>
           {restReady && (
             <PanelBoundary title="Water for the mix" resetKeys={[formula.id]}>
-              <Panel title="Water for the mix" className="order-5 print:hidden" id="water">
-                <WaterTemperatureHelper formula={formula} scaled={scaled} onIce={setIce} />
+              <Panel title="Water for the mix" className="order-5 print:mb-2" id="water">
+                <WaterPanel formula={formula} scaled={scaled} catalog={catalog} onIce={setIce} />
               </Panel>
             </PanelBoundary>
           )}
@@ -172,4 +176,15 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
       </div>
     </article>
   );
+}
+
+/** A bake day's plan for the water helper: fetched once chosen, nothing while none is. */
+function useBakeDay(date: string): Plan | undefined {
+  return useQuery({ ...getPlanQueryOptions(date), enabled: date !== '' }).data?.plan;
+}
+
+/** The water helper wired to the plans: the bake days to start from and their conditions. */
+function WaterPanel({ formula, scaled, catalog, onIce }: { formula: Formula; scaled: ScaleResult; catalog: Catalog; onIce: (ice: boolean) => void }) {
+  const dates = usePlans().data?.plans.map((p) => p.date) ?? [];
+  return <WaterTemperatureHelper formula={formula} scaled={scaled} catalog={catalog} days={{ dates, usePlan: useBakeDay }} onIce={onIce} />;
 }

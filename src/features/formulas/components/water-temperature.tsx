@@ -1,13 +1,63 @@
 import { useEffect, useState } from 'react';
-import type { Formula } from '#shared/model';
+import { FRICTION_CONVENTION, planMixWater, prefermentTemperature, type MixWater } from '#shared/dough-water';
+import type { Catalog, Formula, Plan } from '#shared/model';
 import type { ScaleResult } from '#shared/scale';
-import { planWater, type WaterPlan } from '#shared/temperature';
-import { readNumber, TextField } from '../../../components/field.tsx';
+import { formatTemperatureRange } from '#shared/units';
+import { readNumber, SelectField, TextField } from '../../../components/field.tsx';
 import { useUnits } from '../../../lib/units.ts';
-import { getErrorMessage } from '../../../lib/errors.ts';
 
-/** Usual bakehouse readings to start from; the baker overwrites them with today's. */
-const START = { room: '22', flour: '20', friction: '13', tap: '14' };
+/** The readings last typed on this device, kept between visits (they are the bench's, not the file's). */
+export const READINGS_KEY = 'panform:water-readings';
+
+export interface Readings {
+  /** The bake day whose conditions the readings started from. */
+  date: string;
+  mixer: string;
+  room: string;
+  flour: string;
+  tap: string;
+  /** The mixer's rise, °C-degrees. */
+  rise: string;
+  /** Pre-ferment temperatures measured tonight, by name; empty: not measured. */
+  preferments: Record<string, string>;
+}
+
+const EMPTY: Readings = { date: '', mixer: '', room: '', flour: '', tap: '', rise: '', preferments: {} };
+
+export function loadReadings(): Readings | null {
+  try {
+    const raw = typeof window === 'undefined' ? null : window.localStorage.getItem(READINGS_KEY);
+    if (!raw) return null;
+    const r = JSON.parse(raw) as Partial<Readings>;
+    return { ...EMPTY, ...r, preferments: { ...(r.preferments ?? {}) } };
+  } catch {
+    return null;
+  }
+}
+
+function saveReadings(r: Readings): void {
+  try {
+    window.localStorage.setItem(READINGS_KEY, JSON.stringify(r));
+  } catch {
+    // Private browsing or a full store: the helper still works, it only forgets.
+  }
+}
+
+/** A bake day's conditions and one of its mixers as readings (the mixer this formula is ordered on, else the first). */
+export function readingsFromPlan(plan: Plan, formulaId: string, mixerName?: string): Readings {
+  const ordered = plan.orders.find((o) => o.formula === formulaId && o.mixer !== undefined)?.mixer;
+  const mixer = plan.mixers.find((m) => m.name === mixerName) ?? plan.mixers.find((m) => m.name === ordered) ?? plan.mixers[0];
+  const round = (v: number) => String(Number(v.toFixed(2)));
+  return {
+    date: plan.date,
+    mixer: mixer.name,
+    room: round(plan.conditions.room),
+    flour: round(plan.conditions.flour),
+    tap: round(plan.conditions.tapWater),
+    rise: round(mixer.rise),
+    preferments: {},
+  };
+}
 
 /** Water weighed at the final mix (outside the builds), g. */
 export function finalMixWater(scaled: ScaleResult): number {
@@ -15,77 +65,157 @@ export function finalMixWater(scaled: ScaleResult): number {
   return scaled.finalDough.filter((l) => l.source === 'ingredient' && waterNames.has(l.ingredient)).reduce((a, l) => a + l.grams, 0);
 }
 
+export interface BakeDays {
+  /** The plans' dates, for the picker. */
+  dates: string[];
+  /** A bake day's plan once fetched ('' asks for none); the app wires it to the plans API. */
+  usePlan: (date: string) => Plan | undefined;
+}
+
 /** `onIce` hears whether the water now takes ice, so the page's cautions can say how to handle it. */
-export function WaterTemperatureHelper({ formula, scaled, onIce }: { formula: Formula; scaled: ScaleResult; onIce?: (ice: boolean) => void }) {
-  const { grams, temperature } = useUnits();
-  const [ddt, setDdt] = useState(String(formula.doughTemperature ?? 25));
-  const [room, setRoom] = useState(START.room);
-  const [flour, setFlour] = useState(START.flour);
-  const [friction, setFriction] = useState(START.friction);
-  const [tap, setTap] = useState(START.tap);
-  const [pre, setPre] = useState<string[]>(() => formula.preferments.map((p) => String(p.ripenTemperature ?? p.temperature ?? 20)));
+export function WaterTemperatureHelper({ formula, scaled, catalog, days, onIce }: { formula: Formula; scaled: ScaleResult; catalog: Catalog; days: BakeDays; onIce?: (ice: boolean) => void }) {
+  const { grams, temperature: celsius } = useUnits();
+  const [readings, setReadings] = useState<Readings>(() => loadReadings() ?? EMPTY);
+  const [ddt, setDdt] = useState(formula.doughTemperature === undefined ? '' : String(formula.doughTemperature));
+  const chosen = readings.date || days.dates[0] || '';
+  const plan = days.usePlan(chosen);
 
-  const water = finalMixWater(scaled);
-  const values = [ddt, room, flour, friction, tap, ...pre].map(readNumber);
-  const missing = values.some((v) => v === null);
+  // With nothing kept on this device, start from the first bake day's conditions.
+  useEffect(() => {
+    if (plan && readings.date === '' && readings.room === '') setReadings(readingsFromPlan(plan, formula.id));
+  }, [plan, readings.date, readings.room, formula.id]);
 
-  let plan: WaterPlan | null = null;
-  let problem: string | null = null;
+  const update = (next: Readings) => {
+    setReadings(next);
+    saveReadings(next);
+  };
+  const set = (k: 'room' | 'flour' | 'tap' | 'rise') => (e: { target: { value: string } }) => update({ ...readings, [k]: e.target.value });
+  const chooseDay = (date: string) => update({ ...readings, date, mixer: '' });
+  const chooseMixer = (name: string) => plan && update({ ...readingsFromPlan(plan, formula.id, name), preferments: readings.preferments });
+  const takeDay = () => plan && update({ ...readingsFromPlan(plan, formula.id, readings.mixer), preferments: readings.preferments });
+
+  const values = [ddt, readings.room, readings.flour, readings.rise, readings.tap].map(readNumber);
+  const measured = formula.preferments.map((p) => {
+    const text = readings.preferments[p.name] ?? '';
+    return text.trim() === '' ? undefined : (readNumber(text) ?? Number.NaN);
+  });
+  const missing = values.some((v) => v === null) || measured.some((v) => Number.isNaN(v));
+
+  let water: MixWater | null = null;
   if (!missing) {
-    const [d, r, f, fr, t, ...p] = values as number[];
-    try {
-      plan = planWater({ ddt: d, room: r, flour: f, friction: fr, preferments: p, tap: t, waterGrams: water });
-    } catch (error) {
-      problem = getErrorMessage(error);
-    }
+    const [d, room, flour, rise, tap] = values as number[];
+    water = planMixWater(formula, scaled, catalog, { ddt: d, room, flour, rise, tap, measured, prefermentDefault: plan?.conditions.preferment });
   }
-  const takesIce = plan !== null && plan.ice !== null && plan.ice > 0;
+  const takesIce = water?.main?.ice != null && water.main.ice > 0;
   useEffect(() => onIce?.(takesIce), [onIce, takesIce]);
-  const factors = 3 + formula.preferments.length;
+  const liquidName = water?.liquid && water.liquid.kind === 'other' ? water.liquid.names.join(' and ') : water?.bassinage ? 'main water' : 'water';
+  const mixer = plan?.mixers.find((m) => m.name === readings.mixer);
 
   return (
     <div data-testid="water-helper" className="space-y-3">
-      <div className="grid grid-cols-2 gap-3 sm:grid-cols-3 xl:grid-cols-2">
-        <TextField label="Dough off the mixer" inputMode="decimal" suffix="°C" value={ddt} onChange={(e) => setDdt(e.target.value)} />
-        <TextField label="Room" inputMode="decimal" suffix="°C" value={room} onChange={(e) => setRoom(e.target.value)} />
-        <TextField label="Flour" inputMode="decimal" suffix="°C" value={flour} onChange={(e) => setFlour(e.target.value)} />
-        {formula.preferments.map((p, i) => (
-          <TextField
-            key={p.name}
-            label={p.name[0].toUpperCase() + p.name.slice(1)}
-            inputMode="decimal"
-            suffix="°C"
-            value={pre[i] ?? ''}
-            onChange={(e) => setPre((old) => old.map((v, k) => (k === i ? e.target.value : v)))}
-          />
-        ))}
-        <TextField label="Mixer friction" inputMode="decimal" suffix="°C" hint="rise from mixing" value={friction} onChange={(e) => setFriction(e.target.value)} />
-        <TextField label="Tap water" inputMode="decimal" suffix="°C" value={tap} onChange={(e) => setTap(e.target.value)} />
+      <div className="grid grid-cols-2 gap-3 print:hidden">
+        <SelectField label="Bake day" value={chosen} onChange={(e) => chooseDay(e.target.value)} data-testid="water-day">
+          {days.dates.length === 0 && <option value="">no plans loaded</option>}
+          {days.dates.map((d) => (
+            <option key={d} value={d}>
+              {d}
+            </option>
+          ))}
+        </SelectField>
+        <SelectField label="Mixer" value={readings.mixer} onChange={(e) => chooseMixer(e.target.value)} disabled={!plan} data-testid="water-mixer">
+          {!plan && <option value="">—</option>}
+          {plan?.mixers.map((m) => (
+            <option key={m.name} value={m.name}>
+              {m.name}
+              {m.kind === 'hand' ? ' (by hand)' : ''}
+            </option>
+          ))}
+        </SelectField>
       </div>
-      <output aria-live="polite" className="block rounded-xl border-2 border-crust bg-crumb p-4" data-testid="water-result">
+      {plan && readings.date === plan.date && (
+        <button type="button" className="text-sm text-focus underline print:hidden" onClick={takeDay}>
+          Reset room, flour, tap and mixer to {plan.date}'s conditions
+        </button>
+      )}
+      <div className="grid grid-cols-2 gap-3 sm:grid-cols-3 xl:grid-cols-2 print:hidden">
+        <TextField
+          label="Dough off the mixer"
+          inputMode="decimal"
+          suffix="°C"
+          hint={formula.doughTemperatureRange && formula.doughTemperatureRange.min !== formula.doughTemperatureRange.max ? `range ${formatTemperatureRange(formula.doughTemperatureRange)}` : undefined}
+          value={ddt}
+          onChange={(e) => setDdt(e.target.value)}
+        />
+        <TextField label="Room" inputMode="decimal" suffix="°C" value={readings.room} onChange={set('room')} />
+        <TextField label="Flour" inputMode="decimal" suffix="°C" value={readings.flour} onChange={set('flour')} />
+        {formula.preferments.map((p) => {
+          const fallback = prefermentTemperature(p, { planDefault: plan?.conditions.preferment, room: readNumber(readings.room) ?? 20 });
+          return (
+            <TextField
+              key={p.name}
+              label={`${p.name[0].toUpperCase()}${p.name.slice(1)} tonight`}
+              inputMode="decimal"
+              suffix="°C"
+              placeholder={String(Number(fallback.temperature.toFixed(1)))}
+              hint={`empty: its ${fallback.source === 'ripening' ? 'ripening temperature' : fallback.source} (${celsius(fallback.temperature)})`}
+              value={readings.preferments[p.name] ?? ''}
+              onChange={(e) => update({ ...readings, preferments: { ...readings.preferments, [p.name]: e.target.value } })}
+            />
+          );
+        })}
+        <TextField
+          label="Mixer rise"
+          inputMode="decimal"
+          suffix="°C"
+          hint={mixer?.riseFrom === 'friction' ? `${mixer.name}: straight-dough friction ${(mixer.rise * 3).toFixed(1)} °C ÷ 3` : 'how much warmer dough comes off it'}
+          value={readings.rise}
+          onChange={set('rise')}
+        />
+        <TextField label="Tap water" inputMode="decimal" suffix="°C" value={readings.tap} onChange={set('tap')} />
+      </div>
+      <p className="text-sm text-muted" data-testid="water-convention">
+        By the {FRICTION_CONVENTION} (the dough comes off the mixer at its factors' average plus the rise). Pre-ferments count at the temperature measured tonight, else their ripening temperature.
+        {readings.date && <> Readings kept on this device, started from {readings.date}{readings.mixer ? `, ${readings.mixer}` : ''}.</>}
+      </p>
+      <output aria-live="polite" className="block rounded-xl border-2 border-crust bg-crumb p-4 print:border print:p-2" data-testid="water-result">
         {missing && <span>Fill in every temperature.</span>}
-        {problem && <span className="font-semibold text-ember">{problem}</span>}
-        {plan && (
+        {water && water.main === null && <span>{water.warnings[0]}</span>}
+        {water?.main && (
           <>
-            <span className="block text-muted">Water for the final mix ({grams(water)})</span>
-            <span className="figure block text-3xl font-bold" data-testid="water-temperature">
-              {temperature(plan.waterTemperature)}
+            <span className="block text-muted">
+              {liquidName[0].toUpperCase() + liquidName.slice(1)} for the final mix ({grams(water.main.grams)})
             </span>
-            {plan.ice !== null && plan.ice > 0 && plan.tapWater !== null && (
+            <span className="figure block text-3xl font-bold print:text-xl" data-testid="water-temperature">
+              {celsius(water.main.temperature)}
+            </span>
+            {water.main.ice !== null && water.main.ice > 0 && water.main.tapWater !== null && (
               <span className="figure mt-1 block text-xl font-bold text-focus" data-testid="ice">
-                ice {grams(plan.ice)} + tap water {grams(plan.tapWater)}
+                ice {grams(water.main.ice)} + tap water {grams(water.main.tapWater)}
               </span>
             )}
-            <span className="figure mt-2 block text-sm text-muted">
-              {factors} × {ddt} − ({[room, flour, ...pre, friction].join(' + ')}) = {plan.waterTemperature.toFixed(1)}
+            {water.bassinage && (
+              <span className="figure mt-1 block font-bold" data-testid="water-bassinage">
+                held back (bassinage): {grams(water.bassinage.grams)} at {celsius(water.bassinage.temperature)}, add late
+              </span>
+            )}
+            <span className="figure mt-2 block text-sm text-muted" data-testid="water-sum">
+              {water.factors} × {celsius(water.desiredDoughTemperature)} − (room {celsius(water.room)} + flour {celsius(water.flour)}
+              {water.preferments.map((p) => ` + ${p.name} ${celsius(p.temperature)} (${p.source})`).join('')} + friction{' '}
+              {water.frictionFactor.toFixed(1)} °C = {water.factors} × rise {water.rise.toFixed(1)}) = {celsius(water.liquid!.temperature)}
+              {water.bassinage ? ' for all the water' : ''}
+            </span>
+            {water.liquid?.kind === 'other' && <span className="mt-1 block text-sm text-muted">Specific heat {water.specificHeat}.</span>}
+            <span className="mt-1 hidden text-sm print:block">
+              Readings: {readings.date ? `${readings.date}, ` : ''}
+              {readings.mixer ? `${readings.mixer}, ` : ''}tap {readings.tap} °C.
             </span>
           </>
         )}
       </output>
-      {plan && plan.warnings.length > 0 && (
+      {water && water.warnings.length + water.advice.length > 0 && (
         <ul className="space-y-1">
-          {plan.warnings.map((w) => (
-            <li key={w} className={`flex gap-2 ${/scald|harm/.test(w) ? 'font-semibold text-ember' : ''}`}>
+          {[...water.warnings.map((text) => ({ text, strong: true })), ...water.advice.map((text) => ({ text, strong: false }))].map(({ text: w, strong }) => (
+            <li key={w} className={`flex gap-2 ${strong ? 'font-semibold text-ember' : ''}`}>
               <span aria-hidden="true" className="text-honey">
                 ▲
               </span>

@@ -14,9 +14,13 @@ export function Conditions({ sheet }: { sheet: Sheet }) {
       <Item term="Room" value={temperature(c.room, 0)} />
       <Item term="Flour" value={temperature(c.flour, 0)} />
       <Item term="Tap water" value={temperature(c.tapWater, 0)} />
-      {c.preferment !== undefined && <Item term="Pre-ferments" value={temperature(c.preferment, 0)} />}
+      {c.preferment !== undefined && <Item term="Pre-ferments (when a build gives none)" value={temperature(c.preferment, 0)} />}
       {sheet.mixers.map((m) => (
-        <Item key={m.name} term={`Mixer: ${m.name}`} value={`${weight(m.capacityGrams)} max · +${degrees(m.friction)}`} />
+        <Item
+          key={m.name}
+          term={`${m.kind === 'hand' ? 'By hand' : 'Mixer'}: ${m.name}`}
+          value={`${weight(m.capacityGrams)} ${m.kind === 'hand' ? 'a person' : 'max'} · rise +${degrees(m.rise)}`}
+        />
       ))}
     </dl>
   );
@@ -31,12 +35,12 @@ function Item({ term, value }: { term: string; value: string }) {
   );
 }
 
-function WaterLine({ temperature, ice, tapWater, water }: { temperature: number | null; ice: number; tapWater: number; water: number }) {
+function WaterLine({ temperature, ice, tapWater, water, liquid = 'water' }: { temperature: number | null; ice: number; tapWater: number; water: number; liquid?: string }) {
   const { grams, temperature: shown } = useUnits();
   if (temperature === null) return <span className="text-muted">no target temperature written</span>;
   return (
     <span className="figure">
-      water <strong>{shown(temperature)}</strong>
+      {liquid} <strong>{shown(temperature)}</strong>
       {ice > 0 ? (
         <strong className="text-focus">
           {' '}
@@ -112,8 +116,28 @@ export function MixCard({ mix, date }: { mix: SheetMix; date: string }) {
         {mix.customer && <> · for {mix.customer}</>}
       </p>
       <p className="mb-1">
-        {mix.doughTemperature !== null && <span className="figure">dough {temperature(mix.doughTemperature, 0)} · </span>}
-        <WaterLine temperature={mix.waterTemperature} ice={mix.ice} tapWater={mix.tapWater} water={mix.water} />
+        {mix.doughTemperature !== null && (
+          <span className="figure">
+            dough{' '}
+            {mix.doughTemperatureRange
+              ? `${temperature(mix.doughTemperatureRange.min)}–${temperature(mix.doughTemperatureRange.max)} (aim ${temperature(mix.doughTemperature)})`
+              : temperature(mix.doughTemperature, 0)}{' '}
+            ·{' '}
+          </span>
+        )}
+        <WaterLine
+          temperature={mix.waterTemperature}
+          ice={mix.ice}
+          tapWater={mix.tapWater}
+          water={mix.water - (mix.bassinage?.grams ?? 0)}
+          liquid={mix.liquid === null || mix.liquid === 'water' ? (mix.bassinage ? 'main water' : 'water') : mix.liquid}
+        />
+        {mix.bassinage && (
+          <span className="figure" data-testid="bassinage">
+            {' '}
+            · bassinage {grams(mix.bassinage.grams)} at {temperature(mix.bassinage.temperature)}, add late
+          </span>
+        )}
       </p>
       <Ledger
         showPercent={false}

@@ -125,8 +125,8 @@ describe('panform scale --json', () => {
   });
 
   it('reads bare temperatures as °F with --fahrenheit, friction as a difference', async () => {
-    const c = await json([fixture('brief-straight'), '--ddt', '25', '--room', '22', '--flour-temp', '20', '--friction', '11.11111111111111']);
-    const f = await json([fixture('brief-straight'), '--ddt', '77', '--room', '71.6', '--flour-temp', '68', '--friction', '20', '--fahrenheit']);
+    const c = await json([fixture('lean-straight'), '--ddt', '25', '--room', '22', '--flour-temp', '20', '--friction', '11.11111111111111']);
+    const f = await json([fixture('lean-straight'), '--ddt', '77', '--room', '71.6', '--flour-temp', '68', '--friction', '20', '--fahrenheit']);
     expect(f.mixingWater!.waterTemperature).toBeCloseTo(c.mixingWater!.waterTemperature, 9); // NIST SP 811 B.8: a difference of 20 °F-degrees = 11.11 K
   });
 });

@@ -115,7 +115,7 @@ describe('panform sheet --format text', () => {
     for (const heading of ['PRE-FERMENTS TO BUILD', 'SOAKERS', 'MIXES', 'TIMELINE', 'PICK LIST', 'PER PRODUCT', 'CAUTIONS']) expect(r.stdout).toContain(heading);
     expect(r.stdout).toContain('Poolish bread · mix 1 of 2');
     expect(r.stdout).toContain('combined for poolish-bread + poolish-twin');
-    expect(r.stdout).toMatch(/as ice +│ +1\u202f379 g/);
+    expect(r.stdout).toMatch(/as ice +│ +1\u202f382 g/);
     expect(r.stdout).toContain('[ ]');
     expect(r.stdout).toMatch(/does not replace/);
   });
@@ -133,7 +133,7 @@ describe('panform sheet --format csv', () => {
     const sections = new Set(rows.slice(1).map((r) => r.split(',')[0]));
     expect([...sections].sort()).toEqual(['mix', 'preferment', 'soaker', 'total']);
     const water = rows.find((r) => r.startsWith('mix,straight-rolls,') && r.includes(',water,water,'))!.split(',');
-    expect(water.slice(7, 11)).toEqual(['9840', '1379', '8461', '6']);
+    expect(water.slice(7, 11)).toEqual(['9840', '1382', '8458', '6']);
   });
 });
 

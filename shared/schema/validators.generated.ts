@@ -20,15 +20,16 @@ const runtime0 = function ucs2length(str) {
 };
 "use strict";
 export const formula = validate10;
-const schema11 = {"$schema":"http://json-schema.org/draft-07/schema#","additionalProperties":false,"$id":"https://panform.example/schema/formula.schema.json","title":"Panform formula","type":"object","required":["id","title","status","category","yield","flour","ingredients"],"properties":{"$schema":{"type":"string"},"id":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","description":"kebab-case; equals the file name.","type":"string"},"title":{"minLength":1,"type":"string"},"status":{"type":"string","enum":["draft","active","retired"]},"category":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","description":"e.g. lean, sourdough, rye, enriched, oil, rolls.","type":"string"},"description":{"type":"string"},"tags":{"uniqueItems":true,"type":"array","items":{"minLength":1,"type":"string"}},"yield":{"additionalProperties":false,"description":"The batch the formula is written for.","type":"object","required":["pieces","piece"],"properties":{"pieces":{"minimum":1,"type":"integer"},"piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"}}},"loss":{"description":"A percentage, e.g. \"2 %\" or 2.","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"bake_loss":{"description":"Weight lost in the oven, in percent of the dough weight (taken as water). Default by category (common practice).","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"dough_temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"flour":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"preferments":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","kind","share","ingredients"],"properties":{"name":{"minLength":1,"type":"string"},"kind":{"type":"string","enum":["poolish","biga","levain","sponge","old-dough","other"]},"share":{"description":"Share of the total flour that this pre-ferment holds, e.g. \"30 %\".","anyOf":[{"exclusiveMinimum":0,"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"ripen":{"additionalProperties":false,"description":"How long and how warm a pre-ferment ripens.","type":"object","required":["hours"],"properties":{"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"}}},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"Target temperature of the build when mixed.","type":"string"},"note":{"type":"string"}}}},"soakers":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","ingredients"],"properties":{"name":{"minLength":1,"type":"string"},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"soak":{"additionalProperties":false,"type":"object","required":["hours"],"properties":{"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"hot":{"description":"Made with boiling water (a scald).","type":"boolean"}}},"note":{"type":"string"}}}},"process":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["step"],"properties":{"step":{"type":"string","enum":["autolyse","mix","bulk","fold","divide","preshape","rest","shape","proof","retard","bake","cool","other"]},"minutes":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"folds":{"additionalProperties":false,"type":"object","required":["count","every"],"properties":{"count":{"minimum":1,"type":"integer"},"every":{"exclusiveMinimum":0,"description":"Minutes between folds.","type":"number"}}},"vessel":{"type":"string","enum":["deck","tray","pot","tin","stone"]},"covered":{"minimum":0,"description":"Minutes of the bake under a lid or cover.","type":"number"},"steam":{"type":"boolean"},"per_slot":{"exclusiveMinimum":0,"description":"Bake: pieces that fill one oven slot (tray or peel place); below 1 when a piece takes more than one slot.","type":"number"},"seconds_per_piece":{"exclusiveMinimum":0,"description":"Divide, preshape or shape: one person's handling time per piece, in seconds.","type":"number"},"note":{"type":"string"}}}},"finishes":{"type":"array","items":{"additionalProperties":false,"description":"What goes on or under the dough: counted in the ingredient statement, allergens and nutrition.","type":"object","required":["ingredient","per_piece","use"],"properties":{"ingredient":{"minLength":1,"description":"Catalog name of what goes on or under the piece.","type":"string"},"per_piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"Weight used on each piece, e.g. \"4 g\".","type":"string"},"use":{"type":"string","enum":["topping","wash","tray","dusting"],"description":"topping (on top), wash (brushed on), tray (oil or grease under the piece), dusting (flour on the piece or the peel)."},"note":{"type":"string"}}}},"may_contain":{"uniqueItems":true,"type":"array","items":{"type":"string","enum":["wheat","rye","barley","oats","spelt","khorasan","crustaceans","eggs","fish","peanuts","soybeans","milk","almonds","hazelnuts","walnuts","cashews","pecans","brazil-nuts","pistachios","macadamia","celery","mustard","sesame","sulphites","lupin","molluscs"],"description":"An allergen code; the EU and US roll-ups are derived from these."}},"notes":{"type":"string"}}};
+const schema11 = {"$schema":"http://json-schema.org/draft-07/schema#","additionalProperties":false,"$id":"https://panform.example/schema/formula.schema.json","title":"Panform formula","type":"object","required":["id","title","status","category","yield","flour","ingredients"],"properties":{"$schema":{"type":"string"},"id":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","description":"kebab-case; equals the file name.","type":"string"},"title":{"minLength":1,"type":"string"},"status":{"type":"string","enum":["draft","active","retired"]},"category":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","description":"e.g. lean, sourdough, rye, enriched, oil, rolls.","type":"string"},"description":{"type":"string"},"tags":{"uniqueItems":true,"type":"array","items":{"minLength":1,"type":"string"}},"yield":{"additionalProperties":false,"description":"The batch the formula is written for.","type":"object","required":["pieces","piece"],"properties":{"pieces":{"minimum":1,"type":"integer"},"piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"}}},"loss":{"description":"A percentage, e.g. \"2 %\" or 2.","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"bake_loss":{"description":"Weight lost in the oven, in percent of the dough weight (taken as water). Default by category (common practice).","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"dough_temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*-?[0-9]+(\\.[0-9]+)?)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature, or a range with one unit, e.g. \"25 °C\" or \"25-26 °C\" (aimed at the middle).","type":"string"},"bassinage":{"additionalProperties":false,"description":"Water held back and added late in the mix (bassinage), with its own temperature.","type":"object","required":["percent","temperature"],"properties":{"percent":{"exclusiveMinimum":0,"description":"Baker's percent of water held back, part of the formula's water line.","type":"number"},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"}}},"flour":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"preferments":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","kind","share","ingredients"],"properties":{"name":{"minLength":1,"type":"string"},"kind":{"type":"string","enum":["poolish","biga","levain","sponge","old-dough","other"]},"share":{"description":"Share of the total flour that this pre-ferment holds, e.g. \"30 %\".","anyOf":[{"exclusiveMinimum":0,"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"ripen":{"additionalProperties":false,"description":"How long and how warm a pre-ferment ripens.","type":"object","required":["hours"],"properties":{"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*-?[0-9]+(\\.[0-9]+)?)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature, or a range with one unit, e.g. \"25 °C\" or \"25-26 °C\" (aimed at the middle).","type":"string"}}},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"Target temperature of the build when mixed.","type":"string"},"note":{"type":"string"}}}},"soakers":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","ingredients"],"properties":{"name":{"minLength":1,"type":"string"},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"soak":{"additionalProperties":false,"type":"object","required":["hours"],"properties":{"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"hot":{"description":"Made with boiling water (a scald).","type":"boolean"}}},"note":{"type":"string"}}}},"process":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["step"],"properties":{"step":{"type":"string","enum":["autolyse","mix","bulk","fold","divide","preshape","rest","shape","proof","retard","bake","cool","other"]},"minutes":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"folds":{"additionalProperties":false,"type":"object","required":["count","every"],"properties":{"count":{"minimum":1,"type":"integer"},"every":{"exclusiveMinimum":0,"description":"Minutes between folds.","type":"number"}}},"vessel":{"type":"string","enum":["deck","tray","pot","tin","stone"]},"covered":{"minimum":0,"description":"Minutes of the bake under a lid or cover.","type":"number"},"steam":{"type":"boolean"},"per_slot":{"exclusiveMinimum":0,"description":"Bake: pieces that fill one oven slot (tray or peel place); below 1 when a piece takes more than one slot.","type":"number"},"seconds_per_piece":{"exclusiveMinimum":0,"description":"Divide, preshape or shape: one person's handling time per piece, in seconds.","type":"number"},"note":{"type":"string"}}}},"finishes":{"type":"array","items":{"additionalProperties":false,"description":"What goes on or under the dough: counted in the ingredient statement, allergens and nutrition.","type":"object","required":["ingredient","per_piece","use"],"properties":{"ingredient":{"minLength":1,"description":"Catalog name of what goes on or under the piece.","type":"string"},"per_piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"Weight used on each piece, e.g. \"4 g\".","type":"string"},"use":{"type":"string","enum":["topping","wash","tray","dusting"],"description":"topping (on top), wash (brushed on), tray (oil or grease under the piece), dusting (flour on the piece or the peel)."},"note":{"type":"string"}}}},"may_contain":{"uniqueItems":true,"type":"array","items":{"type":"string","enum":["wheat","rye","barley","oats","spelt","khorasan","crustaceans","eggs","fish","peanuts","soybeans","milk","almonds","hazelnuts","walnuts","cashews","pecans","brazil-nuts","pistachios","macadamia","celery","mustard","sesame","sulphites","lupin","molluscs"],"description":"An allergen code; the EU and US roll-ups are derived from these."}},"notes":{"type":"string"}}};
 const func2 = Object.prototype.hasOwnProperty;
 const func3 = runtime0;
 const pattern0 = new RegExp("^[a-z0-9]+(-[a-z0-9]+)*$", "u");
 const pattern2 = new RegExp("^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$", "u");
 const pattern3 = new RegExp("^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$", "u");
-const pattern5 = new RegExp("^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$", "u");
-const pattern6 = new RegExp("^(.*)$", "u");
-const pattern10 = new RegExp("^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$", "u");
+const pattern5 = new RegExp("^\\s*-?[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*-?[0-9]+(\\.[0-9]+)?)?\\s*°?\\s*(C|F)\\s*$", "u");
+const pattern6 = new RegExp("^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$", "u");
+const pattern7 = new RegExp("^(.*)$", "u");
+const pattern11 = new RegExp("^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$", "u");
 
 function validate10(data, {instancePath="", parentData, parentDataProperty, rootData=data}={}){
 /*# sourceURL="https://panform.example/schema/formula.schema.json" */;
@@ -537,7 +538,7 @@ if(data.dough_temperature !== undefined){
 let data13 = data.dough_temperature;
 if(typeof data13 === "string"){
 if(!pattern5.test(data13)){
-const err38 = {instancePath:instancePath+"/dough_temperature",schemaPath:"#/properties/dough_temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
+const err38 = {instancePath:instancePath+"/dough_temperature",schemaPath:"#/properties/dough_temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*-?[0-9]+(\\.[0-9]+)?)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*-?[0-9]+(\\.[0-9]+)?)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err38];
 }
@@ -558,13 +559,11 @@ vErrors.push(err39);
 errors++;
 }
 }
-if(data.flour !== undefined){
-let data14 = data.flour;
+if(data.bassinage !== undefined){
+let data14 = data.bassinage;
 if(data14 && typeof data14 == "object" && !Array.isArray(data14)){
-for(const key2 in data14){
-if(pattern6.test(key2)){
-if(!(typeof data14[key2] == "number")){
-const err40 = {instancePath:instancePath+"/flour/" + key2.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/flour/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(data14.percent === undefined){
+const err40 = {instancePath:instancePath+"/bassinage",schemaPath:"#/properties/bassinage/required",keyword:"required",params:{missingProperty: "percent"},message:"must have required property '"+"percent"+"'"};
 if(vErrors === null){
 vErrors = [err40];
 }
@@ -573,11 +572,8 @@ vErrors.push(err40);
 }
 errors++;
 }
-}
-}
-}
-else {
-const err41 = {instancePath:instancePath+"/flour",schemaPath:"#/properties/flour/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data14.temperature === undefined){
+const err41 = {instancePath:instancePath+"/bassinage",schemaPath:"#/properties/bassinage/required",keyword:"required",params:{missingProperty: "temperature"},message:"must have required property '"+"temperature"+"'"};
 if(vErrors === null){
 vErrors = [err41];
 }
@@ -586,14 +582,9 @@ vErrors.push(err41);
 }
 errors++;
 }
-}
-if(data.ingredients !== undefined){
-let data16 = data.ingredients;
-if(data16 && typeof data16 == "object" && !Array.isArray(data16)){
-for(const key3 in data16){
-if(pattern6.test(key3)){
-if(!(typeof data16[key3] == "number")){
-const err42 = {instancePath:instancePath+"/ingredients/" + key3.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/ingredients/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "number"},message:"must be number"};
+for(const key2 in data14){
+if(!((key2 === "percent") || (key2 === "temperature"))){
+const err42 = {instancePath:instancePath+"/bassinage",schemaPath:"#/properties/bassinage/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key2},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err42];
 }
@@ -603,10 +594,11 @@ vErrors.push(err42);
 errors++;
 }
 }
-}
-}
-else {
-const err43 = {instancePath:instancePath+"/ingredients",schemaPath:"#/properties/ingredients/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data14.percent !== undefined){
+let data15 = data14.percent;
+if(typeof data15 == "number"){
+if(data15 <= 0 || isNaN(data15)){
+const err43 = {instancePath:instancePath+"/bassinage/percent",schemaPath:"#/properties/bassinage/properties/percent/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
 if(vErrors === null){
 vErrors = [err43];
 }
@@ -616,15 +608,8 @@ vErrors.push(err43);
 errors++;
 }
 }
-if(data.preferments !== undefined){
-let data18 = data.preferments;
-if(Array.isArray(data18)){
-const len1 = data18.length;
-for(let i2=0; i2<len1; i2++){
-let data19 = data18[i2];
-if(data19 && typeof data19 == "object" && !Array.isArray(data19)){
-if(data19.name === undefined){
-const err44 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/required",keyword:"required",params:{missingProperty: "name"},message:"must have required property '"+"name"+"'"};
+else {
+const err44 = {instancePath:instancePath+"/bassinage/percent",schemaPath:"#/properties/bassinage/properties/percent/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err44];
 }
@@ -633,8 +618,12 @@ vErrors.push(err44);
 }
 errors++;
 }
-if(data19.kind === undefined){
-const err45 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/required",keyword:"required",params:{missingProperty: "kind"},message:"must have required property '"+"kind"+"'"};
+}
+if(data14.temperature !== undefined){
+let data16 = data14.temperature;
+if(typeof data16 === "string"){
+if(!pattern6.test(data16)){
+const err45 = {instancePath:instancePath+"/bassinage/temperature",schemaPath:"#/properties/bassinage/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err45];
 }
@@ -643,8 +632,9 @@ vErrors.push(err45);
 }
 errors++;
 }
-if(data19.share === undefined){
-const err46 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/required",keyword:"required",params:{missingProperty: "share"},message:"must have required property '"+"share"+"'"};
+}
+else {
+const err46 = {instancePath:instancePath+"/bassinage/temperature",schemaPath:"#/properties/bassinage/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err46];
 }
@@ -653,8 +643,10 @@ vErrors.push(err46);
 }
 errors++;
 }
-if(data19.ingredients === undefined){
-const err47 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/required",keyword:"required",params:{missingProperty: "ingredients"},message:"must have required property '"+"ingredients"+"'"};
+}
+}
+else {
+const err47 = {instancePath:instancePath+"/bassinage",schemaPath:"#/properties/bassinage/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err47];
 }
@@ -663,9 +655,14 @@ vErrors.push(err47);
 }
 errors++;
 }
-for(const key4 in data19){
-if(!(((((((key4 === "name") || (key4 === "kind")) || (key4 === "share")) || (key4 === "ingredients")) || (key4 === "ripen")) || (key4 === "temperature")) || (key4 === "note"))){
-const err48 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key4},message:"must NOT have additional properties"};
+}
+if(data.flour !== undefined){
+let data17 = data.flour;
+if(data17 && typeof data17 == "object" && !Array.isArray(data17)){
+for(const key3 in data17){
+if(pattern7.test(key3)){
+if(!(typeof data17[key3] == "number")){
+const err48 = {instancePath:instancePath+"/flour/" + key3.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/flour/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err48];
 }
@@ -675,11 +672,10 @@ vErrors.push(err48);
 errors++;
 }
 }
-if(data19.name !== undefined){
-let data20 = data19.name;
-if(typeof data20 === "string"){
-if(func3(data20) < 1){
-const err49 = {instancePath:instancePath+"/preferments/" + i2+"/name",schemaPath:"#/properties/preferments/items/properties/name/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+}
+}
+else {
+const err49 = {instancePath:instancePath+"/flour",schemaPath:"#/properties/flour/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err49];
 }
@@ -689,8 +685,13 @@ vErrors.push(err49);
 errors++;
 }
 }
-else {
-const err50 = {instancePath:instancePath+"/preferments/" + i2+"/name",schemaPath:"#/properties/preferments/items/properties/name/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data.ingredients !== undefined){
+let data19 = data.ingredients;
+if(data19 && typeof data19 == "object" && !Array.isArray(data19)){
+for(const key4 in data19){
+if(pattern7.test(key4)){
+if(!(typeof data19[key4] == "number")){
+const err50 = {instancePath:instancePath+"/ingredients/" + key4.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/ingredients/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err50];
 }
@@ -700,10 +701,10 @@ vErrors.push(err50);
 errors++;
 }
 }
-if(data19.kind !== undefined){
-let data21 = data19.kind;
-if(typeof data21 !== "string"){
-const err51 = {instancePath:instancePath+"/preferments/" + i2+"/kind",schemaPath:"#/properties/preferments/items/properties/kind/type",keyword:"type",params:{type: "string"},message:"must be string"};
+}
+}
+else {
+const err51 = {instancePath:instancePath+"/ingredients",schemaPath:"#/properties/ingredients/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err51];
 }
@@ -712,8 +713,16 @@ vErrors.push(err51);
 }
 errors++;
 }
-if(!((((((data21 === "poolish") || (data21 === "biga")) || (data21 === "levain")) || (data21 === "sponge")) || (data21 === "old-dough")) || (data21 === "other"))){
-const err52 = {instancePath:instancePath+"/preferments/" + i2+"/kind",schemaPath:"#/properties/preferments/items/properties/kind/enum",keyword:"enum",params:{allowedValues: schema11.properties.preferments.items.properties.kind.enum},message:"must be equal to one of the allowed values"};
+}
+if(data.preferments !== undefined){
+let data21 = data.preferments;
+if(Array.isArray(data21)){
+const len1 = data21.length;
+for(let i2=0; i2<len1; i2++){
+let data22 = data21[i2];
+if(data22 && typeof data22 == "object" && !Array.isArray(data22)){
+if(data22.name === undefined){
+const err52 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/required",keyword:"required",params:{missingProperty: "name"},message:"must have required property '"+"name"+"'"};
 if(vErrors === null){
 vErrors = [err52];
 }
@@ -722,15 +731,8 @@ vErrors.push(err52);
 }
 errors++;
 }
-}
-if(data19.share !== undefined){
-let data22 = data19.share;
-const _errs57 = errors;
-let valid12 = false;
-const _errs58 = errors;
-if(typeof data22 == "number"){
-if(data22 <= 0 || isNaN(data22)){
-const err53 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf/0/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
+if(data22.kind === undefined){
+const err53 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/required",keyword:"required",params:{missingProperty: "kind"},message:"must have required property '"+"kind"+"'"};
 if(vErrors === null){
 vErrors = [err53];
 }
@@ -739,9 +741,8 @@ vErrors.push(err53);
 }
 errors++;
 }
-}
-else {
-const err54 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(data22.share === undefined){
+const err54 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/required",keyword:"required",params:{missingProperty: "share"},message:"must have required property '"+"share"+"'"};
 if(vErrors === null){
 vErrors = [err54];
 }
@@ -750,13 +751,8 @@ vErrors.push(err54);
 }
 errors++;
 }
-var _valid2 = _errs58 === errors;
-valid12 = valid12 || _valid2;
-if(!valid12){
-const _errs60 = errors;
-if(typeof data22 === "string"){
-if(!pattern3.test(data22)){
-const err55 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$"+"\""};
+if(data22.ingredients === undefined){
+const err55 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/required",keyword:"required",params:{missingProperty: "ingredients"},message:"must have required property '"+"ingredients"+"'"};
 if(vErrors === null){
 vErrors = [err55];
 }
@@ -765,9 +761,9 @@ vErrors.push(err55);
 }
 errors++;
 }
-}
-else {
-const err56 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
+for(const key5 in data22){
+if(!(((((((key5 === "name") || (key5 === "kind")) || (key5 === "share")) || (key5 === "ingredients")) || (key5 === "ripen")) || (key5 === "temperature")) || (key5 === "note"))){
+const err56 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key5},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err56];
 }
@@ -776,11 +772,12 @@ vErrors.push(err56);
 }
 errors++;
 }
-var _valid2 = _errs60 === errors;
-valid12 = valid12 || _valid2;
 }
-if(!valid12){
-const err57 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(data22.name !== undefined){
+let data23 = data22.name;
+if(typeof data23 === "string"){
+if(func3(data23) < 1){
+const err57 = {instancePath:instancePath+"/preferments/" + i2+"/name",schemaPath:"#/properties/preferments/items/properties/name/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err57];
 }
@@ -789,25 +786,9 @@ vErrors.push(err57);
 }
 errors++;
 }
-else {
-errors = _errs57;
-if(vErrors !== null){
-if(_errs57){
-vErrors.length = _errs57;
 }
 else {
-vErrors = null;
-}
-}
-}
-}
-if(data19.ingredients !== undefined){
-let data23 = data19.ingredients;
-if(data23 && typeof data23 == "object" && !Array.isArray(data23)){
-for(const key5 in data23){
-if(pattern6.test(key5)){
-if(!(typeof data23[key5] == "number")){
-const err58 = {instancePath:instancePath+"/preferments/" + i2+"/ingredients/" + key5.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/preferments/items/properties/ingredients/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "number"},message:"must be number"};
+const err58 = {instancePath:instancePath+"/preferments/" + i2+"/name",schemaPath:"#/properties/preferments/items/properties/name/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err58];
 }
@@ -817,10 +798,10 @@ vErrors.push(err58);
 errors++;
 }
 }
-}
-}
-else {
-const err59 = {instancePath:instancePath+"/preferments/" + i2+"/ingredients",schemaPath:"#/properties/preferments/items/properties/ingredients/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data22.kind !== undefined){
+let data24 = data22.kind;
+if(typeof data24 !== "string"){
+const err59 = {instancePath:instancePath+"/preferments/" + i2+"/kind",schemaPath:"#/properties/preferments/items/properties/kind/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err59];
 }
@@ -829,12 +810,8 @@ vErrors.push(err59);
 }
 errors++;
 }
-}
-if(data19.ripen !== undefined){
-let data25 = data19.ripen;
-if(data25 && typeof data25 == "object" && !Array.isArray(data25)){
-if(data25.hours === undefined){
-const err60 = {instancePath:instancePath+"/preferments/" + i2+"/ripen",schemaPath:"#/properties/preferments/items/properties/ripen/required",keyword:"required",params:{missingProperty: "hours"},message:"must have required property '"+"hours"+"'"};
+if(!((((((data24 === "poolish") || (data24 === "biga")) || (data24 === "levain")) || (data24 === "sponge")) || (data24 === "old-dough")) || (data24 === "other"))){
+const err60 = {instancePath:instancePath+"/preferments/" + i2+"/kind",schemaPath:"#/properties/preferments/items/properties/kind/enum",keyword:"enum",params:{allowedValues: schema11.properties.preferments.items.properties.kind.enum},message:"must be equal to one of the allowed values"};
 if(vErrors === null){
 vErrors = [err60];
 }
@@ -843,9 +820,15 @@ vErrors.push(err60);
 }
 errors++;
 }
-for(const key6 in data25){
-if(!((key6 === "hours") || (key6 === "temperature"))){
-const err61 = {instancePath:instancePath+"/preferments/" + i2+"/ripen",schemaPath:"#/properties/preferments/items/properties/ripen/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key6},message:"must NOT have additional properties"};
+}
+if(data22.share !== undefined){
+let data25 = data22.share;
+const _errs64 = errors;
+let valid13 = false;
+const _errs65 = errors;
+if(typeof data25 == "number"){
+if(data25 <= 0 || isNaN(data25)){
+const err61 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf/0/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
 if(vErrors === null){
 vErrors = [err61];
 }
@@ -855,14 +838,8 @@ vErrors.push(err61);
 errors++;
 }
 }
-if(data25.hours !== undefined){
-let data26 = data25.hours;
-const _errs70 = errors;
-let valid15 = false;
-const _errs71 = errors;
-if(typeof data26 == "number"){
-if(data26 < 0 || isNaN(data26)){
-const err62 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf/0/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+else {
+const err62 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err62];
 }
@@ -871,9 +848,13 @@ vErrors.push(err62);
 }
 errors++;
 }
-}
-else {
-const err63 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
+var _valid2 = _errs65 === errors;
+valid13 = valid13 || _valid2;
+if(!valid13){
+const _errs67 = errors;
+if(typeof data25 === "string"){
+if(!pattern3.test(data25)){
+const err63 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err63];
 }
@@ -882,13 +863,9 @@ vErrors.push(err63);
 }
 errors++;
 }
-var _valid3 = _errs71 === errors;
-valid15 = valid15 || _valid3;
-if(!valid15){
-const _errs73 = errors;
-if(typeof data26 === "string"){
-if(!pattern10.test(data26)){
-const err64 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"+"\""};
+}
+else {
+const err64 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err64];
 }
@@ -897,9 +874,11 @@ vErrors.push(err64);
 }
 errors++;
 }
+var _valid2 = _errs67 === errors;
+valid13 = valid13 || _valid2;
 }
-else {
-const err65 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(!valid13){
+const err65 = {instancePath:instancePath+"/preferments/" + i2+"/share",schemaPath:"#/properties/preferments/items/properties/share/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
 if(vErrors === null){
 vErrors = [err65];
 }
@@ -908,11 +887,25 @@ vErrors.push(err65);
 }
 errors++;
 }
-var _valid3 = _errs73 === errors;
-valid15 = valid15 || _valid3;
+else {
+errors = _errs64;
+if(vErrors !== null){
+if(_errs64){
+vErrors.length = _errs64;
 }
-if(!valid15){
-const err66 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+else {
+vErrors = null;
+}
+}
+}
+}
+if(data22.ingredients !== undefined){
+let data26 = data22.ingredients;
+if(data26 && typeof data26 == "object" && !Array.isArray(data26)){
+for(const key6 in data26){
+if(pattern7.test(key6)){
+if(!(typeof data26[key6] == "number")){
+const err66 = {instancePath:instancePath+"/preferments/" + i2+"/ingredients/" + key6.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/preferments/items/properties/ingredients/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err66];
 }
@@ -921,23 +914,11 @@ vErrors.push(err66);
 }
 errors++;
 }
-else {
-errors = _errs70;
-if(vErrors !== null){
-if(_errs70){
-vErrors.length = _errs70;
+}
+}
 }
 else {
-vErrors = null;
-}
-}
-}
-}
-if(data25.temperature !== undefined){
-let data27 = data25.temperature;
-if(typeof data27 === "string"){
-if(!pattern5.test(data27)){
-const err67 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/temperature",schemaPath:"#/properties/preferments/items/properties/ripen/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
+const err67 = {instancePath:instancePath+"/preferments/" + i2+"/ingredients",schemaPath:"#/properties/preferments/items/properties/ingredients/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err67];
 }
@@ -947,8 +928,11 @@ vErrors.push(err67);
 errors++;
 }
 }
-else {
-const err68 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/temperature",schemaPath:"#/properties/preferments/items/properties/ripen/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data22.ripen !== undefined){
+let data28 = data22.ripen;
+if(data28 && typeof data28 == "object" && !Array.isArray(data28)){
+if(data28.hours === undefined){
+const err68 = {instancePath:instancePath+"/preferments/" + i2+"/ripen",schemaPath:"#/properties/preferments/items/properties/ripen/required",keyword:"required",params:{missingProperty: "hours"},message:"must have required property '"+"hours"+"'"};
 if(vErrors === null){
 vErrors = [err68];
 }
@@ -957,10 +941,9 @@ vErrors.push(err68);
 }
 errors++;
 }
-}
-}
-else {
-const err69 = {instancePath:instancePath+"/preferments/" + i2+"/ripen",schemaPath:"#/properties/preferments/items/properties/ripen/type",keyword:"type",params:{type: "object"},message:"must be object"};
+for(const key7 in data28){
+if(!((key7 === "hours") || (key7 === "temperature"))){
+const err69 = {instancePath:instancePath+"/preferments/" + i2+"/ripen",schemaPath:"#/properties/preferments/items/properties/ripen/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key7},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err69];
 }
@@ -970,11 +953,14 @@ vErrors.push(err69);
 errors++;
 }
 }
-if(data19.temperature !== undefined){
-let data28 = data19.temperature;
-if(typeof data28 === "string"){
-if(!pattern5.test(data28)){
-const err70 = {instancePath:instancePath+"/preferments/" + i2+"/temperature",schemaPath:"#/properties/preferments/items/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
+if(data28.hours !== undefined){
+let data29 = data28.hours;
+const _errs77 = errors;
+let valid16 = false;
+const _errs78 = errors;
+if(typeof data29 == "number"){
+if(data29 < 0 || isNaN(data29)){
+const err70 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf/0/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err70];
 }
@@ -985,7 +971,7 @@ errors++;
 }
 }
 else {
-const err71 = {instancePath:instancePath+"/preferments/" + i2+"/temperature",schemaPath:"#/properties/preferments/items/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
+const err71 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err71];
 }
@@ -994,10 +980,13 @@ vErrors.push(err71);
 }
 errors++;
 }
-}
-if(data19.note !== undefined){
-if(typeof data19.note !== "string"){
-const err72 = {instancePath:instancePath+"/preferments/" + i2+"/note",schemaPath:"#/properties/preferments/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
+var _valid3 = _errs78 === errors;
+valid16 = valid16 || _valid3;
+if(!valid16){
+const _errs80 = errors;
+if(typeof data29 === "string"){
+if(!pattern11.test(data29)){
+const err72 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err72];
 }
@@ -1007,9 +996,8 @@ vErrors.push(err72);
 errors++;
 }
 }
-}
 else {
-const err73 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err73 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err73];
 }
@@ -1018,10 +1006,11 @@ vErrors.push(err73);
 }
 errors++;
 }
+var _valid3 = _errs80 === errors;
+valid16 = valid16 || _valid3;
 }
-}
-else {
-const err74 = {instancePath:instancePath+"/preferments",schemaPath:"#/properties/preferments/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(!valid16){
+const err74 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/hours",schemaPath:"#/properties/preferments/items/properties/ripen/properties/hours/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
 if(vErrors === null){
 vErrors = [err74];
 }
@@ -1030,16 +1019,23 @@ vErrors.push(err74);
 }
 errors++;
 }
+else {
+errors = _errs77;
+if(vErrors !== null){
+if(_errs77){
+vErrors.length = _errs77;
 }
-if(data.soakers !== undefined){
-let data30 = data.soakers;
-if(Array.isArray(data30)){
-const len2 = data30.length;
-for(let i3=0; i3<len2; i3++){
-let data31 = data30[i3];
-if(data31 && typeof data31 == "object" && !Array.isArray(data31)){
-if(data31.name === undefined){
-const err75 = {instancePath:instancePath+"/soakers/" + i3,schemaPath:"#/properties/soakers/items/required",keyword:"required",params:{missingProperty: "name"},message:"must have required property '"+"name"+"'"};
+else {
+vErrors = null;
+}
+}
+}
+}
+if(data28.temperature !== undefined){
+let data30 = data28.temperature;
+if(typeof data30 === "string"){
+if(!pattern5.test(data30)){
+const err75 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/temperature",schemaPath:"#/properties/preferments/items/properties/ripen/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*-?[0-9]+(\\.[0-9]+)?)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*-?[0-9]+(\\.[0-9]+)?)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err75];
 }
@@ -1048,8 +1044,9 @@ vErrors.push(err75);
 }
 errors++;
 }
-if(data31.ingredients === undefined){
-const err76 = {instancePath:instancePath+"/soakers/" + i3,schemaPath:"#/properties/soakers/items/required",keyword:"required",params:{missingProperty: "ingredients"},message:"must have required property '"+"ingredients"+"'"};
+}
+else {
+const err76 = {instancePath:instancePath+"/preferments/" + i2+"/ripen/temperature",schemaPath:"#/properties/preferments/items/properties/ripen/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err76];
 }
@@ -1058,9 +1055,10 @@ vErrors.push(err76);
 }
 errors++;
 }
-for(const key7 in data31){
-if(!((((key7 === "name") || (key7 === "ingredients")) || (key7 === "soak")) || (key7 === "note"))){
-const err77 = {instancePath:instancePath+"/soakers/" + i3,schemaPath:"#/properties/soakers/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key7},message:"must NOT have additional properties"};
+}
+}
+else {
+const err77 = {instancePath:instancePath+"/preferments/" + i2+"/ripen",schemaPath:"#/properties/preferments/items/properties/ripen/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err77];
 }
@@ -1070,11 +1068,11 @@ vErrors.push(err77);
 errors++;
 }
 }
-if(data31.name !== undefined){
-let data32 = data31.name;
-if(typeof data32 === "string"){
-if(func3(data32) < 1){
-const err78 = {instancePath:instancePath+"/soakers/" + i3+"/name",schemaPath:"#/properties/soakers/items/properties/name/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+if(data22.temperature !== undefined){
+let data31 = data22.temperature;
+if(typeof data31 === "string"){
+if(!pattern6.test(data31)){
+const err78 = {instancePath:instancePath+"/preferments/" + i2+"/temperature",schemaPath:"#/properties/preferments/items/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err78];
 }
@@ -1085,7 +1083,7 @@ errors++;
 }
 }
 else {
-const err79 = {instancePath:instancePath+"/soakers/" + i3+"/name",schemaPath:"#/properties/soakers/items/properties/name/type",keyword:"type",params:{type: "string"},message:"must be string"};
+const err79 = {instancePath:instancePath+"/preferments/" + i2+"/temperature",schemaPath:"#/properties/preferments/items/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err79];
 }
@@ -1095,13 +1093,9 @@ vErrors.push(err79);
 errors++;
 }
 }
-if(data31.ingredients !== undefined){
-let data33 = data31.ingredients;
-if(data33 && typeof data33 == "object" && !Array.isArray(data33)){
-for(const key8 in data33){
-if(pattern6.test(key8)){
-if(!(typeof data33[key8] == "number")){
-const err80 = {instancePath:instancePath+"/soakers/" + i3+"/ingredients/" + key8.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/soakers/items/properties/ingredients/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(data22.note !== undefined){
+if(typeof data22.note !== "string"){
+const err80 = {instancePath:instancePath+"/preferments/" + i2+"/note",schemaPath:"#/properties/preferments/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err80];
 }
@@ -1112,9 +1106,8 @@ errors++;
 }
 }
 }
-}
 else {
-const err81 = {instancePath:instancePath+"/soakers/" + i3+"/ingredients",schemaPath:"#/properties/soakers/items/properties/ingredients/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err81 = {instancePath:instancePath+"/preferments/" + i2,schemaPath:"#/properties/preferments/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err81];
 }
@@ -1124,11 +1117,9 @@ vErrors.push(err81);
 errors++;
 }
 }
-if(data31.soak !== undefined){
-let data35 = data31.soak;
-if(data35 && typeof data35 == "object" && !Array.isArray(data35)){
-if(data35.hours === undefined){
-const err82 = {instancePath:instancePath+"/soakers/" + i3+"/soak",schemaPath:"#/properties/soakers/items/properties/soak/required",keyword:"required",params:{missingProperty: "hours"},message:"must have required property '"+"hours"+"'"};
+}
+else {
+const err82 = {instancePath:instancePath+"/preferments",schemaPath:"#/properties/preferments/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err82];
 }
@@ -1137,9 +1128,16 @@ vErrors.push(err82);
 }
 errors++;
 }
-for(const key9 in data35){
-if(!(((key9 === "hours") || (key9 === "temperature")) || (key9 === "hot"))){
-const err83 = {instancePath:instancePath+"/soakers/" + i3+"/soak",schemaPath:"#/properties/soakers/items/properties/soak/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key9},message:"must NOT have additional properties"};
+}
+if(data.soakers !== undefined){
+let data33 = data.soakers;
+if(Array.isArray(data33)){
+const len2 = data33.length;
+for(let i3=0; i3<len2; i3++){
+let data34 = data33[i3];
+if(data34 && typeof data34 == "object" && !Array.isArray(data34)){
+if(data34.name === undefined){
+const err83 = {instancePath:instancePath+"/soakers/" + i3,schemaPath:"#/properties/soakers/items/required",keyword:"required",params:{missingProperty: "name"},message:"must have required property '"+"name"+"'"};
 if(vErrors === null){
 vErrors = [err83];
 }
@@ -1148,15 +1146,8 @@ vErrors.push(err83);
 }
 errors++;
 }
-}
-if(data35.hours !== undefined){
-let data36 = data35.hours;
-const _errs96 = errors;
-let valid21 = false;
-const _errs97 = errors;
-if(typeof data36 == "number"){
-if(data36 < 0 || isNaN(data36)){
-const err84 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf/0/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+if(data34.ingredients === undefined){
+const err84 = {instancePath:instancePath+"/soakers/" + i3,schemaPath:"#/properties/soakers/items/required",keyword:"required",params:{missingProperty: "ingredients"},message:"must have required property '"+"ingredients"+"'"};
 if(vErrors === null){
 vErrors = [err84];
 }
@@ -1165,9 +1156,9 @@ vErrors.push(err84);
 }
 errors++;
 }
-}
-else {
-const err85 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
+for(const key8 in data34){
+if(!((((key8 === "name") || (key8 === "ingredients")) || (key8 === "soak")) || (key8 === "note"))){
+const err85 = {instancePath:instancePath+"/soakers/" + i3,schemaPath:"#/properties/soakers/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key8},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err85];
 }
@@ -1176,13 +1167,12 @@ vErrors.push(err85);
 }
 errors++;
 }
-var _valid4 = _errs97 === errors;
-valid21 = valid21 || _valid4;
-if(!valid21){
-const _errs99 = errors;
-if(typeof data36 === "string"){
-if(!pattern10.test(data36)){
-const err86 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"+"\""};
+}
+if(data34.name !== undefined){
+let data35 = data34.name;
+if(typeof data35 === "string"){
+if(func3(data35) < 1){
+const err86 = {instancePath:instancePath+"/soakers/" + i3+"/name",schemaPath:"#/properties/soakers/items/properties/name/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err86];
 }
@@ -1193,7 +1183,7 @@ errors++;
 }
 }
 else {
-const err87 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
+const err87 = {instancePath:instancePath+"/soakers/" + i3+"/name",schemaPath:"#/properties/soakers/items/properties/name/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err87];
 }
@@ -1202,11 +1192,14 @@ vErrors.push(err87);
 }
 errors++;
 }
-var _valid4 = _errs99 === errors;
-valid21 = valid21 || _valid4;
 }
-if(!valid21){
-const err88 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(data34.ingredients !== undefined){
+let data36 = data34.ingredients;
+if(data36 && typeof data36 == "object" && !Array.isArray(data36)){
+for(const key9 in data36){
+if(pattern7.test(key9)){
+if(!(typeof data36[key9] == "number")){
+const err88 = {instancePath:instancePath+"/soakers/" + i3+"/ingredients/" + key9.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/properties/soakers/items/properties/ingredients/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err88];
 }
@@ -1215,23 +1208,11 @@ vErrors.push(err88);
 }
 errors++;
 }
-else {
-errors = _errs96;
-if(vErrors !== null){
-if(_errs96){
-vErrors.length = _errs96;
+}
+}
 }
 else {
-vErrors = null;
-}
-}
-}
-}
-if(data35.temperature !== undefined){
-let data37 = data35.temperature;
-if(typeof data37 === "string"){
-if(!pattern5.test(data37)){
-const err89 = {instancePath:instancePath+"/soakers/" + i3+"/soak/temperature",schemaPath:"#/properties/soakers/items/properties/soak/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
+const err89 = {instancePath:instancePath+"/soakers/" + i3+"/ingredients",schemaPath:"#/properties/soakers/items/properties/ingredients/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err89];
 }
@@ -1241,8 +1222,11 @@ vErrors.push(err89);
 errors++;
 }
 }
-else {
-const err90 = {instancePath:instancePath+"/soakers/" + i3+"/soak/temperature",schemaPath:"#/properties/soakers/items/properties/soak/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data34.soak !== undefined){
+let data38 = data34.soak;
+if(data38 && typeof data38 == "object" && !Array.isArray(data38)){
+if(data38.hours === undefined){
+const err90 = {instancePath:instancePath+"/soakers/" + i3+"/soak",schemaPath:"#/properties/soakers/items/properties/soak/required",keyword:"required",params:{missingProperty: "hours"},message:"must have required property '"+"hours"+"'"};
 if(vErrors === null){
 vErrors = [err90];
 }
@@ -1251,10 +1235,9 @@ vErrors.push(err90);
 }
 errors++;
 }
-}
-if(data35.hot !== undefined){
-if(typeof data35.hot !== "boolean"){
-const err91 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hot",schemaPath:"#/properties/soakers/items/properties/soak/properties/hot/type",keyword:"type",params:{type: "boolean"},message:"must be boolean"};
+for(const key10 in data38){
+if(!(((key10 === "hours") || (key10 === "temperature")) || (key10 === "hot"))){
+const err91 = {instancePath:instancePath+"/soakers/" + i3+"/soak",schemaPath:"#/properties/soakers/items/properties/soak/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key10},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err91];
 }
@@ -1264,9 +1247,14 @@ vErrors.push(err91);
 errors++;
 }
 }
-}
-else {
-const err92 = {instancePath:instancePath+"/soakers/" + i3+"/soak",schemaPath:"#/properties/soakers/items/properties/soak/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data38.hours !== undefined){
+let data39 = data38.hours;
+const _errs103 = errors;
+let valid22 = false;
+const _errs104 = errors;
+if(typeof data39 == "number"){
+if(data39 < 0 || isNaN(data39)){
+const err92 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf/0/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err92];
 }
@@ -1276,9 +1264,8 @@ vErrors.push(err92);
 errors++;
 }
 }
-if(data31.note !== undefined){
-if(typeof data31.note !== "string"){
-const err93 = {instancePath:instancePath+"/soakers/" + i3+"/note",schemaPath:"#/properties/soakers/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
+else {
+const err93 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err93];
 }
@@ -1287,10 +1274,13 @@ vErrors.push(err93);
 }
 errors++;
 }
-}
-}
-else {
-const err94 = {instancePath:instancePath+"/soakers/" + i3,schemaPath:"#/properties/soakers/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+var _valid4 = _errs104 === errors;
+valid22 = valid22 || _valid4;
+if(!valid22){
+const _errs106 = errors;
+if(typeof data39 === "string"){
+if(!pattern11.test(data39)){
+const err94 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err94];
 }
@@ -1300,9 +1290,8 @@ vErrors.push(err94);
 errors++;
 }
 }
-}
 else {
-const err95 = {instancePath:instancePath+"/soakers",schemaPath:"#/properties/soakers/type",keyword:"type",params:{type: "array"},message:"must be array"};
+const err95 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err95];
 }
@@ -1311,16 +1300,11 @@ vErrors.push(err95);
 }
 errors++;
 }
+var _valid4 = _errs106 === errors;
+valid22 = valid22 || _valid4;
 }
-if(data.process !== undefined){
-let data40 = data.process;
-if(Array.isArray(data40)){
-const len3 = data40.length;
-for(let i4=0; i4<len3; i4++){
-let data41 = data40[i4];
-if(data41 && typeof data41 == "object" && !Array.isArray(data41)){
-if(data41.step === undefined){
-const err96 = {instancePath:instancePath+"/process/" + i4,schemaPath:"#/properties/process/items/required",keyword:"required",params:{missingProperty: "step"},message:"must have required property '"+"step"+"'"};
+if(!valid22){
+const err96 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hours",schemaPath:"#/properties/soakers/items/properties/soak/properties/hours/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
 if(vErrors === null){
 vErrors = [err96];
 }
@@ -1329,9 +1313,23 @@ vErrors.push(err96);
 }
 errors++;
 }
-for(const key10 in data41){
-if(!(func2.call(schema11.properties.process.items.properties, key10))){
-const err97 = {instancePath:instancePath+"/process/" + i4,schemaPath:"#/properties/process/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key10},message:"must NOT have additional properties"};
+else {
+errors = _errs103;
+if(vErrors !== null){
+if(_errs103){
+vErrors.length = _errs103;
+}
+else {
+vErrors = null;
+}
+}
+}
+}
+if(data38.temperature !== undefined){
+let data40 = data38.temperature;
+if(typeof data40 === "string"){
+if(!pattern6.test(data40)){
+const err97 = {instancePath:instancePath+"/soakers/" + i3+"/soak/temperature",schemaPath:"#/properties/soakers/items/properties/soak/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err97];
 }
@@ -1341,10 +1339,8 @@ vErrors.push(err97);
 errors++;
 }
 }
-if(data41.step !== undefined){
-let data42 = data41.step;
-if(typeof data42 !== "string"){
-const err98 = {instancePath:instancePath+"/process/" + i4+"/step",schemaPath:"#/properties/process/items/properties/step/type",keyword:"type",params:{type: "string"},message:"must be string"};
+else {
+const err98 = {instancePath:instancePath+"/soakers/" + i3+"/soak/temperature",schemaPath:"#/properties/soakers/items/properties/soak/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err98];
 }
@@ -1353,8 +1349,10 @@ vErrors.push(err98);
 }
 errors++;
 }
-if(!(((((((((((((data42 === "autolyse") || (data42 === "mix")) || (data42 === "bulk")) || (data42 === "fold")) || (data42 === "divide")) || (data42 === "preshape")) || (data42 === "rest")) || (data42 === "shape")) || (data42 === "proof")) || (data42 === "retard")) || (data42 === "bake")) || (data42 === "cool")) || (data42 === "other"))){
-const err99 = {instancePath:instancePath+"/process/" + i4+"/step",schemaPath:"#/properties/process/items/properties/step/enum",keyword:"enum",params:{allowedValues: schema11.properties.process.items.properties.step.enum},message:"must be equal to one of the allowed values"};
+}
+if(data38.hot !== undefined){
+if(typeof data38.hot !== "boolean"){
+const err99 = {instancePath:instancePath+"/soakers/" + i3+"/soak/hot",schemaPath:"#/properties/soakers/items/properties/soak/properties/hot/type",keyword:"type",params:{type: "boolean"},message:"must be boolean"};
 if(vErrors === null){
 vErrors = [err99];
 }
@@ -1364,14 +1362,9 @@ vErrors.push(err99);
 errors++;
 }
 }
-if(data41.minutes !== undefined){
-let data43 = data41.minutes;
-const _errs115 = errors;
-let valid25 = false;
-const _errs116 = errors;
-if(typeof data43 == "number"){
-if(data43 < 0 || isNaN(data43)){
-const err100 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf/0/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+}
+else {
+const err100 = {instancePath:instancePath+"/soakers/" + i3+"/soak",schemaPath:"#/properties/soakers/items/properties/soak/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err100];
 }
@@ -1381,8 +1374,9 @@ vErrors.push(err100);
 errors++;
 }
 }
-else {
-const err101 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(data34.note !== undefined){
+if(typeof data34.note !== "string"){
+const err101 = {instancePath:instancePath+"/soakers/" + i3+"/note",schemaPath:"#/properties/soakers/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err101];
 }
@@ -1391,13 +1385,10 @@ vErrors.push(err101);
 }
 errors++;
 }
-var _valid5 = _errs116 === errors;
-valid25 = valid25 || _valid5;
-if(!valid25){
-const _errs118 = errors;
-if(typeof data43 === "string"){
-if(!pattern10.test(data43)){
-const err102 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"+"\""};
+}
+}
+else {
+const err102 = {instancePath:instancePath+"/soakers/" + i3,schemaPath:"#/properties/soakers/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err102];
 }
@@ -1407,8 +1398,9 @@ vErrors.push(err102);
 errors++;
 }
 }
+}
 else {
-const err103 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
+const err103 = {instancePath:instancePath+"/soakers",schemaPath:"#/properties/soakers/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err103];
 }
@@ -1417,11 +1409,16 @@ vErrors.push(err103);
 }
 errors++;
 }
-var _valid5 = _errs118 === errors;
-valid25 = valid25 || _valid5;
 }
-if(!valid25){
-const err104 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(data.process !== undefined){
+let data43 = data.process;
+if(Array.isArray(data43)){
+const len3 = data43.length;
+for(let i4=0; i4<len3; i4++){
+let data44 = data43[i4];
+if(data44 && typeof data44 == "object" && !Array.isArray(data44)){
+if(data44.step === undefined){
+const err104 = {instancePath:instancePath+"/process/" + i4,schemaPath:"#/properties/process/items/required",keyword:"required",params:{missingProperty: "step"},message:"must have required property '"+"step"+"'"};
 if(vErrors === null){
 vErrors = [err104];
 }
@@ -1430,26 +1427,9 @@ vErrors.push(err104);
 }
 errors++;
 }
-else {
-errors = _errs115;
-if(vErrors !== null){
-if(_errs115){
-vErrors.length = _errs115;
-}
-else {
-vErrors = null;
-}
-}
-}
-}
-if(data41.hours !== undefined){
-let data44 = data41.hours;
-const _errs121 = errors;
-let valid26 = false;
-const _errs122 = errors;
-if(typeof data44 == "number"){
-if(data44 < 0 || isNaN(data44)){
-const err105 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf/0/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+for(const key11 in data44){
+if(!(func2.call(schema11.properties.process.items.properties, key11))){
+const err105 = {instancePath:instancePath+"/process/" + i4,schemaPath:"#/properties/process/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key11},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err105];
 }
@@ -1459,8 +1439,10 @@ vErrors.push(err105);
 errors++;
 }
 }
-else {
-const err106 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(data44.step !== undefined){
+let data45 = data44.step;
+if(typeof data45 !== "string"){
+const err106 = {instancePath:instancePath+"/process/" + i4+"/step",schemaPath:"#/properties/process/items/properties/step/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err106];
 }
@@ -1469,13 +1451,8 @@ vErrors.push(err106);
 }
 errors++;
 }
-var _valid6 = _errs122 === errors;
-valid26 = valid26 || _valid6;
-if(!valid26){
-const _errs124 = errors;
-if(typeof data44 === "string"){
-if(!pattern10.test(data44)){
-const err107 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"+"\""};
+if(!(((((((((((((data45 === "autolyse") || (data45 === "mix")) || (data45 === "bulk")) || (data45 === "fold")) || (data45 === "divide")) || (data45 === "preshape")) || (data45 === "rest")) || (data45 === "shape")) || (data45 === "proof")) || (data45 === "retard")) || (data45 === "bake")) || (data45 === "cool")) || (data45 === "other"))){
+const err107 = {instancePath:instancePath+"/process/" + i4+"/step",schemaPath:"#/properties/process/items/properties/step/enum",keyword:"enum",params:{allowedValues: schema11.properties.process.items.properties.step.enum},message:"must be equal to one of the allowed values"};
 if(vErrors === null){
 vErrors = [err107];
 }
@@ -1485,8 +1462,14 @@ vErrors.push(err107);
 errors++;
 }
 }
-else {
-const err108 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data44.minutes !== undefined){
+let data46 = data44.minutes;
+const _errs122 = errors;
+let valid26 = false;
+const _errs123 = errors;
+if(typeof data46 == "number"){
+if(data46 < 0 || isNaN(data46)){
+const err108 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf/0/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err108];
 }
@@ -1495,11 +1478,9 @@ vErrors.push(err108);
 }
 errors++;
 }
-var _valid6 = _errs124 === errors;
-valid26 = valid26 || _valid6;
 }
-if(!valid26){
-const err109 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+else {
+const err109 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err109];
 }
@@ -1508,23 +1489,13 @@ vErrors.push(err109);
 }
 errors++;
 }
-else {
-errors = _errs121;
-if(vErrors !== null){
-if(_errs121){
-vErrors.length = _errs121;
-}
-else {
-vErrors = null;
-}
-}
-}
-}
-if(data41.temperature !== undefined){
-let data45 = data41.temperature;
-if(typeof data45 === "string"){
-if(!pattern5.test(data45)){
-const err110 = {instancePath:instancePath+"/process/" + i4+"/temperature",schemaPath:"#/properties/process/items/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
+var _valid5 = _errs123 === errors;
+valid26 = valid26 || _valid5;
+if(!valid26){
+const _errs125 = errors;
+if(typeof data46 === "string"){
+if(!pattern11.test(data46)){
+const err110 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err110];
 }
@@ -1535,7 +1506,7 @@ errors++;
 }
 }
 else {
-const err111 = {instancePath:instancePath+"/process/" + i4+"/temperature",schemaPath:"#/properties/process/items/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
+const err111 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err111];
 }
@@ -1544,12 +1515,11 @@ vErrors.push(err111);
 }
 errors++;
 }
+var _valid5 = _errs125 === errors;
+valid26 = valid26 || _valid5;
 }
-if(data41.folds !== undefined){
-let data46 = data41.folds;
-if(data46 && typeof data46 == "object" && !Array.isArray(data46)){
-if(data46.count === undefined){
-const err112 = {instancePath:instancePath+"/process/" + i4+"/folds",schemaPath:"#/properties/process/items/properties/folds/required",keyword:"required",params:{missingProperty: "count"},message:"must have required property '"+"count"+"'"};
+if(!valid26){
+const err112 = {instancePath:instancePath+"/process/" + i4+"/minutes",schemaPath:"#/properties/process/items/properties/minutes/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
 if(vErrors === null){
 vErrors = [err112];
 }
@@ -1558,8 +1528,26 @@ vErrors.push(err112);
 }
 errors++;
 }
-if(data46.every === undefined){
-const err113 = {instancePath:instancePath+"/process/" + i4+"/folds",schemaPath:"#/properties/process/items/properties/folds/required",keyword:"required",params:{missingProperty: "every"},message:"must have required property '"+"every"+"'"};
+else {
+errors = _errs122;
+if(vErrors !== null){
+if(_errs122){
+vErrors.length = _errs122;
+}
+else {
+vErrors = null;
+}
+}
+}
+}
+if(data44.hours !== undefined){
+let data47 = data44.hours;
+const _errs128 = errors;
+let valid27 = false;
+const _errs129 = errors;
+if(typeof data47 == "number"){
+if(data47 < 0 || isNaN(data47)){
+const err113 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf/0/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err113];
 }
@@ -1568,9 +1556,9 @@ vErrors.push(err113);
 }
 errors++;
 }
-for(const key11 in data46){
-if(!((key11 === "count") || (key11 === "every"))){
-const err114 = {instancePath:instancePath+"/process/" + i4+"/folds",schemaPath:"#/properties/process/items/properties/folds/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key11},message:"must NOT have additional properties"};
+}
+else {
+const err114 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err114];
 }
@@ -1579,11 +1567,13 @@ vErrors.push(err114);
 }
 errors++;
 }
-}
-if(data46.count !== undefined){
-let data47 = data46.count;
-if(!((typeof data47 == "number") && (!(data47 % 1) && !isNaN(data47)))){
-const err115 = {instancePath:instancePath+"/process/" + i4+"/folds/count",schemaPath:"#/properties/process/items/properties/folds/properties/count/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
+var _valid6 = _errs129 === errors;
+valid27 = valid27 || _valid6;
+if(!valid27){
+const _errs131 = errors;
+if(typeof data47 === "string"){
+if(!pattern11.test(data47)){
+const err115 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err115];
 }
@@ -1592,9 +1582,9 @@ vErrors.push(err115);
 }
 errors++;
 }
-if(typeof data47 == "number"){
-if(data47 < 1 || isNaN(data47)){
-const err116 = {instancePath:instancePath+"/process/" + i4+"/folds/count",schemaPath:"#/properties/process/items/properties/folds/properties/count/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
+}
+else {
+const err116 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err116];
 }
@@ -1603,13 +1593,11 @@ vErrors.push(err116);
 }
 errors++;
 }
+var _valid6 = _errs131 === errors;
+valid27 = valid27 || _valid6;
 }
-}
-if(data46.every !== undefined){
-let data48 = data46.every;
-if(typeof data48 == "number"){
-if(data48 <= 0 || isNaN(data48)){
-const err117 = {instancePath:instancePath+"/process/" + i4+"/folds/every",schemaPath:"#/properties/process/items/properties/folds/properties/every/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
+if(!valid27){
+const err117 = {instancePath:instancePath+"/process/" + i4+"/hours",schemaPath:"#/properties/process/items/properties/hours/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
 if(vErrors === null){
 vErrors = [err117];
 }
@@ -1618,9 +1606,23 @@ vErrors.push(err117);
 }
 errors++;
 }
+else {
+errors = _errs128;
+if(vErrors !== null){
+if(_errs128){
+vErrors.length = _errs128;
 }
 else {
-const err118 = {instancePath:instancePath+"/process/" + i4+"/folds/every",schemaPath:"#/properties/process/items/properties/folds/properties/every/type",keyword:"type",params:{type: "number"},message:"must be number"};
+vErrors = null;
+}
+}
+}
+}
+if(data44.temperature !== undefined){
+let data48 = data44.temperature;
+if(typeof data48 === "string"){
+if(!pattern6.test(data48)){
+const err118 = {instancePath:instancePath+"/process/" + i4+"/temperature",schemaPath:"#/properties/process/items/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err118];
 }
@@ -1630,9 +1632,8 @@ vErrors.push(err118);
 errors++;
 }
 }
-}
 else {
-const err119 = {instancePath:instancePath+"/process/" + i4+"/folds",schemaPath:"#/properties/process/items/properties/folds/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err119 = {instancePath:instancePath+"/process/" + i4+"/temperature",schemaPath:"#/properties/process/items/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err119];
 }
@@ -1642,10 +1643,11 @@ vErrors.push(err119);
 errors++;
 }
 }
-if(data41.vessel !== undefined){
-let data49 = data41.vessel;
-if(typeof data49 !== "string"){
-const err120 = {instancePath:instancePath+"/process/" + i4+"/vessel",schemaPath:"#/properties/process/items/properties/vessel/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data44.folds !== undefined){
+let data49 = data44.folds;
+if(data49 && typeof data49 == "object" && !Array.isArray(data49)){
+if(data49.count === undefined){
+const err120 = {instancePath:instancePath+"/process/" + i4+"/folds",schemaPath:"#/properties/process/items/properties/folds/required",keyword:"required",params:{missingProperty: "count"},message:"must have required property '"+"count"+"'"};
 if(vErrors === null){
 vErrors = [err120];
 }
@@ -1654,8 +1656,8 @@ vErrors.push(err120);
 }
 errors++;
 }
-if(!(((((data49 === "deck") || (data49 === "tray")) || (data49 === "pot")) || (data49 === "tin")) || (data49 === "stone"))){
-const err121 = {instancePath:instancePath+"/process/" + i4+"/vessel",schemaPath:"#/properties/process/items/properties/vessel/enum",keyword:"enum",params:{allowedValues: schema11.properties.process.items.properties.vessel.enum},message:"must be equal to one of the allowed values"};
+if(data49.every === undefined){
+const err121 = {instancePath:instancePath+"/process/" + i4+"/folds",schemaPath:"#/properties/process/items/properties/folds/required",keyword:"required",params:{missingProperty: "every"},message:"must have required property '"+"every"+"'"};
 if(vErrors === null){
 vErrors = [err121];
 }
@@ -1664,12 +1666,9 @@ vErrors.push(err121);
 }
 errors++;
 }
-}
-if(data41.covered !== undefined){
-let data50 = data41.covered;
-if(typeof data50 == "number"){
-if(data50 < 0 || isNaN(data50)){
-const err122 = {instancePath:instancePath+"/process/" + i4+"/covered",schemaPath:"#/properties/process/items/properties/covered/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+for(const key12 in data49){
+if(!((key12 === "count") || (key12 === "every"))){
+const err122 = {instancePath:instancePath+"/process/" + i4+"/folds",schemaPath:"#/properties/process/items/properties/folds/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key12},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err122];
 }
@@ -1679,8 +1678,10 @@ vErrors.push(err122);
 errors++;
 }
 }
-else {
-const err123 = {instancePath:instancePath+"/process/" + i4+"/covered",schemaPath:"#/properties/process/items/properties/covered/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(data49.count !== undefined){
+let data50 = data49.count;
+if(!((typeof data50 == "number") && (!(data50 % 1) && !isNaN(data50)))){
+const err123 = {instancePath:instancePath+"/process/" + i4+"/folds/count",schemaPath:"#/properties/process/items/properties/folds/properties/count/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
 if(vErrors === null){
 vErrors = [err123];
 }
@@ -1689,10 +1690,9 @@ vErrors.push(err123);
 }
 errors++;
 }
-}
-if(data41.steam !== undefined){
-if(typeof data41.steam !== "boolean"){
-const err124 = {instancePath:instancePath+"/process/" + i4+"/steam",schemaPath:"#/properties/process/items/properties/steam/type",keyword:"type",params:{type: "boolean"},message:"must be boolean"};
+if(typeof data50 == "number"){
+if(data50 < 1 || isNaN(data50)){
+const err124 = {instancePath:instancePath+"/process/" + i4+"/folds/count",schemaPath:"#/properties/process/items/properties/folds/properties/count/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
 if(vErrors === null){
 vErrors = [err124];
 }
@@ -1702,11 +1702,12 @@ vErrors.push(err124);
 errors++;
 }
 }
-if(data41.per_slot !== undefined){
-let data52 = data41.per_slot;
-if(typeof data52 == "number"){
-if(data52 <= 0 || isNaN(data52)){
-const err125 = {instancePath:instancePath+"/process/" + i4+"/per_slot",schemaPath:"#/properties/process/items/properties/per_slot/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
+}
+if(data49.every !== undefined){
+let data51 = data49.every;
+if(typeof data51 == "number"){
+if(data51 <= 0 || isNaN(data51)){
+const err125 = {instancePath:instancePath+"/process/" + i4+"/folds/every",schemaPath:"#/properties/process/items/properties/folds/properties/every/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
 if(vErrors === null){
 vErrors = [err125];
 }
@@ -1717,7 +1718,7 @@ errors++;
 }
 }
 else {
-const err126 = {instancePath:instancePath+"/process/" + i4+"/per_slot",schemaPath:"#/properties/process/items/properties/per_slot/type",keyword:"type",params:{type: "number"},message:"must be number"};
+const err126 = {instancePath:instancePath+"/process/" + i4+"/folds/every",schemaPath:"#/properties/process/items/properties/folds/properties/every/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err126];
 }
@@ -1727,11 +1728,9 @@ vErrors.push(err126);
 errors++;
 }
 }
-if(data41.seconds_per_piece !== undefined){
-let data53 = data41.seconds_per_piece;
-if(typeof data53 == "number"){
-if(data53 <= 0 || isNaN(data53)){
-const err127 = {instancePath:instancePath+"/process/" + i4+"/seconds_per_piece",schemaPath:"#/properties/process/items/properties/seconds_per_piece/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
+}
+else {
+const err127 = {instancePath:instancePath+"/process/" + i4+"/folds",schemaPath:"#/properties/process/items/properties/folds/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err127];
 }
@@ -1741,8 +1740,10 @@ vErrors.push(err127);
 errors++;
 }
 }
-else {
-const err128 = {instancePath:instancePath+"/process/" + i4+"/seconds_per_piece",schemaPath:"#/properties/process/items/properties/seconds_per_piece/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(data44.vessel !== undefined){
+let data52 = data44.vessel;
+if(typeof data52 !== "string"){
+const err128 = {instancePath:instancePath+"/process/" + i4+"/vessel",schemaPath:"#/properties/process/items/properties/vessel/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err128];
 }
@@ -1751,10 +1752,8 @@ vErrors.push(err128);
 }
 errors++;
 }
-}
-if(data41.note !== undefined){
-if(typeof data41.note !== "string"){
-const err129 = {instancePath:instancePath+"/process/" + i4+"/note",schemaPath:"#/properties/process/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(!(((((data52 === "deck") || (data52 === "tray")) || (data52 === "pot")) || (data52 === "tin")) || (data52 === "stone"))){
+const err129 = {instancePath:instancePath+"/process/" + i4+"/vessel",schemaPath:"#/properties/process/items/properties/vessel/enum",keyword:"enum",params:{allowedValues: schema11.properties.process.items.properties.vessel.enum},message:"must be equal to one of the allowed values"};
 if(vErrors === null){
 vErrors = [err129];
 }
@@ -1764,9 +1763,11 @@ vErrors.push(err129);
 errors++;
 }
 }
-}
-else {
-const err130 = {instancePath:instancePath+"/process/" + i4,schemaPath:"#/properties/process/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data44.covered !== undefined){
+let data53 = data44.covered;
+if(typeof data53 == "number"){
+if(data53 < 0 || isNaN(data53)){
+const err130 = {instancePath:instancePath+"/process/" + i4+"/covered",schemaPath:"#/properties/process/items/properties/covered/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err130];
 }
@@ -1776,9 +1777,8 @@ vErrors.push(err130);
 errors++;
 }
 }
-}
 else {
-const err131 = {instancePath:instancePath+"/process",schemaPath:"#/properties/process/type",keyword:"type",params:{type: "array"},message:"must be array"};
+const err131 = {instancePath:instancePath+"/process/" + i4+"/covered",schemaPath:"#/properties/process/items/properties/covered/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err131];
 }
@@ -1788,15 +1788,9 @@ vErrors.push(err131);
 errors++;
 }
 }
-if(data.finishes !== undefined){
-let data55 = data.finishes;
-if(Array.isArray(data55)){
-const len4 = data55.length;
-for(let i5=0; i5<len4; i5++){
-let data56 = data55[i5];
-if(data56 && typeof data56 == "object" && !Array.isArray(data56)){
-if(data56.ingredient === undefined){
-const err132 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/required",keyword:"required",params:{missingProperty: "ingredient"},message:"must have required property '"+"ingredient"+"'"};
+if(data44.steam !== undefined){
+if(typeof data44.steam !== "boolean"){
+const err132 = {instancePath:instancePath+"/process/" + i4+"/steam",schemaPath:"#/properties/process/items/properties/steam/type",keyword:"type",params:{type: "boolean"},message:"must be boolean"};
 if(vErrors === null){
 vErrors = [err132];
 }
@@ -1805,8 +1799,12 @@ vErrors.push(err132);
 }
 errors++;
 }
-if(data56.per_piece === undefined){
-const err133 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/required",keyword:"required",params:{missingProperty: "per_piece"},message:"must have required property '"+"per_piece"+"'"};
+}
+if(data44.per_slot !== undefined){
+let data55 = data44.per_slot;
+if(typeof data55 == "number"){
+if(data55 <= 0 || isNaN(data55)){
+const err133 = {instancePath:instancePath+"/process/" + i4+"/per_slot",schemaPath:"#/properties/process/items/properties/per_slot/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
 if(vErrors === null){
 vErrors = [err133];
 }
@@ -1815,8 +1813,9 @@ vErrors.push(err133);
 }
 errors++;
 }
-if(data56.use === undefined){
-const err134 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/required",keyword:"required",params:{missingProperty: "use"},message:"must have required property '"+"use"+"'"};
+}
+else {
+const err134 = {instancePath:instancePath+"/process/" + i4+"/per_slot",schemaPath:"#/properties/process/items/properties/per_slot/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err134];
 }
@@ -1825,9 +1824,12 @@ vErrors.push(err134);
 }
 errors++;
 }
-for(const key12 in data56){
-if(!((((key12 === "ingredient") || (key12 === "per_piece")) || (key12 === "use")) || (key12 === "note"))){
-const err135 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key12},message:"must NOT have additional properties"};
+}
+if(data44.seconds_per_piece !== undefined){
+let data56 = data44.seconds_per_piece;
+if(typeof data56 == "number"){
+if(data56 <= 0 || isNaN(data56)){
+const err135 = {instancePath:instancePath+"/process/" + i4+"/seconds_per_piece",schemaPath:"#/properties/process/items/properties/seconds_per_piece/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
 if(vErrors === null){
 vErrors = [err135];
 }
@@ -1837,11 +1839,8 @@ vErrors.push(err135);
 errors++;
 }
 }
-if(data56.ingredient !== undefined){
-let data57 = data56.ingredient;
-if(typeof data57 === "string"){
-if(func3(data57) < 1){
-const err136 = {instancePath:instancePath+"/finishes/" + i5+"/ingredient",schemaPath:"#/properties/finishes/items/properties/ingredient/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+else {
+const err136 = {instancePath:instancePath+"/process/" + i4+"/seconds_per_piece",schemaPath:"#/properties/process/items/properties/seconds_per_piece/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err136];
 }
@@ -1851,8 +1850,9 @@ vErrors.push(err136);
 errors++;
 }
 }
-else {
-const err137 = {instancePath:instancePath+"/finishes/" + i5+"/ingredient",schemaPath:"#/properties/finishes/items/properties/ingredient/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data44.note !== undefined){
+if(typeof data44.note !== "string"){
+const err137 = {instancePath:instancePath+"/process/" + i4+"/note",schemaPath:"#/properties/process/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err137];
 }
@@ -1862,11 +1862,9 @@ vErrors.push(err137);
 errors++;
 }
 }
-if(data56.per_piece !== undefined){
-let data58 = data56.per_piece;
-if(typeof data58 === "string"){
-if(!pattern2.test(data58)){
-const err138 = {instancePath:instancePath+"/finishes/" + i5+"/per_piece",schemaPath:"#/properties/finishes/items/properties/per_piece/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
+}
+else {
+const err138 = {instancePath:instancePath+"/process/" + i4,schemaPath:"#/properties/process/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err138];
 }
@@ -1876,8 +1874,9 @@ vErrors.push(err138);
 errors++;
 }
 }
+}
 else {
-const err139 = {instancePath:instancePath+"/finishes/" + i5+"/per_piece",schemaPath:"#/properties/finishes/items/properties/per_piece/type",keyword:"type",params:{type: "string"},message:"must be string"};
+const err139 = {instancePath:instancePath+"/process",schemaPath:"#/properties/process/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err139];
 }
@@ -1887,10 +1886,15 @@ vErrors.push(err139);
 errors++;
 }
 }
-if(data56.use !== undefined){
-let data59 = data56.use;
-if(typeof data59 !== "string"){
-const err140 = {instancePath:instancePath+"/finishes/" + i5+"/use",schemaPath:"#/properties/finishes/items/properties/use/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data.finishes !== undefined){
+let data58 = data.finishes;
+if(Array.isArray(data58)){
+const len4 = data58.length;
+for(let i5=0; i5<len4; i5++){
+let data59 = data58[i5];
+if(data59 && typeof data59 == "object" && !Array.isArray(data59)){
+if(data59.ingredient === undefined){
+const err140 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/required",keyword:"required",params:{missingProperty: "ingredient"},message:"must have required property '"+"ingredient"+"'"};
 if(vErrors === null){
 vErrors = [err140];
 }
@@ -1899,8 +1903,8 @@ vErrors.push(err140);
 }
 errors++;
 }
-if(!((((data59 === "topping") || (data59 === "wash")) || (data59 === "tray")) || (data59 === "dusting"))){
-const err141 = {instancePath:instancePath+"/finishes/" + i5+"/use",schemaPath:"#/properties/finishes/items/properties/use/enum",keyword:"enum",params:{allowedValues: schema11.properties.finishes.items.properties.use.enum},message:"must be equal to one of the allowed values"};
+if(data59.per_piece === undefined){
+const err141 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/required",keyword:"required",params:{missingProperty: "per_piece"},message:"must have required property '"+"per_piece"+"'"};
 if(vErrors === null){
 vErrors = [err141];
 }
@@ -1909,10 +1913,8 @@ vErrors.push(err141);
 }
 errors++;
 }
-}
-if(data56.note !== undefined){
-if(typeof data56.note !== "string"){
-const err142 = {instancePath:instancePath+"/finishes/" + i5+"/note",schemaPath:"#/properties/finishes/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data59.use === undefined){
+const err142 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/required",keyword:"required",params:{missingProperty: "use"},message:"must have required property '"+"use"+"'"};
 if(vErrors === null){
 vErrors = [err142];
 }
@@ -1921,10 +1923,9 @@ vErrors.push(err142);
 }
 errors++;
 }
-}
-}
-else {
-const err143 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+for(const key13 in data59){
+if(!((((key13 === "ingredient") || (key13 === "per_piece")) || (key13 === "use")) || (key13 === "note"))){
+const err143 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key13},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err143];
 }
@@ -1934,9 +1935,11 @@ vErrors.push(err143);
 errors++;
 }
 }
-}
-else {
-const err144 = {instancePath:instancePath+"/finishes",schemaPath:"#/properties/finishes/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(data59.ingredient !== undefined){
+let data60 = data59.ingredient;
+if(typeof data60 === "string"){
+if(func3(data60) < 1){
+const err144 = {instancePath:instancePath+"/finishes/" + i5+"/ingredient",schemaPath:"#/properties/finishes/items/properties/ingredient/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err144];
 }
@@ -1946,14 +1949,8 @@ vErrors.push(err144);
 errors++;
 }
 }
-if(data.may_contain !== undefined){
-let data61 = data.may_contain;
-if(Array.isArray(data61)){
-const len5 = data61.length;
-for(let i6=0; i6<len5; i6++){
-let data62 = data61[i6];
-if(typeof data62 !== "string"){
-const err145 = {instancePath:instancePath+"/may_contain/" + i6,schemaPath:"#/properties/may_contain/items/type",keyword:"type",params:{type: "string"},message:"must be string"};
+else {
+const err145 = {instancePath:instancePath+"/finishes/" + i5+"/ingredient",schemaPath:"#/properties/finishes/items/properties/ingredient/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err145];
 }
@@ -1962,8 +1959,12 @@ vErrors.push(err145);
 }
 errors++;
 }
-if(!((((((((((((((((((((((((((data62 === "wheat") || (data62 === "rye")) || (data62 === "barley")) || (data62 === "oats")) || (data62 === "spelt")) || (data62 === "khorasan")) || (data62 === "crustaceans")) || (data62 === "eggs")) || (data62 === "fish")) || (data62 === "peanuts")) || (data62 === "soybeans")) || (data62 === "milk")) || (data62 === "almonds")) || (data62 === "hazelnuts")) || (data62 === "walnuts")) || (data62 === "cashews")) || (data62 === "pecans")) || (data62 === "brazil-nuts")) || (data62 === "pistachios")) || (data62 === "macadamia")) || (data62 === "celery")) || (data62 === "mustard")) || (data62 === "sesame")) || (data62 === "sulphites")) || (data62 === "lupin")) || (data62 === "molluscs"))){
-const err146 = {instancePath:instancePath+"/may_contain/" + i6,schemaPath:"#/properties/may_contain/items/enum",keyword:"enum",params:{allowedValues: schema11.properties.may_contain.items.enum},message:"must be equal to one of the allowed values"};
+}
+if(data59.per_piece !== undefined){
+let data61 = data59.per_piece;
+if(typeof data61 === "string"){
+if(!pattern2.test(data61)){
+const err146 = {instancePath:instancePath+"/finishes/" + i5+"/per_piece",schemaPath:"#/properties/finishes/items/properties/per_piece/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err146];
 }
@@ -1973,18 +1974,8 @@ vErrors.push(err146);
 errors++;
 }
 }
-let i7 = data61.length;
-let j1;
-if(i7 > 1){
-const indices1 = {};
-for(;i7--;){
-let item1 = data61[i7];
-if(typeof item1 !== "string"){
-continue;
-}
-if(typeof indices1[item1] == "number"){
-j1 = indices1[item1];
-const err147 = {instancePath:instancePath+"/may_contain",schemaPath:"#/properties/may_contain/uniqueItems",keyword:"uniqueItems",params:{i: i7, j: j1},message:"must NOT have duplicate items (items ## "+j1+" and "+i7+" are identical)"};
+else {
+const err147 = {instancePath:instancePath+"/finishes/" + i5+"/per_piece",schemaPath:"#/properties/finishes/items/properties/per_piece/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err147];
 }
@@ -1992,14 +1983,12 @@ else {
 vErrors.push(err147);
 }
 errors++;
-break;
-}
-indices1[item1] = i7;
 }
 }
-}
-else {
-const err148 = {instancePath:instancePath+"/may_contain",schemaPath:"#/properties/may_contain/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(data59.use !== undefined){
+let data62 = data59.use;
+if(typeof data62 !== "string"){
+const err148 = {instancePath:instancePath+"/finishes/" + i5+"/use",schemaPath:"#/properties/finishes/items/properties/use/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err148];
 }
@@ -2008,10 +1997,8 @@ vErrors.push(err148);
 }
 errors++;
 }
-}
-if(data.notes !== undefined){
-if(typeof data.notes !== "string"){
-const err149 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(!((((data62 === "topping") || (data62 === "wash")) || (data62 === "tray")) || (data62 === "dusting"))){
+const err149 = {instancePath:instancePath+"/finishes/" + i5+"/use",schemaPath:"#/properties/finishes/items/properties/use/enum",keyword:"enum",params:{allowedValues: schema11.properties.finishes.items.properties.use.enum},message:"must be equal to one of the allowed values"};
 if(vErrors === null){
 vErrors = [err149];
 }
@@ -2021,14 +2008,125 @@ vErrors.push(err149);
 errors++;
 }
 }
-}
-else {
-const err150 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data59.note !== undefined){
+if(typeof data59.note !== "string"){
+const err150 = {instancePath:instancePath+"/finishes/" + i5+"/note",schemaPath:"#/properties/finishes/items/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err150];
 }
 else {
 vErrors.push(err150);
+}
+errors++;
+}
+}
+}
+else {
+const err151 = {instancePath:instancePath+"/finishes/" + i5,schemaPath:"#/properties/finishes/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err151];
+}
+else {
+vErrors.push(err151);
+}
+errors++;
+}
+}
+}
+else {
+const err152 = {instancePath:instancePath+"/finishes",schemaPath:"#/properties/finishes/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(vErrors === null){
+vErrors = [err152];
+}
+else {
+vErrors.push(err152);
+}
+errors++;
+}
+}
+if(data.may_contain !== undefined){
+let data64 = data.may_contain;
+if(Array.isArray(data64)){
+const len5 = data64.length;
+for(let i6=0; i6<len5; i6++){
+let data65 = data64[i6];
+if(typeof data65 !== "string"){
+const err153 = {instancePath:instancePath+"/may_contain/" + i6,schemaPath:"#/properties/may_contain/items/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err153];
+}
+else {
+vErrors.push(err153);
+}
+errors++;
+}
+if(!((((((((((((((((((((((((((data65 === "wheat") || (data65 === "rye")) || (data65 === "barley")) || (data65 === "oats")) || (data65 === "spelt")) || (data65 === "khorasan")) || (data65 === "crustaceans")) || (data65 === "eggs")) || (data65 === "fish")) || (data65 === "peanuts")) || (data65 === "soybeans")) || (data65 === "milk")) || (data65 === "almonds")) || (data65 === "hazelnuts")) || (data65 === "walnuts")) || (data65 === "cashews")) || (data65 === "pecans")) || (data65 === "brazil-nuts")) || (data65 === "pistachios")) || (data65 === "macadamia")) || (data65 === "celery")) || (data65 === "mustard")) || (data65 === "sesame")) || (data65 === "sulphites")) || (data65 === "lupin")) || (data65 === "molluscs"))){
+const err154 = {instancePath:instancePath+"/may_contain/" + i6,schemaPath:"#/properties/may_contain/items/enum",keyword:"enum",params:{allowedValues: schema11.properties.may_contain.items.enum},message:"must be equal to one of the allowed values"};
+if(vErrors === null){
+vErrors = [err154];
+}
+else {
+vErrors.push(err154);
+}
+errors++;
+}
+}
+let i7 = data64.length;
+let j1;
+if(i7 > 1){
+const indices1 = {};
+for(;i7--;){
+let item1 = data64[i7];
+if(typeof item1 !== "string"){
+continue;
+}
+if(typeof indices1[item1] == "number"){
+j1 = indices1[item1];
+const err155 = {instancePath:instancePath+"/may_contain",schemaPath:"#/properties/may_contain/uniqueItems",keyword:"uniqueItems",params:{i: i7, j: j1},message:"must NOT have duplicate items (items ## "+j1+" and "+i7+" are identical)"};
+if(vErrors === null){
+vErrors = [err155];
+}
+else {
+vErrors.push(err155);
+}
+errors++;
+break;
+}
+indices1[item1] = i7;
+}
+}
+}
+else {
+const err156 = {instancePath:instancePath+"/may_contain",schemaPath:"#/properties/may_contain/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(vErrors === null){
+vErrors = [err156];
+}
+else {
+vErrors.push(err156);
+}
+errors++;
+}
+}
+if(data.notes !== undefined){
+if(typeof data.notes !== "string"){
+const err157 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err157];
+}
+else {
+vErrors.push(err157);
+}
+errors++;
+}
+}
+}
+else {
+const err158 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err158];
+}
+else {
+vErrors.push(err158);
 }
 errors++;
 }
@@ -2038,7 +2136,7 @@ return errors === 0;
 
 export const catalog = validate11;
 const schema12 = {"$schema":"http://json-schema.org/draft-07/schema#","$id":"https://panform.example/schema/catalog.schema.json","title":"Panform ingredient catalog","type":"object","patternProperties":{"^(.*)$":{"additionalProperties":false,"type":"object","required":["kind"],"properties":{"kind":{"type":"string","enum":["flour","water","salt","yeast","sugar","fat","dairy","egg","seed","inclusion","culture","improver","other"]},"water":{"description":"Water content in percent of its weight.","anyOf":[{"minimum":0,"maximum":100,"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"allergens":{"uniqueItems":true,"type":"array","items":{"type":"string","enum":["wheat","rye","barley","oats","spelt","khorasan","crustaceans","eggs","fish","peanuts","soybeans","milk","almonds","hazelnuts","walnuts","cashews","pecans","brazil-nuts","pistachios","macadamia","celery","mustard","sesame","sulphites","lupin","molluscs"],"description":"An allergen code; the EU and US roll-ups are derived from these."}},"yeast":{"type":"string","enum":["fresh","active-dry","instant"]},"yeast_factor":{"exclusiveMinimum":0,"description":"Grams of this yeast that replace 1 g of fresh yeast (default: fresh 1, active-dry 0.4, instant 0.33).","type":"number"},"hydration":{"description":"A percentage, e.g. \"2 %\" or 2.","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"fed_with":{"minLength":1,"type":"string"},"cost_per_kg":{"minimum":0,"type":"number"},"cost_date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","type":"string"},"components":{"minItems":1,"type":"array","items":{"minLength":1,"type":"string"}},"label":{"minLength":1,"description":"Name on the ingredient statement.","type":"string"},"labels":{"additionalProperties":false,"description":"The name on the statement for one market, where it differs from label.","type":"object","properties":{"eu":{"minLength":1,"type":"string"},"us":{"minLength":1,"type":"string"}}},"nutrients":{"additionalProperties":false,"description":"Per 100 g, grams unless the key says mg.","type":"object","required":["fat","saturates","carbohydrate","sugars","fibre","protein","sodium_mg","source"],"properties":{"fat":{"minimum":0,"maximum":100,"description":"Fat, g per 100 g.","type":"number"},"saturates":{"minimum":0,"maximum":100,"description":"Saturated fatty acids, g per 100 g.","type":"number"},"carbohydrate":{"minimum":0,"maximum":100,"description":"Total carbohydrate (by difference, fibre included), g per 100 g.","type":"number"},"sugars":{"minimum":0,"maximum":100,"description":"Total sugars, g per 100 g.","type":"number"},"fibre":{"minimum":0,"maximum":100,"description":"Dietary fibre, g per 100 g.","type":"number"},"protein":{"minimum":0,"maximum":100,"description":"Protein, g per 100 g.","type":"number"},"sodium_mg":{"minimum":0,"maximum":100000,"description":"Sodium, mg per 100 g.","type":"number"},"source":{"minLength":1,"description":"Where the values come from: a supplier specification, or a food composition table and its number.","type":"string"}}},"note":{"type":"string"}}}}};
-const pattern23 = new RegExp("^[0-9]{4}-[0-9]{2}-[0-9]{2}$", "u");
+const pattern24 = new RegExp("^[0-9]{4}-[0-9]{2}-[0-9]{2}$", "u");
 
 function validate11(data, {instancePath="", parentData, parentDataProperty, rootData=data}={}){
 /*# sourceURL="https://panform.example/schema/catalog.schema.json" */;
@@ -2046,7 +2144,7 @@ let vErrors = null;
 let errors = 0;
 if(data && typeof data == "object" && !Array.isArray(data)){
 for(const key0 in data){
-if(pattern6.test(key0)){
+if(pattern7.test(key0)){
 let data0 = data[key0];
 if(data0 && typeof data0 == "object" && !Array.isArray(data0)){
 if(data0.kind === undefined){
@@ -2412,7 +2510,7 @@ errors++;
 if(data0.cost_date !== undefined){
 let data10 = data0.cost_date;
 if(typeof data10 === "string"){
-if(!pattern23.test(data10)){
+if(!pattern24.test(data10)){
 const err26 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/cost_date",schemaPath:"#/patternProperties/%5E(.*)%24/properties/cost_date/pattern",keyword:"pattern",params:{pattern: "^[0-9]{4}-[0-9]{2}-[0-9]{2}$"},message:"must match pattern \""+"^[0-9]{4}-[0-9]{2}-[0-9]{2}$"+"\""};
 if(vErrors === null){
 vErrors = [err26];
@@ -3005,9 +3103,9 @@ return errors === 0;
 }
 
 export const plan = validate12;
-const schema13 = {"$schema":"http://json-schema.org/draft-07/schema#","additionalProperties":false,"$id":"https://panform.example/schema/plan.schema.json","title":"Panform production plan","type":"object","required":["date","ready_by","conditions","mixers","orders"],"properties":{"$schema":{"type":"string"},"date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","type":"string"},"ready_by":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"First bake out of the oven, \"HH:MM\".","type":"string"},"conditions":{"additionalProperties":false,"type":"object","required":["room","flour","tap_water"],"properties":{"room":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"flour":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"tap_water":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"preferment":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"}}},"mixers":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","capacity","friction"],"properties":{"name":{"minLength":1,"type":"string"},"capacity":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"minimum":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"friction":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"Temperature rise from mixing, as a difference.","type":"string"},"clean_down":{"minimum":0,"description":"Minutes to clean the bowl and hook before a dough without an allergen follows one with it.","type":"number"}}}},"ovens":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","decks","slots"],"properties":{"name":{"minLength":1,"type":"string"},"decks":{"minimum":1,"description":"Independent chambers, each with its own temperature (a rack oven: 1).","type":"integer"},"slots":{"minimum":1,"description":"Trays or peel places per deck.","type":"integer"},"heat":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$","description":"How fast a deck heats up, e.g. \"4 °C/min\".","type":"string"},"cool":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$","description":"How fast a deck cools down, e.g. \"2 °C/min\".","type":"string"},"steam":{"description":"The oven can steam.","type":"boolean"},"fan":{"description":"A fan (convection or rack) oven: trays, tins and pots, no bread on the sole.","type":"boolean"}}}},"bench":{"minItems":1,"description":"Shifts of people for dividing, preshaping and shaping.","type":"array","items":{"additionalProperties":false,"type":"object","required":["from","to","people"],"properties":{"from":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"Start, \"HH:MM\".","type":"string"},"to":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"End, \"HH:MM\"; a time not after `from` ends the next day.","type":"string"},"people":{"minimum":1,"description":"People on the bench for dividing, preshaping and shaping.","type":"integer"},"date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","description":"The day the shift starts; default the plan's date.","type":"string"}}}},"orders":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["formula","pieces"],"properties":{"formula":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","type":"string"},"pieces":{"minimum":1,"type":"integer"},"piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"mixer":{"minLength":1,"type":"string"},"oven":{"minLength":1,"description":"The oven to bake it in; default any oven that suits the bake.","type":"string"},"customer":{"type":"string"},"due":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"When the last piece must be out of the oven, \"HH:MM\" on the plan's date; default ready_by.","type":"string"}}}},"ranges":{"description":"Which end of a step range the timeline uses; default mid.","anyOf":[{"const":"short","type":"string"},{"const":"mid","type":"string"},{"const":"long","type":"string"}]},"notes":{"type":"string"}}};
-const pattern25 = new RegExp("^([01][0-9]|2[0-3]):[0-5][0-9]$", "u");
-const pattern33 = new RegExp("^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$", "u");
+const schema13 = {"$schema":"http://json-schema.org/draft-07/schema#","additionalProperties":false,"$id":"https://panform.example/schema/plan.schema.json","title":"Panform production plan","type":"object","required":["date","ready_by","conditions","mixers","orders"],"properties":{"$schema":{"type":"string"},"date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","type":"string"},"ready_by":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"First bake out of the oven, \"HH:MM\".","type":"string"},"conditions":{"additionalProperties":false,"type":"object","required":["room","flour","tap_water"],"properties":{"room":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"flour":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"tap_water":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"preferment":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"}}},"mixers":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","capacity"],"properties":{"name":{"minLength":1,"type":"string"},"kind":{"type":"string","enum":["machine","hand"],"description":"machine (default) or hand; by hand the capacity is the batch one person mixes."},"capacity":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"minimum":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"rise":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"The mixer's temperature rise: how much warmer a dough comes off it than its ingredients' average (a difference).","type":"string"},"friction":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"The friction factor found on a straight dough (three factors: room, flour, water), a difference; rise = friction / 3.","type":"string"},"clean_down":{"minimum":0,"description":"Minutes to clean the bowl and hook before a dough without an allergen follows one with it.","type":"number"}}}},"ovens":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","decks","slots"],"properties":{"name":{"minLength":1,"type":"string"},"decks":{"minimum":1,"description":"Independent chambers, each with its own temperature (a rack oven: 1).","type":"integer"},"slots":{"minimum":1,"description":"Trays or peel places per deck.","type":"integer"},"heat":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$","description":"How fast a deck heats up, e.g. \"4 °C/min\".","type":"string"},"cool":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$","description":"How fast a deck cools down, e.g. \"2 °C/min\".","type":"string"},"steam":{"description":"The oven can steam.","type":"boolean"},"fan":{"description":"A fan (convection or rack) oven: trays, tins and pots, no bread on the sole.","type":"boolean"}}}},"bench":{"minItems":1,"description":"Shifts of people for dividing, preshaping and shaping.","type":"array","items":{"additionalProperties":false,"type":"object","required":["from","to","people"],"properties":{"from":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"Start, \"HH:MM\".","type":"string"},"to":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"End, \"HH:MM\"; a time not after `from` ends the next day.","type":"string"},"people":{"minimum":1,"description":"People on the bench for dividing, preshaping and shaping.","type":"integer"},"date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","description":"The day the shift starts; default the plan's date.","type":"string"}}}},"orders":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["formula","pieces"],"properties":{"formula":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","type":"string"},"pieces":{"minimum":1,"type":"integer"},"piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"mixer":{"minLength":1,"type":"string"},"oven":{"minLength":1,"description":"The oven to bake it in; default any oven that suits the bake.","type":"string"},"customer":{"type":"string"},"due":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"When the last piece must be out of the oven, \"HH:MM\" on the plan's date; default ready_by.","type":"string"}}}},"ranges":{"description":"Which end of a step range the timeline uses; default mid.","anyOf":[{"const":"short","type":"string"},{"const":"mid","type":"string"},{"const":"long","type":"string"}]},"notes":{"type":"string"}}};
+const pattern26 = new RegExp("^([01][0-9]|2[0-3]):[0-5][0-9]$", "u");
+const pattern35 = new RegExp("^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$", "u");
 
 function validate12(data, {instancePath="", parentData, parentDataProperty, rootData=data}={}){
 /*# sourceURL="https://panform.example/schema/plan.schema.json" */;
@@ -3091,7 +3189,7 @@ errors++;
 if(data.date !== undefined){
 let data1 = data.date;
 if(typeof data1 === "string"){
-if(!pattern23.test(data1)){
+if(!pattern24.test(data1)){
 const err7 = {instancePath:instancePath+"/date",schemaPath:"#/properties/date/pattern",keyword:"pattern",params:{pattern: "^[0-9]{4}-[0-9]{2}-[0-9]{2}$"},message:"must match pattern \""+"^[0-9]{4}-[0-9]{2}-[0-9]{2}$"+"\""};
 if(vErrors === null){
 vErrors = [err7];
@@ -3116,7 +3214,7 @@ errors++;
 if(data.ready_by !== undefined){
 let data2 = data.ready_by;
 if(typeof data2 === "string"){
-if(!pattern25.test(data2)){
+if(!pattern26.test(data2)){
 const err9 = {instancePath:instancePath+"/ready_by",schemaPath:"#/properties/ready_by/pattern",keyword:"pattern",params:{pattern: "^([01][0-9]|2[0-3]):[0-5][0-9]$"},message:"must match pattern \""+"^([01][0-9]|2[0-3]):[0-5][0-9]$"+"\""};
 if(vErrors === null){
 vErrors = [err9];
@@ -3186,7 +3284,7 @@ errors++;
 if(data3.room !== undefined){
 let data4 = data3.room;
 if(typeof data4 === "string"){
-if(!pattern5.test(data4)){
+if(!pattern6.test(data4)){
 const err15 = {instancePath:instancePath+"/conditions/room",schemaPath:"#/properties/conditions/properties/room/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err15];
@@ -3211,7 +3309,7 @@ errors++;
 if(data3.flour !== undefined){
 let data5 = data3.flour;
 if(typeof data5 === "string"){
-if(!pattern5.test(data5)){
+if(!pattern6.test(data5)){
 const err17 = {instancePath:instancePath+"/conditions/flour",schemaPath:"#/properties/conditions/properties/flour/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err17];
@@ -3236,7 +3334,7 @@ errors++;
 if(data3.tap_water !== undefined){
 let data6 = data3.tap_water;
 if(typeof data6 === "string"){
-if(!pattern5.test(data6)){
+if(!pattern6.test(data6)){
 const err19 = {instancePath:instancePath+"/conditions/tap_water",schemaPath:"#/properties/conditions/properties/tap_water/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err19];
@@ -3261,7 +3359,7 @@ errors++;
 if(data3.preferment !== undefined){
 let data7 = data3.preferment;
 if(typeof data7 === "string"){
-if(!pattern5.test(data7)){
+if(!pattern6.test(data7)){
 const err21 = {instancePath:instancePath+"/conditions/preferment",schemaPath:"#/properties/conditions/properties/preferment/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err21];
@@ -3332,8 +3430,9 @@ vErrors.push(err26);
 }
 errors++;
 }
-if(data9.friction === undefined){
-const err27 = {instancePath:instancePath+"/mixers/" + i0,schemaPath:"#/properties/mixers/items/required",keyword:"required",params:{missingProperty: "friction"},message:"must have required property '"+"friction"+"'"};
+for(const key2 in data9){
+if(!(((((((key2 === "name") || (key2 === "kind")) || (key2 === "capacity")) || (key2 === "minimum")) || (key2 === "rise")) || (key2 === "friction")) || (key2 === "clean_down"))){
+const err27 = {instancePath:instancePath+"/mixers/" + i0,schemaPath:"#/properties/mixers/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key2},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err27];
 }
@@ -3342,9 +3441,12 @@ vErrors.push(err27);
 }
 errors++;
 }
-for(const key2 in data9){
-if(!(((((key2 === "name") || (key2 === "capacity")) || (key2 === "minimum")) || (key2 === "friction")) || (key2 === "clean_down"))){
-const err28 = {instancePath:instancePath+"/mixers/" + i0,schemaPath:"#/properties/mixers/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key2},message:"must NOT have additional properties"};
+}
+if(data9.name !== undefined){
+let data10 = data9.name;
+if(typeof data10 === "string"){
+if(func3(data10) < 1){
+const err28 = {instancePath:instancePath+"/mixers/" + i0+"/name",schemaPath:"#/properties/mixers/items/properties/name/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err28];
 }
@@ -3354,11 +3456,8 @@ vErrors.push(err28);
 errors++;
 }
 }
-if(data9.name !== undefined){
-let data10 = data9.name;
-if(typeof data10 === "string"){
-if(func3(data10) < 1){
-const err29 = {instancePath:instancePath+"/mixers/" + i0+"/name",schemaPath:"#/properties/mixers/items/properties/name/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+else {
+const err29 = {instancePath:instancePath+"/mixers/" + i0+"/name",schemaPath:"#/properties/mixers/items/properties/name/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err29];
 }
@@ -3368,8 +3467,10 @@ vErrors.push(err29);
 errors++;
 }
 }
-else {
-const err30 = {instancePath:instancePath+"/mixers/" + i0+"/name",schemaPath:"#/properties/mixers/items/properties/name/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data9.kind !== undefined){
+let data11 = data9.kind;
+if(typeof data11 !== "string"){
+const err30 = {instancePath:instancePath+"/mixers/" + i0+"/kind",schemaPath:"#/properties/mixers/items/properties/kind/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err30];
 }
@@ -3378,12 +3479,8 @@ vErrors.push(err30);
 }
 errors++;
 }
-}
-if(data9.capacity !== undefined){
-let data11 = data9.capacity;
-if(typeof data11 === "string"){
-if(!pattern2.test(data11)){
-const err31 = {instancePath:instancePath+"/mixers/" + i0+"/capacity",schemaPath:"#/properties/mixers/items/properties/capacity/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
+if(!((data11 === "machine") || (data11 === "hand"))){
+const err31 = {instancePath:instancePath+"/mixers/" + i0+"/kind",schemaPath:"#/properties/mixers/items/properties/kind/enum",keyword:"enum",params:{allowedValues: schema13.properties.mixers.items.properties.kind.enum},message:"must be equal to one of the allowed values"};
 if(vErrors === null){
 vErrors = [err31];
 }
@@ -3393,8 +3490,11 @@ vErrors.push(err31);
 errors++;
 }
 }
-else {
-const err32 = {instancePath:instancePath+"/mixers/" + i0+"/capacity",schemaPath:"#/properties/mixers/items/properties/capacity/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data9.capacity !== undefined){
+let data12 = data9.capacity;
+if(typeof data12 === "string"){
+if(!pattern2.test(data12)){
+const err32 = {instancePath:instancePath+"/mixers/" + i0+"/capacity",schemaPath:"#/properties/mixers/items/properties/capacity/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err32];
 }
@@ -3404,11 +3504,8 @@ vErrors.push(err32);
 errors++;
 }
 }
-if(data9.minimum !== undefined){
-let data12 = data9.minimum;
-if(typeof data12 === "string"){
-if(!pattern2.test(data12)){
-const err33 = {instancePath:instancePath+"/mixers/" + i0+"/minimum",schemaPath:"#/properties/mixers/items/properties/minimum/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
+else {
+const err33 = {instancePath:instancePath+"/mixers/" + i0+"/capacity",schemaPath:"#/properties/mixers/items/properties/capacity/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err33];
 }
@@ -3418,8 +3515,11 @@ vErrors.push(err33);
 errors++;
 }
 }
-else {
-const err34 = {instancePath:instancePath+"/mixers/" + i0+"/minimum",schemaPath:"#/properties/mixers/items/properties/minimum/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data9.minimum !== undefined){
+let data13 = data9.minimum;
+if(typeof data13 === "string"){
+if(!pattern2.test(data13)){
+const err34 = {instancePath:instancePath+"/mixers/" + i0+"/minimum",schemaPath:"#/properties/mixers/items/properties/minimum/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err34];
 }
@@ -3429,11 +3529,8 @@ vErrors.push(err34);
 errors++;
 }
 }
-if(data9.friction !== undefined){
-let data13 = data9.friction;
-if(typeof data13 === "string"){
-if(!pattern5.test(data13)){
-const err35 = {instancePath:instancePath+"/mixers/" + i0+"/friction",schemaPath:"#/properties/mixers/items/properties/friction/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
+else {
+const err35 = {instancePath:instancePath+"/mixers/" + i0+"/minimum",schemaPath:"#/properties/mixers/items/properties/minimum/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err35];
 }
@@ -3443,8 +3540,11 @@ vErrors.push(err35);
 errors++;
 }
 }
-else {
-const err36 = {instancePath:instancePath+"/mixers/" + i0+"/friction",schemaPath:"#/properties/mixers/items/properties/friction/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data9.rise !== undefined){
+let data14 = data9.rise;
+if(typeof data14 === "string"){
+if(!pattern6.test(data14)){
+const err36 = {instancePath:instancePath+"/mixers/" + i0+"/rise",schemaPath:"#/properties/mixers/items/properties/rise/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err36];
 }
@@ -3454,11 +3554,8 @@ vErrors.push(err36);
 errors++;
 }
 }
-if(data9.clean_down !== undefined){
-let data14 = data9.clean_down;
-if(typeof data14 == "number"){
-if(data14 < 0 || isNaN(data14)){
-const err37 = {instancePath:instancePath+"/mixers/" + i0+"/clean_down",schemaPath:"#/properties/mixers/items/properties/clean_down/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+else {
+const err37 = {instancePath:instancePath+"/mixers/" + i0+"/rise",schemaPath:"#/properties/mixers/items/properties/rise/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err37];
 }
@@ -3468,8 +3565,11 @@ vErrors.push(err37);
 errors++;
 }
 }
-else {
-const err38 = {instancePath:instancePath+"/mixers/" + i0+"/clean_down",schemaPath:"#/properties/mixers/items/properties/clean_down/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(data9.friction !== undefined){
+let data15 = data9.friction;
+if(typeof data15 === "string"){
+if(!pattern6.test(data15)){
+const err38 = {instancePath:instancePath+"/mixers/" + i0+"/friction",schemaPath:"#/properties/mixers/items/properties/friction/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err38];
 }
@@ -3479,9 +3579,8 @@ vErrors.push(err38);
 errors++;
 }
 }
-}
 else {
-const err39 = {instancePath:instancePath+"/mixers/" + i0,schemaPath:"#/properties/mixers/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err39 = {instancePath:instancePath+"/mixers/" + i0+"/friction",schemaPath:"#/properties/mixers/items/properties/friction/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err39];
 }
@@ -3491,9 +3590,11 @@ vErrors.push(err39);
 errors++;
 }
 }
-}
-else {
-const err40 = {instancePath:instancePath+"/mixers",schemaPath:"#/properties/mixers/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(data9.clean_down !== undefined){
+let data16 = data9.clean_down;
+if(typeof data16 == "number"){
+if(data16 < 0 || isNaN(data16)){
+const err40 = {instancePath:instancePath+"/mixers/" + i0+"/clean_down",schemaPath:"#/properties/mixers/items/properties/clean_down/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err40];
 }
@@ -3503,11 +3604,8 @@ vErrors.push(err40);
 errors++;
 }
 }
-if(data.ovens !== undefined){
-let data15 = data.ovens;
-if(Array.isArray(data15)){
-if(data15.length < 1){
-const err41 = {instancePath:instancePath+"/ovens",schemaPath:"#/properties/ovens/minItems",keyword:"minItems",params:{limit: 1},message:"must NOT have fewer than 1 items"};
+else {
+const err41 = {instancePath:instancePath+"/mixers/" + i0+"/clean_down",schemaPath:"#/properties/mixers/items/properties/clean_down/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err41];
 }
@@ -3516,12 +3614,10 @@ vErrors.push(err41);
 }
 errors++;
 }
-const len1 = data15.length;
-for(let i1=0; i1<len1; i1++){
-let data16 = data15[i1];
-if(data16 && typeof data16 == "object" && !Array.isArray(data16)){
-if(data16.name === undefined){
-const err42 = {instancePath:instancePath+"/ovens/" + i1,schemaPath:"#/properties/ovens/items/required",keyword:"required",params:{missingProperty: "name"},message:"must have required property '"+"name"+"'"};
+}
+}
+else {
+const err42 = {instancePath:instancePath+"/mixers/" + i0,schemaPath:"#/properties/mixers/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err42];
 }
@@ -3530,8 +3626,10 @@ vErrors.push(err42);
 }
 errors++;
 }
-if(data16.decks === undefined){
-const err43 = {instancePath:instancePath+"/ovens/" + i1,schemaPath:"#/properties/ovens/items/required",keyword:"required",params:{missingProperty: "decks"},message:"must have required property '"+"decks"+"'"};
+}
+}
+else {
+const err43 = {instancePath:instancePath+"/mixers",schemaPath:"#/properties/mixers/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err43];
 }
@@ -3540,8 +3638,12 @@ vErrors.push(err43);
 }
 errors++;
 }
-if(data16.slots === undefined){
-const err44 = {instancePath:instancePath+"/ovens/" + i1,schemaPath:"#/properties/ovens/items/required",keyword:"required",params:{missingProperty: "slots"},message:"must have required property '"+"slots"+"'"};
+}
+if(data.ovens !== undefined){
+let data17 = data.ovens;
+if(Array.isArray(data17)){
+if(data17.length < 1){
+const err44 = {instancePath:instancePath+"/ovens",schemaPath:"#/properties/ovens/minItems",keyword:"minItems",params:{limit: 1},message:"must NOT have fewer than 1 items"};
 if(vErrors === null){
 vErrors = [err44];
 }
@@ -3550,9 +3652,12 @@ vErrors.push(err44);
 }
 errors++;
 }
-for(const key3 in data16){
-if(!(((((((key3 === "name") || (key3 === "decks")) || (key3 === "slots")) || (key3 === "heat")) || (key3 === "cool")) || (key3 === "steam")) || (key3 === "fan"))){
-const err45 = {instancePath:instancePath+"/ovens/" + i1,schemaPath:"#/properties/ovens/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key3},message:"must NOT have additional properties"};
+const len1 = data17.length;
+for(let i1=0; i1<len1; i1++){
+let data18 = data17[i1];
+if(data18 && typeof data18 == "object" && !Array.isArray(data18)){
+if(data18.name === undefined){
+const err45 = {instancePath:instancePath+"/ovens/" + i1,schemaPath:"#/properties/ovens/items/required",keyword:"required",params:{missingProperty: "name"},message:"must have required property '"+"name"+"'"};
 if(vErrors === null){
 vErrors = [err45];
 }
@@ -3561,12 +3666,8 @@ vErrors.push(err45);
 }
 errors++;
 }
-}
-if(data16.name !== undefined){
-let data17 = data16.name;
-if(typeof data17 === "string"){
-if(func3(data17) < 1){
-const err46 = {instancePath:instancePath+"/ovens/" + i1+"/name",schemaPath:"#/properties/ovens/items/properties/name/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+if(data18.decks === undefined){
+const err46 = {instancePath:instancePath+"/ovens/" + i1,schemaPath:"#/properties/ovens/items/required",keyword:"required",params:{missingProperty: "decks"},message:"must have required property '"+"decks"+"'"};
 if(vErrors === null){
 vErrors = [err46];
 }
@@ -3575,9 +3676,8 @@ vErrors.push(err46);
 }
 errors++;
 }
-}
-else {
-const err47 = {instancePath:instancePath+"/ovens/" + i1+"/name",schemaPath:"#/properties/ovens/items/properties/name/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data18.slots === undefined){
+const err47 = {instancePath:instancePath+"/ovens/" + i1,schemaPath:"#/properties/ovens/items/required",keyword:"required",params:{missingProperty: "slots"},message:"must have required property '"+"slots"+"'"};
 if(vErrors === null){
 vErrors = [err47];
 }
@@ -3586,11 +3686,9 @@ vErrors.push(err47);
 }
 errors++;
 }
-}
-if(data16.decks !== undefined){
-let data18 = data16.decks;
-if(!((typeof data18 == "number") && (!(data18 % 1) && !isNaN(data18)))){
-const err48 = {instancePath:instancePath+"/ovens/" + i1+"/decks",schemaPath:"#/properties/ovens/items/properties/decks/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
+for(const key3 in data18){
+if(!(((((((key3 === "name") || (key3 === "decks")) || (key3 === "slots")) || (key3 === "heat")) || (key3 === "cool")) || (key3 === "steam")) || (key3 === "fan"))){
+const err48 = {instancePath:instancePath+"/ovens/" + i1,schemaPath:"#/properties/ovens/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key3},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err48];
 }
@@ -3599,9 +3697,12 @@ vErrors.push(err48);
 }
 errors++;
 }
-if(typeof data18 == "number"){
-if(data18 < 1 || isNaN(data18)){
-const err49 = {instancePath:instancePath+"/ovens/" + i1+"/decks",schemaPath:"#/properties/ovens/items/properties/decks/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
+}
+if(data18.name !== undefined){
+let data19 = data18.name;
+if(typeof data19 === "string"){
+if(func3(data19) < 1){
+const err49 = {instancePath:instancePath+"/ovens/" + i1+"/name",schemaPath:"#/properties/ovens/items/properties/name/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err49];
 }
@@ -3611,11 +3712,8 @@ vErrors.push(err49);
 errors++;
 }
 }
-}
-if(data16.slots !== undefined){
-let data19 = data16.slots;
-if(!((typeof data19 == "number") && (!(data19 % 1) && !isNaN(data19)))){
-const err50 = {instancePath:instancePath+"/ovens/" + i1+"/slots",schemaPath:"#/properties/ovens/items/properties/slots/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
+else {
+const err50 = {instancePath:instancePath+"/ovens/" + i1+"/name",schemaPath:"#/properties/ovens/items/properties/name/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err50];
 }
@@ -3624,9 +3722,11 @@ vErrors.push(err50);
 }
 errors++;
 }
-if(typeof data19 == "number"){
-if(data19 < 1 || isNaN(data19)){
-const err51 = {instancePath:instancePath+"/ovens/" + i1+"/slots",schemaPath:"#/properties/ovens/items/properties/slots/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
+}
+if(data18.decks !== undefined){
+let data20 = data18.decks;
+if(!((typeof data20 == "number") && (!(data20 % 1) && !isNaN(data20)))){
+const err51 = {instancePath:instancePath+"/ovens/" + i1+"/decks",schemaPath:"#/properties/ovens/items/properties/decks/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
 if(vErrors === null){
 vErrors = [err51];
 }
@@ -3635,13 +3735,9 @@ vErrors.push(err51);
 }
 errors++;
 }
-}
-}
-if(data16.heat !== undefined){
-let data20 = data16.heat;
-if(typeof data20 === "string"){
-if(!pattern33.test(data20)){
-const err52 = {instancePath:instancePath+"/ovens/" + i1+"/heat",schemaPath:"#/properties/ovens/items/properties/heat/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$"+"\""};
+if(typeof data20 == "number"){
+if(data20 < 1 || isNaN(data20)){
+const err52 = {instancePath:instancePath+"/ovens/" + i1+"/decks",schemaPath:"#/properties/ovens/items/properties/decks/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
 if(vErrors === null){
 vErrors = [err52];
 }
@@ -3651,8 +3747,11 @@ vErrors.push(err52);
 errors++;
 }
 }
-else {
-const err53 = {instancePath:instancePath+"/ovens/" + i1+"/heat",schemaPath:"#/properties/ovens/items/properties/heat/type",keyword:"type",params:{type: "string"},message:"must be string"};
+}
+if(data18.slots !== undefined){
+let data21 = data18.slots;
+if(!((typeof data21 == "number") && (!(data21 % 1) && !isNaN(data21)))){
+const err53 = {instancePath:instancePath+"/ovens/" + i1+"/slots",schemaPath:"#/properties/ovens/items/properties/slots/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
 if(vErrors === null){
 vErrors = [err53];
 }
@@ -3661,12 +3760,9 @@ vErrors.push(err53);
 }
 errors++;
 }
-}
-if(data16.cool !== undefined){
-let data21 = data16.cool;
-if(typeof data21 === "string"){
-if(!pattern33.test(data21)){
-const err54 = {instancePath:instancePath+"/ovens/" + i1+"/cool",schemaPath:"#/properties/ovens/items/properties/cool/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$"+"\""};
+if(typeof data21 == "number"){
+if(data21 < 1 || isNaN(data21)){
+const err54 = {instancePath:instancePath+"/ovens/" + i1+"/slots",schemaPath:"#/properties/ovens/items/properties/slots/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
 if(vErrors === null){
 vErrors = [err54];
 }
@@ -3676,8 +3772,12 @@ vErrors.push(err54);
 errors++;
 }
 }
-else {
-const err55 = {instancePath:instancePath+"/ovens/" + i1+"/cool",schemaPath:"#/properties/ovens/items/properties/cool/type",keyword:"type",params:{type: "string"},message:"must be string"};
+}
+if(data18.heat !== undefined){
+let data22 = data18.heat;
+if(typeof data22 === "string"){
+if(!pattern35.test(data22)){
+const err55 = {instancePath:instancePath+"/ovens/" + i1+"/heat",schemaPath:"#/properties/ovens/items/properties/heat/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err55];
 }
@@ -3687,9 +3787,8 @@ vErrors.push(err55);
 errors++;
 }
 }
-if(data16.steam !== undefined){
-if(typeof data16.steam !== "boolean"){
-const err56 = {instancePath:instancePath+"/ovens/" + i1+"/steam",schemaPath:"#/properties/ovens/items/properties/steam/type",keyword:"type",params:{type: "boolean"},message:"must be boolean"};
+else {
+const err56 = {instancePath:instancePath+"/ovens/" + i1+"/heat",schemaPath:"#/properties/ovens/items/properties/heat/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err56];
 }
@@ -3699,9 +3798,11 @@ vErrors.push(err56);
 errors++;
 }
 }
-if(data16.fan !== undefined){
-if(typeof data16.fan !== "boolean"){
-const err57 = {instancePath:instancePath+"/ovens/" + i1+"/fan",schemaPath:"#/properties/ovens/items/properties/fan/type",keyword:"type",params:{type: "boolean"},message:"must be boolean"};
+if(data18.cool !== undefined){
+let data23 = data18.cool;
+if(typeof data23 === "string"){
+if(!pattern35.test(data23)){
+const err57 = {instancePath:instancePath+"/ovens/" + i1+"/cool",schemaPath:"#/properties/ovens/items/properties/cool/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err57];
 }
@@ -3711,9 +3812,8 @@ vErrors.push(err57);
 errors++;
 }
 }
-}
 else {
-const err58 = {instancePath:instancePath+"/ovens/" + i1,schemaPath:"#/properties/ovens/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err58 = {instancePath:instancePath+"/ovens/" + i1+"/cool",schemaPath:"#/properties/ovens/items/properties/cool/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err58];
 }
@@ -3723,9 +3823,9 @@ vErrors.push(err58);
 errors++;
 }
 }
-}
-else {
-const err59 = {instancePath:instancePath+"/ovens",schemaPath:"#/properties/ovens/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(data18.steam !== undefined){
+if(typeof data18.steam !== "boolean"){
+const err59 = {instancePath:instancePath+"/ovens/" + i1+"/steam",schemaPath:"#/properties/ovens/items/properties/steam/type",keyword:"type",params:{type: "boolean"},message:"must be boolean"};
 if(vErrors === null){
 vErrors = [err59];
 }
@@ -3735,11 +3835,9 @@ vErrors.push(err59);
 errors++;
 }
 }
-if(data.bench !== undefined){
-let data24 = data.bench;
-if(Array.isArray(data24)){
-if(data24.length < 1){
-const err60 = {instancePath:instancePath+"/bench",schemaPath:"#/properties/bench/minItems",keyword:"minItems",params:{limit: 1},message:"must NOT have fewer than 1 items"};
+if(data18.fan !== undefined){
+if(typeof data18.fan !== "boolean"){
+const err60 = {instancePath:instancePath+"/ovens/" + i1+"/fan",schemaPath:"#/properties/ovens/items/properties/fan/type",keyword:"type",params:{type: "boolean"},message:"must be boolean"};
 if(vErrors === null){
 vErrors = [err60];
 }
@@ -3748,12 +3846,10 @@ vErrors.push(err60);
 }
 errors++;
 }
-const len2 = data24.length;
-for(let i2=0; i2<len2; i2++){
-let data25 = data24[i2];
-if(data25 && typeof data25 == "object" && !Array.isArray(data25)){
-if(data25.from === undefined){
-const err61 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/required",keyword:"required",params:{missingProperty: "from"},message:"must have required property '"+"from"+"'"};
+}
+}
+else {
+const err61 = {instancePath:instancePath+"/ovens/" + i1,schemaPath:"#/properties/ovens/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err61];
 }
@@ -3762,8 +3858,10 @@ vErrors.push(err61);
 }
 errors++;
 }
-if(data25.to === undefined){
-const err62 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/required",keyword:"required",params:{missingProperty: "to"},message:"must have required property '"+"to"+"'"};
+}
+}
+else {
+const err62 = {instancePath:instancePath+"/ovens",schemaPath:"#/properties/ovens/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err62];
 }
@@ -3772,8 +3870,12 @@ vErrors.push(err62);
 }
 errors++;
 }
-if(data25.people === undefined){
-const err63 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/required",keyword:"required",params:{missingProperty: "people"},message:"must have required property '"+"people"+"'"};
+}
+if(data.bench !== undefined){
+let data26 = data.bench;
+if(Array.isArray(data26)){
+if(data26.length < 1){
+const err63 = {instancePath:instancePath+"/bench",schemaPath:"#/properties/bench/minItems",keyword:"minItems",params:{limit: 1},message:"must NOT have fewer than 1 items"};
 if(vErrors === null){
 vErrors = [err63];
 }
@@ -3782,9 +3884,12 @@ vErrors.push(err63);
 }
 errors++;
 }
-for(const key4 in data25){
-if(!((((key4 === "from") || (key4 === "to")) || (key4 === "people")) || (key4 === "date"))){
-const err64 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key4},message:"must NOT have additional properties"};
+const len2 = data26.length;
+for(let i2=0; i2<len2; i2++){
+let data27 = data26[i2];
+if(data27 && typeof data27 == "object" && !Array.isArray(data27)){
+if(data27.from === undefined){
+const err64 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/required",keyword:"required",params:{missingProperty: "from"},message:"must have required property '"+"from"+"'"};
 if(vErrors === null){
 vErrors = [err64];
 }
@@ -3793,12 +3898,8 @@ vErrors.push(err64);
 }
 errors++;
 }
-}
-if(data25.from !== undefined){
-let data26 = data25.from;
-if(typeof data26 === "string"){
-if(!pattern25.test(data26)){
-const err65 = {instancePath:instancePath+"/bench/" + i2+"/from",schemaPath:"#/properties/bench/items/properties/from/pattern",keyword:"pattern",params:{pattern: "^([01][0-9]|2[0-3]):[0-5][0-9]$"},message:"must match pattern \""+"^([01][0-9]|2[0-3]):[0-5][0-9]$"+"\""};
+if(data27.to === undefined){
+const err65 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/required",keyword:"required",params:{missingProperty: "to"},message:"must have required property '"+"to"+"'"};
 if(vErrors === null){
 vErrors = [err65];
 }
@@ -3807,9 +3908,8 @@ vErrors.push(err65);
 }
 errors++;
 }
-}
-else {
-const err66 = {instancePath:instancePath+"/bench/" + i2+"/from",schemaPath:"#/properties/bench/items/properties/from/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data27.people === undefined){
+const err66 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/required",keyword:"required",params:{missingProperty: "people"},message:"must have required property '"+"people"+"'"};
 if(vErrors === null){
 vErrors = [err66];
 }
@@ -3818,12 +3918,9 @@ vErrors.push(err66);
 }
 errors++;
 }
-}
-if(data25.to !== undefined){
-let data27 = data25.to;
-if(typeof data27 === "string"){
-if(!pattern25.test(data27)){
-const err67 = {instancePath:instancePath+"/bench/" + i2+"/to",schemaPath:"#/properties/bench/items/properties/to/pattern",keyword:"pattern",params:{pattern: "^([01][0-9]|2[0-3]):[0-5][0-9]$"},message:"must match pattern \""+"^([01][0-9]|2[0-3]):[0-5][0-9]$"+"\""};
+for(const key4 in data27){
+if(!((((key4 === "from") || (key4 === "to")) || (key4 === "people")) || (key4 === "date"))){
+const err67 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key4},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err67];
 }
@@ -3833,8 +3930,11 @@ vErrors.push(err67);
 errors++;
 }
 }
-else {
-const err68 = {instancePath:instancePath+"/bench/" + i2+"/to",schemaPath:"#/properties/bench/items/properties/to/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data27.from !== undefined){
+let data28 = data27.from;
+if(typeof data28 === "string"){
+if(!pattern26.test(data28)){
+const err68 = {instancePath:instancePath+"/bench/" + i2+"/from",schemaPath:"#/properties/bench/items/properties/from/pattern",keyword:"pattern",params:{pattern: "^([01][0-9]|2[0-3]):[0-5][0-9]$"},message:"must match pattern \""+"^([01][0-9]|2[0-3]):[0-5][0-9]$"+"\""};
 if(vErrors === null){
 vErrors = [err68];
 }
@@ -3844,10 +3944,8 @@ vErrors.push(err68);
 errors++;
 }
 }
-if(data25.people !== undefined){
-let data28 = data25.people;
-if(!((typeof data28 == "number") && (!(data28 % 1) && !isNaN(data28)))){
-const err69 = {instancePath:instancePath+"/bench/" + i2+"/people",schemaPath:"#/properties/bench/items/properties/people/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
+else {
+const err69 = {instancePath:instancePath+"/bench/" + i2+"/from",schemaPath:"#/properties/bench/items/properties/from/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err69];
 }
@@ -3856,9 +3954,12 @@ vErrors.push(err69);
 }
 errors++;
 }
-if(typeof data28 == "number"){
-if(data28 < 1 || isNaN(data28)){
-const err70 = {instancePath:instancePath+"/bench/" + i2+"/people",schemaPath:"#/properties/bench/items/properties/people/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
+}
+if(data27.to !== undefined){
+let data29 = data27.to;
+if(typeof data29 === "string"){
+if(!pattern26.test(data29)){
+const err70 = {instancePath:instancePath+"/bench/" + i2+"/to",schemaPath:"#/properties/bench/items/properties/to/pattern",keyword:"pattern",params:{pattern: "^([01][0-9]|2[0-3]):[0-5][0-9]$"},message:"must match pattern \""+"^([01][0-9]|2[0-3]):[0-5][0-9]$"+"\""};
 if(vErrors === null){
 vErrors = [err70];
 }
@@ -3868,12 +3969,8 @@ vErrors.push(err70);
 errors++;
 }
 }
-}
-if(data25.date !== undefined){
-let data29 = data25.date;
-if(typeof data29 === "string"){
-if(!pattern23.test(data29)){
-const err71 = {instancePath:instancePath+"/bench/" + i2+"/date",schemaPath:"#/properties/bench/items/properties/date/pattern",keyword:"pattern",params:{pattern: "^[0-9]{4}-[0-9]{2}-[0-9]{2}$"},message:"must match pattern \""+"^[0-9]{4}-[0-9]{2}-[0-9]{2}$"+"\""};
+else {
+const err71 = {instancePath:instancePath+"/bench/" + i2+"/to",schemaPath:"#/properties/bench/items/properties/to/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err71];
 }
@@ -3883,8 +3980,10 @@ vErrors.push(err71);
 errors++;
 }
 }
-else {
-const err72 = {instancePath:instancePath+"/bench/" + i2+"/date",schemaPath:"#/properties/bench/items/properties/date/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data27.people !== undefined){
+let data30 = data27.people;
+if(!((typeof data30 == "number") && (!(data30 % 1) && !isNaN(data30)))){
+const err72 = {instancePath:instancePath+"/bench/" + i2+"/people",schemaPath:"#/properties/bench/items/properties/people/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
 if(vErrors === null){
 vErrors = [err72];
 }
@@ -3893,10 +3992,9 @@ vErrors.push(err72);
 }
 errors++;
 }
-}
-}
-else {
-const err73 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(typeof data30 == "number"){
+if(data30 < 1 || isNaN(data30)){
+const err73 = {instancePath:instancePath+"/bench/" + i2+"/people",schemaPath:"#/properties/bench/items/properties/people/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
 if(vErrors === null){
 vErrors = [err73];
 }
@@ -3907,8 +4005,11 @@ errors++;
 }
 }
 }
-else {
-const err74 = {instancePath:instancePath+"/bench",schemaPath:"#/properties/bench/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(data27.date !== undefined){
+let data31 = data27.date;
+if(typeof data31 === "string"){
+if(!pattern24.test(data31)){
+const err74 = {instancePath:instancePath+"/bench/" + i2+"/date",schemaPath:"#/properties/bench/items/properties/date/pattern",keyword:"pattern",params:{pattern: "^[0-9]{4}-[0-9]{2}-[0-9]{2}$"},message:"must match pattern \""+"^[0-9]{4}-[0-9]{2}-[0-9]{2}$"+"\""};
 if(vErrors === null){
 vErrors = [err74];
 }
@@ -3918,11 +4019,8 @@ vErrors.push(err74);
 errors++;
 }
 }
-if(data.orders !== undefined){
-let data30 = data.orders;
-if(Array.isArray(data30)){
-if(data30.length < 1){
-const err75 = {instancePath:instancePath+"/orders",schemaPath:"#/properties/orders/minItems",keyword:"minItems",params:{limit: 1},message:"must NOT have fewer than 1 items"};
+else {
+const err75 = {instancePath:instancePath+"/bench/" + i2+"/date",schemaPath:"#/properties/bench/items/properties/date/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err75];
 }
@@ -3931,12 +4029,10 @@ vErrors.push(err75);
 }
 errors++;
 }
-const len3 = data30.length;
-for(let i3=0; i3<len3; i3++){
-let data31 = data30[i3];
-if(data31 && typeof data31 == "object" && !Array.isArray(data31)){
-if(data31.formula === undefined){
-const err76 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/required",keyword:"required",params:{missingProperty: "formula"},message:"must have required property '"+"formula"+"'"};
+}
+}
+else {
+const err76 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err76];
 }
@@ -3945,8 +4041,10 @@ vErrors.push(err76);
 }
 errors++;
 }
-if(data31.pieces === undefined){
-const err77 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/required",keyword:"required",params:{missingProperty: "pieces"},message:"must have required property '"+"pieces"+"'"};
+}
+}
+else {
+const err77 = {instancePath:instancePath+"/bench",schemaPath:"#/properties/bench/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err77];
 }
@@ -3955,9 +4053,12 @@ vErrors.push(err77);
 }
 errors++;
 }
-for(const key5 in data31){
-if(!(((((((key5 === "formula") || (key5 === "pieces")) || (key5 === "piece")) || (key5 === "mixer")) || (key5 === "oven")) || (key5 === "customer")) || (key5 === "due"))){
-const err78 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key5},message:"must NOT have additional properties"};
+}
+if(data.orders !== undefined){
+let data32 = data.orders;
+if(Array.isArray(data32)){
+if(data32.length < 1){
+const err78 = {instancePath:instancePath+"/orders",schemaPath:"#/properties/orders/minItems",keyword:"minItems",params:{limit: 1},message:"must NOT have fewer than 1 items"};
 if(vErrors === null){
 vErrors = [err78];
 }
@@ -3966,12 +4067,12 @@ vErrors.push(err78);
 }
 errors++;
 }
-}
-if(data31.formula !== undefined){
-let data32 = data31.formula;
-if(typeof data32 === "string"){
-if(!pattern0.test(data32)){
-const err79 = {instancePath:instancePath+"/orders/" + i3+"/formula",schemaPath:"#/properties/orders/items/properties/formula/pattern",keyword:"pattern",params:{pattern: "^[a-z0-9]+(-[a-z0-9]+)*$"},message:"must match pattern \""+"^[a-z0-9]+(-[a-z0-9]+)*$"+"\""};
+const len3 = data32.length;
+for(let i3=0; i3<len3; i3++){
+let data33 = data32[i3];
+if(data33 && typeof data33 == "object" && !Array.isArray(data33)){
+if(data33.formula === undefined){
+const err79 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/required",keyword:"required",params:{missingProperty: "formula"},message:"must have required property '"+"formula"+"'"};
 if(vErrors === null){
 vErrors = [err79];
 }
@@ -3980,9 +4081,8 @@ vErrors.push(err79);
 }
 errors++;
 }
-}
-else {
-const err80 = {instancePath:instancePath+"/orders/" + i3+"/formula",schemaPath:"#/properties/orders/items/properties/formula/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data33.pieces === undefined){
+const err80 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/required",keyword:"required",params:{missingProperty: "pieces"},message:"must have required property '"+"pieces"+"'"};
 if(vErrors === null){
 vErrors = [err80];
 }
@@ -3991,11 +4091,9 @@ vErrors.push(err80);
 }
 errors++;
 }
-}
-if(data31.pieces !== undefined){
-let data33 = data31.pieces;
-if(!((typeof data33 == "number") && (!(data33 % 1) && !isNaN(data33)))){
-const err81 = {instancePath:instancePath+"/orders/" + i3+"/pieces",schemaPath:"#/properties/orders/items/properties/pieces/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
+for(const key5 in data33){
+if(!(((((((key5 === "formula") || (key5 === "pieces")) || (key5 === "piece")) || (key5 === "mixer")) || (key5 === "oven")) || (key5 === "customer")) || (key5 === "due"))){
+const err81 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key5},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err81];
 }
@@ -4004,9 +4102,12 @@ vErrors.push(err81);
 }
 errors++;
 }
-if(typeof data33 == "number"){
-if(data33 < 1 || isNaN(data33)){
-const err82 = {instancePath:instancePath+"/orders/" + i3+"/pieces",schemaPath:"#/properties/orders/items/properties/pieces/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
+}
+if(data33.formula !== undefined){
+let data34 = data33.formula;
+if(typeof data34 === "string"){
+if(!pattern0.test(data34)){
+const err82 = {instancePath:instancePath+"/orders/" + i3+"/formula",schemaPath:"#/properties/orders/items/properties/formula/pattern",keyword:"pattern",params:{pattern: "^[a-z0-9]+(-[a-z0-9]+)*$"},message:"must match pattern \""+"^[a-z0-9]+(-[a-z0-9]+)*$"+"\""};
 if(vErrors === null){
 vErrors = [err82];
 }
@@ -4016,12 +4117,8 @@ vErrors.push(err82);
 errors++;
 }
 }
-}
-if(data31.piece !== undefined){
-let data34 = data31.piece;
-if(typeof data34 === "string"){
-if(!pattern2.test(data34)){
-const err83 = {instancePath:instancePath+"/orders/" + i3+"/piece",schemaPath:"#/properties/orders/items/properties/piece/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
+else {
+const err83 = {instancePath:instancePath+"/orders/" + i3+"/formula",schemaPath:"#/properties/orders/items/properties/formula/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err83];
 }
@@ -4031,8 +4128,10 @@ vErrors.push(err83);
 errors++;
 }
 }
-else {
-const err84 = {instancePath:instancePath+"/orders/" + i3+"/piece",schemaPath:"#/properties/orders/items/properties/piece/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data33.pieces !== undefined){
+let data35 = data33.pieces;
+if(!((typeof data35 == "number") && (!(data35 % 1) && !isNaN(data35)))){
+const err84 = {instancePath:instancePath+"/orders/" + i3+"/pieces",schemaPath:"#/properties/orders/items/properties/pieces/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
 if(vErrors === null){
 vErrors = [err84];
 }
@@ -4041,12 +4140,9 @@ vErrors.push(err84);
 }
 errors++;
 }
-}
-if(data31.mixer !== undefined){
-let data35 = data31.mixer;
-if(typeof data35 === "string"){
-if(func3(data35) < 1){
-const err85 = {instancePath:instancePath+"/orders/" + i3+"/mixer",schemaPath:"#/properties/orders/items/properties/mixer/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+if(typeof data35 == "number"){
+if(data35 < 1 || isNaN(data35)){
+const err85 = {instancePath:instancePath+"/orders/" + i3+"/pieces",schemaPath:"#/properties/orders/items/properties/pieces/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
 if(vErrors === null){
 vErrors = [err85];
 }
@@ -4056,8 +4152,12 @@ vErrors.push(err85);
 errors++;
 }
 }
-else {
-const err86 = {instancePath:instancePath+"/orders/" + i3+"/mixer",schemaPath:"#/properties/orders/items/properties/mixer/type",keyword:"type",params:{type: "string"},message:"must be string"};
+}
+if(data33.piece !== undefined){
+let data36 = data33.piece;
+if(typeof data36 === "string"){
+if(!pattern2.test(data36)){
+const err86 = {instancePath:instancePath+"/orders/" + i3+"/piece",schemaPath:"#/properties/orders/items/properties/piece/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err86];
 }
@@ -4067,11 +4167,8 @@ vErrors.push(err86);
 errors++;
 }
 }
-if(data31.oven !== undefined){
-let data36 = data31.oven;
-if(typeof data36 === "string"){
-if(func3(data36) < 1){
-const err87 = {instancePath:instancePath+"/orders/" + i3+"/oven",schemaPath:"#/properties/orders/items/properties/oven/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+else {
+const err87 = {instancePath:instancePath+"/orders/" + i3+"/piece",schemaPath:"#/properties/orders/items/properties/piece/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err87];
 }
@@ -4081,8 +4178,11 @@ vErrors.push(err87);
 errors++;
 }
 }
-else {
-const err88 = {instancePath:instancePath+"/orders/" + i3+"/oven",schemaPath:"#/properties/orders/items/properties/oven/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data33.mixer !== undefined){
+let data37 = data33.mixer;
+if(typeof data37 === "string"){
+if(func3(data37) < 1){
+const err88 = {instancePath:instancePath+"/orders/" + i3+"/mixer",schemaPath:"#/properties/orders/items/properties/mixer/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err88];
 }
@@ -4092,9 +4192,8 @@ vErrors.push(err88);
 errors++;
 }
 }
-if(data31.customer !== undefined){
-if(typeof data31.customer !== "string"){
-const err89 = {instancePath:instancePath+"/orders/" + i3+"/customer",schemaPath:"#/properties/orders/items/properties/customer/type",keyword:"type",params:{type: "string"},message:"must be string"};
+else {
+const err89 = {instancePath:instancePath+"/orders/" + i3+"/mixer",schemaPath:"#/properties/orders/items/properties/mixer/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err89];
 }
@@ -4104,11 +4203,11 @@ vErrors.push(err89);
 errors++;
 }
 }
-if(data31.due !== undefined){
-let data38 = data31.due;
+if(data33.oven !== undefined){
+let data38 = data33.oven;
 if(typeof data38 === "string"){
-if(!pattern25.test(data38)){
-const err90 = {instancePath:instancePath+"/orders/" + i3+"/due",schemaPath:"#/properties/orders/items/properties/due/pattern",keyword:"pattern",params:{pattern: "^([01][0-9]|2[0-3]):[0-5][0-9]$"},message:"must match pattern \""+"^([01][0-9]|2[0-3]):[0-5][0-9]$"+"\""};
+if(func3(data38) < 1){
+const err90 = {instancePath:instancePath+"/orders/" + i3+"/oven",schemaPath:"#/properties/orders/items/properties/oven/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err90];
 }
@@ -4119,7 +4218,7 @@ errors++;
 }
 }
 else {
-const err91 = {instancePath:instancePath+"/orders/" + i3+"/due",schemaPath:"#/properties/orders/items/properties/due/type",keyword:"type",params:{type: "string"},message:"must be string"};
+const err91 = {instancePath:instancePath+"/orders/" + i3+"/oven",schemaPath:"#/properties/orders/items/properties/oven/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err91];
 }
@@ -4129,9 +4228,9 @@ vErrors.push(err91);
 errors++;
 }
 }
-}
-else {
-const err92 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data33.customer !== undefined){
+if(typeof data33.customer !== "string"){
+const err92 = {instancePath:instancePath+"/orders/" + i3+"/customer",schemaPath:"#/properties/orders/items/properties/customer/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err92];
 }
@@ -4141,9 +4240,11 @@ vErrors.push(err92);
 errors++;
 }
 }
-}
-else {
-const err93 = {instancePath:instancePath+"/orders",schemaPath:"#/properties/orders/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(data33.due !== undefined){
+let data40 = data33.due;
+if(typeof data40 === "string"){
+if(!pattern26.test(data40)){
+const err93 = {instancePath:instancePath+"/orders/" + i3+"/due",schemaPath:"#/properties/orders/items/properties/due/pattern",keyword:"pattern",params:{pattern: "^([01][0-9]|2[0-3]):[0-5][0-9]$"},message:"must match pattern \""+"^([01][0-9]|2[0-3]):[0-5][0-9]$"+"\""};
 if(vErrors === null){
 vErrors = [err93];
 }
@@ -4153,13 +4254,8 @@ vErrors.push(err93);
 errors++;
 }
 }
-if(data.ranges !== undefined){
-let data39 = data.ranges;
-const _errs86 = errors;
-let valid14 = false;
-const _errs87 = errors;
-if(typeof data39 !== "string"){
-const err94 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/0/type",keyword:"type",params:{type: "string"},message:"must be string"};
+else {
+const err94 = {instancePath:instancePath+"/orders/" + i3+"/due",schemaPath:"#/properties/orders/items/properties/due/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err94];
 }
@@ -4168,8 +4264,10 @@ vErrors.push(err94);
 }
 errors++;
 }
-if("short" !== data39){
-const err95 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/0/const",keyword:"const",params:{allowedValue: "short"},message:"must be equal to constant"};
+}
+}
+else {
+const err95 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err95];
 }
@@ -4178,12 +4276,10 @@ vErrors.push(err95);
 }
 errors++;
 }
-var _valid0 = _errs87 === errors;
-valid14 = valid14 || _valid0;
-if(!valid14){
-const _errs89 = errors;
-if(typeof data39 !== "string"){
-const err96 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
+}
+}
+else {
+const err96 = {instancePath:instancePath+"/orders",schemaPath:"#/properties/orders/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err96];
 }
@@ -4192,8 +4288,14 @@ vErrors.push(err96);
 }
 errors++;
 }
-if("mid" !== data39){
-const err97 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/1/const",keyword:"const",params:{allowedValue: "mid"},message:"must be equal to constant"};
+}
+if(data.ranges !== undefined){
+let data41 = data.ranges;
+const _errs90 = errors;
+let valid14 = false;
+const _errs91 = errors;
+if(typeof data41 !== "string"){
+const err97 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/0/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err97];
 }
@@ -4202,12 +4304,8 @@ vErrors.push(err97);
 }
 errors++;
 }
-var _valid0 = _errs89 === errors;
-valid14 = valid14 || _valid0;
-if(!valid14){
-const _errs91 = errors;
-if(typeof data39 !== "string"){
-const err98 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/2/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if("short" !== data41){
+const err98 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/0/const",keyword:"const",params:{allowedValue: "short"},message:"must be equal to constant"};
 if(vErrors === null){
 vErrors = [err98];
 }
@@ -4216,8 +4314,12 @@ vErrors.push(err98);
 }
 errors++;
 }
-if("long" !== data39){
-const err99 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/2/const",keyword:"const",params:{allowedValue: "long"},message:"must be equal to constant"};
+var _valid0 = _errs91 === errors;
+valid14 = valid14 || _valid0;
+if(!valid14){
+const _errs93 = errors;
+if(typeof data41 !== "string"){
+const err99 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err99];
 }
@@ -4226,12 +4328,8 @@ vErrors.push(err99);
 }
 errors++;
 }
-var _valid0 = _errs91 === errors;
-valid14 = valid14 || _valid0;
-}
-}
-if(!valid14){
-const err100 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if("mid" !== data41){
+const err100 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/1/const",keyword:"const",params:{allowedValue: "mid"},message:"must be equal to constant"};
 if(vErrors === null){
 vErrors = [err100];
 }
@@ -4240,11 +4338,49 @@ vErrors.push(err100);
 }
 errors++;
 }
+var _valid0 = _errs93 === errors;
+valid14 = valid14 || _valid0;
+if(!valid14){
+const _errs95 = errors;
+if(typeof data41 !== "string"){
+const err101 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/2/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err101];
+}
 else {
-errors = _errs86;
+vErrors.push(err101);
+}
+errors++;
+}
+if("long" !== data41){
+const err102 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/2/const",keyword:"const",params:{allowedValue: "long"},message:"must be equal to constant"};
+if(vErrors === null){
+vErrors = [err102];
+}
+else {
+vErrors.push(err102);
+}
+errors++;
+}
+var _valid0 = _errs95 === errors;
+valid14 = valid14 || _valid0;
+}
+}
+if(!valid14){
+const err103 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(vErrors === null){
+vErrors = [err103];
+}
+else {
+vErrors.push(err103);
+}
+errors++;
+}
+else {
+errors = _errs90;
 if(vErrors !== null){
-if(_errs86){
-vErrors.length = _errs86;
+if(_errs90){
+vErrors.length = _errs90;
 }
 else {
 vErrors = null;
@@ -4254,24 +4390,24 @@ vErrors = null;
 }
 if(data.notes !== undefined){
 if(typeof data.notes !== "string"){
-const err101 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string"};
+const err104 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
-vErrors = [err101];
+vErrors = [err104];
 }
 else {
-vErrors.push(err101);
+vErrors.push(err104);
 }
 errors++;
 }
 }
 }
 else {
-const err102 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err105 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
-vErrors = [err102];
+vErrors = [err105];
 }
 else {
-vErrors.push(err102);
+vErrors.push(err105);
 }
 errors++;
 }

@@ -83,8 +83,8 @@ export async function renderSheet(sheet: Sheet, format: SheetFormat, paper: Pape
       return renderSheetCsv(sheet);
     }
     case 'html': {
-      const [{ renderSheetHtml }, { jetBrainsMonoFontFaceCss }] = await Promise.all([import('#shared/sheet/html'), import('#server/print/fonts')]);
-      return renderSheetHtml(sheet, { paper, fontFaceCss: jetBrainsMonoFontFaceCss() });
+      const [{ renderSheetHtml }, { printFontFaceCss }] = await Promise.all([import('#shared/sheet/html'), import('#server/print/fonts')]);
+      return renderSheetHtml(sheet, { paper, fontFaceCss: printFontFaceCss() });
     }
     case 'pdf': {
       const { renderSheetPdf } = await import('#server/print/pdf');

@@ -1,23 +1,20 @@
-// The batch sheet as a PDF, drawn with pdfkit in the shipped JetBrains Mono (no browser): the
+// The batch sheet as a PDF, drawn with pdfkit in Panform's own faces (no browser): the
 // same sections and figures as the text and HTML formats (shared/sheet/present.ts), tick boxes
 // beside every weight, the timeline chart drawn with vector shapes, the cautions in a box.
 //
 //   const pdf = await renderSheetPdf(sheet, { paper: 'a4' });   // Buffer
 //
-// The fonts are read from @fontsource/jetbrains-mono unless passed in.
+// Panform's faces (server/print/fonts.ts) are read from the installed packages unless passed in.
 import PDFDocument from 'pdfkit';
-import { chartModel, colourOf, LEGEND, productionRange, type ChartModel } from '#shared/sheet/chart';
+import { chartModel, colourOf, legendOf, productionRange, type ChartModel } from '#shared/sheet/chart';
 import { presentSheet, type SheetSection, type SheetTable } from '#shared/sheet/present';
 import type { Sheet } from '#shared/sheet/types';
-import { readJetBrainsMonoWoff } from './fonts.ts';
+import { PRINT_FACES, readPrintFonts, type PrintFace } from './fonts.ts';
 
 export type Paper = 'a4' | 'letter';
 
-export interface PdfFonts {
-  /** Font bytes pdfkit reads: TrueType, OpenType or WOFF (not WOFF2: see fonts.ts). */
-  regular: Uint8Array;
-  bold: Uint8Array;
-}
+/** Font bytes pdfkit reads for each face: TrueType, OpenType or WOFF (not WOFF2: see fonts.ts). */
+export type PdfFonts = Record<PrintFace, Uint8Array>;
 
 export interface PdfOptions {
   paper?: Paper;
@@ -29,8 +26,8 @@ type Doc = InstanceType<typeof PDFDocument>;
 const MARGIN = { top: 36, bottom: 42, left: 34, right: 34 };
 // Ligatures off: JetBrains Mono joins "->", "<=" and the like, which a weighing sheet must not do.
 const FEATURES = { liga: false, calt: false, clig: false, dlig: false } as unknown as never;
-const INK = '#111111';
-const MUTED = '#444444';
+const INK = '#2b1e15';
+const MUTED = '#6a5442';
 
 /** The latin subset has no narrow no-break space (formatGrams' thousands separator): use a no-break space. */
 function clean(s: string): string {
@@ -49,32 +46,32 @@ class Writer {
     this.bottom = doc.page.height - MARGIN.bottom;
   }
 
-  font(size: number, bold = false): this {
-    this.doc.font(bold ? 'mono-bold' : 'mono').fontSize(size);
+  font(size: number, face: PrintFace = 'text'): this {
+    this.doc.font(face).fontSize(size);
     return this;
   }
 
   private readonly widths = new Map<string, number>();
 
   /** Width at 1 pt, measured once per string and face: layouts with features set are not cached by pdfkit. */
-  widthOf(s: string, size: number, bold = false): number {
-    const key = `${bold ? 'b' : 'r'}${s}`;
+  widthOf(s: string, size: number, face: PrintFace = 'text'): number {
+    const key = `${face}\u0000${s}`;
     let unit = this.widths.get(key);
     if (unit === undefined) {
-      this.font(1000, bold);
+      this.font(1000, face);
       unit = this.doc.widthOfString(clean(s), { features: FEATURES }) / 1000;
       this.widths.set(key, unit);
     }
     return unit * size;
   }
 
-  heightOf(s: string, size: number, width: number, bold = false): number {
-    this.font(size, bold);
+  heightOf(s: string, size: number, width: number, face: PrintFace = 'text'): number {
+    this.font(size, face);
     return this.doc.heightOfString(clean(s), { width, features: FEATURES, lineGap: 1 });
   }
 
-  text(s: string, x: number, y: number, o: { size: number; bold?: boolean; width?: number; align?: 'left' | 'right' | 'center'; colour?: string }): void {
-    this.font(o.size, o.bold);
+  text(s: string, x: number, y: number, o: { size: number; bold?: boolean; face?: PrintFace; width?: number; align?: 'left' | 'right' | 'center'; colour?: string }): void {
+    this.font(o.size, o.face ?? (o.bold ? 'text-bold' : 'text'));
     this.doc.fillColor(o.colour ?? INK).text(clean(s), x, y, {
       width: o.width,
       align: o.align ?? 'left',
@@ -94,12 +91,13 @@ class Writer {
     this.y = MARGIN.top;
   }
 
-  paragraph(s: string, size: number, o: { bold?: boolean; colour?: string; indent?: number; gap?: number } = {}): void {
+  paragraph(s: string, size: number, o: { bold?: boolean; face?: PrintFace; colour?: string; indent?: number; gap?: number } = {}): void {
     const x = this.left + (o.indent ?? 0);
     const w = this.width - (o.indent ?? 0);
-    const h = this.heightOf(s, size, w, o.bold);
+    const face = o.face ?? (o.bold ? 'text-bold' : 'text');
+    const h = this.heightOf(s, size, w, face);
     this.ensure(h);
-    this.text(s, x, this.y, { size, bold: o.bold, width: w, colour: o.colour });
+    this.text(s, x, this.y, { size, face, width: w, colour: o.colour });
     this.y += h + (o.gap ?? 1);
   }
 }
@@ -107,7 +105,7 @@ class Writer {
 function sectionTitle(w: Writer, title: string, keepWith = 150): void {
   w.ensure(32 + keepWith);
   w.y += 8;
-  w.text(title, w.left, w.y, { size: 14, bold: true });
+  w.text(title, w.left, w.y, { size: 14, face: 'heading' });
   w.y += 18;
   w.doc.moveTo(w.left, w.y).lineTo(w.left + w.width, w.y).lineWidth(1.2).strokeColor(INK).stroke();
   w.y += 6;
@@ -131,9 +129,12 @@ function drawTable(w: Writer, t: SheetTable, s: TableStyle): void {
   const cols = t.head.length;
   const bold = (i: number) => t.align[i] === 'right' && s.weightSize > s.size;
   const sizeOf = (i: number) => (bold(i) ? s.weightSize : s.size);
+  // Figures (weights, counts) in the figures face, words in the text face.
+  const faceOf = (i: number, strong = false): PrintFace =>
+    t.align[i] === 'right' ? (bold(i) || strong ? 'figures-bold' : 'figures') : strong ? 'text-bold' : 'text';
   const widths = Array.from({ length: cols }, (_, i) => {
     const cells = [t.head[i], ...t.rows.map((r) => r[i]), ...(t.footer ? [t.footer[i]] : [])];
-    const widest = Math.max(...cells.map((c) => w.widthOf(c ?? '', sizeOf(i), bold(i) || (t.footer !== undefined && c === t.footer[i])))) + 2 * s.pad;
+    const widest = Math.max(...cells.map((c) => w.widthOf(c ?? '', sizeOf(i), faceOf(i, t.footer !== undefined && c === t.footer[i])))) + 2 * s.pad;
     return Math.max(widest, s.minWidths?.[i] ?? 0);
   });
   const avail = Math.min(s.maxWidth ?? w.width, w.width) - (tick ? TICK_W : 0);
@@ -171,21 +172,21 @@ function drawTable(w: Writer, t: SheetTable, s: TableStyle): void {
       drawHead();
     }
     r.forEach((c, i) =>
-      w.text(c, xs[i] + s.pad, w.y + s.pad, { size: sizeOf(i), bold: bold(i), width: widths[i] - 2 * s.pad, align: t.align[i] }),
+      w.text(c, xs[i] + s.pad, w.y + s.pad, { size: sizeOf(i), face: faceOf(i), width: widths[i] - 2 * s.pad, align: t.align[i] }),
     );
     if (tick && t.tick[ri]) {
       const box = Math.min(12, h - 4);
       w.doc.rect(tickX + 6, w.y + (h - box) / 2, box, box).lineWidth(1).strokeColor(INK).stroke();
     }
     w.y += h;
-    w.doc.moveTo(w.left, w.y).lineTo(w.left + tableW, w.y).lineWidth(0.3).strokeColor('#bbbbbb').stroke();
+    w.doc.moveTo(w.left, w.y).lineTo(w.left + tableW, w.y).lineWidth(0.3).strokeColor('#d9c6a8').stroke();
   });
   if (t.footer) {
     const h = s.size * 1.2 + 2 * s.pad;
     if (w.y + h > w.bottom) w.newPage();
     w.doc.moveTo(w.left, w.y).lineTo(w.left + tableW, w.y).lineWidth(0.8).strokeColor(INK).stroke();
     const fh = Math.max(...t.footer.map((_, i) => sizeOf(i))) * 1.2 + 2 * s.pad;
-    t.footer.forEach((c, i) => w.text(c, xs[i] + s.pad, w.y + s.pad, { size: sizeOf(i), bold: true, width: widths[i] - 2 * s.pad, align: t.align[i] }));
+    t.footer.forEach((c, i) => w.text(c, xs[i] + s.pad, w.y + s.pad, { size: sizeOf(i), face: faceOf(i, true), width: widths[i] - 2 * s.pad, align: t.align[i] }));
     w.y += Math.max(h, fh);
   }
 }
@@ -202,7 +203,7 @@ function box(w: Writer, section: SheetSection | undefined, dashed: boolean): voi
   if (dashed) w.doc.dash(4, { space: 3 });
   w.doc.strokeColor(INK).stroke();
   w.doc.undash();
-  w.text(section.title, w.left + 12, top + 8, { size: 12, bold: true });
+  w.text(section.title, w.left + 12, top + 8, { size: 12, face: 'heading' });
   let y = top + 26;
   lines.forEach((l, i) => {
     w.text(`• ${l}`, w.left + 12, y, { size: 9.5, width: inner });
@@ -222,12 +223,12 @@ function chart(w: Writer, m: ChartModel): void {
   const x = (minute: number) => w.left + labelW + ((Math.min(Math.max(minute, m.from), m.to) - m.from) / span) * (w.width - labelW - 4);
   const doc = w.doc;
   m.rows.forEach((_, i) => {
-    if (i % 2 === 1) doc.rect(w.left, y0 + i * rowH, w.width, rowH).fillColor('#f1f1f1').fill();
+    if (i % 2 === 1) doc.rect(w.left, y0 + i * rowH, w.width, rowH).fillColor('#f5eddf').fill();
   });
   for (const t of m.ticks) {
     const tx = x(t.minute);
-    doc.moveTo(tx, y0 - 3).lineTo(tx, y0 + m.rows.length * rowH).lineWidth(0.4).strokeColor('#bbbbbb').stroke();
-    w.text(t.label, tx - 40, y0 - 11, { size: 6.5, width: 80, align: 'center', colour: '#333333' });
+    doc.moveTo(tx, y0 - 3).lineTo(tx, y0 + m.rows.length * rowH).lineWidth(0.4).strokeColor('#d9c6a8').stroke();
+    w.text(t.label, tx - 40, y0 - 11, { size: 6.5, face: 'figures', width: 80, align: 'center', colour: MUTED });
     if (t.day) w.text(t.day, tx - 40, y0 - 20, { size: 6.5, bold: true, width: 80, align: 'center' });
   }
   m.rows.forEach((row, i) => {
@@ -245,7 +246,7 @@ function chart(w: Writer, m: ChartModel): void {
       doc.rect(x1, y + 2, Math.max(1, bw), rowH - 4).fillColor(colourOf(b.step)).fill();
       doc.rect(x1, y + 2, Math.max(1, bw), rowH - 4).lineWidth(0.4);
       if (b.window) doc.dash(2, { space: 1.5 });
-      doc.strokeColor('#333333').stroke();
+      doc.strokeColor(INK).stroke();
       doc.undash();
       for (const f of b.folds) {
         const fx = x(f);
@@ -255,21 +256,34 @@ function chart(w: Writer, m: ChartModel): void {
   });
   if (m.readyBy >= m.from && m.readyBy <= m.to) {
     const rx = x(m.readyBy);
-    doc.moveTo(rx, y0 - 3).lineTo(rx, y0 + m.rows.length * rowH).lineWidth(1).dash(3, { space: 2 }).strokeColor('#cc0000').stroke();
+    doc.moveTo(rx, y0 - 3).lineTo(rx, y0 + m.rows.length * rowH).lineWidth(1).dash(3, { space: 2 }).strokeColor(INK).stroke();
     doc.undash();
   }
   let lx = w.left;
-  const ly = y0 + m.rows.length * rowH + 7;
-  for (const step of LEGEND) {
-    doc.rect(lx, ly, 9, 7).fillColor(colourOf(step)).fill();
-    doc.rect(lx, ly, 9, 7).lineWidth(0.4).strokeColor('#333333').stroke();
-    w.text(step, lx + 12, ly, { size: 6.5 });
-    lx += 18 + w.widthOf(step, 6.5);
+  let ly = y0 + m.rows.length * rowH + 7;
+  // The legend wraps onto as many lines as it needs: every colour drawn is named.
+  const item = (width: number) => {
+    if (lx + width > w.left + w.width) {
+      lx = w.left;
+      ly += 11;
+    }
+  };
+  for (const p of legendOf(m)) {
+    item(18 + w.widthOf(p.label, 6.5));
+    doc.rect(lx, ly, 9, 7).fillColor(p.colour).fill();
+    doc.rect(lx, ly, 9, 7).lineWidth(0.4);
+    if (p.group === 'build') doc.dash(2, { space: 1.5 });
+    doc.strokeColor(INK).stroke();
+    doc.undash();
+    w.text(p.label, lx + 12, ly, { size: 6.5 });
+    lx += 18 + w.widthOf(p.label, 6.5);
   }
+  item(36);
   doc.polygon([lx + 1, ly], [lx + 7, ly], [lx + 4, ly + 5]).fillColor(INK).fill();
   w.text('fold', lx + 10, ly, { size: 6.5 });
   lx += 36;
-  doc.moveTo(lx, ly - 1).lineTo(lx, ly + 8).lineWidth(1).dash(3, { space: 2 }).strokeColor('#cc0000').stroke();
+  item(70);
+  doc.moveTo(lx, ly - 1).lineTo(lx, ly + 8).lineWidth(1).dash(3, { space: 2 }).strokeColor(INK).stroke();
   doc.undash();
   w.text('first bake out', lx + 4, ly, { size: 6.5 });
   w.y = ly + 16;
@@ -277,7 +291,7 @@ function chart(w: Writer, m: ChartModel): void {
 }
 
 export async function renderSheetPdf(sheet: Sheet, options: PdfOptions = {}): Promise<Buffer> {
-  const fonts = options.fonts ?? { regular: readJetBrainsMonoWoff(400), bold: readJetBrainsMonoWoff(700) };
+  const fonts = options.fonts ?? readPrintFonts();
   const p = presentSheet(sheet);
   const doc = new PDFDocument({
     size: options.paper === 'letter' ? 'LETTER' : 'A4',
@@ -292,11 +306,10 @@ export async function renderSheetPdf(sheet: Sheet, options: PdfOptions = {}): Pr
     doc.on('end', () => resolve());
     doc.on('error', reject);
   });
-  doc.registerFont('mono', Buffer.from(fonts.regular));
-  doc.registerFont('mono-bold', Buffer.from(fonts.bold));
+  for (const face of PRINT_FACES) doc.registerFont(face, Buffer.from(fonts[face]));
 
   const w = new Writer(doc);
-  w.paragraph(p.title, 17, { bold: true, gap: 4 });
+  w.paragraph(p.title, 18, { face: 'heading', gap: 4 });
   for (const s of p.subtitle) w.paragraph(s, 9, { colour: MUTED });
   w.y += 6;
   box(w, p.sections.find((s) => s.key === 'cautions'), false);
@@ -309,7 +322,7 @@ export async function renderSheetPdf(sheet: Sheet, options: PdfOptions = {}): Pr
     const zoom = chartModel(sheet, morning);
     w.ensure(40 + zoom.rows.length * 11 + 42);
     w.y += 6;
-    w.paragraph('The production morning, closer', 11.5, { bold: true, gap: 2 });
+    w.paragraph('The production morning, closer', 12, { face: 'heading', gap: 2 });
     chart(w, zoom);
   }
 
@@ -329,7 +342,7 @@ export async function renderSheetPdf(sheet: Sheet, options: PdfOptions = {}): Pr
         const head = (b.title ? 16 : 0) + b.lines.reduce((a, l) => a + w.heightOf(l, 9.5, w.width - 8) + 1, 0);
         const rows = b.table ? Math.min(b.table.rows.length, 14) + 2 : 0;
         w.ensure(head + rows * (style.weightSize * 1.2 + 2 * style.pad) + 8);
-        if (b.title) w.paragraph(b.title, 11.5, { bold: true, gap: 2 });
+        if (b.title) w.paragraph(b.title, 12.5, { face: 'heading', gap: 2 });
         for (const l of b.lines) w.paragraph(l, 9.5, { indent: 8 });
       }
       if (b.table) drawTable(w, b.table, style);

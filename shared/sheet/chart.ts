@@ -40,29 +40,71 @@ export interface ChartModel {
   clipped: boolean;
 }
 
-/** Step colours, shared by the HTML and the PDF so the legend reads the same. */
-export const STEP_COLOURS: Partial<Record<TimelineStep, string>> & { other: string } = {
-  build: '#d9ead3',
-  soak: '#fce5cd',
-  autolyse: '#cfe2f3',
-  mix: '#1f4e79',
-  bulk: '#6fa8dc',
-  fold: '#3d85c6',
-  divide: '#674ea7',
-  preshape: '#8e7cc3',
-  rest: '#b4a7d6',
-  shape: '#8e7cc3',
-  proof: '#f6b26b',
-  retard: '#9fc5e8',
-  bake: '#cc0000',
-  cool: '#b7b7b7',
-  other: '#999999',
+/**
+ * Panform's timeline palette: one colour per kind of work, from the viewer's own warm tones.
+ * Each colour has its own lightness (CIE L* about 10 apart), so the bars stay apart printed in
+ * grey and for readers who do not tell red from green or blue from yellow; builds are also
+ * dashed (a window, not a slot) and folds are marks. tests/shared/sheet-palette.test.ts checks
+ * it. The HTML, the PDF and the viewer all draw with these, and every one is in the legend.
+ */
+export type StepGroup = 'build' | 'mix' | 'bake' | 'cold' | 'bench' | 'proof' | 'rise' | 'cool';
+
+export interface PaletteEntry {
+  group: StepGroup;
+  colour: string;
+  /** The legend's words. */
+  label: string;
+  /** Ink that reads on the colour (the viewer writes step names inside wide bars). */
+  ink: string;
+}
+
+/** In the legend's order: the order of the night. */
+export const PALETTE: PaletteEntry[] = [
+  { group: 'build', colour: '#eef3e6', label: 'build or soak (window)', ink: '#2b1e15' },
+  { group: 'mix', colour: '#4a2412', label: 'mix, autolyse', ink: '#fffaf2' },
+  { group: 'rise', colour: '#e0a93a', label: 'bulk, rest', ink: '#2b1e15' },
+  { group: 'bench', colour: '#6a8c3a', label: 'divide, shape', ink: '#fffaf2' },
+  { group: 'proof', colour: '#c78a5a', label: 'proof', ink: '#2b1e15' },
+  { group: 'cold', colour: '#1c5fb8', label: 'cold hold', ink: '#fffaf2' },
+  { group: 'bake', colour: '#8e2a14', label: 'bake', ink: '#fffaf2' },
+  { group: 'cool', colour: '#dcd3c3', label: 'cool, other', ink: '#2b1e15' },
+];
+
+const GROUP_OF: Record<TimelineStep, StepGroup> = {
+  build: 'build',
+  soak: 'build',
+  autolyse: 'mix',
+  mix: 'mix',
+  bulk: 'rise',
+  fold: 'rise',
+  rest: 'rise',
+  divide: 'bench',
+  preshape: 'bench',
+  shape: 'bench',
+  proof: 'proof',
+  retard: 'cold',
+  bake: 'bake',
+  cool: 'cool',
+  other: 'cool',
 };
 
-export const LEGEND: TimelineStep[] = ['build', 'soak', 'autolyse', 'mix', 'bulk', 'proof', 'retard', 'bake', 'cool'];
+export function groupOf(step: TimelineStep): StepGroup {
+  return GROUP_OF[step];
+}
+
+export function paletteOf(step: TimelineStep): PaletteEntry {
+  const group = GROUP_OF[step];
+  return PALETTE.find((p) => p.group === group)!;
+}
 
 export function colourOf(step: TimelineStep): string {
-  return STEP_COLOURS[step] ?? STEP_COLOURS.other;
+  return paletteOf(step).colour;
+}
+
+/** The palette entries a chart uses, in legend order (a legend names every colour drawn). */
+export function legendOf(m: ChartModel): PaletteEntry[] {
+  const used = new Set(m.rows.flatMap((r) => r.bars.map((b) => GROUP_OF[b.step])));
+  return PALETTE.filter((p) => used.has(p.group));
 }
 
 export interface ChartRange {

@@ -1,9 +1,9 @@
 // The batch sheet as one print-ready HTML page (a string): A4 or Letter through @page, large
 // type, a tick box beside every weight, the timeline drawn as an inline SVG chart and the
 // cautions in a box at the top. Self-contained: no script, no external file; the caller may pass
-// @font-face rules that embed JetBrains Mono (server/print/fonts.ts), else the page names the
-// font and falls back to the system's monospace. Pure; no I/O.
-import { chartModel, colourOf, LEGEND, productionRange, type ChartModel } from './chart.ts';
+// @font-face rules that embed Panform's faces (server/print/fonts.ts), else the page names them
+// and falls back to the system's. Pure; no I/O.
+import { chartModel, colourOf, legendOf, productionRange, type ChartModel } from './chart.ts';
 import { presentSheet, type SheetBlock, type SheetSection, type SheetTable } from './present.ts';
 import type { Sheet } from './types.ts';
 
@@ -11,9 +11,16 @@ export type Paper = 'a4' | 'letter';
 
 export interface HtmlOptions {
   paper?: Paper;
-  /** @font-face CSS for 'JetBrains Mono' (e.g. with data: URLs). */
+  /** @font-face CSS for the faces in FONTS (e.g. with data: URLs). */
   fontFaceCss?: string;
 }
+
+/** Panform's faces, as in the viewer: text, headings and figures (weights, times, temperatures). */
+export const FONTS = {
+  text: "'Atkinson Hyperlegible Next', 'Atkinson Hyperlegible Next Variable', ui-sans-serif, system-ui, sans-serif",
+  heading: "'Fraunces', 'Fraunces Variable', ui-serif, Georgia, serif",
+  figures: "'JetBrains Mono', ui-monospace, 'DejaVu Sans Mono', monospace",
+} as const;
 
 export function escapeHtml(s: string): string {
   return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
@@ -24,9 +31,11 @@ const PAGE_SIZE: Record<Paper, string> = { a4: 'A4 portrait', letter: 'letter po
 function css(paper: Paper, fontFaceCss: string): string {
   return `${fontFaceCss}
 @page { size: ${PAGE_SIZE[paper]}; margin: 12mm 11mm 14mm; }
-:root { --ink: #111; --muted: #444; --rule: #999; }
+:root { --ink: #2b1e15; --muted: #6a5442; --rule: #d9c6a8; }
 * { box-sizing: border-box; }
-html { font-family: 'JetBrains Mono', ui-monospace, 'DejaVu Sans Mono', monospace; font-variant-ligatures: none; color: var(--ink); }
+html { font-family: ${FONTS.text}; color: var(--ink); }
+h1, h2, h3 { font-family: ${FONTS.heading}; font-weight: 600; }
+td.r, th.r, td.time, .fig { font-family: ${FONTS.figures}; font-variant-ligatures: none; font-variant-numeric: tabular-nums; }
 body { margin: 0 auto; max-width: 190mm; padding: 6mm 0; font-size: 12.5pt; line-height: 1.35; }
 h1 { font-size: 20pt; margin: 0 0 2mm; }
 h2 { font-size: 16pt; margin: 7mm 0 2mm; padding-bottom: 1mm; border-bottom: 0.6mm solid var(--ink); break-after: avoid; }
@@ -39,7 +48,7 @@ table { border-collapse: collapse; margin-top: 1.5mm; }
 table.weigh { width: 100%; }
 section.totals .grid, section.formulas .grid { display: block; }
 section.totals table.weigh { width: auto; min-width: 120mm; }
-th, td { padding: 1mm 2.5mm; border-bottom: 0.2mm solid #ccc; vertical-align: top; text-align: left; }
+th, td { padding: 1mm 2.5mm; border-bottom: 0.2mm solid var(--rule); vertical-align: top; text-align: left; }
 th { font-size: 10pt; color: var(--muted); font-weight: 400; border-bottom: 0.4mm solid var(--ink); }
 td.r, th.r { text-align: right; }
 table.weigh td.r { font-size: 14pt; font-weight: 700; white-space: nowrap; }
@@ -97,22 +106,21 @@ export function timelineSvg(m: ChartModel): string {
   const labelW = 190;
   const rowH = 15;
   const top = 32;
-  const legendH = 20;
-  const H = top + m.rows.length * rowH + 8 + legendH;
   const span = Math.max(1, m.to - m.from);
   const x = (minute: number) => labelW + ((Math.min(Math.max(minute, m.from), m.to) - m.from) / span) * (W - labelW - 6);
   const out: string[] = [];
-  out.push(`<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${W} ${H}" role="img" aria-label="Timeline chart" font-family="'JetBrains Mono', ui-monospace, monospace">`);
+  const svgAt = out.length;
+  out.push(`<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${W} __H__" role="img" aria-label="Timeline chart" font-family="${escapeHtml(FONTS.text)}">`);
   for (const t of m.ticks) {
     const tx = x(t.minute).toFixed(1);
-    out.push(`<line x1="${tx}" y1="${top - 4}" x2="${tx}" y2="${top + m.rows.length * rowH}" stroke="#ccc" stroke-width="0.6"/>`);
-    out.push(`<text x="${tx}" y="${top - 7}" font-size="9" text-anchor="middle" fill="#333">${escapeHtml(t.label)}</text>`);
-    if (t.day) out.push(`<text x="${tx}" y="${top - 18}" font-size="9" font-weight="700" text-anchor="middle" fill="#111">${escapeHtml(t.day)}</text>`);
+    out.push(`<line x1="${tx}" y1="${top - 4}" x2="${tx}" y2="${top + m.rows.length * rowH}" stroke="#d9c6a8" stroke-width="0.6"/>`);
+    out.push(`<text x="${tx}" y="${top - 7}" font-size="9" text-anchor="middle" fill="#6a5442">${escapeHtml(t.label)}</text>`);
+    if (t.day) out.push(`<text x="${tx}" y="${top - 18}" font-size="9" font-weight="700" text-anchor="middle" fill="#2b1e15">${escapeHtml(t.day)}</text>`);
   }
   m.rows.forEach((row, i) => {
     const y = top + i * rowH;
-    if (i % 2 === 1) out.push(`<rect x="0" y="${y}" width="${W}" height="${rowH}" fill="#f3f3f3"/>`);
-    out.push(`<text x="4" y="${y + rowH - 4}" font-size="9.5" fill="#111">${escapeHtml(truncate(row.label, 30))}</text>`);
+    if (i % 2 === 1) out.push(`<rect x="0" y="${y}" width="${W}" height="${rowH}" fill="#f5eddf"/>`);
+    out.push(`<text x="4" y="${y + rowH - 4}" font-size="9.5" fill="#2b1e15">${escapeHtml(truncate(row.label, 30))}</text>`);
     for (const b of row.bars) {
       if (b.to < m.from || b.from > m.to) continue;
       const x1 = x(b.from);
@@ -123,28 +131,39 @@ export function timelineSvg(m: ChartModel): string {
       }
       const dash = b.window ? ' stroke-dasharray="3 2"' : '';
       out.push(
-        `<rect x="${x1.toFixed(1)}" y="${y + 2.5}" width="${w.toFixed(1)}" height="${rowH - 5}" fill="${colourOf(b.step)}" stroke="#333" stroke-width="0.5"${dash}><title>${escapeHtml(b.step)}</title></rect>`,
+        `<rect x="${x1.toFixed(1)}" y="${y + 2.5}" width="${w.toFixed(1)}" height="${rowH - 5}" fill="${colourOf(b.step)}" stroke="#2b1e15" stroke-width="0.5"${dash}><title>${escapeHtml(b.step)}</title></rect>`,
       );
       for (const f of b.folds) {
         const fx = x(f).toFixed(1);
-        out.push(`<path d="M${fx} ${y + 1} l-2.5 -0 l2.5 4 l2.5 -4 z" fill="#111"/>`);
+        out.push(`<path d="M${fx} ${y + 1} l-2.5 -0 l2.5 4 l2.5 -4 z" fill="#2b1e15"/>`);
       }
     }
   });
   if (m.readyBy >= m.from && m.readyBy <= m.to) {
     const rx = x(m.readyBy).toFixed(1);
-    out.push(`<line x1="${rx}" y1="${top - 4}" x2="${rx}" y2="${top + m.rows.length * rowH}" stroke="#cc0000" stroke-width="1.2" stroke-dasharray="4 2"/>`);
+    out.push(`<line x1="${rx}" y1="${top - 4}" x2="${rx}" y2="${top + m.rows.length * rowH}" stroke="#2b1e15" stroke-width="1.4" stroke-dasharray="4 2"/>`);
   }
-  const ly = top + m.rows.length * rowH + 8;
+  // The legend wraps onto as many lines as it needs: every colour drawn is named.
+  let ly = top + m.rows.length * rowH + 8;
   let lx = 4;
-  for (const step of LEGEND) {
-    out.push(`<rect x="${lx}" y="${ly}" width="12" height="9" fill="${colourOf(step)}" stroke="#333" stroke-width="0.5"/>`);
-    out.push(`<text x="${lx + 15}" y="${ly + 8}" font-size="9" fill="#111">${step}</text>`);
-    lx += 20 + step.length * 6.2;
+  const item = (w: number) => {
+    if (lx + w > W) {
+      lx = 4;
+      ly += 14;
+    }
+  };
+  for (const p of legendOf(m)) {
+    item(20 + p.label.length * 5.6);
+    out.push(`<rect x="${lx}" y="${ly}" width="12" height="9" fill="${p.colour}" stroke="#2b1e15" stroke-width="0.5"${p.group === 'build' ? ' stroke-dasharray="3 2"' : ''}/>`);
+    out.push(`<text x="${lx + 15}" y="${ly + 8}" font-size="9" fill="#2b1e15">${escapeHtml(p.label)}</text>`);
+    lx += 22 + p.label.length * 5.6;
   }
-  out.push(`<path d="M${lx + 6} ${ly} l-3 0 l3 5 l3 -5 z" fill="#111"/><text x="${lx + 13}" y="${ly + 8}" font-size="9" fill="#111">fold</text>`);
+  item(50);
+  out.push(`<path d="M${lx + 6} ${ly} l-3 0 l3 5 l3 -5 z" fill="#2b1e15"/><text x="${lx + 13}" y="${ly + 8}" font-size="9" fill="#2b1e15">fold</text>`);
   lx += 50;
-  out.push(`<line x1="${lx}" y1="${ly - 1}" x2="${lx}" y2="${ly + 10}" stroke="#cc0000" stroke-width="1.2" stroke-dasharray="4 2"/><text x="${lx + 5}" y="${ly + 8}" font-size="9" fill="#111">first bake out</text>`);
+  item(110);
+  out.push(`<line x1="${lx}" y1="${ly - 1}" x2="${lx}" y2="${ly + 10}" stroke="#2b1e15" stroke-width="1.4" stroke-dasharray="4 2"/><text x="${lx + 5}" y="${ly + 8}" font-size="9" fill="#2b1e15">first bake out</text>`);
+  out[svgAt] = out[svgAt].replace('__H__', String(ly + 16));
   out.push('</svg>');
   return out.join('');
 }

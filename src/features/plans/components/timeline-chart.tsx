@@ -1,7 +1,7 @@
 // The night's work as a chart: one lane per build and per mix, time running left to right.
 // On screen the lane names stay put while the hours scroll; on paper one picture fits the page.
 import { useLayoutEffect, useRef, useState, type ReactNode } from 'react';
-import { chartModel, type ChartRow } from '#shared/sheet/chart';
+import { chartModel, PALETTE, paletteOf, type ChartRow } from '#shared/sheet/chart';
 import type { Sheet, TimelineEntry } from '#shared/sheet/types';
 import { Segmented } from '../../../components/segmented.tsx';
 import { dayParts } from '../../../lib/format.ts';
@@ -24,17 +24,9 @@ const STEP_WORD: Record<string, string> = {
   other: 'step',
 };
 
-function fillOf(e: TimelineEntry): string {
-  if (e.step === 'bake') return 'var(--color-ember)';
-  if (e.step === 'retard' || e.cold) return 'var(--color-focus)';
-  if (e.step === 'mix' || e.step === 'autolyse') return 'var(--color-crust)';
-  if (e.step === 'bulk' || e.step === 'proof' || e.step === 'rest') return 'var(--color-rise)';
-  return 'var(--color-muted)';
-}
-
-function textOn(e: TimelineEntry): string {
-  return e.window || e.step === 'bulk' || e.step === 'proof' || e.step === 'rest' ? 'var(--color-ink)' : 'var(--color-card)';
-}
+// Panform's palette, the same as on the printed sheet (shared/sheet/chart.ts).
+const fillOf = (e: TimelineEntry): string => paletteOf(e.step).colour;
+const textOn = (e: TimelineEntry): string => paletteOf(e.step).ink;
 
 const LABEL_W = 210;
 const LANE_H = 36;
@@ -128,11 +120,10 @@ function Bars({ l, left, px, sheet }: { l: Layout; left: number; px: number; she
               width={w}
               height={h}
               rx={5}
-              fill={e.window ? 'url(#window-hatch)' : fillOf(e)}
-              stroke={e.window ? 'var(--color-sage)' : 'none'}
+              fill={fillOf(e)}
+              stroke={e.window ? 'var(--color-ink)' : 'none'}
               strokeWidth={e.window ? 2 : 0}
               strokeDasharray={e.window ? '5 3' : undefined}
-              opacity={e.step === 'cool' ? 0.55 : 1}
             />
             {w > 52 && (
               <text x={x0 + 5} y={y + h / 2 + 5} fontSize="13" fontWeight="600" fill={textOn(e)}>
@@ -147,17 +138,6 @@ function Bars({ l, left, px, sheet }: { l: Layout; left: number; px: number; she
         out by {sheet.readyBy.slice(11)}
       </text>
     </>
-  );
-}
-
-function Hatch() {
-  return (
-    <defs>
-      <pattern id="window-hatch" width="8" height="8" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
-        <rect width="8" height="8" fill="var(--color-sage-soft)" />
-        <line x1="0" y1="0" x2="0" y2="8" stroke="var(--color-sage)" strokeWidth="3" opacity="0.45" />
-      </pattern>
-    </defs>
   );
 }
 
@@ -208,7 +188,6 @@ export function TimelineChart({ sheet }: { sheet: Sheet }) {
         </svg>
         <div ref={scroller} className="min-w-0 flex-1 overflow-x-auto" tabIndex={0} role="region" aria-label="Timeline hours, scroll sideways">
           <svg role="img" aria-label={title} width={chartW} height={l.height} className="block" fontFamily="var(--font-sans)">
-            <Hatch />
             <LaneLabels l={l} width={chartW} names={false} />
             <Bars l={l} left={8} px={px} sheet={sheet} />
           </svg>
@@ -216,20 +195,16 @@ export function TimelineChart({ sheet }: { sheet: Sheet }) {
       </div>
       <PrintChart>
         <svg viewBox={`0 0 ${LABEL_W + span * 0.6 + PAD} ${l.height}`} className="h-auto w-full" fontFamily="var(--font-sans)" aria-hidden="true">
-          <Hatch />
           <LaneLabels l={l} width={LABEL_W + span * 0.6 + PAD} />
           <Bars l={l} left={LABEL_W} px={0.6} sheet={sheet} />
         </svg>
       </PrintChart>
       <figcaption className="mt-2 flex flex-wrap gap-x-4 gap-y-1 text-sm text-muted">
-        <Key color="var(--color-sage)" hatch>
-          window to make a build
-        </Key>
-        <Key color="var(--color-crust)">mix</Key>
-        <Key color="var(--color-rise)">rise, rest, proof</Key>
-        <Key color="var(--color-focus)">cold hold</Key>
-        <Key color="var(--color-ember)">bake</Key>
-        <Key color="var(--color-muted)">divide, shape, cool</Key>
+        {PALETTE.map((p) => (
+          <Key key={p.group} color={p.colour} hatch={p.group === 'build'}>
+            {p.label}
+          </Key>
+        ))}
       </figcaption>
     </figure>
   );
@@ -245,7 +220,7 @@ function Key({ color, hatch, children }: { color: string; hatch?: boolean; child
       <span
         aria-hidden="true"
         className="inline-block h-3 w-5 rounded-sm"
-        style={hatch ? { border: `2px dashed ${color}`, background: 'var(--color-sage-soft)' } : { background: color }}
+        style={hatch ? { border: '2px dashed var(--color-ink)', background: color } : { background: color }}
       />
       {children}
     </span>

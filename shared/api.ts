@@ -179,4 +179,6 @@ export interface PlanDetail {
 /** GET /api/catalog */
 export interface CatalogResponse {
   catalog: Catalog;
+  /** The formulas this person may open that use each ingredient (directly, in a blend or as a levain's feed). */
+  usedBy: Record<string, { id: string; title: string }[]>;
 }

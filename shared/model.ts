@@ -101,6 +101,8 @@ export interface CatalogItem {
   kind: IngredientKind;
   /** Water content in percent of the ingredient's weight (water itself: 100). */
   water: number;
+  /** Where `water` comes from; none when the kind's default (defaultWaterContent) is assumed. */
+  waterSource?: string;
   allergens: AllergenCode[];
   yeast?: YeastType;
   /** Grams of this yeast that replace 1 g of fresh yeast, when the catalog sets it. */
@@ -276,6 +278,7 @@ export function normalizeCatalog(c: CatalogFile): Catalog {
       name,
       kind: e.kind,
       water: e.water === undefined ? defaultWaterContent(e.kind) : parsePercent(e.water),
+      waterSource: e.water_source,
       allergens: e.allergens ?? [],
       yeast: e.yeast,
       yeastFactor: e.yeast_factor,

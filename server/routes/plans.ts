@@ -12,6 +12,7 @@ import { HttpError, invalid, notFound } from '../http/errors.ts';
 import { queryString } from '../http/query.ts';
 import type { PlanEntry, Snapshot } from './data.ts';
 import { catalogNamesFor, visibleCatalog } from './formulas.ts';
+import { formulaIngredientNames } from '#shared/allergens';
 
 const DATE_RE = /^[0-9]{4}-[0-9]{2}-[0-9]{2}$/;
 
@@ -112,7 +113,15 @@ export function plansRouter(ctx: ServerContext): Router {
   r.get('/catalog', async (req, res) => {
     const user = requirePermission(req, 'read:catalog');
     const snapshot = await ctx.data.snapshot();
-    const body: CatalogResponse = { catalog: visibleCatalog(snapshot.catalog, user.role, catalogNamesFor(snapshot, user.role)) };
+    const catalog = visibleCatalog(snapshot.catalog, user.role, catalogNamesFor(snapshot, user.role));
+    const usedBy: CatalogResponse['usedBy'] = {};
+    for (const f of [...snapshot.formulas.values()].sort((a, b) => a.title.localeCompare(b.title))) {
+      if (!f.formula || !canSeeFormulaStatus(user.role, f.status)) continue;
+      for (const name of Object.keys(visibleCatalog(snapshot.catalog, user.role, formulaIngredientNames(f.formula)))) {
+        (usedBy[name] ??= []).push({ id: f.id, title: f.title });
+      }
+    }
+    const body: CatalogResponse = { catalog, usedBy };
     res.json(body);
   });
 

@@ -186,6 +186,7 @@ export const CatalogEntry = Type.Object(
     water: Type.Optional(Type.Union([Type.Number({ minimum: 0, maximum: 100 }), Type.String({ pattern: PERCENT_PATTERN })], {
       description: 'Water content in percent of its weight.',
     })),
+    water_source: Type.Optional(Type.String({ minLength: 1, description: 'Where the water content comes from: a food composition table and its number, or a supplier specification.' })),
     allergens: Type.Optional(Type.Array(AllergenCode, { uniqueItems: true })),
     yeast: Type.Optional(Type.Unsafe<(typeof YEAST_TYPES)[number]>({ type: 'string', enum: [...YEAST_TYPES] })),
     yeast_factor: Type.Optional(Type.Number({

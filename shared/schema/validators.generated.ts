@@ -2135,7 +2135,7 @@ return errors === 0;
 }
 
 export const catalog = validate11;
-const schema12 = {"$schema":"http://json-schema.org/draft-07/schema#","$id":"https://panform.example/schema/catalog.schema.json","title":"Panform ingredient catalog","type":"object","patternProperties":{"^(.*)$":{"additionalProperties":false,"type":"object","required":["kind"],"properties":{"kind":{"type":"string","enum":["flour","water","salt","yeast","sugar","fat","dairy","egg","seed","inclusion","culture","improver","other"]},"water":{"description":"Water content in percent of its weight.","anyOf":[{"minimum":0,"maximum":100,"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"allergens":{"uniqueItems":true,"type":"array","items":{"type":"string","enum":["wheat","rye","barley","oats","spelt","khorasan","crustaceans","eggs","fish","peanuts","soybeans","milk","almonds","hazelnuts","walnuts","cashews","pecans","brazil-nuts","pistachios","macadamia","celery","mustard","sesame","sulphites","lupin","molluscs"],"description":"An allergen code; the EU and US roll-ups are derived from these."}},"yeast":{"type":"string","enum":["fresh","active-dry","instant"]},"yeast_factor":{"exclusiveMinimum":0,"description":"Grams of this yeast that replace 1 g of fresh yeast (default: fresh 1, active-dry 0.4, instant 0.33).","type":"number"},"hydration":{"description":"A percentage, e.g. \"2 %\" or 2.","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"fed_with":{"minLength":1,"type":"string"},"cost_per_kg":{"minimum":0,"type":"number"},"cost_date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","type":"string"},"components":{"minItems":1,"type":"array","items":{"minLength":1,"type":"string"}},"label":{"minLength":1,"description":"Name on the ingredient statement.","type":"string"},"labels":{"additionalProperties":false,"description":"The name on the statement for one market, where it differs from label.","type":"object","properties":{"eu":{"minLength":1,"type":"string"},"us":{"minLength":1,"type":"string"}}},"nutrients":{"additionalProperties":false,"description":"Per 100 g, grams unless the key says mg.","type":"object","required":["fat","saturates","carbohydrate","sugars","fibre","protein","sodium_mg","source"],"properties":{"fat":{"minimum":0,"maximum":100,"description":"Fat, g per 100 g.","type":"number"},"saturates":{"minimum":0,"maximum":100,"description":"Saturated fatty acids, g per 100 g.","type":"number"},"carbohydrate":{"minimum":0,"maximum":100,"description":"Total carbohydrate (by difference, fibre included), g per 100 g.","type":"number"},"sugars":{"minimum":0,"maximum":100,"description":"Total sugars, g per 100 g.","type":"number"},"fibre":{"minimum":0,"maximum":100,"description":"Dietary fibre, g per 100 g.","type":"number"},"protein":{"minimum":0,"maximum":100,"description":"Protein, g per 100 g.","type":"number"},"sodium_mg":{"minimum":0,"maximum":100000,"description":"Sodium, mg per 100 g.","type":"number"},"source":{"minLength":1,"description":"Where the values come from: a supplier specification, or a food composition table and its number.","type":"string"}}},"note":{"type":"string"}}}}};
+const schema12 = {"$schema":"http://json-schema.org/draft-07/schema#","$id":"https://panform.example/schema/catalog.schema.json","title":"Panform ingredient catalog","type":"object","patternProperties":{"^(.*)$":{"additionalProperties":false,"type":"object","required":["kind"],"properties":{"kind":{"type":"string","enum":["flour","water","salt","yeast","sugar","fat","dairy","egg","seed","inclusion","culture","improver","other"]},"water":{"description":"Water content in percent of its weight.","anyOf":[{"minimum":0,"maximum":100,"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"water_source":{"minLength":1,"description":"Where the water content comes from: a food composition table and its number, or a supplier specification.","type":"string"},"allergens":{"uniqueItems":true,"type":"array","items":{"type":"string","enum":["wheat","rye","barley","oats","spelt","khorasan","crustaceans","eggs","fish","peanuts","soybeans","milk","almonds","hazelnuts","walnuts","cashews","pecans","brazil-nuts","pistachios","macadamia","celery","mustard","sesame","sulphites","lupin","molluscs"],"description":"An allergen code; the EU and US roll-ups are derived from these."}},"yeast":{"type":"string","enum":["fresh","active-dry","instant"]},"yeast_factor":{"exclusiveMinimum":0,"description":"Grams of this yeast that replace 1 g of fresh yeast (default: fresh 1, active-dry 0.4, instant 0.33).","type":"number"},"hydration":{"description":"A percentage, e.g. \"2 %\" or 2.","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"fed_with":{"minLength":1,"type":"string"},"cost_per_kg":{"minimum":0,"type":"number"},"cost_date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","type":"string"},"components":{"minItems":1,"type":"array","items":{"minLength":1,"type":"string"}},"label":{"minLength":1,"description":"Name on the ingredient statement.","type":"string"},"labels":{"additionalProperties":false,"description":"The name on the statement for one market, where it differs from label.","type":"object","properties":{"eu":{"minLength":1,"type":"string"},"us":{"minLength":1,"type":"string"}}},"nutrients":{"additionalProperties":false,"description":"Per 100 g, grams unless the key says mg.","type":"object","required":["fat","saturates","carbohydrate","sugars","fibre","protein","sodium_mg","source"],"properties":{"fat":{"minimum":0,"maximum":100,"description":"Fat, g per 100 g.","type":"number"},"saturates":{"minimum":0,"maximum":100,"description":"Saturated fatty acids, g per 100 g.","type":"number"},"carbohydrate":{"minimum":0,"maximum":100,"description":"Total carbohydrate (by difference, fibre included), g per 100 g.","type":"number"},"sugars":{"minimum":0,"maximum":100,"description":"Total sugars, g per 100 g.","type":"number"},"fibre":{"minimum":0,"maximum":100,"description":"Dietary fibre, g per 100 g.","type":"number"},"protein":{"minimum":0,"maximum":100,"description":"Protein, g per 100 g.","type":"number"},"sodium_mg":{"minimum":0,"maximum":100000,"description":"Sodium, mg per 100 g.","type":"number"},"source":{"minLength":1,"description":"Where the values come from: a supplier specification, or a food composition table and its number.","type":"string"}}},"note":{"type":"string"}}}}};
 const pattern24 = new RegExp("^[0-9]{4}-[0-9]{2}-[0-9]{2}$", "u");
 
 function validate11(data, {instancePath="", parentData, parentDataProperty, rootData=data}={}){
@@ -2280,14 +2280,11 @@ vErrors = null;
 }
 }
 }
-if(data0.allergens !== undefined){
-let data3 = data0.allergens;
-if(Array.isArray(data3)){
-const len0 = data3.length;
-for(let i0=0; i0<len0; i0++){
-let data4 = data3[i0];
-if(typeof data4 !== "string"){
-const err10 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/allergens/" + i0,schemaPath:"#/patternProperties/%5E(.*)%24/properties/allergens/items/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data0.water_source !== undefined){
+let data3 = data0.water_source;
+if(typeof data3 === "string"){
+if(func3(data3) < 1){
+const err10 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/water_source",schemaPath:"#/patternProperties/%5E(.*)%24/properties/water_source/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err10];
 }
@@ -2296,8 +2293,9 @@ vErrors.push(err10);
 }
 errors++;
 }
-if(!((((((((((((((((((((((((((data4 === "wheat") || (data4 === "rye")) || (data4 === "barley")) || (data4 === "oats")) || (data4 === "spelt")) || (data4 === "khorasan")) || (data4 === "crustaceans")) || (data4 === "eggs")) || (data4 === "fish")) || (data4 === "peanuts")) || (data4 === "soybeans")) || (data4 === "milk")) || (data4 === "almonds")) || (data4 === "hazelnuts")) || (data4 === "walnuts")) || (data4 === "cashews")) || (data4 === "pecans")) || (data4 === "brazil-nuts")) || (data4 === "pistachios")) || (data4 === "macadamia")) || (data4 === "celery")) || (data4 === "mustard")) || (data4 === "sesame")) || (data4 === "sulphites")) || (data4 === "lupin")) || (data4 === "molluscs"))){
-const err11 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/allergens/" + i0,schemaPath:"#/patternProperties/%5E(.*)%24/properties/allergens/items/enum",keyword:"enum",params:{allowedValues: schema12.patternProperties["^(.*)$"].properties.allergens.items.enum},message:"must be equal to one of the allowed values"};
+}
+else {
+const err11 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/water_source",schemaPath:"#/patternProperties/%5E(.*)%24/properties/water_source/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err11];
 }
@@ -2307,18 +2305,14 @@ vErrors.push(err11);
 errors++;
 }
 }
-let i1 = data3.length;
-let j0;
-if(i1 > 1){
-const indices0 = {};
-for(;i1--;){
-let item0 = data3[i1];
-if(typeof item0 !== "string"){
-continue;
-}
-if(typeof indices0[item0] == "number"){
-j0 = indices0[item0];
-const err12 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/allergens",schemaPath:"#/patternProperties/%5E(.*)%24/properties/allergens/uniqueItems",keyword:"uniqueItems",params:{i: i1, j: j0},message:"must NOT have duplicate items (items ## "+j0+" and "+i1+" are identical)"};
+if(data0.allergens !== undefined){
+let data4 = data0.allergens;
+if(Array.isArray(data4)){
+const len0 = data4.length;
+for(let i0=0; i0<len0; i0++){
+let data5 = data4[i0];
+if(typeof data5 !== "string"){
+const err12 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/allergens/" + i0,schemaPath:"#/patternProperties/%5E(.*)%24/properties/allergens/items/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err12];
 }
@@ -2326,14 +2320,9 @@ else {
 vErrors.push(err12);
 }
 errors++;
-break;
 }
-indices0[item0] = i1;
-}
-}
-}
-else {
-const err13 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/allergens",schemaPath:"#/patternProperties/%5E(.*)%24/properties/allergens/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(!((((((((((((((((((((((((((data5 === "wheat") || (data5 === "rye")) || (data5 === "barley")) || (data5 === "oats")) || (data5 === "spelt")) || (data5 === "khorasan")) || (data5 === "crustaceans")) || (data5 === "eggs")) || (data5 === "fish")) || (data5 === "peanuts")) || (data5 === "soybeans")) || (data5 === "milk")) || (data5 === "almonds")) || (data5 === "hazelnuts")) || (data5 === "walnuts")) || (data5 === "cashews")) || (data5 === "pecans")) || (data5 === "brazil-nuts")) || (data5 === "pistachios")) || (data5 === "macadamia")) || (data5 === "celery")) || (data5 === "mustard")) || (data5 === "sesame")) || (data5 === "sulphites")) || (data5 === "lupin")) || (data5 === "molluscs"))){
+const err13 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/allergens/" + i0,schemaPath:"#/patternProperties/%5E(.*)%24/properties/allergens/items/enum",keyword:"enum",params:{allowedValues: schema12.patternProperties["^(.*)$"].properties.allergens.items.enum},message:"must be equal to one of the allowed values"};
 if(vErrors === null){
 vErrors = [err13];
 }
@@ -2343,10 +2332,18 @@ vErrors.push(err13);
 errors++;
 }
 }
-if(data0.yeast !== undefined){
-let data5 = data0.yeast;
-if(typeof data5 !== "string"){
-const err14 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/yeast",schemaPath:"#/patternProperties/%5E(.*)%24/properties/yeast/type",keyword:"type",params:{type: "string"},message:"must be string"};
+let i1 = data4.length;
+let j0;
+if(i1 > 1){
+const indices0 = {};
+for(;i1--;){
+let item0 = data4[i1];
+if(typeof item0 !== "string"){
+continue;
+}
+if(typeof indices0[item0] == "number"){
+j0 = indices0[item0];
+const err14 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/allergens",schemaPath:"#/patternProperties/%5E(.*)%24/properties/allergens/uniqueItems",keyword:"uniqueItems",params:{i: i1, j: j0},message:"must NOT have duplicate items (items ## "+j0+" and "+i1+" are identical)"};
 if(vErrors === null){
 vErrors = [err14];
 }
@@ -2354,9 +2351,14 @@ else {
 vErrors.push(err14);
 }
 errors++;
+break;
 }
-if(!(((data5 === "fresh") || (data5 === "active-dry")) || (data5 === "instant"))){
-const err15 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/yeast",schemaPath:"#/patternProperties/%5E(.*)%24/properties/yeast/enum",keyword:"enum",params:{allowedValues: schema12.patternProperties["^(.*)$"].properties.yeast.enum},message:"must be equal to one of the allowed values"};
+indices0[item0] = i1;
+}
+}
+}
+else {
+const err15 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/allergens",schemaPath:"#/patternProperties/%5E(.*)%24/properties/allergens/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err15];
 }
@@ -2366,11 +2368,10 @@ vErrors.push(err15);
 errors++;
 }
 }
-if(data0.yeast_factor !== undefined){
-let data6 = data0.yeast_factor;
-if(typeof data6 == "number"){
-if(data6 <= 0 || isNaN(data6)){
-const err16 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/yeast_factor",schemaPath:"#/patternProperties/%5E(.*)%24/properties/yeast_factor/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
+if(data0.yeast !== undefined){
+let data6 = data0.yeast;
+if(typeof data6 !== "string"){
+const err16 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/yeast",schemaPath:"#/patternProperties/%5E(.*)%24/properties/yeast/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err16];
 }
@@ -2379,9 +2380,8 @@ vErrors.push(err16);
 }
 errors++;
 }
-}
-else {
-const err17 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/yeast_factor",schemaPath:"#/patternProperties/%5E(.*)%24/properties/yeast_factor/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(!(((data6 === "fresh") || (data6 === "active-dry")) || (data6 === "instant"))){
+const err17 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/yeast",schemaPath:"#/patternProperties/%5E(.*)%24/properties/yeast/enum",keyword:"enum",params:{allowedValues: schema12.patternProperties["^(.*)$"].properties.yeast.enum},message:"must be equal to one of the allowed values"};
 if(vErrors === null){
 vErrors = [err17];
 }
@@ -2391,13 +2391,11 @@ vErrors.push(err17);
 errors++;
 }
 }
-if(data0.hydration !== undefined){
-let data7 = data0.hydration;
-const _errs21 = errors;
-let valid6 = false;
-const _errs22 = errors;
-if(!(typeof data7 == "number")){
-const err18 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/hydration",schemaPath:"#/patternProperties/%5E(.*)%24/properties/hydration/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(data0.yeast_factor !== undefined){
+let data7 = data0.yeast_factor;
+if(typeof data7 == "number"){
+if(data7 <= 0 || isNaN(data7)){
+const err18 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/yeast_factor",schemaPath:"#/patternProperties/%5E(.*)%24/properties/yeast_factor/exclusiveMinimum",keyword:"exclusiveMinimum",params:{comparison: ">", limit: 0},message:"must be > 0"};
 if(vErrors === null){
 vErrors = [err18];
 }
@@ -2406,13 +2404,9 @@ vErrors.push(err18);
 }
 errors++;
 }
-var _valid1 = _errs22 === errors;
-valid6 = valid6 || _valid1;
-if(!valid6){
-const _errs24 = errors;
-if(typeof data7 === "string"){
-if(!pattern3.test(data7)){
-const err19 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/hydration",schemaPath:"#/patternProperties/%5E(.*)%24/properties/hydration/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$"+"\""};
+}
+else {
+const err19 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/yeast_factor",schemaPath:"#/patternProperties/%5E(.*)%24/properties/yeast_factor/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err19];
 }
@@ -2422,8 +2416,13 @@ vErrors.push(err19);
 errors++;
 }
 }
-else {
-const err20 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/hydration",schemaPath:"#/patternProperties/%5E(.*)%24/properties/hydration/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data0.hydration !== undefined){
+let data8 = data0.hydration;
+const _errs23 = errors;
+let valid6 = false;
+const _errs24 = errors;
+if(!(typeof data8 == "number")){
+const err20 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/hydration",schemaPath:"#/patternProperties/%5E(.*)%24/properties/hydration/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err20];
 }
@@ -2434,9 +2433,11 @@ errors++;
 }
 var _valid1 = _errs24 === errors;
 valid6 = valid6 || _valid1;
-}
 if(!valid6){
-const err21 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/hydration",schemaPath:"#/patternProperties/%5E(.*)%24/properties/hydration/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+const _errs26 = errors;
+if(typeof data8 === "string"){
+if(!pattern3.test(data8)){
+const err21 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/hydration",schemaPath:"#/patternProperties/%5E(.*)%24/properties/hydration/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err21];
 }
@@ -2445,23 +2446,9 @@ vErrors.push(err21);
 }
 errors++;
 }
-else {
-errors = _errs21;
-if(vErrors !== null){
-if(_errs21){
-vErrors.length = _errs21;
 }
 else {
-vErrors = null;
-}
-}
-}
-}
-if(data0.fed_with !== undefined){
-let data8 = data0.fed_with;
-if(typeof data8 === "string"){
-if(func3(data8) < 1){
-const err22 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/fed_with",schemaPath:"#/patternProperties/%5E(.*)%24/properties/fed_with/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+const err22 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/hydration",schemaPath:"#/patternProperties/%5E(.*)%24/properties/hydration/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err22];
 }
@@ -2470,9 +2457,11 @@ vErrors.push(err22);
 }
 errors++;
 }
+var _valid1 = _errs26 === errors;
+valid6 = valid6 || _valid1;
 }
-else {
-const err23 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/fed_with",schemaPath:"#/patternProperties/%5E(.*)%24/properties/fed_with/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(!valid6){
+const err23 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/hydration",schemaPath:"#/patternProperties/%5E(.*)%24/properties/hydration/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
 if(vErrors === null){
 vErrors = [err23];
 }
@@ -2481,12 +2470,23 @@ vErrors.push(err23);
 }
 errors++;
 }
+else {
+errors = _errs23;
+if(vErrors !== null){
+if(_errs23){
+vErrors.length = _errs23;
 }
-if(data0.cost_per_kg !== undefined){
-let data9 = data0.cost_per_kg;
-if(typeof data9 == "number"){
-if(data9 < 0 || isNaN(data9)){
-const err24 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/cost_per_kg",schemaPath:"#/patternProperties/%5E(.*)%24/properties/cost_per_kg/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+else {
+vErrors = null;
+}
+}
+}
+}
+if(data0.fed_with !== undefined){
+let data9 = data0.fed_with;
+if(typeof data9 === "string"){
+if(func3(data9) < 1){
+const err24 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/fed_with",schemaPath:"#/patternProperties/%5E(.*)%24/properties/fed_with/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err24];
 }
@@ -2497,7 +2497,7 @@ errors++;
 }
 }
 else {
-const err25 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/cost_per_kg",schemaPath:"#/patternProperties/%5E(.*)%24/properties/cost_per_kg/type",keyword:"type",params:{type: "number"},message:"must be number"};
+const err25 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/fed_with",schemaPath:"#/patternProperties/%5E(.*)%24/properties/fed_with/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err25];
 }
@@ -2507,11 +2507,11 @@ vErrors.push(err25);
 errors++;
 }
 }
-if(data0.cost_date !== undefined){
-let data10 = data0.cost_date;
-if(typeof data10 === "string"){
-if(!pattern24.test(data10)){
-const err26 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/cost_date",schemaPath:"#/patternProperties/%5E(.*)%24/properties/cost_date/pattern",keyword:"pattern",params:{pattern: "^[0-9]{4}-[0-9]{2}-[0-9]{2}$"},message:"must match pattern \""+"^[0-9]{4}-[0-9]{2}-[0-9]{2}$"+"\""};
+if(data0.cost_per_kg !== undefined){
+let data10 = data0.cost_per_kg;
+if(typeof data10 == "number"){
+if(data10 < 0 || isNaN(data10)){
+const err26 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/cost_per_kg",schemaPath:"#/patternProperties/%5E(.*)%24/properties/cost_per_kg/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err26];
 }
@@ -2522,7 +2522,7 @@ errors++;
 }
 }
 else {
-const err27 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/cost_date",schemaPath:"#/patternProperties/%5E(.*)%24/properties/cost_date/type",keyword:"type",params:{type: "string"},message:"must be string"};
+const err27 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/cost_per_kg",schemaPath:"#/patternProperties/%5E(.*)%24/properties/cost_per_kg/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err27];
 }
@@ -2532,11 +2532,11 @@ vErrors.push(err27);
 errors++;
 }
 }
-if(data0.components !== undefined){
-let data11 = data0.components;
-if(Array.isArray(data11)){
-if(data11.length < 1){
-const err28 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/components",schemaPath:"#/patternProperties/%5E(.*)%24/properties/components/minItems",keyword:"minItems",params:{limit: 1},message:"must NOT have fewer than 1 items"};
+if(data0.cost_date !== undefined){
+let data11 = data0.cost_date;
+if(typeof data11 === "string"){
+if(!pattern24.test(data11)){
+const err28 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/cost_date",schemaPath:"#/patternProperties/%5E(.*)%24/properties/cost_date/pattern",keyword:"pattern",params:{pattern: "^[0-9]{4}-[0-9]{2}-[0-9]{2}$"},message:"must match pattern \""+"^[0-9]{4}-[0-9]{2}-[0-9]{2}$"+"\""};
 if(vErrors === null){
 vErrors = [err28];
 }
@@ -2545,12 +2545,9 @@ vErrors.push(err28);
 }
 errors++;
 }
-const len1 = data11.length;
-for(let i2=0; i2<len1; i2++){
-let data12 = data11[i2];
-if(typeof data12 === "string"){
-if(func3(data12) < 1){
-const err29 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/components/" + i2,schemaPath:"#/patternProperties/%5E(.*)%24/properties/components/items/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+}
+else {
+const err29 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/cost_date",schemaPath:"#/patternProperties/%5E(.*)%24/properties/cost_date/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err29];
 }
@@ -2560,8 +2557,11 @@ vErrors.push(err29);
 errors++;
 }
 }
-else {
-const err30 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/components/" + i2,schemaPath:"#/patternProperties/%5E(.*)%24/properties/components/items/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data0.components !== undefined){
+let data12 = data0.components;
+if(Array.isArray(data12)){
+if(data12.length < 1){
+const err30 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/components",schemaPath:"#/patternProperties/%5E(.*)%24/properties/components/minItems",keyword:"minItems",params:{limit: 1},message:"must NOT have fewer than 1 items"};
 if(vErrors === null){
 vErrors = [err30];
 }
@@ -2570,10 +2570,12 @@ vErrors.push(err30);
 }
 errors++;
 }
-}
-}
-else {
-const err31 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/components",schemaPath:"#/patternProperties/%5E(.*)%24/properties/components/type",keyword:"type",params:{type: "array"},message:"must be array"};
+const len1 = data12.length;
+for(let i2=0; i2<len1; i2++){
+let data13 = data12[i2];
+if(typeof data13 === "string"){
+if(func3(data13) < 1){
+const err31 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/components/" + i2,schemaPath:"#/patternProperties/%5E(.*)%24/properties/components/items/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err31];
 }
@@ -2583,11 +2585,8 @@ vErrors.push(err31);
 errors++;
 }
 }
-if(data0.label !== undefined){
-let data13 = data0.label;
-if(typeof data13 === "string"){
-if(func3(data13) < 1){
-const err32 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/label",schemaPath:"#/patternProperties/%5E(.*)%24/properties/label/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+else {
+const err32 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/components/" + i2,schemaPath:"#/patternProperties/%5E(.*)%24/properties/components/items/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err32];
 }
@@ -2597,8 +2596,9 @@ vErrors.push(err32);
 errors++;
 }
 }
+}
 else {
-const err33 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/label",schemaPath:"#/patternProperties/%5E(.*)%24/properties/label/type",keyword:"type",params:{type: "string"},message:"must be string"};
+const err33 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/components",schemaPath:"#/patternProperties/%5E(.*)%24/properties/components/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err33];
 }
@@ -2608,12 +2608,11 @@ vErrors.push(err33);
 errors++;
 }
 }
-if(data0.labels !== undefined){
-let data14 = data0.labels;
-if(data14 && typeof data14 == "object" && !Array.isArray(data14)){
-for(const key2 in data14){
-if(!((key2 === "eu") || (key2 === "us"))){
-const err34 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key2},message:"must NOT have additional properties"};
+if(data0.label !== undefined){
+let data14 = data0.label;
+if(typeof data14 === "string"){
+if(func3(data14) < 1){
+const err34 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/label",schemaPath:"#/patternProperties/%5E(.*)%24/properties/label/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err34];
 }
@@ -2623,11 +2622,8 @@ vErrors.push(err34);
 errors++;
 }
 }
-if(data14.eu !== undefined){
-let data15 = data14.eu;
-if(typeof data15 === "string"){
-if(func3(data15) < 1){
-const err35 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels/eu",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/properties/eu/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+else {
+const err35 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/label",schemaPath:"#/patternProperties/%5E(.*)%24/properties/label/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err35];
 }
@@ -2637,8 +2633,12 @@ vErrors.push(err35);
 errors++;
 }
 }
-else {
-const err36 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels/eu",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/properties/eu/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data0.labels !== undefined){
+let data15 = data0.labels;
+if(data15 && typeof data15 == "object" && !Array.isArray(data15)){
+for(const key2 in data15){
+if(!((key2 === "eu") || (key2 === "us"))){
+const err36 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key2},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err36];
 }
@@ -2648,11 +2648,11 @@ vErrors.push(err36);
 errors++;
 }
 }
-if(data14.us !== undefined){
-let data16 = data14.us;
+if(data15.eu !== undefined){
+let data16 = data15.eu;
 if(typeof data16 === "string"){
 if(func3(data16) < 1){
-const err37 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels/us",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/properties/us/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+const err37 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels/eu",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/properties/eu/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err37];
 }
@@ -2663,7 +2663,7 @@ errors++;
 }
 }
 else {
-const err38 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels/us",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/properties/us/type",keyword:"type",params:{type: "string"},message:"must be string"};
+const err38 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels/eu",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/properties/eu/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err38];
 }
@@ -2673,9 +2673,11 @@ vErrors.push(err38);
 errors++;
 }
 }
-}
-else {
-const err39 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data15.us !== undefined){
+let data17 = data15.us;
+if(typeof data17 === "string"){
+if(func3(data17) < 1){
+const err39 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels/us",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/properties/us/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err39];
 }
@@ -2685,11 +2687,8 @@ vErrors.push(err39);
 errors++;
 }
 }
-if(data0.nutrients !== undefined){
-let data17 = data0.nutrients;
-if(data17 && typeof data17 == "object" && !Array.isArray(data17)){
-if(data17.fat === undefined){
-const err40 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "fat"},message:"must have required property '"+"fat"+"'"};
+else {
+const err40 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels/us",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/properties/us/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err40];
 }
@@ -2698,8 +2697,10 @@ vErrors.push(err40);
 }
 errors++;
 }
-if(data17.saturates === undefined){
-const err41 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "saturates"},message:"must have required property '"+"saturates"+"'"};
+}
+}
+else {
+const err41 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/labels",schemaPath:"#/patternProperties/%5E(.*)%24/properties/labels/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err41];
 }
@@ -2708,8 +2709,12 @@ vErrors.push(err41);
 }
 errors++;
 }
-if(data17.carbohydrate === undefined){
-const err42 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "carbohydrate"},message:"must have required property '"+"carbohydrate"+"'"};
+}
+if(data0.nutrients !== undefined){
+let data18 = data0.nutrients;
+if(data18 && typeof data18 == "object" && !Array.isArray(data18)){
+if(data18.fat === undefined){
+const err42 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "fat"},message:"must have required property '"+"fat"+"'"};
 if(vErrors === null){
 vErrors = [err42];
 }
@@ -2718,8 +2723,8 @@ vErrors.push(err42);
 }
 errors++;
 }
-if(data17.sugars === undefined){
-const err43 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "sugars"},message:"must have required property '"+"sugars"+"'"};
+if(data18.saturates === undefined){
+const err43 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "saturates"},message:"must have required property '"+"saturates"+"'"};
 if(vErrors === null){
 vErrors = [err43];
 }
@@ -2728,8 +2733,8 @@ vErrors.push(err43);
 }
 errors++;
 }
-if(data17.fibre === undefined){
-const err44 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "fibre"},message:"must have required property '"+"fibre"+"'"};
+if(data18.carbohydrate === undefined){
+const err44 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "carbohydrate"},message:"must have required property '"+"carbohydrate"+"'"};
 if(vErrors === null){
 vErrors = [err44];
 }
@@ -2738,8 +2743,8 @@ vErrors.push(err44);
 }
 errors++;
 }
-if(data17.protein === undefined){
-const err45 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "protein"},message:"must have required property '"+"protein"+"'"};
+if(data18.sugars === undefined){
+const err45 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "sugars"},message:"must have required property '"+"sugars"+"'"};
 if(vErrors === null){
 vErrors = [err45];
 }
@@ -2748,8 +2753,8 @@ vErrors.push(err45);
 }
 errors++;
 }
-if(data17.sodium_mg === undefined){
-const err46 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "sodium_mg"},message:"must have required property '"+"sodium_mg"+"'"};
+if(data18.fibre === undefined){
+const err46 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "fibre"},message:"must have required property '"+"fibre"+"'"};
 if(vErrors === null){
 vErrors = [err46];
 }
@@ -2758,8 +2763,8 @@ vErrors.push(err46);
 }
 errors++;
 }
-if(data17.source === undefined){
-const err47 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "source"},message:"must have required property '"+"source"+"'"};
+if(data18.protein === undefined){
+const err47 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "protein"},message:"must have required property '"+"protein"+"'"};
 if(vErrors === null){
 vErrors = [err47];
 }
@@ -2768,9 +2773,8 @@ vErrors.push(err47);
 }
 errors++;
 }
-for(const key3 in data17){
-if(!((((((((key3 === "fat") || (key3 === "saturates")) || (key3 === "carbohydrate")) || (key3 === "sugars")) || (key3 === "fibre")) || (key3 === "protein")) || (key3 === "sodium_mg")) || (key3 === "source"))){
-const err48 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key3},message:"must NOT have additional properties"};
+if(data18.sodium_mg === undefined){
+const err48 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "sodium_mg"},message:"must have required property '"+"sodium_mg"+"'"};
 if(vErrors === null){
 vErrors = [err48];
 }
@@ -2779,12 +2783,8 @@ vErrors.push(err48);
 }
 errors++;
 }
-}
-if(data17.fat !== undefined){
-let data18 = data17.fat;
-if(typeof data18 == "number"){
-if(data18 > 100 || isNaN(data18)){
-const err49 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fat",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fat/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
+if(data18.source === undefined){
+const err49 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/required",keyword:"required",params:{missingProperty: "source"},message:"must have required property '"+"source"+"'"};
 if(vErrors === null){
 vErrors = [err49];
 }
@@ -2793,8 +2793,9 @@ vErrors.push(err49);
 }
 errors++;
 }
-if(data18 < 0 || isNaN(data18)){
-const err50 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fat",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fat/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+for(const key3 in data18){
+if(!((((((((key3 === "fat") || (key3 === "saturates")) || (key3 === "carbohydrate")) || (key3 === "sugars")) || (key3 === "fibre")) || (key3 === "protein")) || (key3 === "sodium_mg")) || (key3 === "source"))){
+const err50 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key3},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err50];
 }
@@ -2804,8 +2805,11 @@ vErrors.push(err50);
 errors++;
 }
 }
-else {
-const err51 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fat",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fat/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(data18.fat !== undefined){
+let data19 = data18.fat;
+if(typeof data19 == "number"){
+if(data19 > 100 || isNaN(data19)){
+const err51 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fat",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fat/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
 if(vErrors === null){
 vErrors = [err51];
 }
@@ -2814,12 +2818,8 @@ vErrors.push(err51);
 }
 errors++;
 }
-}
-if(data17.saturates !== undefined){
-let data19 = data17.saturates;
-if(typeof data19 == "number"){
-if(data19 > 100 || isNaN(data19)){
-const err52 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/saturates",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/saturates/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
+if(data19 < 0 || isNaN(data19)){
+const err52 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fat",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fat/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err52];
 }
@@ -2828,8 +2828,9 @@ vErrors.push(err52);
 }
 errors++;
 }
-if(data19 < 0 || isNaN(data19)){
-const err53 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/saturates",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/saturates/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+}
+else {
+const err53 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fat",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fat/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err53];
 }
@@ -2839,8 +2840,11 @@ vErrors.push(err53);
 errors++;
 }
 }
-else {
-const err54 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/saturates",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/saturates/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(data18.saturates !== undefined){
+let data20 = data18.saturates;
+if(typeof data20 == "number"){
+if(data20 > 100 || isNaN(data20)){
+const err54 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/saturates",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/saturates/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
 if(vErrors === null){
 vErrors = [err54];
 }
@@ -2849,12 +2853,8 @@ vErrors.push(err54);
 }
 errors++;
 }
-}
-if(data17.carbohydrate !== undefined){
-let data20 = data17.carbohydrate;
-if(typeof data20 == "number"){
-if(data20 > 100 || isNaN(data20)){
-const err55 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/carbohydrate",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/carbohydrate/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
+if(data20 < 0 || isNaN(data20)){
+const err55 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/saturates",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/saturates/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err55];
 }
@@ -2863,8 +2863,9 @@ vErrors.push(err55);
 }
 errors++;
 }
-if(data20 < 0 || isNaN(data20)){
-const err56 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/carbohydrate",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/carbohydrate/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+}
+else {
+const err56 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/saturates",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/saturates/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err56];
 }
@@ -2874,8 +2875,11 @@ vErrors.push(err56);
 errors++;
 }
 }
-else {
-const err57 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/carbohydrate",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/carbohydrate/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(data18.carbohydrate !== undefined){
+let data21 = data18.carbohydrate;
+if(typeof data21 == "number"){
+if(data21 > 100 || isNaN(data21)){
+const err57 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/carbohydrate",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/carbohydrate/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
 if(vErrors === null){
 vErrors = [err57];
 }
@@ -2884,12 +2888,8 @@ vErrors.push(err57);
 }
 errors++;
 }
-}
-if(data17.sugars !== undefined){
-let data21 = data17.sugars;
-if(typeof data21 == "number"){
-if(data21 > 100 || isNaN(data21)){
-const err58 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sugars",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sugars/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
+if(data21 < 0 || isNaN(data21)){
+const err58 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/carbohydrate",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/carbohydrate/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err58];
 }
@@ -2898,8 +2898,9 @@ vErrors.push(err58);
 }
 errors++;
 }
-if(data21 < 0 || isNaN(data21)){
-const err59 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sugars",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sugars/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+}
+else {
+const err59 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/carbohydrate",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/carbohydrate/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err59];
 }
@@ -2909,8 +2910,11 @@ vErrors.push(err59);
 errors++;
 }
 }
-else {
-const err60 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sugars",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sugars/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(data18.sugars !== undefined){
+let data22 = data18.sugars;
+if(typeof data22 == "number"){
+if(data22 > 100 || isNaN(data22)){
+const err60 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sugars",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sugars/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
 if(vErrors === null){
 vErrors = [err60];
 }
@@ -2919,12 +2923,8 @@ vErrors.push(err60);
 }
 errors++;
 }
-}
-if(data17.fibre !== undefined){
-let data22 = data17.fibre;
-if(typeof data22 == "number"){
-if(data22 > 100 || isNaN(data22)){
-const err61 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fibre",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fibre/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
+if(data22 < 0 || isNaN(data22)){
+const err61 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sugars",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sugars/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err61];
 }
@@ -2933,8 +2933,9 @@ vErrors.push(err61);
 }
 errors++;
 }
-if(data22 < 0 || isNaN(data22)){
-const err62 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fibre",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fibre/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+}
+else {
+const err62 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sugars",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sugars/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err62];
 }
@@ -2944,8 +2945,11 @@ vErrors.push(err62);
 errors++;
 }
 }
-else {
-const err63 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fibre",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fibre/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(data18.fibre !== undefined){
+let data23 = data18.fibre;
+if(typeof data23 == "number"){
+if(data23 > 100 || isNaN(data23)){
+const err63 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fibre",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fibre/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
 if(vErrors === null){
 vErrors = [err63];
 }
@@ -2954,12 +2958,8 @@ vErrors.push(err63);
 }
 errors++;
 }
-}
-if(data17.protein !== undefined){
-let data23 = data17.protein;
-if(typeof data23 == "number"){
-if(data23 > 100 || isNaN(data23)){
-const err64 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/protein",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/protein/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
+if(data23 < 0 || isNaN(data23)){
+const err64 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fibre",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fibre/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err64];
 }
@@ -2968,8 +2968,9 @@ vErrors.push(err64);
 }
 errors++;
 }
-if(data23 < 0 || isNaN(data23)){
-const err65 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/protein",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/protein/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+}
+else {
+const err65 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/fibre",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/fibre/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err65];
 }
@@ -2979,8 +2980,11 @@ vErrors.push(err65);
 errors++;
 }
 }
-else {
-const err66 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/protein",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/protein/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(data18.protein !== undefined){
+let data24 = data18.protein;
+if(typeof data24 == "number"){
+if(data24 > 100 || isNaN(data24)){
+const err66 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/protein",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/protein/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100},message:"must be <= 100"};
 if(vErrors === null){
 vErrors = [err66];
 }
@@ -2989,12 +2993,8 @@ vErrors.push(err66);
 }
 errors++;
 }
-}
-if(data17.sodium_mg !== undefined){
-let data24 = data17.sodium_mg;
-if(typeof data24 == "number"){
-if(data24 > 100000 || isNaN(data24)){
-const err67 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sodium_mg",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sodium_mg/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100000},message:"must be <= 100000"};
+if(data24 < 0 || isNaN(data24)){
+const err67 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/protein",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/protein/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err67];
 }
@@ -3003,8 +3003,9 @@ vErrors.push(err67);
 }
 errors++;
 }
-if(data24 < 0 || isNaN(data24)){
-const err68 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sodium_mg",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sodium_mg/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+}
+else {
+const err68 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/protein",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/protein/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err68];
 }
@@ -3014,8 +3015,11 @@ vErrors.push(err68);
 errors++;
 }
 }
-else {
-const err69 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sodium_mg",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sodium_mg/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(data18.sodium_mg !== undefined){
+let data25 = data18.sodium_mg;
+if(typeof data25 == "number"){
+if(data25 > 100000 || isNaN(data25)){
+const err69 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sodium_mg",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sodium_mg/maximum",keyword:"maximum",params:{comparison: "<=", limit: 100000},message:"must be <= 100000"};
 if(vErrors === null){
 vErrors = [err69];
 }
@@ -3024,12 +3028,8 @@ vErrors.push(err69);
 }
 errors++;
 }
-}
-if(data17.source !== undefined){
-let data25 = data17.source;
-if(typeof data25 === "string"){
-if(func3(data25) < 1){
-const err70 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/source",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/source/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+if(data25 < 0 || isNaN(data25)){
+const err70 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sodium_mg",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sodium_mg/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err70];
 }
@@ -3040,7 +3040,7 @@ errors++;
 }
 }
 else {
-const err71 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/source",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/source/type",keyword:"type",params:{type: "string"},message:"must be string"};
+const err71 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/sodium_mg",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/sodium_mg/type",keyword:"type",params:{type: "number"},message:"must be number"};
 if(vErrors === null){
 vErrors = [err71];
 }
@@ -3050,9 +3050,11 @@ vErrors.push(err71);
 errors++;
 }
 }
-}
-else {
-const err72 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data18.source !== undefined){
+let data26 = data18.source;
+if(typeof data26 === "string"){
+if(func3(data26) < 1){
+const err72 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/source",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/source/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err72];
 }
@@ -3062,9 +3064,8 @@ vErrors.push(err72);
 errors++;
 }
 }
-if(data0.note !== undefined){
-if(typeof data0.note !== "string"){
-const err73 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/note",schemaPath:"#/patternProperties/%5E(.*)%24/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
+else {
+const err73 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients/source",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/properties/source/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err73];
 }
@@ -3076,7 +3077,7 @@ errors++;
 }
 }
 else {
-const err74 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err74 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/nutrients",schemaPath:"#/patternProperties/%5E(.*)%24/properties/nutrients/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err74];
 }
@@ -3086,15 +3087,39 @@ vErrors.push(err74);
 errors++;
 }
 }
-}
-}
-else {
-const err75 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data0.note !== undefined){
+if(typeof data0.note !== "string"){
+const err75 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/note",schemaPath:"#/patternProperties/%5E(.*)%24/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err75];
 }
 else {
 vErrors.push(err75);
+}
+errors++;
+}
+}
+}
+else {
+const err76 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err76];
+}
+else {
+vErrors.push(err76);
+}
+errors++;
+}
+}
+}
+}
+else {
+const err77 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err77];
+}
+else {
+vErrors.push(err77);
 }
 errors++;
 }

@@ -13,6 +13,7 @@ import { filtersFromSearch, getFormulasQueryOptions } from '../features/formulas
 import { getPlanQueryOptions } from '../features/plans/api/get-plan.ts';
 import { getPlansQueryOptions } from '../features/plans/api/get-plans.ts';
 import { requirePermission } from './guards.ts';
+import { getCatalogQueryOptions } from '../features/ingredients/api/get-catalog.ts';
 import { paths } from './paths.ts';
 
 type Loader = (args: LoaderFunctionArgs) => unknown;
@@ -52,6 +53,11 @@ export function createLoaders(queryClient: QueryClient) {
     accounts: (async ({ request }) => {
       await requirePermission(queryClient, request, 'manage:users');
       void queryClient.prefetchQuery(getAccountsQueryOptions());
+      return null;
+    }) satisfies Loader,
+    ingredients: (async ({ request }) => {
+      void queryClient.prefetchQuery(getCatalogQueryOptions());
+      await requirePermission(queryClient, request, 'read:catalog');
       return null;
     }) satisfies Loader,
     changes: (async ({ request }) => {

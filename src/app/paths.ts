@@ -30,6 +30,7 @@ export const paths = {
     path: '/changes/:id',
     getHref: (id: string, range?: { from?: number; to?: number }) => `/changes/${encodeURIComponent(id)}${q(range ?? {})}`,
   },
+  ingredients: { path: '/ingredients', getHref: () => '/ingredients' },
   account: { path: '/account', getHref: () => '/account' },
   accounts: { path: '/accounts', getHref: () => '/accounts' },
 } as const;

@@ -43,6 +43,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             { path: paths.plan.path, loader: loaders.plan, lazy: page(() => import('./routes/plan.tsx')) },
             { path: paths.changes.path, loader: loaders.changes, lazy: page(() => import('./routes/changes.tsx')) },
             { path: paths.formulaChanges.path, loader: loaders.formulaChanges, lazy: page(() => import('./routes/formula-changes.tsx')) },
+            { path: paths.ingredients.path, loader: loaders.ingredients, lazy: page(() => import('./routes/ingredients.tsx')) },
             { path: paths.account.path, lazy: page(() => import('./routes/account.tsx')) },
             { path: paths.accounts.path, loader: loaders.accounts, lazy: page(() => import('./routes/accounts.tsx')) },
             { path: '*', Component: NotFoundView },

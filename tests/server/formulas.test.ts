@@ -6,7 +6,7 @@ import http from 'node:http';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { ChangeListResponse, FormulaDetail, FormulaListResponse, PlanDetail, PlanListResponse, RevisionDiffResponse, RevisionListResponse } from '#shared/api';
+import type { CatalogResponse, ChangeListResponse, FormulaDetail, FormulaListResponse, PlanDetail, PlanListResponse, RevisionDiffResponse, RevisionListResponse } from '#shared/api';
 import { loadFolder } from '../../server/load/index.ts';
 import { CHECK_MS } from '../../server/routes/data.ts';
 import type { DatabaseHandle } from '../../server/db/client.ts';
@@ -265,6 +265,19 @@ describe('plans and the catalog', () => {
     expect(Object.keys(bench.catalog)).toEqual(Object.keys(admin.catalog).filter((n) => !draftOnly.includes(n)));
     expect(costKeys(bench)).toEqual([]);
     expect(costKeys(admin).length).toBeGreaterThan(0);
+  });
+
+  it('names the formulas each ingredient is in, only those the role may open, and the water content with its source', async () => {
+    const bench = await get<CatalogResponse>('/api/catalog', 'bench');
+    const author = await get<CatalogResponse>('/api/catalog', 'author');
+    expect(bench.usedBy['fine salt'].map((f) => f.id)).toContain('harbour-ciabatta');
+    const benchIds = new Set(Object.values(bench.usedBy).flat().map((f) => f.id));
+    for (const id of NOT_ACTIVE) expect(benchIds.has(id)).toBe(false);
+    expect(Object.values(author.usedBy).flat().map((f) => f.id)).toEqual(expect.arrayContaining(NOT_ACTIVE));
+    // USDA SR28 NDB 01077 (milk, whole): water 88.13 g per 100 g.
+    expect(bench.catalog['whole milk']).toMatchObject({ water: 88.13, waterSource: expect.stringMatching(/^USDA SR28 NDB 01077/) });
+    expect(author.catalog['bread flour'].costDate).toMatch(/^\d{4}-\d\d-\d\d$/);
+    expect(bench.catalog['bread flour'].costDate).toBeUndefined();
   });
 });
 

@@ -1,3 +1,4 @@
+import { Link } from 'react-router';
 import { Button } from '../../components/button.tsx';
 import { PageHeading, Panel } from '../../components/panel.tsx';
 import { QueryState } from '../../components/query-state.tsx';
@@ -59,7 +60,13 @@ export default function AccountRoute() {
                     <span aria-hidden="true" className="text-sage">
                       ✓
                     </span>
-                    {permissionWord[p] ?? p}
+                    {p === 'read:catalog' ? (
+                      <Link to={paths.ingredients.getHref()} className="text-crust underline underline-offset-2">
+                        {permissionWord[p]}
+                      </Link>
+                    ) : (
+                      (permissionWord[p] ?? p)
+                    )}
                   </li>
                 ))}
               </ul>

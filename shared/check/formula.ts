@@ -27,6 +27,22 @@ export interface FormulaCheckInput {
 const EPS = 1e-9;
 const ENRICHING_KINDS = new Set(['sugar', 'fat', 'dairy', 'egg']);
 
+/** What each part of the check needs: the formula, where findings go, the catalog, and what the first pass found. */
+interface FormulaContext {
+  out: FindingList;
+  f: Formula;
+  raw: FormulaFile;
+  catalog: Catalog | null;
+  known: (name: string) => CatalogItem | undefined;
+  item: (name: string) => CatalogItem;
+  catalogNames: string[];
+  /** Pointers of lines whose amount is not a number of percent (checked once, skipped after). */
+  badAmount: Set<string>;
+  /** Names not in the catalog (their error says enough; totals by kind are skipped). */
+  unknownName: Set<string>;
+  amountsOk: boolean;
+}
+
 export function checkFormula(input: FormulaCheckInput): Finding[] {
   const { formula: f, raw, catalog, expectedId } = input;
   const out = new FindingList(input.file, input.source);
@@ -38,7 +54,25 @@ export function checkFormula(input: FormulaCheckInput): Finding[] {
   // ---- identity -----------------------------------------------------------------------------
   if (f.id !== expectedId) out.error('/id', `id ${quote(f.id)} must equal the file name ${quote(expectedId)}`);
 
-  // ---- every amount a finite, non-negative number; every name in the catalog --------------
+  const { badAmount, unknownName } = checkAmountsAndNames(out, f, catalog, known, input.noCatalog);
+  const ctx: FormulaContext = { out, f, raw, catalog, known, item, catalogNames, badAmount, unknownName, amountsOk: badAmount.size === 0 };
+  const flourSum = checkFlours(ctx);
+  checkLossAndFinishes(ctx);
+  checkBuilds(ctx);
+  checkUsualRanges(ctx, flourSum);
+  checkProcess(out, f, raw);
+  return out.findings;
+}
+
+/** Every amount a finite, non-negative number; every name in the catalog. */
+function checkAmountsAndNames(
+  out: FindingList,
+  f: Formula,
+  catalog: Catalog | null,
+  known: (name: string) => CatalogItem | undefined,
+  noCatalog: string | undefined,
+): { badAmount: Set<string>; unknownName: Set<string> } {
+  const catalogNames = catalog ? Object.keys(catalog) : [];
   const tables: { at: string[]; lines: Line[]; what: string }[] = [
     { at: ['flour'], lines: f.flour, what: 'flour' },
     { at: ['ingredients'], lines: f.ingredients, what: 'ingredients' },
@@ -64,11 +98,14 @@ export function checkFormula(input: FormulaCheckInput): Finding[] {
     }
   }
   if (!catalog) {
-    out.warning('', `${input.noCatalog ?? 'no ingredient catalog (ingredients.yaml beside the formula or in its parent folder, or --catalog)'}; ingredient names and kinds were not checked`);
+    out.warning('', `${noCatalog ?? 'no ingredient catalog (ingredients.yaml beside the formula or in its parent folder, or --catalog)'}; ingredient names and kinds were not checked`);
   }
-  const amountsOk = badAmount.size === 0;
+  return { badAmount, unknownName };
+}
 
-  // ---- flours -------------------------------------------------------------------------------
+/** The flours sum to 100 %, only flours are under flour, nothing is listed twice. Returns their sum. */
+function checkFlours(ctx: FormulaContext): number {
+  const { out, f, catalog, known, amountsOk } = ctx;
   const flourSum = sum(f.flour.map((l) => l.percent));
   if (amountsOk && Math.abs(flourSum - 100) > 1e-6) {
     out.error('/flour', `the flours sum to ${pct(flourSum)}; in baker's percent they must sum to 100 %`, 'key');
@@ -95,8 +132,12 @@ export function checkFormula(input: FormulaCheckInput): Finding[] {
     }
     if (l.percent === 0) out.warning(at, `${quote(l.ingredient)} is 0 %; remove the line or give it an amount`);
   }
+  return flourSum;
+}
 
-  // ---- loss ---------------------------------------------------------------------------------
+/** The loss before dividing, the loss in the oven, and the finishes on each piece. */
+function checkLossAndFinishes(ctx: FormulaContext): void {
+  const { out, f, raw, catalog, catalogNames } = ctx;
   if (raw.loss !== undefined) {
     if (f.loss < 0) out.error('/loss', `loss is ${pct(f.loss)}; it cannot be negative`);
     else if (f.loss >= 100) out.error('/loss', `loss is ${pct(f.loss)}; it must be below 100 % (it is the share of mixed dough lost before dividing)`);
@@ -112,7 +153,11 @@ export function checkFormula(input: FormulaCheckInput): Finding[] {
     }
   }
   checkFinishes(out, f, catalog, catalogNames);
+}
 
+/** Pre-ferments and soakers: shares, their own flours, seeds, names, and what they take out of the overall formula. */
+function checkBuilds(ctx: FormulaContext): void {
+  const { out, f, catalog, known, item, badAmount, unknownName, amountsOk } = ctx;
   // Reference batch: the formula's own yield, for amounts in grams in messages.
   const total = sum([...f.flour, ...f.ingredients].map((l) => l.percent));
   const lossOk = f.loss >= 0 && f.loss < 100;
@@ -121,7 +166,6 @@ export function checkFormula(input: FormulaCheckInput): Finding[] {
     refFlour === undefined ? '' : ` (${grams((refFlour * percentOfFlour) / 100)}${batch ? ` in the reference batch of ${f.yield.pieces} × ${grams(f.yield.pieceGrams)}` : ''})`;
   if (!(f.yield.pieceGrams > 0)) out.error('/yield/piece', `the piece weight is ${grams(f.yield.pieceGrams)}; it must be above 0 g`);
 
-  // ---- pre-ferments and soakers -------------------------------------------------------------
   const overall = new Map<string, number>();
   for (const l of [...f.flour, ...f.ingredients]) overall.set(l.ingredient, (overall.get(l.ingredient) ?? 0) + l.percent);
 
@@ -220,8 +264,11 @@ export function checkFormula(input: FormulaCheckInput): Finding[] {
       );
     }
   }
+}
 
-  // ---- the trade's usual ranges (warnings) --------------------------------------------------
+/** The trade's usual ranges (warnings, common practice): pre-fermented flour, dough temperature, salt, hydration, yeast. */
+function checkUsualRanges(ctx: FormulaContext, flourSum: number): void {
+  const { out, f, catalog, item, unknownName, amountsOk } = ctx;
   const prefermented = sum(f.preferments.map((p) => (finite(p.share) ? p.share : 0)));
   if (prefermented > PRACTICE.prefermentedFlourMax + EPS && prefermented <= 100) {
     out.warning(
@@ -261,9 +308,6 @@ export function checkFormula(input: FormulaCheckInput): Finding[] {
       }
     }
   }
-
-  checkProcess(out, f, raw);
-  return out.findings;
 }
 
 function checkFinishes(out: FindingList, f: Formula, catalog: Catalog | null, catalogNames: string[]): void {

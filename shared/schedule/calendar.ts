@@ -92,13 +92,21 @@ export class Calendar {
     return best?.temperature;
   }
 
-  /** A bench person free for the whole task, or null. */
-  freePerson(start: number, end: number): Person | null {
+  /** Bench people free for the whole task; of people with nothing booked yet on the same shift, only the first. */
+  freePeople(start: number, end: number): Person[] {
+    const out: Person[] = [];
+    const idle = new Set<string>();
     for (const p of this.people) {
       const to = this.overtime && p.overtime ? Infinity : p.to;
-      if (p.from <= start && end <= to && !p.busy.some((b) => overlaps(start, end, b))) return p;
+      if (p.from > start || end > to || p.busy.some((b) => overlaps(start, end, b))) continue;
+      if (p.busy.length === 0) {
+        const key = `${p.from}/${p.to}`;
+        if (idle.has(key)) continue;
+        idle.add(key);
+      }
+      out.push(p);
     }
-    return null;
+    return out;
   }
 
   benchConflict(start: number, end: number): Conflict {

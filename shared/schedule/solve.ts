@@ -217,19 +217,21 @@ function* placeJob(
           yield* next();
           return;
         }
-        const person = cal.freePerson(start, end);
-        if (!person) {
+        const free = cal.freePeople(start, end);
+        if (free.length === 0) {
           note(tally, cal.benchConflict(start, end));
           continue;
         }
-        const b: Busy = { start, end };
-        person.busy.push(b);
-        people.set(i, person.unit);
-        try {
-          yield* next();
-        } finally {
-          people.delete(i);
-          unbook(person.busy, b);
+        for (const person of free) {
+          const b: Busy = { start, end };
+          person.busy.push(b);
+          people.set(i, person.unit);
+          try {
+            yield* next();
+          } finally {
+            people.delete(i);
+            unbook(person.busy, b);
+          }
         }
       }
     }
@@ -301,8 +303,15 @@ function deckOrder(cal: Calendar, oven: OvenResource, start: number, temperature
     const t = cal.deckBefore(oven.name, d, start);
     return t == null || temperature === null ? 1 : t === temperature ? 0 : t > temperature ? 1 : 2;
   };
-  const decks = Array.from({ length: oven.decks }, (_, i) => i + 1);
-  if (oven.decks === 1) return decks;
-  const ranks = decks.map(rank);
-  return decks.sort((a, b) => ranks[a - 1] - ranks[b - 1] || a - b);
+  // Empty decks are all alike: try only the first of them.
+  let emptySeen = false;
+  const decks = Array.from({ length: oven.decks }, (_, i) => i + 1).filter((d) => {
+    if ((cal.decks.get(deckKey(oven.name, d))?.length ?? 0) > 0) return true;
+    if (emptySeen) return false;
+    emptySeen = true;
+    return true;
+  });
+  if (decks.length === 1) return decks;
+  const ranks = new Map(decks.map((d) => [d, rank(d)]));
+  return decks.sort((a, b) => ranks.get(a)! - ranks.get(b)! || a - b);
 }

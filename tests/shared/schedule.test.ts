@@ -1,0 +1,189 @@
+// The night's scheduler (shared/schedule/solve.ts) on random small nights: no resource over its
+// capacity, every wait inside its range, and an on-time night found whenever a brute-force search
+// over the same 5-minute grid finds one.
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { changeMinutes, type Job, type Placement, type Problem } from '#shared/schedule/problem';
+import { solve } from '#shared/schedule/solve';
+
+const RUNS = Number(process.env.PANFORM_FUZZ_RUNS ?? 60);
+const G = 5;
+
+const arbJob = fc.record({
+  mix: fc.constantFrom(5, 10),
+  shape: fc.constantFrom(5, 10),
+  bake: fc.constantFrom(10, 15, 20),
+  temperature: fc.constantFrom(200, 230),
+  slots: fc.constantFrom(1, 2),
+  bulkMin: fc.constantFrom(0, 5, 10),
+  bulkSpread: fc.constantFrom(0, 5, 10),
+  proofMin: fc.constantFrom(0, 5, 10),
+  proofSpread: fc.constantFrom(0, 5, 10),
+  due: fc.integer({ min: 8, max: 20 }).map((n) => n * G),
+  egg: fc.boolean(),
+});
+
+const arbNight = fc.record({
+  decks: fc.integer({ min: 1, max: 2 }),
+  people: fc.integer({ min: 1, max: 2 }),
+  cleanDown: fc.constantFrom(0, 10),
+  jobs: fc.array(arbJob, { minLength: 1, maxLength: 3 }),
+});
+
+type Night = fc.infer<typeof arbNight>;
+
+function problemOf(n: Night): Problem {
+  return {
+    mixers: [{ name: 'spiral', cleanDown: n.cleanDown }],
+    ovens: [{ name: 'deck oven', decks: n.decks, slots: 2, heatRate: 5, coolRate: 5, steam: true, fan: false }],
+    shifts: [{ from: 0, to: 200, people: n.people }],
+    room: 20,
+    jobs: n.jobs.map(
+      (j, id): Job => ({
+        id,
+        mixer: 'spiral',
+        allergens: j.egg ? ['egg', 'wheat'] : ['wheat'],
+        due: j.due,
+        operations: [
+          { kind: 'mix', minutes: j.mix },
+          { kind: 'bench', task: 'shape', minutes: j.shape },
+          { kind: 'bake', minutes: j.bake, temperature: j.temperature, slots: j.slots, pieceSlots: 1, ovens: ['deck oven'] },
+        ],
+        gaps: [
+          { min: 0, max: 0, preferred: 0 },
+          { min: j.bulkMin, max: j.bulkMin + j.bulkSpread, preferred: j.bulkMin },
+          { min: j.proofMin, max: j.proofMin + j.proofSpread, preferred: j.proofMin },
+        ],
+        tail: { min: 0, max: 0, preferred: 0 },
+      }),
+    ),
+  };
+}
+
+interface Slot {
+  mix: number;
+  shape: number;
+  bake: number;
+  deck: number;
+}
+
+/** Every on-time placement of one job on the grid, ignoring the other jobs. */
+function slotsOf(j: Night['jobs'][number], decks: number): Slot[] {
+  const out: Slot[] = [];
+  for (let bake = 0; bake + j.bake <= j.due; bake += G) {
+    for (let proof = j.proofMin; proof <= j.proofMin + j.proofSpread; proof += G) {
+      const shape = bake - proof - j.shape;
+      for (let bulk = j.bulkMin; bulk <= j.bulkMin + j.bulkSpread; bulk += G) {
+        const mix = shape - bulk - j.mix;
+        if (mix < 0) continue;
+        for (let deck = 1; deck <= decks; deck++) out.push({ mix, shape, bake, deck });
+      }
+    }
+  }
+  return out;
+}
+
+/** Brute force: is there any on-time night on the grid? */
+function bruteForce(n: Night): boolean {
+  const p = problemOf(n);
+  const oven = p.ovens[0];
+  const options = n.jobs.map((j) => slotsOf(j, n.decks));
+  const chosen: Slot[] = [];
+  const ok = (): boolean => {
+    const k = chosen.length;
+    // Mixer: one at a time, a clean-down after an egg dough before one without.
+    const mixes = chosen.map((s, i) => ({ from: s.mix, to: s.mix + n.jobs[i].mix, egg: n.jobs[i].egg })).sort((a, b) => a.from - b.from);
+    for (let i = 1; i < k; i++) if (mixes[i].from < mixes[i - 1].to + (mixes[i - 1].egg && !mixes[i].egg ? n.cleanDown : 0)) return false;
+    // Bench: at most `people` tasks at once.
+    const bench = chosen.map((s, i) => [s.shape, s.shape + n.jobs[i].shape]);
+    for (const [a] of bench) if (bench.filter(([s, e]) => s <= a && a < e).length > n.people) return false;
+    // Decks: one load at a time, with the time to change temperature between.
+    for (let d = 1; d <= n.decks; d++) {
+      const loads = chosen
+        .map((s, i) => ({ s, i }))
+        .filter((x) => x.s.deck === d)
+        .map((x) => ({ from: x.s.bake, to: x.s.bake + n.jobs[x.i].bake, t: n.jobs[x.i].temperature }))
+        .sort((a, b) => a.from - b.from);
+      for (let i = 1; i < loads.length; i++) if (loads[i].from < loads[i - 1].to + changeMinutes(oven, loads[i - 1].t, loads[i].t)) return false;
+    }
+    return true;
+  };
+  const search = (i: number): boolean => {
+    if (i === options.length) return true;
+    for (const s of options[i]) {
+      chosen.push(s);
+      if (ok() && search(i + 1)) return true;
+      chosen.pop();
+    }
+    return false;
+  };
+  return search(0);
+}
+
+/** The rules every schedule keeps, late or not. */
+function expectValid(p: Problem, placements: Placement[]): void {
+  const oven = p.ovens[0];
+  const mixes: { from: number; to: number; allergens: readonly string[] }[] = [];
+  const bench: { from: number; to: number; unit: number }[] = [];
+  const loads: { from: number; to: number; deck: number; t: number | null; slots: number }[] = [];
+  for (const pl of placements) {
+    const job = p.jobs[pl.job];
+    const [mix, shape] = pl.operations;
+    expect(mix.end - mix.start).toBe(job.operations[0].minutes);
+    expect(shape.end - shape.start).toBe(job.operations[1].minutes);
+    expect(shape.start - mix.end).toBeGreaterThanOrEqual(job.gaps[1].min);
+    expect(shape.start - mix.end).toBeLessThanOrEqual(job.gaps[1].max);
+    expect(mix.start).toBeGreaterThanOrEqual(0);
+    mixes.push({ from: mix.start, to: mix.end, allergens: job.allergens });
+    bench.push({ from: shape.start, to: shape.end, unit: pl.people.get(1)! });
+    const bake = job.operations[2];
+    if (bake.kind !== 'bake') throw new Error('bake expected');
+    expect(pl.loads.reduce((n, l) => n + l.slots, 0)).toBe(bake.slots);
+    for (const l of pl.loads) {
+      expect(l.start - shape.end).toBeGreaterThanOrEqual(job.gaps[2].min);
+      expect(l.start - shape.end).toBeLessThanOrEqual(job.gaps[2].max);
+      expect(l.slots).toBeLessThanOrEqual(oven.slots);
+      loads.push({ from: l.start, to: l.end, deck: l.deck, t: l.temperature, slots: l.slots });
+    }
+    expect(pl.out).toBe(Math.max(...pl.loads.map((l) => l.end)));
+  }
+  mixes.sort((a, b) => a.from - b.from);
+  for (let i = 1; i < mixes.length; i++) {
+    const clean = mixes[i - 1].allergens.some((a) => !mixes[i].allergens.includes(a)) ? p.mixers[0].cleanDown : 0;
+    expect(mixes[i].from).toBeGreaterThanOrEqual(mixes[i - 1].to + clean);
+  }
+  for (const a of bench) for (const b of bench) if (a !== b && a.unit === b.unit) expect(a.from < b.to && b.from < a.to).toBe(false);
+  for (const a of bench) expect(a.unit).toBeLessThanOrEqual(p.shifts[0].people);
+  for (let d = 1; d <= oven.decks; d++) {
+    const on = loads.filter((l) => l.deck === d).sort((a, b) => a.from - b.from);
+    for (let i = 1; i < on.length; i++) expect(on[i].from).toBeGreaterThanOrEqual(on[i - 1].to + changeMinutes(oven, on[i - 1].t, on[i].t));
+  }
+}
+
+describe('solve on random small nights', () => {
+  it('never puts a resource over its capacity and keeps every wait in its range', () => {
+    fc.assert(
+      fc.property(arbNight, (n) => {
+        const p = problemOf(n);
+        const s = solve(p);
+        expectValid(p, s.placements);
+        for (const pl of s.placements) {
+          const late = s.late.some((l) => l.job === pl.job);
+          if (!late) expect(pl.out).toBeLessThanOrEqual(p.jobs[pl.job].due);
+        }
+      }),
+      { numRuns: RUNS },
+    );
+  });
+
+  it('finds an on-time night whenever a brute-force search finds one', () => {
+    fc.assert(
+      fc.property(arbNight, (n) => {
+        const s = solve(problemOf(n));
+        if (bruteForce(n)) expect(s.late, 'brute force found an on-time night').toEqual([]);
+        else expect(s.late.length).toBeGreaterThan(0);
+      }),
+      { numRuns: RUNS },
+    );
+  });
+});

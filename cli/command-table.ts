@@ -13,6 +13,7 @@ export const COMMANDS: CommandTable = {
   temp: () => import('./commands/temp.ts'),
   convert: () => import('./commands/convert.ts'),
   sheet: () => import('./commands/sheet.ts'),
+  shift: () => import('./commands/shift.ts'),
   diff: () => import('./commands/diff.ts'),
   load: () => import('./commands/load.ts'),
   user: () => import('./commands/user.ts'),

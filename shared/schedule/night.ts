@@ -460,21 +460,22 @@ export function bookBuilds(night: Night, plan: Plan, builds: BuildToBook[], at: 
       night.warnings.push(`${b.name} (${b.formula}, ${Math.round(b.grams)} g) is outside every mixer's range (capacity and minimum); mix it by hand between ${shortTime(at(b.from), plan.date)} and ${shortTime(at(b.until), plan.date)}`);
       return null;
     }
-    for (let end = b.until; end >= b.from; end = end === b.until ? Math.ceil(b.until / GRID_MINUTES) * GRID_MINUTES - GRID_MINUTES : end - GRID_MINUTES) {
-      for (const mixer of fit) {
-        if (night.calendar.mixerConflict(mixer.name, end - minutes, end, b.allergens)) continue;
-        night.calendar.mixers.get(mixer.name)!.push({ start: end - minutes, end, allergens: b.allergens });
-        night.bookings.push(booking({ kind: 'mixer', name: mixer.name, unit: null }, 'build', null, end - minutes, end, at));
-        const last = night.bookings[night.bookings.length - 1];
-        last.formula = b.formula;
-        last.mix = b.name;
-        if (!assumedSaid) {
-          assumedSaid = true;
-          night.warnings.push(`builds take ${minutes} min on a mixer (default; ${BUILD_MIX_MINUTES.source})`);
+    // Someone on the bench mixes it: a time inside a shift first, any time in the window after that.
+    const inShift = (end: number) => night.problem.shifts.some((s) => s.from <= end - minutes && end <= s.to);
+    for (const needShift of [true, false]) {
+      for (let end = b.until; end >= b.from; end = end === b.until ? Math.ceil(b.until / GRID_MINUTES) * GRID_MINUTES - GRID_MINUTES : end - GRID_MINUTES) {
+        if (needShift && !inShift(end)) continue;
+        for (const mixer of fit) {
+          if (night.calendar.mixerConflict(mixer.name, end - minutes, end, b.allergens)) continue;
+          night.calendar.mixers.get(mixer.name)!.push({ start: end - minutes, end, allergens: b.allergens });
+          night.bookings.push({ ...booking({ kind: 'mixer', name: mixer.name, unit: null }, 'build', null, end - minutes, end, at), formula: b.formula, mix: b.name });
+          if (!assumedSaid) {
+            assumedSaid = true;
+            night.warnings.push(`builds take ${minutes} min on a mixer (default; ${BUILD_MIX_MINUTES.source})`);
+          }
+          return { mixer: mixer.name, start: end - minutes, end };
         }
-        return { mixer: mixer.name, start: end - minutes, end };
       }
-      if (b.from === b.until) break;
     }
     night.warnings.push(`${b.name} (${b.formula}): no mixer is free to mix it between ${shortTime(at(b.from), plan.date)} and ${shortTime(at(b.until), plan.date)}; mix it by hand`);
     return null;

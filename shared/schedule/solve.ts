@@ -1,7 +1,7 @@
 // The night's schedule: every mix's operations on the mixers, the bench people and the oven decks,
 // each order out by its due time where that can be done. Pure; no I/O.
 //
-// Method (docs/decisions/2026-12-02-night-schedule.md): a serial schedule-generation scheme for
+// Method (docs/decisions/0009-night-schedule-by-list-scheduling.md): a serial schedule-generation scheme for
 // resource-constrained project scheduling (Kolisch, R. 1996, "Serial and parallel
 // resource-constrained project scheduling methods revisited: theory and computation", European
 // Journal of Operational Research 90(2), 320–333), run backward from each due time:

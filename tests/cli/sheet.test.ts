@@ -70,6 +70,29 @@ describe('panform sheet on a night that cannot be done', () => {
   });
 });
 
+describe('panform shift', () => {
+  it('lists every task of every plan in the window, as a table and as JSON', async () => {
+    const r = await run(['shift', 'formulas', '--from', '2026-12-02 10:00', '--hours', '8']);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/Tasks from 12-02 10:00 to 12-02 18:00/);
+    expect(r.stdout).toMatch(/build +│ poolish/);
+    const j = await run(['shift', '--from', '2026-12-02 10:00', '--to', '2026-12-02 18:00', '--json']);
+    const out = JSON.parse(j.stdout) as { from: string; to: string; tasks: { plan: string; task: string }[] };
+    expect(out.from).toBe('2026-12-02T10:00');
+    expect(out.tasks.some((t) => t.plan === '2026-12-03' && t.task === 'retard')).toBe(true);
+  });
+
+  it.each([
+    [['shift'], /give the start of the window with --from/],
+    [['shift', '--from', 'tonight'], /--from needs a local date and time/],
+    [['shift', '--from', '2026-12-02 10:00', '--to', '2026-12-02 09:00'], /ends .* before it starts/],
+  ])('refuses %j with exit 2', async (args, message) => {
+    const r = await run(args);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(message);
+  });
+});
+
 describe('panform sheet --format json', () => {
   it('books every mix, bench task and bake on a resource, with the keys the issue names', async () => {
     const r = await run(['sheet', DEMO_PLAN, '--format', 'json']);

@@ -23,14 +23,23 @@ const arbJob = fc.record({
   egg: fc.boolean(),
 });
 
-const arbNight = fc.record({
+const arbNight: fc.Arbitrary<Night> = fc.record({
   decks: fc.integer({ min: 1, max: 2 }),
   people: fc.integer({ min: 1, max: 2 }),
   cleanDown: fc.constantFrom(0, 10),
   jobs: fc.array(arbJob, { minLength: 1, maxLength: 3 }),
 });
 
-type Night = fc.infer<typeof arbNight>;
+interface GenJob {
+  mix: number; shape: number; bake: number; temperature: number; slots: number;
+  bulkMin: number; bulkSpread: number; proofMin: number; proofSpread: number; due: number; egg: boolean;
+}
+interface Night {
+  decks: number;
+  people: number;
+  cleanDown: number;
+  jobs: GenJob[];
+}
 
 function problemOf(n: Night): Problem {
   return {
@@ -68,7 +77,7 @@ interface Slot {
 }
 
 /** Every on-time placement of one job on the grid, ignoring the other jobs. */
-function slotsOf(j: Night['jobs'][number], decks: number): Slot[] {
+function slotsOf(j: GenJob, decks: number): Slot[] {
   const out: Slot[] = [];
   for (let bake = 0; bake + j.bake <= j.due; bake += G) {
     for (let proof = j.proofMin; proof <= j.proofMin + j.proofSpread; proof += G) {

@@ -34,6 +34,11 @@ function clearSessionCookie(res: Response, req: Request): void {
   res.clearCookie(SESSION_COOKIE, { httpOnly: true, sameSite: 'lax', secure: req.secure, path: '/' });
 }
 
+const spentLink = () =>
+  invalid('this reset link does not work: it was used already, it expired, or it was mistyped; ask for a new one', [
+    { path: 'token', message: 'unknown, used or expired' },
+  ]);
+
 export function sessionRouter(ctx: ServerContext): Router {
   const r = Router();
 
@@ -101,6 +106,20 @@ export function sessionRouter(ctx: ServerContext): Router {
     res.status(202).json({ message: 'if that address has an account, a link to set a new password is on its way' });
   });
 
+  // Public: is this link still good? The reset page asks as it opens, so a spent or expired link
+  // is said at once, not after the new password was typed twice. Nothing is changed.
+  r.post('/password-reset/check', async (req, res) => {
+    const { token } = readStringFields(req.body, { token: { max: 200 } });
+    const now = new Date(ctx.now());
+    const rows = await ctx.db
+      .select({ userId: passwordResetsTable.userId })
+      .from(passwordResetsTable)
+      .where(and(eq(passwordResetsTable.tokenHash, sha256(token)), isNull(passwordResetsTable.usedAt), gt(passwordResetsTable.expiresAt, now)))
+      .limit(1);
+    if (rows.length === 0) throw spentLink();
+    res.json({ valid: true });
+  });
+
   // Public: set a new password with the token from the link.
   r.post('/password-reset/confirm', async (req, res) => {
     const body = readStringFields(req.body, { token: { max: 200 }, password: { max: MAX_PASSWORD_LENGTH } });
@@ -114,11 +133,7 @@ export function sessionRouter(ctx: ServerContext): Router {
       .set({ usedAt: now })
       .where(and(eq(passwordResetsTable.tokenHash, sha256(body.token)), isNull(passwordResetsTable.usedAt), gt(passwordResetsTable.expiresAt, now)))
       .returning({ userId: passwordResetsTable.userId });
-    if (used.length === 0) {
-      throw invalid('this reset link does not work: it was used already, it expired, or it was mistyped; ask for a new one', [
-        { path: 'token', message: 'unknown, used or expired' },
-      ]);
-    }
+    if (used.length === 0) throw spentLink();
     const userId = used[0].userId;
     // Other links sent to this account stop working too.
     await ctx.db

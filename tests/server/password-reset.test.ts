@@ -48,6 +48,21 @@ describe('password reset', () => {
     expect((await signIn(email, 'yet another password')).status).toBe(401);
   });
 
+  it('says whether a link still works before any password is typed, and changes nothing by asking', async () => {
+    const check = (token: string) => sendJson(`${t.url}/api/password-reset/check`, 'POST', { token });
+    const token = await requestToken(emailOf('admin'));
+    expect(await check(token)).toMatchObject({ status: 200, body: { valid: true } });
+    expect((await check(token)).status).toBe(200); // asking twice does not spend it
+    expect((await confirm(token, 'a long admin password')).status).toBe(204);
+    const spent = await check(token);
+    expect(spent).toMatchObject({ status: 422, body: { message: expect.stringMatching(/^this reset link does not work: it was used already, it expired/) } });
+    const late = await requestToken(emailOf('admin'));
+    t.clock.now += 60 * 60 * 1000 + 1;
+    expect((await check(late)).status).toBe(422);
+    expect((await check('x'.repeat(43))).status).toBe(422);
+    await confirm(await requestToken(emailOf('admin')), PASSWORD);
+  });
+
   it('refuses a link used after an hour', async () => {
     const token = await requestToken(emailOf('author'));
     t.clock.now += 60 * 60 * 1000 + 1;

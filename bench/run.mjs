@@ -3,13 +3,13 @@
 //
 //   npm run bench                       everything (about 3 minutes on 2 cores)
 //   npm run bench -- --quick            fewer runs, shorter loads, no 30 s soak
-//   npm run bench -- --only cli,sheet   some groups: cli sheet load api bundle render soak
+//   npm run bench -- --only cli,sheet   some groups: cli sheet load start api bundle render soak
 //   npm run bench -- --runs 25 --api-seconds 10 --no-soak --no-build
 //   npm run bench -- --strict           exit 1 when a figure misses its target
 //
 // Everything runs on the loopback interface, in a temporary folder that is removed at the end;
 // every process the bench starts is stopped, also on Ctrl-C.
-import { existsSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { cpSync, existsSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { cpus, tmpdir, totalmem } from 'node:os';
 import { join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -23,7 +23,7 @@ const ROOT = resolve(fileURLToPath(new URL('..', import.meta.url)));
 process.chdir(ROOT);
 const NODE = process.execPath;
 const PANFORM = join(ROOT, 'bin', 'panform.js');
-const GROUPS = ['cli', 'sheet', 'load', 'api', 'bundle', 'render', 'soak'];
+const GROUPS = ['cli', 'sheet', 'load', 'start', 'api', 'bundle', 'render', 'soak'];
 
 // ---- options ------------------------------------------------------------------------------
 function readOptions(argv) {
@@ -242,6 +242,48 @@ async function benchLoad(opts, work, state) {
   else if (r.status !== 0) failed('load-cli', cliFigure, '', new Error(`panform load exited with ${r.status}: ${out.trim().split('\n').slice(-3).join(' | ')}`));
   else row('load-cli', cliFigure, seconds(r.ms), '', null, { ms: r.ms });
   rmSync(dataDir, { recursive: true, force: true });
+}
+
+// ---- first start --------------------------------------------------------------------------
+const MEMORY_TARGET = 250 * 1024 * 1024;
+
+/** `npm start` in a new folder: `panform serve --demo` with no database yet, until it answers. */
+async function benchStart(opts, work) {
+  const figure = 'First npm start (serve --demo, no database yet) until it answers';
+  const target = '< 3.00 s';
+  const memFigure = 'Server resident memory right after the first start (demo bakery)';
+  const runs = [];
+  try {
+    for (let i = 0; i < opts.loadRuns; i++) {
+      const folder = join(work, `first-start-${i}`);
+      cpSync(join(ROOT, 'formulas'), join(folder, 'formulas'), { recursive: true });
+      const port = await freePort();
+      const env = { ...process.env, NODE_ENV: 'production', PANFORM_OUTBOX: join(folder, 'outbox') };
+      delete env.DATABASE_URL;
+      delete env.PANFORM_DATA;
+      const t0 = performance.now();
+      const server = await startChild(NODE, [PANFORM, 'serve', '--demo', '--port', String(port), '--host', '127.0.0.1'], {
+        env,
+        cwd: folder,
+        name: 'panform serve --demo (first start)',
+        ready: () => answers(`http://127.0.0.1:${port}/api/me`),
+      });
+      const startMs = performance.now() - t0;
+      const m = memoryOf(server.pid);
+      await server.stop();
+      runs.push({ startMs, rss: m.current, peak: m.peak });
+      rmSync(folder, { recursive: true, force: true });
+    }
+  } catch (e) {
+    return failed('first-start', figure, target, e);
+  }
+  raw.firstStart = runs;
+  const startMs = median(runs.map((r) => r.startMs));
+  row('first-start', figure, seconds(startMs), target, startMs < 3000, { medianMs: startMs, runs: runs.length });
+  const rss = median(runs.map((r) => r.rss ?? 0));
+  const peak = Math.max(...runs.map((r) => r.peak ?? 0));
+  if (!rss) return unavailable('rss-first-start', memFigure, '≤ 250 MB', '/proc is not available');
+  row('rss-first-start', memFigure, `${mb(rss)} (peak ${mb(peak)})`, '≤ 250 MB', rss <= MEMORY_TARGET, { residentBytes: rss, peakBytes: peak });
 }
 
 // ---- server -------------------------------------------------------------------------------
@@ -472,7 +514,7 @@ function reportMemory(state) {
   if (!state.server) return;
   const m = memoryOf(state.server.handle.pid);
   if (m.peak === null) return unavailable('rss', 'Server peak RSS with 1,000 formulas', '', '/proc is not available');
-  row('rss', `Server peak RSS with ${(state.loaded ?? 1000).toLocaleString('en-US')} formulas loaded, after the load tests`, `${mb(m.peak)} (now ${mb(m.current)})`, '', null, {
+  row('rss', `Server resident memory with ${(state.loaded ?? 1000).toLocaleString('en-US')} formulas (PGlite), after the API tests`, `${mb(m.current)} (peak ${mb(m.peak)})`, '≤ 250 MB', m.current <= MEMORY_TARGET, {
     peakBytes: m.peak,
     currentBytes: m.current,
   });
@@ -505,6 +547,7 @@ async function main() {
   if (g.has('cli')) await benchCli(opts);
   if (g.has('sheet')) await benchSheet(opts, work);
   if (g.has('load')) await benchLoad(opts, work, state);
+  if (g.has('start')) await benchStart(opts, work);
   if (g.has('bundle')) benchBundle();
   if (g.has('api')) await benchApi(opts, work, state);
   if (g.has('render')) await benchRender(opts, work, state);

@@ -22,5 +22,8 @@ if (process.exitCode !== 1) {
   if (!onlyCli) {
     const { buildViewer } = await import('./build-viewer.mjs');
     await buildViewer();
+    // The empty database a first start copies in (server/db/client.ts).
+    const { prepareDatabaseSeed } = await import('./prepare-database.mjs');
+    await prepareDatabaseSeed();
   }
 }

@@ -58,12 +58,9 @@ export async function seedDemo(
 
   let accounts: DemoAccount[] | null = null;
   if ((await countUsers(handle.db)) === 0) {
-    accounts = [];
-    for (const role of ROLES) {
-      const account: DemoAccount = { email: demoEmail(role), name: DEMO_NAMES[role], role, password: randomPassword() };
-      await createUser(handle.db, account, opts.scrypt);
-      accounts.push(account);
-    }
+    // One after the other: each hash holds 32 MiB while it runs.
+    accounts = ROLES.map((role) => ({ email: demoEmail(role), name: DEMO_NAMES[role], role, password: randomPassword() }));
+    for (const account of accounts) await createUser(handle.db, account, opts.scrypt);
     writeAccountsFile(opts.accountsFile, accounts);
   }
   return { loaded, accounts };

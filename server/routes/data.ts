@@ -9,6 +9,7 @@
 // to every server (server/db/listen.ts); otherwise a load by another process shows within CHECK_MS.
 // Revision history is not cached: it is read from the database when asked for.
 import { desc, max } from 'drizzle-orm';
+import { LRUCache } from 'lru-cache';
 import type { FormulaFigures } from '#shared/api';
 import { pickFigures } from '#shared/figures';
 import { normalizeCatalog, normalizeFormula, normalizePlan, type Catalog, type Formula, type Plan } from '#shared/model';
@@ -47,8 +48,11 @@ export interface Snapshot {
   formulas: Map<string, FormulaEntry>;
   /** Newest first. */
   plans: PlanEntry[];
-  /** Per-snapshot memo for derived results (sheets), dropped with the snapshot. */
-  memo: Map<string, unknown>;
+  /**
+   * Derived answers (formula details as sent, sheets, PDFs), dropped with the snapshot and bounded
+   * in bytes: the least recently used go first.
+   */
+  memo: LRUCache<string, NonNullable<unknown>>;
 }
 
 function ingredientNames(f: Formula): string[] {
@@ -63,6 +67,22 @@ function ingredientNames(f: Formula): string[] {
     for (const l of s.ingredients) names.add(l.ingredient);
   }
   return [...names];
+}
+
+/** Bytes of derived answers kept per snapshot: thousands of formula details, a few sheets and PDFs. */
+export const MEMO_BYTES = 32 * 1024 * 1024;
+
+/** The bytes a kept answer holds: buffers as they are, anything else as its JSON. */
+export function memoSize(value: unknown): number {
+  if (Buffer.isBuffer(value)) return value.length || 1;
+  const body = (value as { body?: unknown }).body;
+  if (Buffer.isBuffer(body)) return body.length + 64;
+  if (value instanceof Error) return 256 + value.message.length;
+  return Math.max(1, JSON.stringify(value)?.length ?? 1);
+}
+
+export function newMemo(maxSize = MEMO_BYTES): LRUCache<string, NonNullable<unknown>> {
+  return new LRUCache<string, NonNullable<unknown>>({ maxSize, sizeCalculation: memoSize });
 }
 
 /** How long a snapshot is served before the database is asked whether a load happened. */
@@ -164,6 +184,6 @@ export class DataCache {
         return { date: r.date, plan: null, problem: (e as Error).message, updatedAt: r.updatedAt.toISOString() };
       }
     });
-    return { version, catalog, formulas, plans, memo: new Map() };
+    return { version, catalog, formulas, plans, memo: newMemo() };
   }
 }

@@ -27,8 +27,6 @@ import { pickFigures } from '#shared/figures';
 import type { FormulaEntry, Snapshot } from './data.ts';
 import { formulaCautions } from '#shared/cautions';
 
-/** Answers kept per load; beyond this (many different scalings) they are computed each time. */
-const MEMO_LIMIT = 2_000;
 
 /** A catalog entry without its price, for roles that may not see costs. */
 export function withoutPrice(item: CatalogItem): CatalogItem {
@@ -209,7 +207,7 @@ export async function formulaDetailAnswer(
   if (!cached) {
     const body = Buffer.from(JSON.stringify(formulaDetail(entry, snapshot.catalog, role, target)));
     cached = { body, etag: `W/"${createHash('sha1').update(body).digest('base64url')}"` };
-    if (snapshot.memo.size < MEMO_LIMIT) snapshot.memo.set(key, cached);
+    snapshot.memo.set(key, cached);
   }
   return cached;
 }

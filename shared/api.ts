@@ -3,11 +3,12 @@ import type { UnitSystem } from './units.ts';
 import type { ProductLabel } from './product-label.ts';
 import type { Catalog, Formula, Plan } from './model.ts';
 import type { Permission, Role } from './permissions.ts';
-import type { ScaleResult } from './scale.ts';
+import type { ScaleResult, ScaleTarget } from './scale.ts';
 import type { Sheet } from './sheet/types.ts';
 import type { FormulaDiff } from './diff.ts';
 import type { AllergenSummary } from './allergens.ts';
 import type { Caution } from './cautions.ts';
+import type { MixWater } from './dough-water.ts';
 import type { CostSummary } from './cost.ts';
 
 /** Every error response: `error` is a stable code, `message` is for people. */
@@ -99,6 +100,16 @@ export interface FormulaListResponse {
   formulas: FormulaSummary[];
   categories: string[];
   tags: string[];
+}
+
+/** GET /api/formulas/:id/water?room=&flour=&tap=&rise=|friction=[&ddt=][&preferment=..][&plan=&mixer=][&pieces=..] */
+export interface FormulaWater {
+  formula: string;
+  target: ScaleTarget;
+  /** Where room, flour, tap and the rise came from: the query, or the plan's conditions and mixer. */
+  plan: { date: string; mixer: string } | null;
+  /** °C; grams for weights. */
+  water: MixWater;
 }
 
 /** GET /api/formulas/:id[?pieces=&piece=|?mix=] */

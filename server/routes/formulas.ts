@@ -5,6 +5,7 @@ import { createHash } from 'node:crypto';
 import { and, desc, eq, inArray } from 'drizzle-orm';
 import { Router, type Request, type Response } from 'express';
 import type {
+  FormulaWater,
   ChangeListResponse, FormulaDetail, FormulaListResponse, FormulaSummary, RevisionDiffResponse, RevisionCommit, RevisionListResponse, RevisionSummary,
 } from '#shared/api';
 import { AllergenError, allergenSummary, formulaIngredientNames } from '#shared/allergens';
@@ -26,6 +27,8 @@ import { queryInteger, queryString } from '../http/query.ts';
 import { pickFigures } from '#shared/figures';
 import type { FormulaEntry, Snapshot } from './data.ts';
 import { formulaCautions } from '#shared/cautions';
+import { planMixWater } from '#shared/dough-water';
+import { parseTemperatureArgument, parseTemperatureDeltaArgument, QuantityError } from '#shared/units';
 
 
 /** A catalog entry without its price, for roles that may not see costs. */
@@ -110,6 +113,68 @@ function scaleOr422(formula: Formula, catalog: Catalog, target: ScaleTarget) {
     if (e instanceof ScaleError) throw invalid(e.message);
     throw e;
   }
+}
+
+function temperatureQuery(req: Request, name: string, delta = false): number | undefined {
+  const text = queryString(req, name, 20);
+  if (text === undefined || text.trim() === '') return undefined;
+  try {
+    return delta ? parseTemperatureDeltaArgument(text) : parseTemperatureArgument(text);
+  } catch (e) {
+    if (e instanceof QuantityError) throw invalid(`${name}: ${e.message}; expected ${e.expected}`, [{ path: name, message: e.message }]);
+    throw e;
+  }
+}
+
+/**
+ * The water for a batch of one formula (shared/dough-water.ts, as the sheet, `scale` and the viewer
+ * work it out): room, flour, tap and the mixer's rise from the query, else from a plan's conditions
+ * and mixer (`plan`, `mixer`); pre-ferments measured tonight as `preferment`, repeated in order.
+ */
+export function formulaWater(snapshot: Snapshot, formula: Formula, req: Request, mayReadPlans: boolean): FormulaWater {
+  const target = readScaleTarget(req, formula);
+  const scaled = scaleOr422(formula, snapshot.catalog, target);
+  let plan: FormulaWater['plan'] = null;
+  let base: { room?: number; flour?: number; tap?: number; rise?: number; prefermentDefault?: number } = {};
+  const date = queryString(req, 'plan', 10);
+  if (date !== undefined) {
+    const entry = mayReadPlans ? snapshot.plans.find((p) => p.date === date) : undefined;
+    if (!entry?.plan) throw notFound(`no plan for ${date}`);
+    const name = queryString(req, 'mixer', 100) ?? entry.plan.orders.find((o) => o.formula === formula.id && o.mixer)?.mixer;
+    const mixer = entry.plan.mixers.find((m) => m.name === name) ?? (name === undefined ? entry.plan.mixers[0] : undefined);
+    if (!mixer) throw invalid(`the plan for ${date} has no mixer "${name}"; mixers: ${entry.plan.mixers.map((m) => m.name).join(', ')}`, [{ path: 'mixer', message: 'not in the plan' }]);
+    const c = entry.plan.conditions;
+    base = { room: c.room, flour: c.flour, tap: c.tapWater, rise: mixer.rise, prefermentDefault: c.preferment };
+    plan = { date, mixer: mixer.name };
+  }
+  const friction = temperatureQuery(req, 'friction', true);
+  const rise = temperatureQuery(req, 'rise', true) ?? (friction === undefined ? base.rise : friction / 3);
+  const room = temperatureQuery(req, 'room') ?? base.room;
+  const flour = temperatureQuery(req, 'flour') ?? base.flour;
+  const missing = Object.entries({ room, flour, 'rise (or friction)': rise }).filter(([, v]) => v === undefined).map(([k]) => k);
+  if (missing.length > 0) {
+    throw invalid(`the water temperature needs ${missing.join(', ')}, or a plan to take them from (?plan=YYYY-MM-DD)`, missing.map((m) => ({ path: m, message: 'missing' })));
+  }
+  const ddt = temperatureQuery(req, 'ddt');
+  if (ddt === undefined && formula.doughTemperature === undefined) throw invalid(`${formula.id} has no dough_temperature; give ddt`, [{ path: 'ddt', message: 'missing' }]);
+  const raw = (req.query as Record<string, unknown>).preferment;
+  const texts = raw === undefined ? [] : Array.isArray(raw) ? raw : [raw];
+  if (texts.length > formula.preferments.length || texts.some((t) => typeof t !== 'string' || t.length > 20)) {
+    throw invalid(`give preferment at most once per pre-ferment (${formula.preferments.length}), in the formula's order`, [{ path: 'preferment', message: 'too many' }]);
+  }
+  const measured = (texts as string[]).map((t) => {
+    if (t.trim() === '') return undefined;
+    try {
+      return parseTemperatureArgument(t);
+    } catch (e) {
+      if (e instanceof QuantityError) throw invalid(`preferment: ${e.message}; expected ${e.expected}`, [{ path: 'preferment', message: e.message }]);
+      throw e;
+    }
+  });
+  const water = planMixWater(formula, scaled, snapshot.catalog, {
+    ddt, room: room!, flour: flour!, tap: temperatureQuery(req, 'tap') ?? base.tap, rise: rise!, prefermentDefault: base.prefermentDefault, measured,
+  });
+  return { formula: formula.id, target, plan, water };
 }
 
 export function formulaDetail(entry: FormulaEntry, catalog: Catalog, role: Role, target: ScaleTarget): FormulaDetail {
@@ -257,6 +322,13 @@ export function formulasRouter(ctx: ServerContext): Router {
     const user = requirePermission(req, 'read:formula:active');
     const answer = await formulaDetailAnswer(ctx, user.role, req.params.id, (formula) => readScaleTarget(req, formula));
     sendJsonAnswer(req, res, answer);
+  });
+
+  r.get('/formulas/:id/water', async (req, res) => {
+    const user = requirePermission(req, 'read:formula:active');
+    const snapshot = await ctx.data.snapshot();
+    const formula = usable(visibleFormula(snapshot, req.params.id, user.role));
+    res.json(formulaWater(snapshot, formula, req, roleHasPermission(user.role, 'read:plan')));
   });
 
   r.get('/formulas/:id/revisions', async (req, res) => {

@@ -277,6 +277,17 @@ function checkUsualRanges(ctx: FormulaContext, flourSum: number): void {
       f.preferments.length === 1 ? 'value' : 'key',
     );
   }
+  if (f.bassinage) {
+    // Held back from the water line, so it must fit in the water the final dough itself weighs.
+    const water = sum(f.ingredients.filter((l) => item(l.ingredient).kind === 'water').map((l) => l.percent));
+    const isWater = (l: Line) => item(l.ingredient).kind === 'water';
+    const builds =
+      sum(f.preferments.flatMap((p) => p.ingredients.filter(isWater).map((l) => (l.percent * p.share) / 100))) +
+      sum(f.soakers.flatMap((s) => s.ingredients.filter(isWater).map((l) => l.percent)));
+    if (f.bassinage.percent >= water - builds - EPS) {
+      out.error(pointer('bassinage', 'percent'), `the bassinage holds back ${pct(f.bassinage.percent)} of water, but the final dough weighs only ${pct(Math.max(0, water - builds))} of water; hold back less`);
+    }
+  }
   if (f.doughTemperature !== undefined && outside(f.doughTemperature, PRACTICE.doughTemperature)) {
     out.warning('/dough_temperature', `dough temperature ${Number(f.doughTemperature.toFixed(1))} °C is outside the usual 20-30 °C (common practice)`);
   }

@@ -59,10 +59,10 @@ export function readingsFromPlan(plan: Plan, formulaId: string, mixerName?: stri
   };
 }
 
-/** Water weighed at the final mix (outside the builds), g. */
-export function finalMixWater(scaled: ScaleResult): number {
-  const waterNames = new Set(scaled.overall.filter((l) => l.kind === 'water').map((l) => l.ingredient));
-  return scaled.finalDough.filter((l) => l.source === 'ingredient' && waterNames.has(l.ingredient)).reduce((a, l) => a + l.grams, 0);
+/** The first bake day from `today` on, else the latest one; '' without plans. */
+export function nextBakeDay(dates: string[], today: string): string {
+  const sorted = [...dates].sort();
+  return sorted.find((d) => d >= today) ?? sorted[sorted.length - 1] ?? '';
 }
 
 export interface BakeDays {
@@ -77,7 +77,7 @@ export function WaterTemperatureHelper({ formula, scaled, catalog, days, onIce }
   const { grams, temperature: celsius } = useUnits();
   const [readings, setReadings] = useState<Readings>(() => loadReadings() ?? EMPTY);
   const [ddt, setDdt] = useState(formula.doughTemperature === undefined ? '' : String(formula.doughTemperature));
-  const chosen = readings.date || days.dates[0] || '';
+  const chosen = readings.date || nextBakeDay(days.dates, new Date().toISOString().slice(0, 10));
   const plan = days.usePlan(chosen);
 
   // With nothing kept on this device, start from the first bake day's conditions.
@@ -116,7 +116,7 @@ export function WaterTemperatureHelper({ formula, scaled, catalog, days, onIce }
       <div className="grid grid-cols-2 gap-3 print:hidden">
         <SelectField label="Bake day" value={chosen} onChange={(e) => chooseDay(e.target.value)} data-testid="water-day">
           {days.dates.length === 0 && <option value="">no plans loaded</option>}
-          {days.dates.map((d) => (
+          {[...days.dates].sort().map((d) => (
             <option key={d} value={d}>
               {d}
             </option>

@@ -37,15 +37,15 @@ export function AppShell() {
         <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-4 gap-y-1 px-4 py-2">
           <NavLink to={paths.formulas.getHref()} className="flex min-h-12 items-center gap-2 rounded-xl pr-2" aria-label="Panform, home">
             <Logo />
-            <span className="font-display text-2xl font-bold tracking-tight">Panform</span>
+            <span className="font-display text-2xl font-bold tracking-tight max-lg:sr-only">Panform</span>
           </NavLink>
-          <nav aria-label="Main" className="flex flex-1 flex-wrap items-center gap-1">
+          <nav aria-label="Main" className="flex flex-1 flex-wrap items-center gap-1 max-lg:gap-0">
             {links.map((l) => (
               <NavLink
                 key={l.to}
                 to={l.to}
                 className={({ isActive }) =>
-                  `flex min-h-12 items-center rounded-xl px-4 text-lg font-semibold ${
+                  `flex min-h-12 items-center rounded-xl px-4 text-lg font-semibold max-lg:px-3 ${
                     isActive ? 'bg-crust text-on-crust' : 'text-ink hover:bg-sunk'
                   }`
                 }

@@ -4,6 +4,7 @@
 // error raised in its own page. Expected figures are fixed values worked by hand from the demo
 // files (formulas/harbour-ciabatta.yaml, formulas/ingredients.yaml), not computed by the code the
 // page runs. Screenshots of every page land in test-results/screenshots/.
+import { execFileSync } from 'node:child_process';
 import { cpSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
@@ -328,6 +329,105 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
       if (pages !== null) expect(pages).toBe(1);
     }));
 
+  it('shows a formula and its print in US units once the person chooses them, and keys the choice with the arrows', () =>
+    withPage('admin', async (page) => {
+      await page.goto(`${base}/account`);
+      const metric = page.getByRole('radio', { name: 'Metric: g, kg, °C' });
+      await metric.focus();
+      await page.keyboard.press('ArrowRight');
+      const us = page.getByRole('radio', { name: 'US: oz, lb, °F' });
+      expect(await us.getAttribute('aria-checked')).toBe('true');
+      expect(await page.evaluate(() => document.activeElement?.textContent)).toBe('US: oz, lb, °F');
+      expect(await us.getAttribute('tabindex')).toBe('0');
+      expect(await metric.getAttribute('tabindex')).toBe('-1');
+      // Kept on the account: the server answers with it.
+      await page.waitForFunction(async () => (await (await fetch('/api/me')).json()).unitSystem === 'us');
+
+      await page.goto(`${base}/formulas/harbour-ciabatta`);
+      await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
+      // Flour of the written batch, 1808.53 g (above), ÷ 28.349 523 125 g/oz (NIST SP 811 App. B.8)
+      // = 63.79 oz = 3 lb 15.79 oz.
+      await waitForWeight(page, 'overall', 'bread flour', '3 lb 15.79 oz');
+      const printed = await printPreview(page, 'formula-harbour-ciabatta-us');
+      let text = '';
+      try {
+        text = execFileSync('pdftotext', [printed.pdf, '-'], { encoding: 'utf8' });
+      } catch {
+        // poppler-utils missing: the page itself was checked above.
+      }
+      if (text) {
+        expect(text).toContain('3 lb 15.79 oz');
+        // The batch line: 10 × 320 g = 11.29 oz pieces, mixed dough 3265.31 g = 7 lb 3.18 oz (NIST SP 811 App. B.8).
+        expect(text).toContain('10 × 11.29 oz · mixed dough 7 lb 3.18 oz');
+      }
+      await screenshot(page, 'formula-us-units', { width: 1280, height: 800 });
+
+      // Back to metric for the account, so the setting is left as found.
+      await page.goto(`${base}/account`);
+      await page.getByRole('radio', { name: 'Metric: g, kg, °C' }).click();
+      await page.waitForFunction(async () => (await (await fetch('/api/me')).json()).unitSystem === 'metric');
+    }));
+
+  it('lists the ingredients for bench staff without prices, and with prices and their dates for the technical baker', async () => {
+    await withPage('bench', async (page) => {
+      await page.goto(`${base}/account`);
+      await page.getByRole('link', { name: 'The ingredient list' }).click();
+      await page.waitForURL(/\/ingredients$/);
+      const milk = page.locator('[data-testid="ingredients"] tr[data-ingredient="whole milk"]');
+      await milk.waitFor();
+      // USDA SR28 NDB 01077, milk, whole: water 88.13 g per 100 g.
+      expect(await milk.textContent()).toMatch(/88\.13 %USDA SR28 NDB 01077/);
+      expect(await page.getByRole('columnheader', { name: 'Price per kg' }).count()).toBe(0);
+      expect(await page.locator('[data-testid="price"]').count()).toBe(0);
+      const salt = page.locator('[data-testid="ingredients"] tr[data-ingredient="fine salt"]');
+      expect(await salt.getByRole('link', { name: 'Harbour ciabatta' }).count()).toBe(1);
+      expect(await page.getByRole('link', { name: 'Spelt porridge loaf' }).count()).toBe(0); // a draft
+      await screenshot(page, 'ingredients-bench', { width: 1280, height: 800 });
+    });
+    await withPage('author', async (page) => {
+      await page.goto(`${base}/ingredients`);
+      const flour = page.locator('[data-testid="ingredients"] tr[data-ingredient="bread flour"]');
+      await flour.waitFor();
+      expect(await page.getByRole('columnheader', { name: 'Price per kg' }).count()).toBe(1);
+      // The catalog's price for bread flour: 0.92 per kg, dated 2026-11-02 (formulas/ingredients.yaml).
+      expect(await flour.locator('[data-testid="price"]').textContent()).toMatch(/0\.92as of 2026-11-02/);
+      await screenshot(page, 'ingredients-author', { width: 1280, height: 800 });
+    });
+  });
+
+  it('gives the disabled sign-in button text of at least 4.5:1 contrast, light and dark', async () => {
+    for (const scheme of ['light', 'dark'] as const) {
+      await withPage(null, async (page) => {
+        await page.emulateMedia({ colorScheme: scheme });
+        await page.goto(`${base}/sign-in`);
+        const button = page.getByRole('button', { name: 'Sign in' });
+        expect(await button.isDisabled()).toBe(true);
+        // WCAG 2.1 SC 1.4.3 and its definitions of relative luminance and contrast ratio.
+        const ratio = await button.evaluate((el) => {
+          const rgb = (c: string) => (c.match(/[\d.]+/g) ?? []).slice(0, 3).map(Number);
+          const lum = ([r, g, b]: number[]) =>
+            [r, g, b].map((v) => v / 255).map((v) => (v <= 0.03928 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4)).reduce((s, v, i) => s + v * [0.2126, 0.7152, 0.0722][i], 0);
+          const style = getComputedStyle(el);
+          const [a, b] = [lum(rgb(style.color)), lum(rgb(style.backgroundColor))];
+          return (Math.max(a, b) + 0.05) / (Math.min(a, b) + 0.05);
+        });
+        expect(ratio, scheme).toBeGreaterThanOrEqual(4.5);
+      });
+    }
+  });
+
+  it('keeps the header on one line at 800 px wide for every role', async () => {
+    for (const role of ['bench', 'reviewer', 'author', 'admin'] as const) {
+      await withPage(role, async (page) => {
+        await page.setViewportSize({ width: 800, height: 1000 });
+        await page.goto(`${base}/formulas`);
+        await page.getByRole('heading', { name: 'Formulas', level: 1 }).waitFor();
+        const tops = await page.locator('header a').evaluateAll((els) => [...new Set(els.filter((e) => e.getClientRects().length > 0).map((e) => Math.round(e.getBoundingClientRect().top)))]);
+        expect(tops, `${role}: header links on one row`).toHaveLength(1);
+      });
+    }
+  });
+
   it('opens a bake day: builds with mix windows, mixes, pick list, timeline chart and the PDF', () =>
     withPage('bench', async (page) => {
       await page.goto(`${base}/plans`);
@@ -454,6 +554,11 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
       await screenshot(page, 'reset-password', { width: 800, height: 1280, scheme: 'dark', fullPage: false });
       await page.getByRole('button', { name: 'Set the new password' }).click();
       await page.waitForURL(/\/sign-in\?reset=done/);
+      // The spent link says so as it opens, before any password is typed.
+      await page.goto(`${base}${link}`);
+      await page.getByTestId('reset-link-problem').waitFor();
+      expect(await page.getByLabel('New password').count()).toBe(0);
+      await page.goto(`${base}/sign-in`);
       await page.getByLabel('E-mail').fill(resetEmail);
       await page.getByLabel('Password').fill('flour and water 2026');
       await page.getByRole('button', { name: 'Sign in' }).click();

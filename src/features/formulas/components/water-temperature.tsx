@@ -74,7 +74,7 @@ export interface BakeDays {
 
 /** `onIce` hears whether the water now takes ice, so the page's cautions can say how to handle it. */
 export function WaterTemperatureHelper({ formula, scaled, catalog, days, onIce }: { formula: Formula; scaled: ScaleResult; catalog: Catalog; days: BakeDays; onIce?: (ice: boolean) => void }) {
-  const { grams, temperature: celsius } = useUnits();
+  const { grams, temperature: celsius, degrees } = useUnits();
   const [readings, setReadings] = useState<Readings>(() => loadReadings() ?? EMPTY);
   const [ddt, setDdt] = useState(formula.doughTemperature === undefined ? '' : String(formula.doughTemperature));
   const chosen = readings.date || nextBakeDay(days.dates, new Date().toISOString().slice(0, 10));
@@ -201,7 +201,7 @@ export function WaterTemperatureHelper({ formula, scaled, catalog, days, onIce }
             <span className="figure mt-2 block text-sm text-muted" data-testid="water-sum">
               {water.factors} × {celsius(water.desiredDoughTemperature)} − (room {celsius(water.room)} + flour {celsius(water.flour)}
               {water.preferments.map((p) => ` + ${p.name} ${celsius(p.temperature)} (${p.source})`).join('')} + friction{' '}
-              {water.frictionFactor.toFixed(1)} °C = {water.factors} × rise {water.rise.toFixed(1)}) = {celsius(water.liquid!.temperature)}
+              {degrees(water.frictionFactor)} = {water.factors} × rise {degrees(water.rise)}) = {celsius(water.liquid!.temperature)}
               {water.bassinage ? ' for all the water' : ''}
             </span>
             {water.liquid?.kind === 'other' && <span className="mt-1 block text-sm text-muted">Specific heat {water.specificHeat}.</span>}

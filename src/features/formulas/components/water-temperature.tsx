@@ -173,11 +173,15 @@ export function WaterTemperatureHelper({ formula, scaled, catalog, days, onIce }
         />
         <TextField label="Tap water" inputMode="decimal" suffix="°C" value={readings.tap} onChange={set('tap')} />
       </div>
-      <p className="text-sm text-muted" data-testid="water-convention">
+      <p className={`text-sm text-muted ${missing ? 'print:hidden' : ''}`} data-testid="water-convention">
         By the {FRICTION_CONVENTION} (the dough comes off the mixer at its factors' average plus the rise). Pre-ferments count at the temperature measured tonight, else their ripening temperature.
         {readings.date && <> Readings kept on this device, started from {readings.date}{readings.mixer ? `, ${readings.mixer}` : ''}.</>}
       </p>
-      <output aria-live="polite" className="block rounded-xl border-2 border-crust bg-crumb p-4 print:border print:p-2" data-testid="water-result">
+      <output
+        aria-live="polite"
+        className={`block rounded-xl border-2 border-crust bg-crumb p-4 print:border print:p-2 ${missing ? 'print:hidden' : ''}`}
+        data-testid="water-result"
+      >
         {missing && <span>Fill in every temperature.</span>}
         {water && water.main === null && <span>{water.warnings[0]}</span>}
         {water?.main && (

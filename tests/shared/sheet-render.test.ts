@@ -74,6 +74,11 @@ describe('presentSheet', () => {
     expect(mixes.blocks[i].lines).toContain('water at 6.0 °C for dough at 24.0 °C (3 × 24.0 °C − room 27.0 °C − flour 25.0 °C − friction 14.0 °C (3 × rise 4.7 °C))');
     expect(mixes.blocks[i].lines).toContain('divide 300 × 90.0 g');
   });
+
+  it('states the friction convention and each mixer\'s rise once, at the top', () => {
+    expect(p.subtitle).toContain("water temperatures by the multiplier method, friction = n × the mixer's rise; each pre-ferment at its own ripening temperature");
+    expect(p.subtitle.join(' ')).toMatch(/big spiral .* rise 4\.7 °C \(straight-dough friction 14\.0 °C ÷ 3\)/);
+  });
 });
 
 describe('chartModel', () => {

@@ -8,7 +8,8 @@ import { nearestName } from '#shared/check/suggest';
 import type { Catalog, Formula, Plan } from '#shared/model';
 import { InputError } from './errors.ts';
 
-export const CATALOG_FILE = 'ingredients.yaml';
+export { CATALOG_FILE } from '#shared/check/check-file';
+import { CATALOG_FILE } from '#shared/check/check-file';
 
 export function readText(path: string): string {
   try {

@@ -2,8 +2,8 @@
 // line per finding. Reading files happens here; the checks themselves are in shared/check/.
 import { Command } from 'commander';
 import { readdirSync, statSync } from 'node:fs';
-import { readFileText } from '#server/load/read';
-import { basename, dirname, join, relative, resolve } from 'node:path';
+import { fileKindOf, KIND_ORDER, readFileText, type FileKind } from '#server/load/read';
+import { join, relative, resolve } from 'node:path';
 import { checkFileText, fileStem } from '#shared/check/check-file';
 import type { KnownFormula } from '#shared/check/plan';
 import type { Catalog } from '#shared/model';
@@ -29,13 +29,12 @@ export interface CheckReport {
   warnings: number;
 }
 
-type FileKind = 'formula' | 'catalog' | 'plan';
 const DEFAULT_PATH = 'formulas';
 
+/** The kind of a file as a load sees it (server/load/read.ts), or the catalog given with --catalog. */
 export function classify(path: string, catalogPath?: string): FileKind {
-  if (basename(path) === CATALOG_FILE || (catalogPath !== undefined && resolve(path) === resolve(catalogPath))) return 'catalog';
-  if (basename(dirname(resolve(path))) === 'plans') return 'plan';
-  return 'formula';
+  if (catalogPath !== undefined && resolve(path) === resolve(catalogPath)) return 'catalog';
+  return fileKindOf(path);
 }
 
 const isYaml = (name: string) => /\.ya?ml$/i.test(name);
@@ -150,9 +149,7 @@ export function collectCheck(options: Pick<CheckOptions, 'paths' | 'catalog'>): 
     return m;
   };
 
-  // Catalogs, then formulas, then plans: each kind needs what the one before it reads.
-  const order = { catalog: 0, formula: 1, plan: 2 } as const;
-  const byKind = [...files].sort((a, b) => order[classify(a, options.catalog)] - order[classify(b, options.catalog)]);
+  const byKind = [...files].sort((a, b) => KIND_ORDER[classify(a, options.catalog)] - KIND_ORDER[classify(b, options.catalog)]);
   for (const file of byKind) {
     const kind = classify(file, options.catalog);
     if (kind === 'catalog') {

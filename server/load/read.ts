@@ -4,13 +4,13 @@ import { execFile } from 'node:child_process';
 import { closeSync, existsSync, openSync, readdirSync, readSync, statSync } from 'node:fs';
 import { basename, dirname, join, relative, resolve, sep } from 'node:path';
 import { promisify } from 'node:util';
-import { MAX_FILE_BYTES, tooLargeProblem } from '#shared/check/check-file';
+import { CATALOG_FILE, MAX_FILE_BYTES, tooLargeProblem } from '#shared/check/check-file';
 
 const run = promisify(execFile);
 
 export type FileKind = 'catalog' | 'formula' | 'plan';
 
-export const CATALOG_FILE = 'ingredients.yaml';
+export { CATALOG_FILE };
 
 export interface LoadFile {
   kind: FileKind;
@@ -65,12 +65,24 @@ function folderFiles(dir: string): { kind: FileKind; absPath: string; root: stri
   return out;
 }
 
+/**
+ * Which kind a file is, by where it lies (for `panform check` and a load alike): ingredients.yaml
+ * is the catalog, a file in a plans/ folder a plan, any other .yaml/.yml a formula.
+ */
+export function fileKindOf(path: string): FileKind {
+  if (basename(path) === CATALOG_FILE) return 'catalog';
+  if (basename(dirname(resolve(path))) === 'plans') return 'plan';
+  return 'formula';
+}
+
+/** The order files are checked in: each kind needs what the one before it reads. */
+export const KIND_ORDER: Readonly<Record<FileKind, number>> = { catalog: 0, formula: 1, plan: 2 };
+
 /** A single file: which kind, and the formulas folder it belongs to. */
 function classifyFile(absPath: string): { kind: FileKind; absPath: string; root: string } {
+  const kind = fileKindOf(absPath);
   const dir = dirname(absPath);
-  if (basename(absPath) === CATALOG_FILE) return { kind: 'catalog', absPath, root: dir };
-  if (basename(dir) === 'plans') return { kind: 'plan', absPath, root: dirname(dir) };
-  return { kind: 'formula', absPath, root: dir };
+  return { kind, absPath, root: kind === 'plan' ? dirname(dir) : dir };
 }
 
 export class LoadPathError extends Error {
@@ -114,7 +126,7 @@ export async function readLoadInput(paths: string[], opts: { git?: boolean } = {
   if (catalogs.length > 1) {
     throw new LoadPathError(`one catalog per load; found ${catalogs.map((c) => c.absPath).join(' and ')}`);
   }
-  const list = [...picked.values()];
+  const list = [...picked.values()].sort((a, b) => KIND_ORDER[a.kind] - KIND_ORDER[b.kind]);
   const git = opts.git === false ? null : await readGitInfo(list.map((f) => f.absPath));
   const files: LoadFile[] = list.map((f) => {
     const g = git?.files.get(f.absPath);

@@ -32,6 +32,9 @@ export type CheckResult =
   | { kind: 'catalog'; findings: Finding[]; value?: Catalog; raw?: unknown; source?: SourceMap }
   | { kind: 'plan'; findings: Finding[]; value?: Plan; raw?: unknown; source?: SourceMap };
 
+/** The ingredient catalog's file name in a formulas folder. */
+export const CATALOG_FILE = 'ingredients.yaml';
+
 /** A formula, catalog or plan file is a few kB; anything far larger is not one, and is not read whole. */
 export const MAX_FILE_BYTES = 2 * 1024 * 1024;
 

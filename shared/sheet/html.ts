@@ -5,6 +5,7 @@
 // and falls back to the system's. Pure; no I/O.
 import { chartModel, colourOf, legendOf, productionRange, type ChartModel } from './chart.ts';
 import { presentSheet, type SheetBlock, type SheetSection, type SheetTable } from './present.ts';
+import { stepWord } from '../step-words.ts';
 import type { Sheet } from './types.ts';
 
 export type Paper = 'a4' | 'letter';
@@ -131,7 +132,7 @@ export function timelineSvg(m: ChartModel): string {
       }
       const dash = b.window ? ' stroke-dasharray="3 2"' : '';
       out.push(
-        `<rect x="${x1.toFixed(1)}" y="${y + 2.5}" width="${w.toFixed(1)}" height="${rowH - 5}" fill="${colourOf(b.step)}" stroke="#2b1e15" stroke-width="0.5"${dash}><title>${escapeHtml(b.step)}</title></rect>`,
+        `<rect x="${x1.toFixed(1)}" y="${y + 2.5}" width="${w.toFixed(1)}" height="${rowH - 5}" fill="${colourOf(b.step)}" stroke="#2b1e15" stroke-width="0.5"${dash}><title>${escapeHtml(stepWord(b.step))}</title></rect>`,
       );
       for (const f of b.folds) {
         const fx = x(f).toFixed(1);

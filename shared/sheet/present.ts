@@ -5,6 +5,7 @@ import { sum } from '../scale.ts';
 import { FRICTION_CONVENTION } from '../dough-water.ts';
 import { formatGrams, formatTemperature, formatTemperatureRange } from '../units.ts';
 import { shortTime } from './time.ts';
+import { stepWord } from '../step-words.ts';
 import type { Sheet, SheetBuild, SheetMix } from './types.ts';
 
 export type Align = 'left' | 'right';
@@ -164,7 +165,7 @@ export function presentSheet(sheet: Sheet): PresentedSheet {
     if (e.resource?.startsWith('mixer:')) what.push(e.resource.slice('mixer:'.length));
     if (e.folds && e.folds.length > 0) what.push(`fold at ${e.folds.map(when).join(', ')}`);
     if (e.note) what.push(e.note);
-    return [when(e.start), when(e.end), e.step, e.label, what.join('; ')];
+    return [when(e.start), when(e.end), stepWord(e.step), e.label, what.join('; ')];
   });
   sections.push({
     key: 'timeline',

@@ -158,7 +158,7 @@ export interface TimelineEntry {
   slots?: number;
   /** Fold times during this step. */
   folds?: LocalDateTime[];
-  /** °C for bakes and cold holds. */
+  /** °C for bakes and retards. */
   temperature?: number;
   /** A window to do the step in (builds), not a fixed slot. */
   window?: boolean;

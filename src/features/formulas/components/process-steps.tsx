@@ -1,22 +1,10 @@
 import type { Step } from '#shared/model';
+import { stepWord } from '#shared/step-words';
 import { minutes, minutesRange } from '../../../lib/format.ts';
 import { useUnits } from '../../../lib/units.ts';
 
-const stepWord: Record<string, string> = {
-  autolyse: 'Rest flour and water',
-  mix: 'Mix',
-  bulk: 'First rise',
-  fold: 'Fold',
-  divide: 'Divide',
-  preshape: 'Pre-shape',
-  rest: 'Bench rest',
-  shape: 'Shape',
-  proof: 'Final proof',
-  retard: 'Cold hold',
-  bake: 'Bake',
-  cool: 'Cool',
-  other: 'Step',
-};
+/** The step's trade name, capitalised for a heading; the autolyse says what it is. */
+const stepTitle = (step: string) => (step === 'autolyse' ? 'Autolyse (flour and water rest)' : stepWord(step)[0].toUpperCase() + stepWord(step).slice(1));
 
 const vesselWord: Record<string, string> = { deck: 'on the deck', tray: 'on trays', pot: 'in a lidded pot', tin: 'in tins', stone: 'on the stone' };
 
@@ -38,7 +26,7 @@ export function ProcessSteps({ steps }: { steps: Step[] }) {
             </span>
             <div>
               <p className="flex flex-wrap items-baseline gap-x-3">
-                <span className="text-lg font-semibold print:text-[9.5pt]">{stepWord[s.step] ?? s.step}</span>
+                <span className="text-lg font-semibold print:text-[9.5pt]">{stepTitle(s.step)}</span>
                 {s.minutes && <span className="figure">{minutesRange(s.minutes)}</span>}
                 {s.temperature !== undefined && (
                   <span className={`figure font-bold ${s.step === 'bake' ? 'text-ember' : s.step === 'retard' ? 'text-focus' : ''}`}>{temperature(s.temperature, 0)}</span>

@@ -4,25 +4,10 @@ import { useLayoutEffect, useRef, useState, type ReactNode } from 'react';
 import { chartModel, PALETTE, paletteOf, type ChartRow } from '#shared/sheet/chart';
 import type { Sheet, TimelineEntry } from '#shared/sheet/types';
 import { Segmented } from '../../../components/segmented.tsx';
+import { STEP_WORDS } from '#shared/step-words';
 import { dayParts } from '../../../lib/format.ts';
 
-const STEP_WORD: Record<string, string> = {
-  build: 'build',
-  soak: 'soak',
-  autolyse: 'rest',
-  mix: 'mix',
-  bulk: 'first rise',
-  fold: 'fold',
-  divide: 'divide',
-  preshape: 'pre-shape',
-  rest: 'bench rest',
-  shape: 'shape',
-  proof: 'proof',
-  retard: 'cold hold',
-  bake: 'bake',
-  cool: 'cool',
-  other: 'step',
-};
+const STEP_WORD = STEP_WORDS;
 
 // Panform's palette, the same as on the printed sheet (shared/sheet/chart.ts).
 const fillOf = (e: TimelineEntry): string => paletteOf(e.step).colour;

@@ -6,6 +6,7 @@ import type { Permission, Role } from './permissions.ts';
 import type { ScaleResult, ScaleTarget } from './scale.ts';
 import type { Sheet } from './sheet/types.ts';
 import type { FormulaDiff } from './diff.ts';
+import type { FormulaFigures } from './figures.ts';
 import type { AllergenSummary } from './allergens.ts';
 import type { Caution } from './cautions.ts';
 import type { MixWater } from './dough-water.ts';
@@ -71,18 +72,7 @@ export interface AuditListResponse {
 }
 
 /** Figures of a formula's reference batch (or of a scaled batch). */
-export interface FormulaFigures {
-  totalPercent: number;
-  hydration: number;
-  effectiveHydration: number;
-  prefermentedFlour: number;
-  finalDoughHydration: number;
-  flour: number;
-  mixedDough: number;
-  dividedDough: number;
-  pieces: number | null;
-  pieceGrams: number | null;
-}
+export type { FormulaFigures };
 
 export interface FormulaSummary {
   id: string;

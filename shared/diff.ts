@@ -1,9 +1,8 @@
 // What changed between two versions of a formula, in baker's terms: ingredient lines added,
 // removed or re-percented; pre-ferments and soakers; process steps; yield, loss, bake loss, finishes, dough temperature,
 // title and status; and the figures of each version's reference batch side by side. Pure.
-import type { FormulaFigures } from './api.ts';
 import type { Catalog, Formula, Line, Preferment, Soaker, Step } from './model.ts';
-import { referenceFigures } from './figures.ts';
+import { referenceFigures, type FormulaFigures } from './figures.ts';
 import type { NumberRange } from './units.ts';
 
 export type ChangeKind = 'added' | 'removed' | 'changed';

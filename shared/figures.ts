@@ -1,8 +1,21 @@
 // The figures a formula is known by (hydration, pre-fermented flour, batch weights), from a
 // scaled batch. Used wherever a formula is listed or compared. Pure.
-import type { FormulaFigures } from './api.ts';
 import type { Catalog, Formula } from './model.ts';
 import { scaleFormula, type ScaleResult } from './scale.ts';
+
+/** The figures of a formula's batch, as the API, the database and diffs carry them. */
+export interface FormulaFigures {
+  totalPercent: number;
+  hydration: number;
+  effectiveHydration: number;
+  prefermentedFlour: number;
+  finalDoughHydration: number;
+  flour: number;
+  mixedDough: number;
+  dividedDough: number;
+  pieces: number | null;
+  pieceGrams: number | null;
+}
 
 /** Every figure, in the order they are listed. */
 export const FIGURE_KEYS: readonly (keyof FormulaFigures)[] = [

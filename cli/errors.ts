@@ -30,11 +30,3 @@ export class InputError extends ExitError {
     this.name = 'InputError';
   }
 }
-
-/** Something that should never happen: a bug in Panform, reported with its stack. */
-export class InternalError extends Error {
-  constructor(message: string) {
-    super(message);
-    this.name = 'InternalError';
-  }
-}

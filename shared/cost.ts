@@ -12,8 +12,8 @@
 //   the sum of the priced lines only, a lower bound).
 // - Amounts are plain numbers in the catalog's currency, unrounded; `formatMoney` rounds for
 //   display (2 decimals) and adds the currency the caller chose, if any.
-import { lookupIngredient, type Catalog, type Formula } from './model.ts';
-import { scaleFormula, sum, type ScaleResult, type ScaleTarget } from './scale.ts';
+import { lookupIngredient, type Catalog } from './model.ts';
+import { sum, type ScaleResult } from './scale.ts';
 
 export interface CostLine {
   ingredient: string;
@@ -109,11 +109,6 @@ export function computeCost(scaled: ScaleResult, catalog: Catalog, options: Cost
     pricesTo: dates[dates.length - 1] ?? null,
     undated: priced.filter((l) => l.costDate === null).map((l) => l.ingredient),
   };
-}
-
-/** Scales the formula to the target, then costs the batch. Throws ScaleError for input that cannot be scaled. */
-export function costFormula(formula: Formula, catalog: Catalog, target: ScaleTarget, options: CostOptions = {}): CostResult {
-  return computeCost(scaleFormula(formula, catalog, target), catalog, options);
 }
 
 /**

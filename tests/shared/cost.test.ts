@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { computeCost, costFormula, formatMoney } from '#shared/cost';
+import { computeCost, formatMoney } from '#shared/cost';
 import { scaleFormula } from '#shared/scale';
 import { fixtureCatalog, makeFormula } from '../fixtures/labels/catalog.ts';
 
@@ -13,9 +13,9 @@ const worksheet = makeFormula({ 'bread flour': 100 }, { water: 67, 'fine salt': 
   yield: { pieces: 73, piece: '390 g' },
 });
 
-describe('costFormula', () => {
+describe('computeCost', () => {
   it('costs the worksheet batch line by line, as worked by hand', () => {
-    const r = costFormula(worksheet, catalog, { by: 'pieces', pieces: 73 });
+    const r = computeCost(scaleFormula(worksheet, catalog, { by: 'pieces', pieces: 73 }), catalog);
     const byName = Object.fromEntries(r.lines.map((l) => [l.ingredient, l]));
     // Hand-worked from that worksheet's example with the invented prices:
     // flour 16.747 0588 kg × 0.80 = 13.397 6471
@@ -41,7 +41,7 @@ describe('costFormula', () => {
       yield: { pieces: 73, piece: '390 g' },
       loss: '2 %',
     });
-    const r = costFormula(withLoss, catalog, { by: 'pieces', pieces: 73 });
+    const r = computeCost(scaleFormula(withLoss, catalog, { by: 'pieces', pieces: 73 }), catalog);
     // mixed dough = 28 470 / 0.98 = 29 051.0204 g; flour = 29 051.0204 / 1.70 = 17 088.8355 g
     // total = 17.088 8355 × 0.888 = 15.174 8860; per piece = 15.174 8860 / 73 = 0.207 8751 (hand-worked)
     expect(r.mixedDough).toBeCloseTo(29051.0204, 3);
@@ -54,7 +54,7 @@ describe('costFormula', () => {
   it('lists a missing price by name and marks the totals incomplete instead of counting zero', () => {
     // common practice lean dough, hand-worked from the baker's percent definition (Gisslen, Professional Baking, Wiley): 100 / 65 / 2 / 1 = 168 %; 1680 g of dough is 1000 / 650 / 20 / 10 g.
     const f = makeFormula({ 'bread flour': 100 }, { water: 65, 'fine salt': 2, 'fresh yeast': 1 });
-    const r = costFormula(f, catalog, { by: 'mix', grams: 1680 });
+    const r = computeCost(scaleFormula(f, catalog, { by: 'mix', grams: 1680 }), catalog);
     const yeast = r.lines.find((l) => l.ingredient === 'fresh yeast');
     expect(yeast).toMatchObject({ grams: 10, costPerKg: null, cost: null, share: null });
     expect(r.complete).toBe(false);
@@ -66,7 +66,7 @@ describe('costFormula', () => {
   });
 
   it('gives no cost per piece for a batch scaled by mixed dough weight', () => {
-    const r = costFormula(worksheet, catalog, { by: 'mix', grams: 1700 });
+    const r = computeCost(scaleFormula(worksheet, catalog, { by: 'mix', grams: 1700 }), catalog);
     expect(r.pieces).toBeNull();
     expect(r.perPiece).toBeNull();
     // 1700 g at 170 % is 1000 g of flour: 0.888 for the batch (hand-worked)
@@ -74,7 +74,7 @@ describe('costFormula', () => {
   });
 
   it('reports the oldest and newest price dates and the undated prices', () => {
-    const r = costFormula(worksheet, catalog, { by: 'pieces', pieces: 1 });
+    const r = computeCost(scaleFormula(worksheet, catalog, { by: 'pieces', pieces: 1 }), catalog);
     expect(r.pricesFrom).toBe('2026-09-30');
     expect(r.pricesTo).toBe('2026-11-02');
     expect(r.undated).toEqual(['water']);
@@ -89,7 +89,7 @@ describe('costFormula', () => {
 
   it('costs an ingredient the catalog does not list as missing, not free', () => {
     const f = makeFormula({ 'bread flour': 100 }, { water: 65, 'sea lettuce': 2 });
-    const r = costFormula(f, catalog, { by: 'flour', grams: 1000 });
+    const r = computeCost(scaleFormula(f, catalog, { by: 'flour', grams: 1000 }), catalog);
     expect(r.missing).toEqual(['sea lettuce']);
     expect(r.complete).toBe(false);
   });

@@ -174,7 +174,9 @@ async function benchSheet(opts, work) {
   const target = '≤ 2.50×';
   try {
     const plan = writeBigPlan(join(work, 'sheet'), 40);
-    const r = compareWithNodeStart(['sheet', plan, '--format', 'json'], opts.runs, (out) => {
+    // --allow-late: a few focaccia orders of this plan come out after their due time; the sheet is
+    // worked out the same either way.
+    const r = compareWithNodeStart(['sheet', plan, '--format', 'json', '--allow-late'], opts.runs, (out) => {
       const data = JSON.parse(out);
       if (!Array.isArray(data.mixes) || data.mixes.length === 0) throw new Error('sheet --format json printed no mixes');
     });

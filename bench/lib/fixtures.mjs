@@ -30,7 +30,7 @@ export function copyDemo(dir, { plans = false, formulas = true } = {}) {
 
 /**
  * A copy of the demo bakery with `plans/2026-12-10.yaml`: `orders` orders over the active demo
- * formulas, on mixers big enough that no order is refused. Returns the plan's path.
+ * formulas, on mixers and ovens big enough that no order is refused. Returns the plan's path.
  */
 export function writeBigPlan(dir, orders = 40) {
   copyDemo(dir, { plans: true });
@@ -49,6 +49,10 @@ export function writeBigPlan(dir, orders = 40) {
     mixers: [
       { name: 'spiral', capacity: '60 kg', friction: '13 °C' },
       { name: 'small spiral', capacity: '25 kg', friction: '10 °C' },
+    ],
+    ovens: [
+      { name: 'deck oven', decks: 6, slots: 8, heat: '4 °C/min', cool: '2 °C/min', steam: true, fan: false },
+      { name: 'rack oven', decks: 1, slots: 16, heat: '6 °C/min', cool: '3 °C/min', steam: true, fan: true },
     ],
     orders: list,
     notes: 'Bench plan: forty orders for the timing of panform sheet.',

@@ -4,11 +4,12 @@ import { ExitError } from './errors.ts';
 import { fitText, outputWidth, reflowParagraphs } from './print/width.ts';
 import { formatFinding } from '#shared/findings';
 import type { CommandTable } from './command-table.ts';
+import packageJson from '../package.json' with { type: 'json' };
 
 export async function buildProgram(only: string | undefined, table: CommandTable): Promise<Command> {
   const program = new Command('panform')
     .description("Dough formulas in baker's percent: check, scale, convert, compare and print batch sheets.")
-    .version('0.1.0')
+    .version(packageJson.version)
     .showSuggestionAfterError(true)
     .configureOutput({ outputError: (str, write) => write(str) })
     .exitOverride();

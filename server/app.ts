@@ -4,7 +4,7 @@ import { existsSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import helmet from 'helmet';
-import express, { Router, type Express, type NextFunction, type Request, type Response } from 'express';
+import express, { Router, type Express, type NextFunction, type Request, type RequestHandler, type Response } from 'express';
 import { csrfProtection } from './auth/csrf.ts';
 import { DEFAULT_SCRYPT, hashPassword, randomPassword, type ScryptParams } from './auth/password.ts';
 import { createLimiters, DEFAULT_LIMITS, type Clock, type Limiters, type SignInLimits } from './auth/rate-limit.ts';
@@ -76,6 +76,74 @@ export function appInternals(app: Express): AppInternals {
   return internals;
 }
 
+/**
+ * Security headers on every response. The CSP allows exactly what the built viewer loads: its
+ * own scripts, styles and fonts (bundled, no CDN), images including data: URLs (inline SVG
+ * icons), fetches to this origin, and PDFs of this origin in a frame for print preview. Inline
+ * styles are allowed because React sets style attributes; inline scripts are not.
+ */
+function securityHeaders(publicUrl: string): RequestHandler {
+  const https = publicUrl.startsWith('https:');
+  return helmet({
+    contentSecurityPolicy: {
+      useDefaults: false,
+      directives: {
+        defaultSrc: ["'self'"],
+        baseUri: ["'self'"],
+        scriptSrc: ["'self'"],
+        styleSrc: ["'self'", "'unsafe-inline'"],
+        fontSrc: ["'self'", 'data:'],
+        imgSrc: ["'self'", 'data:', 'blob:'],
+        connectSrc: ["'self'"],
+        frameSrc: ["'self'", 'blob:'],
+        objectSrc: ["'none'"],
+        formAction: ["'self'"],
+        frameAncestors: ["'self'"],
+        // Only over HTTPS: on a plain-HTTP bakery network this would break every request.
+        ...(https ? { upgradeInsecureRequests: [] } : {}),
+      },
+    },
+    // HSTS makes sense only when the viewer is published over HTTPS.
+    strictTransportSecurity: https ? { maxAge: 180 * 24 * 60 * 60 } : false,
+    referrerPolicy: { policy: 'same-origin' },
+  });
+}
+
+/** The built viewer: its hashed assets, and index.html for every other GET (a page of the viewer). */
+function viewerRoutes(app: Express, webDir: string | null): void {
+  if (webDir) {
+    // Vite names built assets by content hash: they never change, so browsers keep them a year.
+    app.use(
+      express.static(webDir, {
+        index: false,
+        setHeaders(res, path) {
+          res.setHeader('Cache-Control', /[\\/]assets[\\/]/.test(path) ? 'public, max-age=31536000, immutable' : 'public, max-age=3600');
+        },
+      }),
+    );
+  }
+  // Every other GET is a page of the single-page viewer: its index.html, the same for everyone,
+  // never cached, so a new build is picked up at once.
+  app.use((req: Request, res: Response, next: NextFunction) => {
+    if (req.method !== 'GET' && req.method !== 'HEAD') {
+      next();
+      return;
+    }
+    if (!webDir) {
+      res.status(503).type('text/plain').send('The Panform viewer is not built. Run `npm run build`, then start the server again.\n');
+      return;
+    }
+    // A target no browser sends ("//[" reads as a host) is the client's mistake: 400, not a stack.
+    if (!URL.canParse(req.originalUrl, 'http://panform.local')) {
+      res.status(400).type('text/plain').send('That address is not a page of Panform.\n');
+      return;
+    }
+    res.sendFile(join(webDir, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } }, (err) => {
+      if (err) next(err);
+    });
+  });
+}
+
 export function createApp(opts: AppOptions): Express {
   const { handle, env } = opts;
   const now = opts.now ?? Date.now;
@@ -124,36 +192,7 @@ export function createApp(opts: AppOptions): Express {
   app.set('trust proxy', env.trustProxy);
   app.set('etag', 'weak');
 
-  const https = env.publicUrl.startsWith('https:');
-  // Security headers on every response. The CSP allows exactly what the built viewer loads: its
-  // own scripts, styles and fonts (bundled, no CDN), images including data: URLs (inline SVG
-  // icons), fetches to this origin, and PDFs of this origin in a frame for print preview.
-  // Inline styles are allowed because React sets style attributes; inline scripts are not.
-  app.use(
-    helmet({
-      contentSecurityPolicy: {
-        useDefaults: false,
-        directives: {
-          defaultSrc: ["'self'"],
-          baseUri: ["'self'"],
-          scriptSrc: ["'self'"],
-          styleSrc: ["'self'", "'unsafe-inline'"],
-          fontSrc: ["'self'", 'data:'],
-          imgSrc: ["'self'", 'data:', 'blob:'],
-          connectSrc: ["'self'"],
-          frameSrc: ["'self'", 'blob:'],
-          objectSrc: ["'none'"],
-          formAction: ["'self'"],
-          frameAncestors: ["'self'"],
-          // Only over HTTPS: on a plain-HTTP bakery network this would break every request.
-          ...(https ? { upgradeInsecureRequests: [] } : {}),
-        },
-      },
-      // HSTS makes sense only when the viewer is published over HTTPS.
-      strictTransportSecurity: https ? { maxAge: 180 * 24 * 60 * 60 } : false,
-      referrerPolicy: { policy: 'same-origin' },
-    }),
-  );
+  app.use(securityHeaders(env.publicUrl));
 
   // The local load channel authenticates with its own token header (a custom header forces a
   // CORS preflight, so browsers cannot forge it) and takes larger bodies: mounted before the
@@ -201,38 +240,7 @@ export function createApp(opts: AppOptions): Express {
     },
   );
 
-  const webDir = opts.webDir === undefined ? findWebDir() : opts.webDir;
-  if (webDir) {
-    // Vite names built assets by content hash: they never change, so browsers keep them a year.
-    app.use(
-      express.static(webDir, {
-        index: false,
-        setHeaders(res, path) {
-          res.setHeader('Cache-Control', /[\\/]assets[\\/]/.test(path) ? 'public, max-age=31536000, immutable' : 'public, max-age=3600');
-        },
-      }),
-    );
-  }
-  // Every other GET is a page of the single-page viewer: its index.html, the same for everyone,
-  // never cached, so a new build is picked up at once.
-  app.use((req: Request, res: Response, next: NextFunction) => {
-    if (req.method !== 'GET' && req.method !== 'HEAD') {
-      next();
-      return;
-    }
-    if (!webDir) {
-      res.status(503).type('text/plain').send('The Panform viewer is not built. Run `npm run build`, then start the server again.\n');
-      return;
-    }
-    // A target no browser sends ("//[" reads as a host) is the client's mistake: 400, not a stack.
-    if (!URL.canParse(req.originalUrl, 'http://panform.local')) {
-      res.status(400).type('text/plain').send('That address is not a page of Panform.\n');
-      return;
-    }
-    res.sendFile(join(webDir, 'index.html'), { headers: { 'Cache-Control': 'no-cache' } }, (err) => {
-      if (err) next(err);
-    });
-  });
+  viewerRoutes(app, opts.webDir === undefined ? findWebDir() : opts.webDir);
   app.use(errorMiddleware(log));
 
   // Messages left by a server that stopped, and retries, are picked up now and then.

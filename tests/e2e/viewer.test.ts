@@ -291,9 +291,15 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
       expect(await weightIn(page, 'overall', 'bread flour')).toBe(CIABATTA.sixtyFlour);
 
       await page.getByRole('radio', { name: 'Dough weight' }).click();
-      await page.getByLabel('Mixed dough').fill('25');
+      await page.getByLabel('Mixed dough').fill('25 kg');
       await page.waitForURL(/mix=25000/);
       await waitForWeight(page, 'overall', 'fine salt', CIABATTA.mix25Salt);
+      // A bare number is grams, as on the command line, and the field says how it read it.
+      await page.getByLabel('Mixed dough').fill('25000');
+      await page.getByText('Read as 25.0 kg.').waitFor();
+      expect(page.url()).toMatch(/mix=25000/);
+      await page.getByLabel('Mixed dough').fill('25 kilos');
+      await page.getByText(/^The dough weight: not a weight/).waitFor();
       await screenshot(page, 'formula-scaled-by-dough', { width: 1280, height: 800 });
     }));
 

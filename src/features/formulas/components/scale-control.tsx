@@ -1,6 +1,8 @@
 import { useEffect, useState } from 'react';
 import type { Formula } from '#shared/model';
 import type { ScaleTarget } from '#shared/scale';
+import { BatchError, parseBatch } from '#shared/batch';
+import { fromGrams } from '#shared/units';
 import { readNumber, TextField } from '../../../components/field.tsx';
 import { Segmented } from '../../../components/segmented.tsx';
 import { useUnits } from '../../../lib/units.ts';
@@ -28,36 +30,42 @@ export function ScaleControl({
   mixedDough: number;
   onChange: (t: ScaleTarget) => void;
 }) {
-  const { pieceWeight } = useUnits();
+  const { pieceWeight, weight, system } = useUnits();
+  // Weights are typed with their unit ("25 kg", "320 g", "2 lb"); a bare number is grams, as on
+  // the command line (shared/batch.ts reads both), and the hint says how the text was read.
+  const pieceText = (g: number) => (system === 'us' ? `${trim(fromGrams(g, 'oz'))} oz` : `${trim(g)} g`);
+  const mixText = (g: number) => (system === 'us' ? `${trim(fromGrams(g, 'lb'))} lb` : `${trim(g / 1000)} kg`);
   const mode: Mode = target.by === 'mix' ? 'mix' : 'pieces';
   const piecesNow = target.by === 'pieces' ? target.pieces : formula.yield.pieces;
   const pieceNow = target.by === 'pieces' ? (target.pieceGrams ?? formula.yield.pieceGrams) : formula.yield.pieceGrams;
   const mixNow = target.by === 'mix' ? target.grams : null;
 
   const [pieces, setPieces] = useState(String(piecesNow));
-  const [piece, setPiece] = useState(trim(pieceNow));
-  const [mixKg, setMixKg] = useState(mixNow === null ? '' : trim(mixNow / 1000));
+  const [piece, setPiece] = useState(pieceText(pieceNow));
+  const [mixKg, setMixKg] = useState(mixNow === null ? '' : mixText(mixNow));
 
   // Follow the URL when it changes from outside (back button, reset).
   useEffect(() => setPieces(String(piecesNow)), [piecesNow]);
-  useEffect(() => setPiece(trim(pieceNow)), [pieceNow]);
+  useEffect(() => setPiece((typed) => (readWeight('piece', typed).grams === pieceNow ? typed : pieceText(pieceNow))), [pieceNow, system]);
   useEffect(() => {
-    if (mixNow !== null) setMixKg(trim(mixNow / 1000));
-  }, [mixNow]);
+    if (mixNow !== null) setMixKg((typed) => (readWeight('mix', typed).grams === mixNow ? typed : mixText(mixNow)));
+  }, [mixNow, system]);
 
   const piecesValue = readNumber(pieces);
-  const pieceValue = readNumber(piece);
-  const mixValue = readNumber(mixKg);
+  const pieceRead = readWeight('piece', piece);
+  const mixRead = readWeight('mix', mixKg);
+  const pieceValue = pieceRead.grams;
+  const mixValue = mixRead.grams;
   const piecesError = piecesValue === null || !Number.isInteger(piecesValue) || piecesValue < 1 ? 'A whole number, 1 or more.' : undefined;
-  const pieceError = pieceValue === null || pieceValue <= 0 ? 'A weight above 0 g.' : undefined;
-  const mixError = mixValue === null || mixValue <= 0 ? 'A weight above 0 kg.' : undefined;
+  const pieceError = pieceRead.error;
+  const mixError = mixRead.error;
 
   const setMode = (m: Mode) => {
     if (m === mode) return;
     if (m === 'pieces') onChange({ by: 'pieces', pieces: piecesValue && !piecesError ? piecesValue : formula.yield.pieces, pieceGrams: pieceValue && !pieceError ? pieceValue : formula.yield.pieceGrams });
     else {
       const kg = Math.round(mixedDough / 100) / 10;
-      setMixKg(trim(kg));
+      setMixKg(mixText(kg * 1000));
       onChange({ by: 'mix', grams: kg * 1000 });
     }
   };
@@ -98,14 +106,13 @@ export function ScaleControl({
           <TextField
             label="Piece weight"
             name="piece"
-            inputMode="decimal"
-            suffix="g"
             value={piece}
             error={pieceError}
+            hint={pieceValue !== null ? `read as ${pieceWeight(pieceValue)}` : undefined}
             onChange={(e) => {
               setPiece(e.target.value);
-              const n = readNumber(e.target.value);
-              if (n !== null && n > 0) onChange({ by: 'pieces', pieces: piecesValue && !piecesError ? piecesValue : piecesNow, pieceGrams: n });
+              const n = readWeight('piece', e.target.value).grams;
+              if (n !== null) onChange({ by: 'pieces', pieces: piecesValue && !piecesError ? piecesValue : piecesNow, pieceGrams: n });
             }}
           />
         </div>
@@ -113,15 +120,13 @@ export function ScaleControl({
         <TextField
           label="Mixed dough"
           name="mix"
-          inputMode="decimal"
-          suffix="kg"
           value={mixKg}
           error={mixError}
-          hint="The whole dough out of the mixer; no loss allowance is added."
+          hint={`${mixValue !== null ? `Read as ${weight(mixValue)}. ` : ''}The whole dough out of the mixer, e.g. "25 kg" or "25000 g"; no loss allowance is added.`}
           onChange={(e) => {
             setMixKg(e.target.value);
-            const n = readNumber(e.target.value);
-            if (n !== null && n > 0) onChange({ by: 'mix', grams: n * 1000 });
+            const n = readWeight('mix', e.target.value).grams;
+            if (n !== null) onChange({ by: 'mix', grams: n });
           }}
         />
       )}
@@ -136,6 +141,18 @@ export function ScaleControl({
       )}
     </fieldset>
   );
+}
+
+/** A typed weight through the one batch reader (shared/batch.ts): its grams, or why not. */
+function readWeight(field: 'piece' | 'mix', text: string): { grams: number | null; error?: string } {
+  try {
+    const t = parseBatch(field === 'mix' ? { mix: text } : { pieces: '1', piece: text }, () => (field === 'mix' ? 'the dough weight' : 'the piece weight'));
+    const grams = t?.by === 'mix' ? t.grams : t?.by === 'pieces' ? (t.pieceGrams ?? null) : null;
+    return grams === null ? { grams: null, error: 'A weight, e.g. "25 kg", "320 g" or "2 lb".' } : { grams };
+  } catch (e) {
+    if (e instanceof BatchError) return { grams: null, error: `${e.message[0].toUpperCase()}${e.message.slice(1)}${e.hint ? ` (${e.hint})` : ''}.` };
+    throw e;
+  }
 }
 
 function trim(n: number): string {

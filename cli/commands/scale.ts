@@ -6,14 +6,15 @@ import { AllergenError } from '#shared/allergens';
 import { formulaCautions, type Caution } from '#shared/cautions';
 import type { Catalog, Formula } from '#shared/model';
 import { ScaleError, scaleFormula, type ScaleResult, type ScaleTarget } from '#shared/scale';
-import { planMixWater, type MixWater } from '#shared/dough-water';
+import { planMixWater } from '#shared/dough-water';
 import {
   DEFAULT_RESOLUTION, parseResolution, parseTemperatureArgument, parseTemperatureDeltaArgument, QuantityError,
-  type Resolution, type TemperatureUnit, type UnitSystem,
+  type TemperatureUnit, type UnitSystem,
 } from '#shared/units';
 import { InputError, UsageError } from '../errors.ts';
 import { fitText } from '../print/width.ts';
 import { readFormulaWithCatalog } from '../files.ts';
+import type { Conditions, ScaleData, ScaleOptions, WaterSection } from '../print/scale.ts';
 import { parseTargetFlags } from '../target-flags.ts';
 
 interface RawOptions {
@@ -36,39 +37,7 @@ interface RawOptions {
   fahrenheit?: boolean;
 }
 
-interface Conditions {
-  /** All °C; the rise in °C-degrees. */
-  ddt?: number;
-  room: number;
-  flour: number;
-  /** The mixer's rise: --rise, or --friction (a straight-dough friction factor) ÷ 3. */
-  rise: number;
-  tap?: number;
-  /** Measured tonight. */
-  preferments: number[];
-}
-
-export interface ScaleOptions {
-  target: ScaleTarget | null;
-  units: UnitSystem;
-  output: 'table' | 'json' | 'csv';
-  catalog?: string;
-  resolution: Resolution;
-  temperatureUnit: TemperatureUnit;
-  conditions: Conditions | null;
-}
-
-export interface WaterSection extends MixWater {
-  tap: number | null;
-}
-
-export interface ScaleData {
-  result: ScaleResult;
-  formula: Formula;
-  water: WaterSection | null;
-  /** The usual cautions for the work (shared/cautions.ts); ice only when the water takes some. */
-  cautions: Caution[];
-}
+export type { Conditions, ScaleData, ScaleOptions, WaterSection } from '../print/scale.ts';
 
 function usage(flag: string, e: unknown): never {
   if (e instanceof QuantityError) throw new UsageError(`${flag}: ${e.message}`, `expected ${e.expected}`);

@@ -9,6 +9,7 @@ import {
 } from '#shared/units';
 import { InputError, UsageError } from '../errors.ts';
 import { fitText } from '../print/width.ts';
+import type { TempData } from '../print/temp.ts';
 
 interface RawOptions {
   ddt?: string;
@@ -104,33 +105,7 @@ export function toTempOptions(o: RawOptions): TempOptions {
   };
 }
 
-export interface TempData {
-  /** The scale the temperatures below are in. */
-  unit: TemperatureUnit;
-  mode: 'water' | 'friction';
-  factors: number;
-  desiredDoughTemperature: number | null;
-  room: number;
-  flour: number;
-  preferments: number[];
-  /** The mixer's rise, a difference in the unit's degrees. */
-  rise: number;
-  /** n × rise: the friction factor of this sum, in the unit's degrees. */
-  friction: number;
-  /** 3 × rise: the same mixer's friction factor on a straight dough. */
-  straightDoughFriction: number;
-  waterTemperature: number;
-  measured: number | null;
-  tap: number | null;
-  /** g */
-  water: number | null;
-  /** g */
-  ice: number | null;
-  /** g */
-  tapWater: number | null;
-  iceShare: number | null;
-  warnings: string[];
-}
+export type { TempData } from '../print/temp.ts';
 
 export function collectTemp(o: TempOptions): TempData {
   const out = (c: number) => (o.unit === 'C' ? c : celsiusToFahrenheit(c));

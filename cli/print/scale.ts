@@ -1,10 +1,49 @@
 // Printing a scaled formula: one terminal table per section, or CSV rows. Display rounding only.
-import type { ScaleData, ScaleOptions } from '../commands/scale.ts';
+import type { Caution } from '#shared/cautions';
+import type { MixWater } from '#shared/dough-water';
+import type { Formula } from '#shared/model';
+import type { ScaleResult, ScaleTarget } from '#shared/scale';
+import type { Resolution, TemperatureUnit, UnitSystem } from '#shared/units';
 import { renderCsv } from './csv.ts';
 import { percent, temperature, temperatureDelta, weight, type PrintUnits } from './format.ts';
 import { renderFacts, renderTable } from './table.ts';
 import { FRICTION_CONVENTION } from '#shared/dough-water';
 import { formatTemperatureRange } from '#shared/units';
+
+// What `panform scale` collects (cli/commands/scale.ts) and prints here.
+export interface Conditions {
+  /** All °C; the rise in °C-degrees. */
+  ddt?: number;
+  room: number;
+  flour: number;
+  /** The mixer's rise: --rise, or --friction (a straight-dough friction factor) ÷ 3. */
+  rise: number;
+  tap?: number;
+  /** Measured tonight. */
+  preferments: number[];
+}
+
+export interface ScaleOptions {
+  target: ScaleTarget | null;
+  units: UnitSystem;
+  output: 'table' | 'json' | 'csv';
+  catalog?: string;
+  resolution: Resolution;
+  temperatureUnit: TemperatureUnit;
+  conditions: Conditions | null;
+}
+
+export interface WaterSection extends MixWater {
+  tap: number | null;
+}
+
+export interface ScaleData {
+  result: ScaleResult;
+  formula: Formula;
+  water: WaterSection | null;
+  /** The usual cautions for the work (shared/cautions.ts); ice only when the water takes some. */
+  cautions: Caution[];
+}
 
 function describeTarget(data: ScaleData, u: PrintUnits): string {
   const r = data.result;

@@ -1,7 +1,36 @@
 // Printing `panform temp`: the inputs and the result as one small table, cautions below it.
-import type { TempData } from '../commands/temp.ts';
+import type { TemperatureUnit } from '#shared/units';
 import { renderFacts } from './table.ts';
 import { formatGrams } from '#shared/units';
+
+/** What `panform temp` collects (cli/commands/temp.ts) and prints here. */
+export interface TempData {
+  /** The scale the temperatures below are in. */
+  unit: TemperatureUnit;
+  mode: 'water' | 'friction';
+  factors: number;
+  desiredDoughTemperature: number | null;
+  room: number;
+  flour: number;
+  preferments: number[];
+  /** The mixer's rise, a difference in the unit's degrees. */
+  rise: number;
+  /** n × rise: the friction factor of this sum, in the unit's degrees. */
+  friction: number;
+  /** 3 × rise: the same mixer's friction factor on a straight dough. */
+  straightDoughFriction: number;
+  waterTemperature: number;
+  measured: number | null;
+  tap: number | null;
+  /** g */
+  water: number | null;
+  /** g */
+  ice: number | null;
+  /** g */
+  tapWater: number | null;
+  iceShare: number | null;
+  warnings: string[];
+}
 
 export function tempText(d: TempData): string {
   const t = (v: number) => `${v.toFixed(1)} °${d.unit}`;

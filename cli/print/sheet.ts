@@ -14,18 +14,21 @@ export function renderSheetText(p: PresentedSheet, width: number = DEFAULT_WIDTH
     for (const b of section.blocks) {
       if (b.title) out.push(b.title);
       for (const l of b.lines) out.push(section.key === 'cautions' || section.key === 'warnings' ? `- ${l}` : `  ${l}`);
-      if (b.table) {
-        const tk = b.table.tick.some(Boolean);
+      for (const l of b.big ?? []) out.push(`  >> ${l.toUpperCase()}`);
+      for (const t of [b.table, b.steps]) {
+        if (!t) continue;
+        const tk = t.tick.some(Boolean);
         out.push(
           boxTable(
-            tk ? [...b.table.head, ''] : b.table.head,
-            b.table.rows.map((r, i) => (tk ? [...r, b.table!.tick[i] ? '[ ]' : ''] : r).map((cell) => wrap(cell, WRAP))),
-            tk ? [...b.table.align, 'left'] : b.table.align,
-            b.table.footer ? (tk ? [...b.table.footer, ''] : b.table.footer) : undefined,
+            tk ? [...t.head, ''] : t.head,
+            t.rows.map((r, i) => (tk ? [...r, t.tick[i] ? '[ ]' : ''] : r).map((cell) => wrap(cell, WRAP))),
+            tk ? [...t.align, 'left'] : t.align,
+            t.footer ? (tk ? [...t.footer, ''] : t.footer) : undefined,
             width,
           ),
         );
       }
+      if (b.blanks) out.push(`  ${b.blanks.join('   ')}`);
       out.push('');
     }
   }

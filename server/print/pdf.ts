@@ -7,7 +7,7 @@
 // Panform's faces (server/print/fonts.ts) are read from the installed packages unless passed in.
 import PDFDocument from 'pdfkit';
 import { chartModel, colourOf, legendOf, productionRange, type ChartModel } from '#shared/sheet/chart';
-import { presentSheet, type SheetSection, type SheetTable } from '#shared/sheet/present';
+import { presentSheet, type SheetBlock, type SheetSection, type SheetTable } from '#shared/sheet/present';
 import type { Sheet } from '#shared/sheet/types';
 import { PRINT_FACES, readPrintFonts, type PrintFace } from './fonts.ts';
 
@@ -36,8 +36,8 @@ function clean(s: string): string {
 
 class Writer {
   y: number;
-  readonly left = MARGIN.left;
-  readonly width: number;
+  left = MARGIN.left;
+  width: number;
   readonly bottom: number;
 
   constructor(readonly doc: Doc) {
@@ -195,8 +195,8 @@ function box(w: Writer, section: SheetSection | undefined, dashed: boolean): voi
   if (!section) return;
   const lines = section.blocks.flatMap((b) => b.lines);
   const inner = w.width - 24;
-  const heights = lines.map((l) => w.heightOf(`• ${l}`, 9.5, inner));
-  const h = 26 + heights.reduce((a, b) => a + b + 3, 0) + 6;
+  const heights = lines.map((l) => w.heightOf(`• ${l}`, 8.5, inner));
+  const h = 24 + heights.reduce((a, b) => a + b + 2, 0) + 6;
   w.ensure(h);
   const top = w.y;
   w.doc.roundedRect(w.left, top, w.width, h, 5).lineWidth(1.6);
@@ -206,14 +206,14 @@ function box(w: Writer, section: SheetSection | undefined, dashed: boolean): voi
   w.text(section.title, w.left + 12, top + 8, { size: 12, face: 'heading' });
   let y = top + 26;
   lines.forEach((l, i) => {
-    w.text(`• ${l}`, w.left + 12, y, { size: 9.5, width: inner });
-    y += heights[i] + 3;
+    w.text(`• ${l}`, w.left + 12, y, { size: 8.5, width: inner });
+    y += heights[i] + 2;
   });
   w.y = top + h + 8;
 }
 
 function chart(w: Writer, m: ChartModel): void {
-  const rowH = 11;
+  const rowH = 9.5;
   const labelW = 150;
   const top = 24;
   const h = top + m.rows.length * rowH + 26;
@@ -290,6 +290,88 @@ function chart(w: Writer, m: ChartModel): void {
   if (m.clipped) w.paragraph('Cooling after the last bake runs past the right edge.', 7, { colour: MUTED });
 }
 
+const WEIGH_STYLE: TableStyle = { size: 10, weightSize: 11.5, pad: 2.5, minWidths: [150, 70] };
+const STEP_STYLE: TableStyle = { size: 7.5, weightSize: 7.5, pad: 1.8, wrapColumn: 2, minWidths: [0, 40] };
+const WEIGH_W = 250;
+const GAP = 12;
+
+/** A mix's card: its facts, the water in large type, the weights beside its own steps, the blanks. */
+function card(w: Writer, b: SheetBlock): void {
+  const head = 18 + b.lines.reduce((a, l) => a + w.heightOf(l, 8.5, w.width - 8) + 1, 0) + (b.big?.length ? 22 : 0);
+  const weighH = ((b.table?.rows.length ?? 0) + 2) * (WEIGH_STYLE.weightSize * 1.2 + 2 * WEIGH_STYLE.pad);
+  const stepsW = w.width - WEIGH_W - GAP;
+  const stepsH = (b.steps?.rows ?? []).reduce(
+    (a, r) => a + Math.max(STEP_STYLE.size * 1.2, w.heightOf(r[2], STEP_STYLE.size, stepsW - 140)) + 2 * STEP_STYLE.pad,
+    STEP_STYLE.size * 1.2 + 2 * STEP_STYLE.pad,
+  );
+  const height = head + Math.max(weighH, stepsH) + 34;
+  w.ensure(height);
+  const top = w.y;
+  const page = w.doc.bufferedPageRange().count;
+  if (b.title) w.paragraph(b.title, 12.5, { face: 'heading', gap: 1 });
+  for (const l of b.lines) w.paragraph(l, 8.5, { indent: 8, colour: MUTED });
+  if (b.big && b.big.length > 0) {
+    w.text(b.big.join('     '), w.left + 8, w.y + 2, { size: 15, face: 'text-bold', width: w.width - 8 });
+    w.y += 22;
+  }
+  const fits = w.y + Math.max(weighH, stepsH) + 30 <= w.bottom;
+  const start = w.y;
+  if (fits && b.steps) {
+    // Side by side: weights on the left, the steps on the right.
+    const [left, width] = [w.left, w.width];
+    w.width = WEIGH_W;
+    if (b.table) drawTable(w, b.table, WEIGH_STYLE);
+    const weighEnd = w.y;
+    w.y = start;
+    w.left = left + WEIGH_W + GAP;
+    w.width = stepsW;
+    drawTable(w, b.steps, STEP_STYLE);
+    w.left = left;
+    w.width = width;
+    w.y = Math.max(w.y, weighEnd);
+  } else {
+    if (b.table) drawTable(w, b.table, { ...WEIGH_STYLE, maxWidth: 380 });
+    w.y += 4;
+    if (b.steps) drawTable(w, b.steps, STEP_STYLE);
+  }
+  if (b.blanks) {
+    w.ensure(22);
+    w.y += 9;
+    w.text(b.blanks.join('        '), w.left + 8, w.y, { size: 10, width: w.width - 8 });
+    w.y += 14;
+  }
+  // The card's frame, when it stayed on one page.
+  if (w.doc.bufferedPageRange().count === page) w.doc.roundedRect(w.left - 6, top - 5, w.width + 12, w.y - top + 4, 4).lineWidth(0.8).strokeColor(INK).stroke();
+  w.y += 12;
+}
+
+const BUILD_STYLE: TableStyle = { size: 9.5, weightSize: 11, pad: 2.2, minWidths: [140, 66] };
+
+function buildHeight(w: Writer, b: SheetBlock, width: number): number {
+  const lines = b.lines.reduce((a, l) => a + w.heightOf(l, 8.5, width - 8) + 1, 0);
+  return 18 + lines + ((b.table?.rows.length ?? 0) + 2) * (BUILD_STYLE.weightSize * 1.2 + 2 * BUILD_STYLE.pad) + 6;
+}
+
+/** Up to two blocks (builds) side by side, each in half the width. */
+function columns(w: Writer, blocks: SheetBlock[]): void {
+  const half = (w.width - GAP) / 2;
+  w.ensure(Math.max(...blocks.map((b) => buildHeight(w, b, half))));
+  const [left, width, start] = [w.left, w.width, w.y];
+  let end = start;
+  blocks.forEach((b, i) => {
+    w.left = left + i * (half + GAP);
+    w.width = half;
+    w.y = start;
+    if (b.title) w.paragraph(b.title, 12, { face: 'heading', gap: 1 });
+    for (const l of b.lines) w.paragraph(l, 8.5, { indent: 6, colour: MUTED });
+    if (b.table) drawTable(w, b.table, BUILD_STYLE);
+    end = Math.max(end, w.y);
+  });
+  w.left = left;
+  w.width = width;
+  w.y = end + 12;
+}
+
 export async function renderSheetPdf(sheet: Sheet, options: PdfOptions = {}): Promise<Buffer> {
   const fonts = options.fonts ?? readPrintFonts();
   const p = presentSheet(sheet);
@@ -315,12 +397,12 @@ export async function renderSheetPdf(sheet: Sheet, options: PdfOptions = {}): Pr
   box(w, p.sections.find((s) => s.key === 'cautions'), false);
   box(w, p.sections.find((s) => s.key === 'warnings'), true);
   const model = chartModel(sheet);
-  sectionTitle(w, 'Timeline chart', 24 + model.rows.length * 11 + 42);
+  sectionTitle(w, 'Timeline chart', 24 + model.rows.length * 9.5 + 42);
   chart(w, model);
   const morning = productionRange(sheet);
   if (morning) {
     const zoom = chartModel(sheet, morning);
-    w.ensure(40 + zoom.rows.length * 11 + 42);
+    w.ensure(40 + zoom.rows.length * 9.5 + 42);
     w.y += 6;
     w.paragraph('The production morning, closer', 12, { face: 'heading', gap: 2 });
     chart(w, zoom);
@@ -328,25 +410,31 @@ export async function renderSheetPdf(sheet: Sheet, options: PdfOptions = {}): Pr
 
   for (const s of p.sections) {
     if (s.key === 'cautions' || s.key === 'warnings') continue;
-    if (s.key === 'timeline') w.newPage();
     sectionTitle(w, s.title);
+    if (s.key === 'preferments' || s.key === 'soakers') {
+      // Builds two by two, side by side.
+      for (let i = 0; i < s.blocks.length; i += 2) columns(w, s.blocks.slice(i, i + 2));
+      continue;
+    }
     for (const b of s.blocks) {
+      if (s.key === 'mixes') {
+        card(w, b);
+        continue;
+      }
       const style: TableStyle =
-        s.key === 'timeline'
-          ? { size: 7.5, weightSize: 7.5, pad: 2, wrapColumn: 4 }
-          : s.key === 'formulas'
-            ? { size: 9, weightSize: 9, pad: 3 }
-            : { size: 10.5, weightSize: 12, pad: 3.5, maxWidth: 380, minWidths: s.key === 'totals' ? [190, 90, 100] : [230, 100] };
+        s.key === 'formulas'
+          ? { size: 9, weightSize: 9, pad: 3 }
+          : { size: 10, weightSize: 11.5, pad: 2.5, maxWidth: 380, minWidths: s.key === 'totals' ? [190, 90, 100] : [230, 100] };
       if (b.title || b.lines.length > 0) {
         // Keep a block's title with the start of its table.
-        const head = (b.title ? 16 : 0) + b.lines.reduce((a, l) => a + w.heightOf(l, 9.5, w.width - 8) + 1, 0);
+        const head = (b.title ? 16 : 0) + b.lines.reduce((a, l) => a + w.heightOf(l, 9, w.width - 8) + 1, 0);
         const rows = b.table ? Math.min(b.table.rows.length, 14) + 2 : 0;
         w.ensure(head + rows * (style.weightSize * 1.2 + 2 * style.pad) + 8);
         if (b.title) w.paragraph(b.title, 12.5, { face: 'heading', gap: 2 });
-        for (const l of b.lines) w.paragraph(l, 9.5, { indent: 8 });
+        for (const l of b.lines) w.paragraph(l, 9, { indent: 8 });
       }
       if (b.table) drawTable(w, b.table, style);
-      w.y += 12;
+      w.y += 10;
     }
   }
 

@@ -324,6 +324,8 @@ function timelineOf(
     if (step.temperature !== undefined) e.temperature = step.temperature;
     if (step.step === 'retard') e.cold = true;
     if (step.steam || (step.step === 'bake' && /steam/i.test(step.note ?? ''))) e.steam = true;
+    if (step.vessel) e.vessel = step.vessel;
+    if (step.covered !== undefined) e.covered = step.covered;
     if (step.note) e.note = step.note;
     if (step.folds) e.folds = Array.from({ length: step.folds.count }, (_, k) => at(from + step.folds!.every * (k + 1)));
     entries.push(Object.assign(e, extra));

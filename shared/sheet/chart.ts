@@ -63,7 +63,7 @@ export const PALETTE: PaletteEntry[] = [
   { group: 'build', colour: '#eef3e6', label: 'build or soak (window)', ink: '#2b1e15' },
   { group: 'mix', colour: '#4a2412', label: 'mix, autolyse', ink: '#fffaf2' },
   { group: 'rise', colour: '#e0a93a', label: 'bulk fermentation, bench rest', ink: '#2b1e15' },
-  { group: 'bench', colour: '#6a8c3a', label: 'divide, shape', ink: '#fffaf2' },
+  { group: 'bench', colour: '#6a8c3a', label: 'divide, preshape, shape', ink: '#fffaf2' },
   { group: 'proof', colour: '#c78a5a', label: 'proof', ink: '#2b1e15' },
   { group: 'cold', colour: '#1c5fb8', label: 'retard', ink: '#fffaf2' },
   { group: 'bake', colour: '#8e2a14', label: 'bake', ink: '#fffaf2' },

@@ -56,9 +56,15 @@ table.weigh td.r { font-size: 14pt; font-weight: 700; white-space: nowrap; }
 tfoot td { border-top: 0.4mm solid var(--ink); border-bottom: none; font-weight: 700; }
 td.tick { width: 9mm; padding-left: 1mm; }
 .tick span { display: inline-block; width: 5.5mm; height: 5.5mm; border: 0.45mm solid var(--ink); border-radius: 0.6mm; vertical-align: middle; }
-table.timeline { font-size: 9.5pt; width: 100%; }
-table.timeline td { padding: 0.6mm 1.5mm; }
-table.timeline td.time { white-space: nowrap; }
+table.steps { font-size: 9.5pt; width: 100%; margin-top: 2mm; }
+table.steps td { padding: 0.6mm 1.5mm; }
+table.steps td.time { white-space: nowrap; }
+section.mixes .block { border: 0.5mm solid var(--ink); border-radius: 2mm; padding: 2.5mm 3.5mm; }
+section.mixes .grid { display: block; }
+section.mixes table.weigh { width: auto; min-width: 110mm; }
+.big { font-size: 17pt; font-weight: 700; margin: 1mm 0; }
+.big span { margin-right: 8mm; }
+.blanks { display: flex; gap: 10mm; margin-top: 3mm; font-size: 11pt; }
 .box { border: 0.7mm solid var(--ink); border-radius: 2mm; padding: 2.5mm 4mm; margin: 3mm 0; break-inside: avoid; }
 .box h2 { margin-top: 0; border: none; font-size: 14pt; }
 .box ul { margin: 0; padding-left: 5mm; font-size: 10.5pt; }
@@ -67,7 +73,7 @@ figure.chart { margin: 2mm 0 4mm; break-inside: avoid; }
 figure.chart svg { width: 100%; height: auto; display: block; }
 figure.chart figcaption { font-size: 9pt; color: var(--muted); }
 @media screen { body { padding: 8mm; } }
-@media print { h2 { break-after: avoid; } section.timeline-table { break-before: page; } }`;
+@media print { h2 { break-after: avoid; } }`;
 }
 
 function table(t: SheetTable, cls: string): string {
@@ -77,7 +83,7 @@ function table(t: SheetTable, cls: string): string {
   const body = t.rows
     .map(
       (r, ri) =>
-        `<tr>${r.map((c, i) => `<td${cls === 'timeline' && i < 2 ? ' class="time"' : alignCls(i)}>${escapeHtml(c)}</td>`).join('')}${
+        `<tr>${r.map((c, i) => `<td${cls === 'steps' && i === 0 ? ' class="time"' : alignCls(i)}>${escapeHtml(c)}</td>`).join('')}${
           tick ? `<td class="tick">${t.tick[ri] ? '<span aria-label="tick box"></span>' : ''}</td>` : ''
         }</tr>`,
     )
@@ -87,13 +93,17 @@ function table(t: SheetTable, cls: string): string {
 }
 
 function block(b: SheetBlock, cls: string): string {
-  return `<div class="block">${b.title ? `<h3>${escapeHtml(b.title)}</h3>` : ''}${b.lines.map((l) => `<p>${escapeHtml(l)}</p>`).join('')}${b.table ? table(b.table, cls) : ''}</div>`;
+  return `<div class="block">${b.title ? `<h3>${escapeHtml(b.title)}</h3>` : ''}${b.lines.map((l) => `<p>${escapeHtml(l)}</p>`).join('')}${
+    b.big && b.big.length > 0 ? `<div class="big">${b.big.map((l) => `<span>${escapeHtml(l)}</span>`).join('')}</div>` : ''
+  }${b.table ? table(b.table, cls) : ''}${b.steps ? table(b.steps, 'steps') : ''}${
+    b.blanks ? `<div class="blanks">${b.blanks.map((l) => `<span>${escapeHtml(l)}</span>`).join('')}</div>` : ''
+  }</div>`;
 }
 
 function section(s: SheetSection): string {
-  const cls = s.key === 'timeline' ? 'timeline' : s.key === 'formulas' ? 'summary' : 'weigh';
+  const cls = s.key === 'formulas' ? 'summary' : 'weigh';
   const blocks = s.blocks.map((b) => block(b, cls)).join('');
-  return `<section class="${s.key}${s.key === 'timeline' ? ' timeline-table' : ''}"><h2>${escapeHtml(s.title)}</h2>${cls === 'weigh' ? `<div class="grid">${blocks}</div>` : blocks}</section>`;
+  return `<section class="${s.key}"><h2>${escapeHtml(s.title)}</h2>${cls === 'weigh' ? `<div class="grid">${blocks}</div>` : blocks}</section>`;
 }
 
 function box(s: SheetSection | undefined, cls: string): string {

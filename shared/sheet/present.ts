@@ -6,7 +6,7 @@ import { FRICTION_CONVENTION } from '../dough-water.ts';
 import { formatGrams, formatTemperature, formatTemperatureRange } from '../units.ts';
 import { shortTime } from './time.ts';
 import { stepWord } from '../step-words.ts';
-import type { Sheet, SheetBuild, SheetMix } from './types.ts';
+import type { Sheet, SheetBuild, SheetMix, TimelineEntry } from './types.ts';
 
 export type Align = 'left' | 'right';
 
@@ -23,10 +23,16 @@ export interface SheetBlock {
   title: string;
   /** Short facts under the title: times, temperatures, what to divide. */
   lines: string[];
+  /** Printed in large type: the water temperature and the ice of a mix. */
+  big?: string[];
   table?: SheetTable;
+  /** A mix's own steps with clock times (the card's second half). */
+  steps?: SheetTable;
+  /** Blanks to write in by hand, e.g. "dough off the mixer ____ °C". */
+  blanks?: string[];
 }
 
-export type SectionKey = 'preferments' | 'soakers' | 'mixes' | 'timeline' | 'totals' | 'formulas' | 'cautions' | 'warnings';
+export type SectionKey = 'preferments' | 'soakers' | 'mixes' | 'totals' | 'formulas' | 'cautions' | 'warnings';
 
 export interface SheetSection {
   key: SectionKey;
@@ -111,8 +117,9 @@ function mixBlock(m: SheetMix, sheet: Sheet, repeated: boolean): SheetBlock {
     lines.push(`${liquid} at ${t(m.waterTemperature)} for dough at ${aim} (${sum}${m.bassinage ? '; with the bassinage' : ''})`);
   }
   if (m.bassinage) lines.push(`bassinage: hold back ${g(m.bassinage.grams)} of the water at ${t(m.bassinage.temperature)}; add it late in the mix`);
-  if (m.ice > 0) lines.push(`ice ${g(m.ice)} + tap water ${g(m.tapWater)}${m.bassinage ? ` + bassinage ${g(m.bassinage.grams)}` : ''} = water ${g(m.water)}`);
-  lines.push(`divide ${m.pieces} × ${g(m.pieceGrams)}`);
+  const big: string[] = [];
+  if (m.waterTemperature !== null) big.push(`water ${t(m.waterTemperature)}`);
+  if (m.ice > 0) big.push(`ice ${g(m.ice)} + tap water ${g(m.tapWater)}${m.bassinage ? ` + bassinage ${g(m.bassinage.grams)}` : ''}`);
   const rows: string[][] = [];
   const tick: boolean[] = [];
   for (const l of m.ingredients) {
@@ -128,8 +135,45 @@ function mixBlock(m: SheetMix, sheet: Sheet, repeated: boolean): SheetBlock {
   return {
     title: `${m.title}${repeated ? ` (order ${m.order + 1})` : ''} · mix ${m.mixNumber} of ${m.of} · ${g(m.dough)}`,
     lines,
+    big,
     table: { head: ['ingredient', 'weigh'], rows, align: ['left', 'right'], tick, footer: ['dough', g(m.dough)] },
+    steps: mixSteps(m, sheet),
+    blanks: [
+      m.doughTemperature !== null ? `dough off the mixer ______ °C (aim ${t(m.doughTemperature)})` : 'dough off the mixer ______ °C',
+      'mixed by (initials) ______',
+    ],
   };
+}
+
+const VESSEL: Record<NonNullable<TimelineEntry['vessel']>, string> = { deck: 'on the deck', tray: 'on trays', pot: 'in pots', tin: 'in tins', stone: 'on the stone' };
+
+/** What one step of a mix asks for, beside its clock time. */
+function stepDetail(e: TimelineEntry, m: SheetMix, sheet: Sheet): string {
+  const when = (x: string) => shortTime(x, sheet.date);
+  const what: string[] = [];
+  if (e.step === 'mix' && e.resource?.startsWith('mixer:')) what.push(e.resource.slice('mixer:'.length));
+  if (e.step === 'divide') what.push(`${m.pieces} × ${g(m.pieceGrams)}`);
+  if (e.step === 'bake') {
+    const oven = e.resource?.startsWith('oven:') ? e.resource.slice('oven:'.length) : null;
+    if (oven) what.push(`${oven}${e.unit !== undefined ? ` deck ${e.unit}` : ''}`);
+    if (e.temperature !== undefined) what.push(t(e.temperature));
+    if (e.slots !== undefined) what.push(`${e.slots} slot${e.slots === 1 ? '' : 's'}`);
+    if (e.vessel) what.push(VESSEL[e.vessel]);
+    if (e.covered !== undefined && e.covered > 0) what.push(`lid on ${e.covered} min, then off`);
+    what.push(e.steam ? 'steam' : 'no steam');
+  } else if (e.temperature !== undefined) what.push(`at ${t(e.temperature)}`);
+  if (e.step !== 'divide' && e.step !== 'mix' && e.resource === 'bench' && e.unit !== undefined) what.push(`person ${e.unit}`);
+  if (e.folds && e.folds.length > 0) what.push(`fold at ${e.folds.map(when).join(', ')}`);
+  if (e.note) what.push(e.note);
+  return what.join('; ');
+}
+
+/** The mix's own steps, each with its clock times. */
+function mixSteps(m: SheetMix, sheet: Sheet): SheetTable {
+  const rows = sheet.timeline
+    .filter((e) => !e.window && e.order === m.order && e.mixNumber === m.mixNumber)
+    .map((e) => [span(e.start, e.end, sheet.date), stepWord(e.step), stepDetail(e, m, sheet)]);
+  return { head: ['time', 'step', 'what'], rows, align: ['left', 'left', 'left'], tick: rows.map(() => true) };
 }
 
 export function presentSheet(sheet: Sheet): PresentedSheet {
@@ -153,25 +197,7 @@ export function presentSheet(sheet: Sheet): PresentedSheet {
   }
   const orders = new Map<string, Set<number>>();
   for (const m of sheet.mixes) orders.set(m.formula, (orders.get(m.formula) ?? new Set()).add(m.order));
-  sections.push({ key: 'mixes', title: 'Mixes', blocks: sheet.mixes.map((m) => mixBlock(m, sheet, orders.get(m.formula)!.size > 1)) });
-
-  const timelineRows = sheet.timeline.map((e) => {
-    const what: string[] = [];
-    if (e.window) what.push(e.step === 'soak' ? 'soak: mix within this window' : 'build: mix within this window');
-    if (e.resource === 'oven' && e.temperature !== undefined) what.push(t(e.temperature));
-    else if (e.temperature !== undefined) what.push(`at ${t(e.temperature)}`);
-    if (e.cold) what.push('cold');
-    if (e.steam) what.push('steam');
-    if (e.resource?.startsWith('mixer:')) what.push(e.resource.slice('mixer:'.length));
-    if (e.folds && e.folds.length > 0) what.push(`fold at ${e.folds.map(when).join(', ')}`);
-    if (e.note) what.push(e.note);
-    return [when(e.start), when(e.end), stepWord(e.step), e.label, what.join('; ')];
-  });
-  sections.push({
-    key: 'timeline',
-    title: 'Timeline',
-    blocks: [{ title: '', lines: [], table: { head: ['start', 'end', 'step', 'what', 'notes'], rows: timelineRows, align: ['left', 'left', 'left', 'left', 'left'], tick: timelineRows.map(() => false) } }],
-  });
+  sections.push({ key: 'mixes', title: 'Mix cards', blocks: sheet.mixes.map((m) => mixBlock(m, sheet, orders.get(m.formula)!.size > 1)) });
 
   const totalRows = sheet.totals.map((l) => [l.ingredient, l.kind, g(l.grams)]);
   sections.push({

@@ -164,6 +164,9 @@ export interface TimelineEntry {
   window?: boolean;
   cold?: boolean;
   steam?: boolean;
+  /** Bakes: what the pieces bake in or on, and minutes of the bake under a lid. */
+  vessel?: 'deck' | 'tray' | 'pot' | 'tin' | 'stone';
+  covered?: number;
   note?: string;
 }
 

@@ -132,15 +132,20 @@ describe('panform sheet --format json', () => {
 });
 
 describe('panform sheet --format text', () => {
-  it('prints builds, mixes with ice, the timeline, the pick list and the cautions', async () => {
+  it('prints builds, mix cards with ice and their steps, the pick list and the cautions', async () => {
     const r = await run(['sheet', HOT_PLAN]);
     expect(r.code).toBe(0);
-    for (const heading of ['PRE-FERMENTS TO BUILD', 'SOAKERS', 'MIXES', 'TIMELINE', 'PICK LIST', 'PER PRODUCT', 'CAUTIONS']) expect(r.stdout).toContain(heading);
+    for (const heading of ['PRE-FERMENTS TO BUILD', 'SOAKERS', 'MIX CARDS', 'PICK LIST', 'PER PRODUCT', 'CAUTIONS']) expect(r.stdout).toContain(heading);
     expect(r.stdout).toContain('Poolish bread · mix 1 of 2');
     expect(r.stdout).toContain('combined for poolish-bread + poolish-twin');
     expect(r.stdout).toMatch(/as ice +│ +1\u202f382 g/);
     expect(r.stdout).toContain('[ ]');
     expect(r.stdout).toMatch(/does not replace/);
+    expect(r.stdout).toMatch(/>> WATER \d+\.\d °C/);
+    expect(r.stdout).toMatch(/│ \d\d:\d\d–\d\d:\d\d +│ bake +│ .*deck \d/);
+    expect(r.stdout).toContain('dough off the mixer ______ °C');
+    // A pipe gets 80 columns.
+    expect(Math.max(...r.stdout.split('\n').map((l) => [...l].length))).toBeLessThanOrEqual(80);
   });
 });
 

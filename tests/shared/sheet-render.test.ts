@@ -4,9 +4,10 @@ import { describe, expect, it } from 'vitest';
 import { buildSheet } from '#shared/sheet/build';
 import { chartModel, productionRange } from '#shared/sheet/chart';
 import { escapeHtml, renderSheetHtml } from '#shared/sheet/html';
-import { longDate, presentSheet } from '#shared/sheet/present';
+import { longDate, presentSheet, span } from '#shared/sheet/present';
 import { localDateTime, minuteOf, shortTime } from '#shared/sheet/time';
 import { formatGrams } from '#shared/units';
+import { stepWord } from '#shared/step-words';
 import { FIXTURE_PLANS, sheetInput } from './sheet-fixtures.ts';
 
 const sheet = buildSheet(sheetInput(FIXTURE_PLANS[0]));
@@ -45,7 +46,7 @@ describe('presentSheet', () => {
 
   it('has the sections in bench order', () => {
     // The fixture plan lists no ovens or bench, so the sheet ends with the defaults it assumed.
-    expect(p.sections.map((s) => s.key)).toEqual(['preferments', 'soakers', 'mixes', 'timeline', 'totals', 'formulas', 'cautions', 'warnings']);
+    expect(p.sections.map((s) => s.key)).toEqual(['preferments', 'soakers', 'mixes', 'totals', 'formulas', 'cautions', 'warnings']);
   });
 
   it('rounds every weight for display and puts a tick box beside it', () => {
@@ -72,7 +73,31 @@ describe('presentSheet', () => {
     const mixes = p.sections.find((s) => s.key === 'mixes')!;
     const i = sheet.mixes.findIndex((m) => m.formula === 'straight-rolls');
     expect(mixes.blocks[i].lines).toContain('water at 6.0 °C for dough at 24.0 °C (3 × 24.0 °C − room 27.0 °C − flour 25.0 °C − friction 14.0 °C (3 × rise 4.7 °C))');
-    expect(mixes.blocks[i].lines).toContain('divide 300 × 90.0 g');
+    expect(mixes.blocks[i].big![0]).toBe('water 6.0 °C');
+    expect(mixes.blocks[i].steps!.rows.find((r) => r[1] === 'divide')![2]).toMatch(/^300 × 90\.0 g/);
+  });
+
+  it('gives each mix a card: its own steps with clock times, in the timeline order, and blanks to write in', () => {
+    const mixes = p.sections.find((s) => s.key === 'mixes')!;
+    for (const [i, m] of sheet.mixes.entries()) {
+      const own = sheet.timeline.filter((e) => !e.window && e.order === m.order && e.mixNumber === m.mixNumber);
+      const steps = mixes.blocks[i].steps!;
+      expect(steps.rows.map((r) => r[1])).toEqual(own.map((e) => stepWord(e.step)));
+      expect(steps.rows[0][0]).toBe(span(own[0].start, own[0].end, sheet.date));
+      expect(mixes.blocks[i].blanks).toContain('mixed by (initials) ______');
+      expect(mixes.blocks[i].blanks![0]).toMatch(/^dough off the mixer ______ °C/);
+    }
+  });
+
+  it('prints a bake with its oven, deck, temperature, vessel, lid minutes and steam, and folds with their times', () => {
+    const rows = p.sections.find((s) => s.key === 'mixes')!.blocks.flatMap((b) => b.steps!.rows);
+    const bake = sheet.timeline.find((e) => e.step === 'bake')!;
+    const row = rows.find((r) => r[1] === 'bake')!;
+    expect(row[2]).toContain(`${bake.resource!.slice('oven:'.length)} deck ${bake.unit}`);
+    expect(row[2]).toMatch(/°C/);
+    expect(row[2]).toMatch(/steam/);
+    const folded = sheet.timeline.find((e) => e.folds && e.folds.length > 0);
+    if (folded) expect(rows.some((r) => r[2].includes(`fold at ${folded.folds!.map((f) => shortTime(f, sheet.date)).join(', ')}`))).toBe(true);
   });
 
   it('states the friction convention and each mixer\'s rise once, at the top', () => {
@@ -120,7 +145,7 @@ describe('renderSheetHtml', () => {
 
   it('has a tick box beside every weight and every weight the presented sheet has', () => {
     const p = presentSheet(sheet);
-    const weighed = p.sections.flatMap((s) => s.blocks.flatMap((b) => b.table?.tick.filter(Boolean) ?? []));
+    const weighed = p.sections.flatMap((s) => s.blocks.flatMap((b) => [...(b.table?.tick ?? []), ...(b.steps?.tick ?? [])].filter(Boolean)));
     expect((html.match(/aria-label="tick box"/g) ?? []).length).toBe(weighed.length);
     for (const l of sheet.totals) expect(html).toContain(escapeHtml(formatGrams(l.grams)));
   });

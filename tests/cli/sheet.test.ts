@@ -197,6 +197,31 @@ describe('panform sheet --format pdf', () => {
     expect(info).toMatch(/Page size:\s+595\.28 x 841\.89 pts \(A4\)/);
   });
 
+  it('prints the demo day as cards: each mix with its water, its steps and the blanks, in the order of the text sheet', SLOW, async () => {
+    const out = join(dir, 'demo-cards.pdf');
+    expect((await cli.run(['sheet', DEMO_PLAN, '--format', 'pdf', '--out', out])).code).toBe(0);
+    if (!existsSync(PDFTOTEXT)) return;
+    const flat = (x: string) => x.replace(/[\u00a0\u202f]/g, ' ');
+    const pdfText = flat(execFileSync(PDFTOTEXT, ['-layout', out, '-'], { encoding: 'utf8' }));
+    const text = flat((await run(['sheet', DEMO_PLAN])).stdout);
+    const sheet = JSON.parse((await run(['sheet', DEMO_PLAN, '--json'])).stdout) as Sheet;
+    // One card per mix, titled alike in both, in the same order.
+    const titles = [...text.matchAll(/^(.+ · mix \d+ of \d+ · .+ g)$/gm)].map((m) => m[1]);
+    expect(titles).toHaveLength(sheet.mixes.length);
+    const at = titles.map((t) => pdfText.indexOf(t));
+    expect(at.every((i) => i >= 0), titles.filter((_, k) => at[k] < 0).join('; ')).toBe(true);
+    expect([...at].sort((a, b) => a - b)).toEqual(at);
+    expect(pdfText.match(/dough off the mixer ______ °C/g)).toHaveLength(sheet.mixes.length);
+    expect(pdfText.match(/mixed by \(initials\)/g)).toHaveLength(sheet.mixes.length);
+    expect(pdfText.match(/^\s*water \d+\.\d °C/gm)?.length).toBe(sheet.mixes.filter((m) => m.waterTemperature !== null).length);
+    // Every bake load with its oven and deck; lid minutes where a formula bakes under a lid.
+    const loads = sheet.timeline.filter((e) => e.step === 'bake');
+    expect(pdfText.match(/deck oven deck \d|rack oven deck \d/g)!.length).toBe(loads.length);
+    if (loads.some((e) => e.covered)) expect(pdfText).toMatch(/lid on \d+/);
+    // Fewer pages than the 11 the sheet took with its long timeline table.
+    expect(execFileSync('/usr/bin/pdfinfo', [out], { encoding: 'utf8' })).toMatch(/Pages:\s+[1-9]\n/);
+  });
+
   it('prints on Letter paper with --paper letter', SLOW, async () => {
     const out = join(dir, 'letter.pdf');
     expect((await cli.run(['sheet', HOT_PLAN, '--format', 'pdf', '--paper', 'letter', '--out', out])).code).toBe(0);

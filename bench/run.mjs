@@ -192,6 +192,31 @@ async function benchSheet(opts, work) {
   } catch (e) {
     failed('sheet-40', figure, target, e);
   }
+  await benchSchedule(opts, work);
+}
+
+/** The night's schedule on a big plan: 200 orders on 4 ovens × 3 decks, 3 mixers, 6 people. */
+async function benchSchedule(opts, work) {
+  const figure = 'panform sheet, 200-order plan scheduled (4 ovens × 3 decks, 3 mixers, 6 people)';
+  const target = '≤ 1 s';
+  try {
+    const plan = writeBigPlan(join(work, 'schedule'), 200, { mixers: 3, ovens: 4, people: 6 });
+    const r = compareWithNodeStart(['sheet', plan, '--format', 'json', '--allow-late'], Math.min(opts.runs, 5), (out) => {
+      const data = JSON.parse(out);
+      if (!Array.isArray(data.bookings) || data.bookings.length === 0) throw new Error('sheet --format json printed no bookings');
+    });
+    if (r.unavailable) return unavailable('sheet-200', figure, target, r.unavailable);
+    raw.schedule = r;
+    row('sheet-200', figure, `${ms(r.command)} vs node -e 0 ${ms(r.baseline)} = ${ratio(r.ratio)}${cpuNote(r)}`, target, r.command <= 1000, {
+      medianMs: r.command,
+      nodeMedianMs: r.baseline,
+      ratio: r.ratio,
+      cpu: r.cpu,
+      runs: Math.min(opts.runs, 5),
+    });
+  } catch (e) {
+    failed('sheet-200', figure, target, e);
+  }
 }
 
 // ---- load ---------------------------------------------------------------------------------

@@ -30,32 +30,44 @@ export function copyDemo(dir, { plans = false, formulas = true } = {}) {
 
 /**
  * A copy of the demo bakery with `plans/2026-12-10.yaml`: `orders` orders over the active demo
- * formulas, on mixers and ovens big enough that no order is refused. Returns the plan's path.
+ * formulas, due from 04:00 on, on `mixers` mixers big enough that no order is refused, `ovens`
+ * three-deck ovens and `people` on the bench (a day shift before for the retarded doughs, and the
+ * night). Returns the plan's path.
  */
-export function writeBigPlan(dir, orders = 40) {
+export function writeBigPlan(dir, orders = 40, { mixers = 2, ovens = 2, people = 4 } = {}) {
   copyDemo(dir, { plans: true });
   const active = demoFormulas().filter((f) => f.status === 'active');
   if (active.length === 0) throw new Error('no active demo formulas in formulas/');
   const customers = ['Harbour Street shop', 'Quay Row shop', 'Lantern Café', 'Gull Steps Café', 'Saltmere school kitchen'];
+  const names = Array.from({ length: mixers }, (_, i) => (i === mixers - 1 ? 'small spiral' : i === 0 ? 'spiral' : `spiral ${i + 1}`));
+  // Due times spread over the morning so the night's ovens can take them: 04:00 onward.
+  const span = Math.max(4, Math.ceil(orders / (4 * ovens)));
   const list = [];
   for (let i = 0; i < orders; i++) {
     const f = active[i % active.length];
-    list.push({ formula: f.id, pieces: 6 + ((i * 7) % 40), mixer: i % 3 === 0 ? 'small spiral' : 'spiral', customer: customers[i % customers.length] });
+    const due = 4 * 60 + Math.floor((i * span * 60) / orders / 15) * 15;
+    // At most what one round of a three-deck oven holds, so no mix is refused for its size.
+    const perSlot = f.data.process?.find((st) => st.step === 'bake')?.per_slot ?? 6;
+    list.push({
+      formula: f.id,
+      pieces: Math.min(6 + ((i * 7) % 40), Math.floor(perSlot * 12)),
+      mixer: names[i % names.length],
+      due: `${String(Math.floor(due / 60) % 24).padStart(2, '0')}:${String(due % 60).padStart(2, '0')}`,
+      customer: customers[i % customers.length],
+    });
   }
   const plan = {
     date: '2026-12-10',
     ready_by: '06:00',
     conditions: { room: '22 °C', flour: '20 °C', tap_water: '12 °C', preferment: '20 °C' },
-    mixers: [
-      { name: 'spiral', capacity: '60 kg', friction: '13 °C' },
-      { name: 'small spiral', capacity: '25 kg', friction: '10 °C' },
-    ],
-    ovens: [
-      { name: 'deck oven', decks: 6, slots: 8, heat: '4 °C/min', cool: '2 °C/min', steam: true, fan: false },
-      { name: 'rack oven', decks: 1, slots: 16, heat: '6 °C/min', cool: '3 °C/min', steam: true, fan: true },
+    mixers: names.map((name) => ({ name, capacity: name === 'small spiral' ? '25 kg' : '60 kg', friction: name === 'small spiral' ? '10 °C' : '13 °C' })),
+    ovens: Array.from({ length: ovens }, (_, i) => ({ name: `deck oven ${i + 1}`, decks: 3, slots: 4, heat: '4 °C/min', cool: '2 °C/min', steam: true, fan: false })),
+    bench: [
+      { date: '2026-12-09', from: '08:00', to: '18:00', people: Math.max(1, Math.floor(people / 2)) },
+      { date: '2026-12-09', from: '20:00', to: '14:00', people },
     ],
     orders: list,
-    notes: 'Bench plan: forty orders for the timing of panform sheet.',
+    notes: `Bench plan: ${orders} orders for the timing of panform sheet.`,
   };
   const path = join(dir, 'plans', '2026-12-10.yaml');
   writeFileSync(path, stringify(plan));

@@ -63,33 +63,36 @@ export class Calendar {
   }
 
   mixerConflict(mixer: string, start: number, end: number, allergens: readonly string[]): Conflict | null {
-    for (const b of this.mixers.get(mixer) ?? []) {
-      const clash =
-        overlaps(start, end, b) ||
-        (b.end <= start && start < b.end + this.cleanDown(mixer, b.allergens, allergens)) ||
-        (end <= b.start && b.start < end + this.cleanDown(mixer, allergens, b.allergens));
-      if (clash) return { kind: 'mixer', name: mixer, start: b.start, end: b.end };
+    // The bookings of one mixer never overlap and are kept sorted, so only the neighbours can clash.
+    const list = this.mixers.get(mixer) ?? [];
+    const i = firstStartingAtOrAfter(list, end);
+    const prev = list[i - 1];
+    const next = list[i];
+    if (prev && (prev.end > start || start < prev.end + this.cleanDown(mixer, prev.allergens, allergens))) {
+      return { kind: 'mixer', name: mixer, start: prev.start, end: prev.end };
     }
+    if (next && next.start < end + this.cleanDown(mixer, allergens, next.allergens)) return { kind: 'mixer', name: mixer, start: next.start, end: next.end };
     return null;
   }
 
   deckConflict(oven: OvenResource, deck: number, start: number, end: number, temperature: number | null): Conflict | null {
-    for (const b of this.decks.get(deckKey(oven.name, deck)) ?? []) {
-      const t = b.temperature;
-      const clash =
-        overlaps(start, end, b) ||
-        (b.end <= start && start < b.end + changeMinutes(oven, t, temperature)) ||
-        (end <= b.start && b.start < end + changeMinutes(oven, temperature, t));
-      if (clash) return { kind: 'oven', name: oven.name, start: b.start, end: b.end };
+    const list = this.decks.get(deckKey(oven.name, deck)) ?? [];
+    const i = firstStartingAtOrAfter(list, end);
+    const prev = list[i - 1];
+    const next = list[i];
+    if (prev && (prev.end > start || start < prev.end + changeMinutes(oven, prev.temperature, temperature))) {
+      return { kind: 'oven', name: oven.name, start: prev.start, end: prev.end };
     }
+    if (next && next.start < end + changeMinutes(oven, temperature, next.temperature)) return { kind: 'oven', name: oven.name, start: next.start, end: next.end };
     return null;
   }
 
   /** The temperature the deck bakes at just before `start`, if anything is baked before it. */
   deckBefore(oven: string, deck: number, start: number): number | null | undefined {
-    let best: Busy | undefined;
-    for (const b of this.decks.get(deckKey(oven, deck)) ?? []) if (b.end <= start && (!best || b.end > best.end)) best = b;
-    return best?.temperature;
+    const list = this.decks.get(deckKey(oven, deck)) ?? [];
+    let i = firstStartingAtOrAfter(list, start);
+    while (i > 0 && list[i - 1].end > start) i--;
+    return list[i - 1]?.temperature;
   }
 
   /** Bench people free for the whole task; of people with nothing booked yet on the same shift, only the first. */
@@ -98,7 +101,9 @@ export class Calendar {
     const idle = new Set<string>();
     for (const p of this.people) {
       const to = this.overtime && p.overtime ? Infinity : p.to;
-      if (p.from > start || end > to || p.busy.some((b) => overlaps(start, end, b))) continue;
+      if (p.from > start || end > to) continue;
+      const j = firstStartingAtOrAfter(p.busy, end);
+      if (j > 0 && p.busy[j - 1].end > start) continue;
       if (p.busy.length === 0) {
         const key = `${p.from}/${p.to}`;
         if (idle.has(key)) continue;
@@ -119,8 +124,26 @@ export class Calendar {
 
 export const deckKey = (oven: string, deck: number) => `${oven}\u0000${deck}`;
 
-/** Removes the one booking `b` from a list (bookings are undone in reverse order, so it is near the end). */
+/** Index of the first booking that starts at or after `t` (bookings sorted by start). */
+export function firstStartingAtOrAfter(list: Busy[], t: number): number {
+  let lo = 0;
+  let hi = list.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (list[mid].start < t) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/** Adds a booking, keeping the list sorted by start. */
+export function book(list: Busy[], b: Busy): void {
+  list.splice(firstStartingAtOrAfter(list, b.start), 0, b);
+}
+
+/** Removes the one booking `b` from a list. */
 export function unbook(list: Busy[], b: Busy): void {
-  const i = list.lastIndexOf(b);
-  if (i >= 0) list.splice(i, 1);
+  let i = firstStartingAtOrAfter(list, b.start);
+  while (i < list.length && list[i] !== b) i++;
+  if (i < list.length) list.splice(i, 1);
 }

@@ -5,7 +5,7 @@ import { pickFromRange, type NumberRange } from '../units.ts';
 import { clockMinutes, localDateTime, minuteOf, shortTime } from '../sheet/time.ts';
 import { SheetError, type Booking, type LocalDateTime, type OrderOutcome, type TimelineEntry } from '../sheet/types.ts';
 import { compareText } from '../text.ts';
-import type { Calendar, Busy } from './calendar.ts';
+import { book, type Calendar, type Busy } from './calendar.ts';
 import {
   BUILD_MIX_MINUTES, DEFAULT_BENCH, DEFAULT_CLEAN_DOWN_MINUTES, DEFAULT_COOL_RATE, DEFAULT_HEAT_RATE, DEFAULT_OVEN,
   DEFAULT_SECONDS_PER_PIECE, SLOT_DOUGH_GRAMS,
@@ -469,7 +469,7 @@ export function bookBuilds(night: Night, plan: Plan, builds: BuildToBook[], at: 
         if (needShift && !inShift(end)) continue;
         for (const mixer of fit) {
           if (night.calendar.mixerConflict(mixer.name, end - minutes, end, b.allergens)) continue;
-          night.calendar.mixers.get(mixer.name)!.push({ start: end - minutes, end, allergens: b.allergens });
+          book(night.calendar.mixers.get(mixer.name)!, { start: end - minutes, end, allergens: b.allergens });
           night.bookings.push({ ...booking({ kind: 'mixer', name: mixer.name, unit: null }, 'build', null, end - minutes, end, at), formula: b.formula, mix: b.name });
           if (!assumedSaid) {
             assumedSaid = true;

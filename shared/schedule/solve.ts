@@ -15,12 +15,14 @@
 //   exhaustive, so an on-time schedule on the 5-minute grid is found whenever one exists.
 // - When the budget runs out or no on-time schedule exists, a single greedy pass keeps every order
 //   it can on time and places the others at the earliest time they can be out.
-import { Calendar, deckKey, unbook, type Busy, type Conflict } from './calendar.ts';
+import { book, Calendar, deckKey, unbook, type Busy, type Conflict } from './calendar.ts';
 import type { Job, Load, Operation, OvenResource, Placement, Problem } from './problem.ts';
 
 export const GRID_MINUTES = 5;
 /** Checks the backtracking search may make before it settles for the greedy pass. */
 const SEARCH_BUDGET = 20_000;
+/** Nights of at most this many mixes get the backtracking search across mixes. */
+const EXACT_JOBS = 12;
 /** Checks one mix may take in the greedy pass, per attempt. */
 const JOB_BUDGET = 6_000;
 /** How far past its due time a late order is looked for, minutes. */
@@ -54,9 +56,9 @@ export function solve(problem: Problem): Solution {
     (a, b) => a.due - b.due || processLength(b) - processLength(a) || a.id - b.id,
   );
 
-  // Backtracking search for an on-time night.
+  // Backtracking search for an on-time night (on a big night, one greedy pass is the search).
   const calendar = new Calendar(problem);
-  const budget: Budget = { left: SEARCH_BUDGET };
+  const budget: Budget = { left: order.length <= EXACT_JOBS ? SEARCH_BUDGET : 0 };
   const gens: (Generator<Placement> | undefined)[] = [];
   const chosen: Placement[] = [];
   let i = 0;
@@ -181,15 +183,42 @@ function* placeJob(
   const k = ops.length - 1;
   const times: { start: number; end: number }[] = ops.map(() => ({ start: 0, end: 0 }));
   const people = new Map<number, number>();
+  // Subtrees that yielded nothing, by what they depend on: their window and this job's mixer and
+  // bench bookings after them (the loads do not touch the mixer or the bench). Trying the same
+  // shaping window for a load on another deck then costs nothing.
+  const failed = new Set<string>();
+  const keyOf = (i: number, lo: number, hi: number, preferred: number) => {
+    let key = `${i}|${lo}|${hi}|${preferred}`;
+    for (let j = i + 1; j < k; j++) key += `|${times[j].start}:${people.get(j) ?? ''}`;
+    return key;
+  };
 
   function* before(i: number, lo: number, hi: number, preferred: number, loads: Load[], out: number): Generator<Placement> {
+    if (i >= 0) {
+      const key = keyOf(i, lo, hi, preferred);
+      if (failed.has(key)) return;
+      let found = false;
+      for (const p of step(i, lo, hi, preferred, loads, out)) {
+        found = true;
+        yield p;
+      }
+      if (!found && budget.left > 0) failed.add(key);
+      return;
+    }
+    yield* step(i, lo, hi, preferred, loads, out);
+  }
+
+  function* step(i: number, lo: number, hi: number, preferred: number, loads: Load[], out: number): Generator<Placement> {
     if (i < 0) {
       yield { job: job.id, operations: times.map((t) => ({ ...t })), loads: loads.map((l) => ({ ...l })), people: new Map(people), out };
       return;
     }
     const op = ops[i];
     const gap = job.gaps[i];
+    // A booking in the way rules out every candidate that overlaps it: skip those without a check.
+    let blocked: Conflict | null = null;
     for (const end of candidates(Math.max(lo, nightStart + op.minutes), hi, preferred)) {
+      if (blocked && end - op.minutes < blocked.end && end > blocked.start) continue;
       if (budget.left-- <= 0) return;
       const start = end - op.minutes;
       times[i] = { start, end };
@@ -202,11 +231,12 @@ function* placeJob(
         const c = cal.mixerConflict(job.mixer, start, end, job.allergens);
         if (c) {
           note(tally, c);
+          blocked = c;
           continue;
         }
         const b: Busy = { start, end, allergens: job.allergens };
         const list = cal.mixers.get(job.mixer)!;
-        list.push(b);
+        book(list, b);
         try {
           yield* next();
         } finally {
@@ -224,7 +254,7 @@ function* placeJob(
         }
         for (const person of free) {
           const b: Busy = { start, end };
-          person.busy.push(b);
+          book(person.busy, b);
           people.set(i, person.unit);
           try {
             yield* next();
@@ -271,18 +301,32 @@ function* placeJob(
         j === 0
           ? [outLo, outHi, outHi]
           : [loads[0].start - spread + bake.minutes, loads[j - 1].start + bake.minutes, loads[j - 1].start + bake.minutes];
+      const blocked = new Map<number, Conflict>();
+      const allDecks = Array.from({ length: oven.decks }, (_, d) => d + 1);
+      let ceiling = Infinity;
       for (const end of candidates(Math.max(lo, nightStart + bake.minutes), hi, preferred)) {
         const start = end - bake.minutes;
-        for (const deck of deckOrder(cal, oven, start, bake.temperature)) {
+        if (end > ceiling) continue;
+        const open = allDecks.filter((d) => {
+          const x = blocked.get(d);
+          return !x || start >= x.end || end <= x.start;
+        });
+        if (open.length === 0) {
+          // Every deck is taken around here: the next place can end no later than the latest of their starts.
+          ceiling = Math.max(...allDecks.map((d) => blocked.get(d)!.start));
+          continue;
+        }
+        for (const deck of deckOrder(cal, oven, start, bake.temperature, open)) {
           if (budget.left-- <= 0) return;
           const c = cal.deckConflict(oven, deck, start, end, bake.temperature);
           if (c) {
             note(tally, c);
+            blocked.set(deck, c);
             continue;
           }
           const b: Busy = { start, end, temperature: bake.temperature };
           const list = cal.decks.get(deckKey(oven.name, deck))!;
-          list.push(b);
+          book(list, b);
           loads.push({ oven: oven.name, deck, start, end, slots, temperature: bake.temperature });
           try {
             yield* load(j + 1);
@@ -290,6 +334,9 @@ function* placeJob(
             loads.pop();
             unbook(list, b);
           }
+          // The loads after the first take their first free place: trying every other place of
+          // every load multiplies the search by decks × times per load for little gain.
+          if (j > 0) return;
         }
       }
     }
@@ -298,20 +345,20 @@ function* placeJob(
 }
 
 /** Decks to try: one already at this temperature first, then one cooling down to it, then one heating up. */
-function deckOrder(cal: Calendar, oven: OvenResource, start: number, temperature: number | null): number[] {
-  const rank = (d: number) => {
-    const t = cal.deckBefore(oven.name, d, start);
-    return t == null || temperature === null ? 1 : t === temperature ? 0 : t > temperature ? 1 : 2;
-  };
+function deckOrder(cal: Calendar, oven: OvenResource, start: number, temperature: number | null, open: number[]): number[] {
   // Empty decks are all alike: try only the first of them.
   let emptySeen = false;
-  const decks = Array.from({ length: oven.decks }, (_, i) => i + 1).filter((d) => {
+  const decks = open.filter((d) => {
     if ((cal.decks.get(deckKey(oven.name, d))?.length ?? 0) > 0) return true;
     if (emptySeen) return false;
     emptySeen = true;
     return true;
   });
-  if (decks.length === 1) return decks;
+  if (decks.length === 1 || temperature === null) return decks;
+  const rank = (d: number) => {
+    const t = cal.deckBefore(oven.name, d, start);
+    return t == null ? 1 : t === temperature ? 0 : t > temperature ? 1 : 2;
+  };
   const ranks = new Map(decks.map((d) => [d, rank(d)]));
   return decks.sort((a, b) => ranks.get(a)! - ranks.get(b)! || a - b);
 }

@@ -5,7 +5,7 @@ import { execFileSync } from 'node:child_process';
 import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parse } from 'yaml';
 import type { FormulaDetail, PlanDetail, RevisionDiffResponse } from '#shared/api';
@@ -14,6 +14,7 @@ import { collectDiff } from '../../cli/commands/diff.ts';
 import { collectScale, toScaleOptions } from '../../cli/commands/scale.ts';
 import { collectSheet } from '../../cli/commands/sheet.ts';
 import { migrateDatabase, openDatabase, type DatabaseHandle } from '../../server/db/client.ts';
+import { fileOrderMigrationTime, lastMigrationTime, restoreFileOrder } from '../../server/db/file-order.ts';
 import { formulasTable } from '../../server/db/schema.ts';
 import { loadFolder } from '../../server/load/index.ts';
 import { CHECK_MS } from '../../server/routes/data.ts';
@@ -105,32 +106,28 @@ describe('the milk buns, from file to every output', () => {
 });
 
 describe('a database made before the content kept its order', () => {
-  it('gets the file order back from each row\'s own text when migrated', async () => {
-    const dir = mkdtempSync(join(tmpdir(), 'panform-order-'));
-    dirs.push(dir);
-    const old = join(dir, 'drizzle');
-    cpSync(resolve('drizzle'), old, { recursive: true });
-    const journal = JSON.parse(readFileSync(join(old, 'meta', '_journal.json'), 'utf8')) as { entries: { tag: string }[] };
-    journal.entries = journal.entries.filter((e) => e.tag === '0000_init');
-    writeFileSync(join(old, 'meta', '_journal.json'), JSON.stringify(journal));
-
+  it('gets the file order back from each row\'s own text after the migration', async () => {
     const db = await openDatabase({ memory: true });
     try {
-      await migrateDatabase(db, old);
+      await migrateDatabase(db);
+      // The data step runs when a database crosses the file-order migration.
+      expect(await lastMigrationTime(db.db)).toBeGreaterThanOrEqual(fileOrderMigrationTime(resolve('drizzle'))!);
       await loadFolder(db, resolve('formulas'), { git: false });
       const stored = async () => {
         const [row] = await db.db.select({ content: formulasTable.content }).from(formulasTable).where(eq(formulasTable.id, ID));
         return Object.keys((row.content as { ingredients: Record<string, number> }).ingredients);
       };
-      // jsonb: shortest key first.
+      expect(await stored()).toEqual(fileOrder);
+      // As the rows were before the migration: through jsonb, shortest key first.
+      for (const table of ['formulas', 'formula_revisions', 'plans']) {
+        await db.db.execute(sql.raw(`alter table ${table} alter column content type jsonb using content::jsonb`));
+        await db.db.execute(sql.raw(`alter table ${table} alter column content type json using content::json`));
+      }
       expect(await stored()).not.toEqual(fileOrder);
-      await migrateDatabase(db);
+      await restoreFileOrder(db.db);
       expect(await stored()).toEqual(fileOrder);
     } finally {
       await db.close();
     }
   }, 180_000);
 });
-
-
-

@@ -50,6 +50,11 @@ const MATRIX: Record<string, Case[]> = {
     { label: 'retired (404 for bench: as if unknown)', method: 'GET', path: '/api/formulas/malted-grain-loaf', expect: staffOnly(404) },
     { label: 'unknown', method: 'GET', path: '/api/formulas/no-such-bread', expect: all(404) },
   ],
+  'GET /api/formulas/:id/water': [
+    { label: 'a bake day', method: 'GET', path: '/api/formulas/harbour-ciabatta/water?plan=2026-12-03', expect: all(200) },
+    { label: 'no readings', method: 'GET', path: '/api/formulas/harbour-ciabatta/water', expect: all(422) },
+    { label: 'draft (404 for bench: as if unknown)', method: 'GET', path: '/api/formulas/spelt-porridge-loaf/water?room=22&flour=20&rise=4', expect: staffOnly(404) },
+  ],
   'GET /api/formulas/:id/revisions': [
     { label: 'active', method: 'GET', path: '/api/formulas/harbour-ciabatta/revisions', expect: staffOnly(403) },
     { label: 'draft', method: 'GET', path: '/api/formulas/spelt-porridge-loaf/revisions', expect: staffOnly(403) },

@@ -252,7 +252,7 @@ async function benchLoad(opts, work, state) {
   }
   const med = (k) => median(runs.map((p) => p[k]));
   raw.load = { formulas: count, runs };
-  row('load-open', 'Open a fresh PGlite directory (initdb) + migrate', `${seconds(med('open'))} + ${seconds(med('migrate'))}`, '', null, {
+  row('load-open', 'Open a new PGlite directory (a copy of the database prepared at build) + migrate', `${seconds(med('open'))} + ${seconds(med('migrate'))}`, '', null, {
     openMs: med('open'),
     migrateMs: med('migrate'),
   });
@@ -537,6 +537,59 @@ function benchBundle() {
   }
 }
 
+/**
+ * The server on PostgreSQL (a throwaway cluster, bench/pg-cluster.ts) with the same 1,000
+ * formulas: its resident memory after answering the list, details and plans.
+ */
+async function benchPostgresMemory(state, work) {
+  const figure = `Server resident memory with ${(state.loaded ?? 1000).toLocaleString('en-US')} formulas (PostgreSQL 15)`;
+  const target = '≤ 250 MB';
+  const cluster = await startChild(NODE, ['--import', 'tsx', join('bench', 'pg-cluster.ts')], {
+    name: 'PostgreSQL cluster',
+    timeoutMs: 180_000,
+    ready: async (h) => /^\{.*\}$/m.test(h.output()),
+  }).catch((e) => e);
+  if (cluster instanceof Error) return failed('rss-postgres', figure, target, cluster);
+  onCleanup(() => cluster.stop());
+  try {
+    const info = JSON.parse(/^\{.*\}$/m.exec(cluster.output())[0]);
+    if (info.unavailable) return unavailable('rss-postgres', figure, target, info.unavailable);
+    const folder = state.manyFolder ?? join(work, 'many');
+    if (!state.manyFolder) state.loaded = writeManyFormulas(folder, 1000);
+    state.manyFolder = folder;
+    const env = { ...process.env, DATABASE_URL: info.url, NODE_ENV: 'production' };
+    delete env.PANFORM_DATA;
+    timedRun(NODE, [PANFORM, 'load', folder], { env });
+    timedRun(NODE, [PANFORM, 'user', 'add', BENCH_USER.email, '--role', BENCH_USER.role, '--password-stdin'], { env, input: `${BENCH_USER.password}\n` });
+    const port = await freePort();
+    const base = `http://127.0.0.1:${port}`;
+    const server = await startChild(NODE, [PANFORM, 'serve', '--port', String(port), '--host', '127.0.0.1'], {
+      env,
+      name: 'panform serve (PostgreSQL)',
+      ready: () => answers(`${base}/api/me`),
+    });
+    try {
+      const res = await fetch(`${base}/api/session`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: BENCH_USER.email, password: BENCH_USER.password }) });
+      const headers = { cookie: (res.headers.getSetCookie()[0] ?? '').split(';')[0] };
+      const list = await (await fetch(`${base}/api/formulas`, { headers })).json();
+      const ids = (list.formulas ?? []).map((f) => f.id);
+      if (ids.length === 0) throw new Error('the server on PostgreSQL listed no formulas');
+      // Every formula's detail once (each kept, bounded, per load), then the plans.
+      for (const id of ids) await (await fetch(`${base}/api/formulas/${id}`, { headers })).arrayBuffer();
+      await (await fetch(`${base}/api/plans`, { headers })).arrayBuffer();
+      const m = memoryOf(server.pid);
+      if (m.current === null) return unavailable('rss-postgres', figure, target, '/proc is not available');
+      row('rss-postgres', `${figure}, after every formula's detail`, `${mb(m.current)} (peak ${mb(m.peak)})`, target, m.current <= MEMORY_TARGET, { residentBytes: m.current, peakBytes: m.peak, formulas: ids.length });
+    } finally {
+      await server.stop();
+    }
+  } catch (e) {
+    failed('rss-postgres', figure, target, e);
+  } finally {
+    await cluster.stop();
+  }
+}
+
 function reportMemory(state) {
   if (!state.server) return;
   const m = memoryOf(state.server.handle.pid);
@@ -580,6 +633,7 @@ async function main() {
   if (g.has('render')) await benchRender(opts, work, state);
   if (g.has('soak')) await benchSoak(opts, work, state);
   reportMemory(state);
+  if (g.has('api')) await benchPostgresMemory(state, work);
   printTable();
   const results = {
     startedAt: started.toISOString(),

@@ -290,9 +290,9 @@ function chart(w: Writer, m: ChartModel): void {
   if (m.clipped) w.paragraph('Cooling after the last bake runs past the right edge.', 7, { colour: MUTED });
 }
 
-const WEIGH_STYLE: TableStyle = { size: 10, weightSize: 11.5, pad: 2.5, minWidths: [150, 70] };
+const WEIGH_STYLE: TableStyle = { size: 10, weightSize: 11.5, pad: 2.3, minWidths: [125, 66] };
 const STEP_STYLE: TableStyle = { size: 7.5, weightSize: 7.5, pad: 1.8, wrapColumn: 2, minWidths: [0, 40] };
-const WEIGH_W = 250;
+const WEIGH_W = 215;
 const GAP = 12;
 
 /** A mix's card: its facts, the water in large type, the weights beside its own steps, the blanks. */
@@ -410,7 +410,8 @@ export async function renderSheetPdf(sheet: Sheet, options: PdfOptions = {}): Pr
 
   for (const s of p.sections) {
     if (s.key === 'cautions' || s.key === 'warnings') continue;
-    sectionTitle(w, s.title);
+    // A section's title stays with its first card.
+    sectionTitle(w, s.title, s.key === 'mixes' ? 380 : 150);
     if (s.key === 'preferments' || s.key === 'soakers') {
       // Builds two by two, side by side.
       for (let i = 0; i < s.blocks.length; i += 2) columns(w, s.blocks.slice(i, i + 2));

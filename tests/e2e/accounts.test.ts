@@ -4,14 +4,13 @@
 import { resolve } from 'node:path';
 import { expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { DEFAULT_LIMITS } from '../../server/auth/rate-limit.ts';
 import { createUser } from '../../server/auth/users.ts';
 import type { OutgoingMail } from '../../server/context.ts';
-import { readEnv } from '../../server/env.ts';
 import { loadFolder } from '../../server/load/index.ts';
-import { startServer, type RunningServer } from '../../server/start.ts';
+import type { RunningServer } from '../../server/start.ts';
 import { forEachDatabase } from '../setup/databases.ts';
 import { emailOf, PASSWORD, TEST_SCRYPT } from '../server/harness.ts';
+import { startSharedServers } from '../server/shared-servers.ts';
 import { CONTEXT_OPTIONS, hasChromium, launchBrowser, screenshot } from './support/browser.ts';
 import { ensureViewerBuilt } from './support/viewer-build.ts';
 
@@ -40,22 +39,7 @@ forEachDatabase(
         const servers: RunningServer[] = [];
         const browser = await launchBrowser();
         try {
-          for (let i = 0; i < 2; i++) {
-            servers.push(
-              await startServer({
-                handle: await setup.open({ url }),
-                env: readEnv({ PORT: '0', NODE_ENV: 'test', DATABASE_URL: url }),
-                host: '127.0.0.1',
-                scrypt: TEST_SCRYPT,
-                limits: DEFAULT_LIMITS,
-                webDir: resolve('dist/web'),
-                sendMail: async (m) => {
-                  mail.push(m);
-                },
-                log: () => {},
-              }),
-            );
-          }
+          servers.push(...(await startSharedServers(setup, url, 2, { mail, webDir: resolve('dist/web') })));
           const [a, b] = servers;
           const errors: string[] = [];
           const owner = await (await browser.newContext(CONTEXT_OPTIONS)).newPage();

@@ -6,13 +6,12 @@ import { join, resolve } from 'node:path';
 import { expect, it } from 'vitest';
 import type { FormulaDetail } from '#shared/api';
 import { collectLoad } from '../../cli/commands/load.ts';
-import { DEFAULT_LIMITS } from '../../server/auth/rate-limit.ts';
 import { createUser } from '../../server/auth/users.ts';
-import { readEnv } from '../../server/env.ts';
 import { loadFolder } from '../../server/load/index.ts';
-import { startServer, type RunningServer } from '../../server/start.ts';
+import type { RunningServer } from '../../server/start.ts';
 import { forEachDatabase } from '../setup/databases.ts';
 import { emailOf, getJson, PASSWORD, sendJson, sessionCookie, TEST_SCRYPT } from './harness.ts';
+import { startSharedServers } from './shared-servers.ts';
 
 forEachDatabase(
   'two servers on one database',
@@ -27,20 +26,7 @@ forEachDatabase(
         const servers: RunningServer[] = [];
         const folder = mkdtempSync(join(tmpdir(), 'panform-two-servers-'));
         try {
-          for (let i = 0; i < 2; i++) {
-            servers.push(
-              await startServer({
-                handle: await setup.open({ url }),
-                env: readEnv({ PORT: '0', NODE_ENV: 'test', DATABASE_URL: url }),
-                host: '127.0.0.1',
-                scrypt: TEST_SCRYPT,
-                limits: { ...DEFAULT_LIMITS, slowdownStepMs: 0 },
-                webDir: null,
-                sendMail: async () => {},
-                log: () => {},
-              }),
-            );
-          }
+          servers.push(...(await startSharedServers(setup, url, 2)));
           const [a, b] = servers;
           const signIn = (s: RunningServer, password: string) => sendJson(`${s.url}/api/session`, 'POST', { email: emailOf('bench'), password });
 

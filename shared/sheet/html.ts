@@ -59,10 +59,14 @@ td.tick { width: 9mm; padding-left: 1mm; }
 table.steps { font-size: 9.5pt; width: 100%; margin-top: 2mm; }
 table.steps td { padding: 0.6mm 1.5mm; }
 table.steps td.time { white-space: nowrap; }
-section.mixes .block { border: 0.5mm solid var(--ink); border-radius: 2mm; padding: 2.5mm 3.5mm; }
+section.mixes .block { border: 0.5mm solid var(--ink); border-radius: 2mm; padding: 2.5mm 3.5mm; display: grid; grid-template-columns: 72mm 1fr; column-gap: 5mm; align-items: start; }
+section.mixes .block > :not(table) { grid-column: 1 / -1; }
 section.mixes .grid { display: block; }
-section.mixes table.weigh { width: auto; min-width: 110mm; }
-.big { font-size: 17pt; font-weight: 700; margin: 1mm 0; }
+section.mixes table.weigh td { padding: 0.6mm 1.5mm; }
+section.mixes table.weigh td.r { font-size: 12.5pt; }
+section.mixes table.steps { font-size: 8.5pt; margin-top: 1.5mm; }
+.block p { line-height: 1.25; }
+.big { font-size: 16pt; font-weight: 700; margin: 1mm 0; }
 .big span { margin-right: 8mm; }
 .blanks { display: flex; gap: 10mm; margin-top: 3mm; font-size: 11pt; }
 .box { border: 0.7mm solid var(--ink); border-radius: 2mm; padding: 2.5mm 4mm; margin: 3mm 0; break-inside: avoid; }

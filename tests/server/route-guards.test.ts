@@ -36,6 +36,12 @@ const MATRIX: Record<string, Case[]> = {
   'POST /api/password-reset': [
     { label: 'reset request', method: 'POST', path: '/api/password-reset', body: { email: 'nobody@tidewater.example' }, expect: all(202, 202) },
   ],
+  'PUT /api/me/preferences': [
+    { label: 'units', method: 'PUT', path: '/api/me/preferences', body: { unitSystem: 'metric' }, expect: all(200) },
+  ],
+  'POST /api/password-reset/check': [
+    { label: 'bad token', method: 'POST', path: '/api/password-reset/check', body: { token: 'nope' }, expect: all(422, 422) },
+  ],
   'POST /api/password-reset/confirm': [
     { label: 'bad token', method: 'POST', path: '/api/password-reset/confirm', body: { token: 'nope', password: 'long enough password' }, expect: all(422, 422) },
   ],

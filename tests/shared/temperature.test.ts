@@ -110,6 +110,19 @@ describe('computeIce', () => {
     expect(computeIce(20, C(70), C(50)).ice).toBeCloseTo(2.2047, 3); // with L = 333.55, c = 4.186: 0.3 % more than the rounded formula
   });
 
+  it('agrees with a published ice table, cell by cell', () => {
+    // Koerner Co., "Ice Temperature Table" (koerner-co.com/pages.php?pID=12): lb of ice per lb of the
+    // mix's water, rows = the water temperature wanted (°F), columns = tap water (°F). [wanted, tap, table]
+    const cells: [number, number, number][] = [
+      [50, 60, 0.057], [50, 70, 0.109], [50, 80, 0.155], [40, 50, 0.061], [40, 60, 0.115], [40, 70, 0.163],
+      [40, 80, 0.206], [60, 70, 0.054], [60, 80, 0.103], [70, 80, 0.052], [75, 80, 0.026], [45, 80, 0.181],
+    ];
+    for (const [wantF, tapF, table] of cells) {
+      // within 0.004 lb per lb: the table is printed to 3 decimals and its heat balance rounds L to 144 BTU/lb
+      expect(Math.abs(computeIce(1, C(tapF), C(wantF)).ice - table)).toBeLessThan(0.004);
+    }
+  });
+
   it('needs the ice of the published constants', () => {
     const share = (tap: number, target: number) => (tap - target) / (tap + 333.55 / 4.186);
     expect(computeIce(1000, 20, 10).ice).toBeCloseTo(1000 * share(20, 10), 9); // 100.32 g

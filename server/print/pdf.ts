@@ -1,13 +1,15 @@
 // The batch sheet as a PDF, drawn with pdfkit in Panform's own faces (no browser): the
-// same sections and figures as the text and HTML formats (shared/sheet/present.ts), tick boxes
+// sheet's one layout (shared/sheet/layout.ts), item by item in its order, as the HTML page and
+// the viewer draw it; tick boxes
 // beside every weight, the timeline chart drawn with vector shapes, the cautions in a box.
 //
 //   const pdf = await renderSheetPdf(sheet, { paper: 'a4' });   // Buffer
 //
 // Panform's faces (server/print/fonts.ts) are read from the installed packages unless passed in.
 import PDFDocument from 'pdfkit';
-import { chartModel, colourOf, legendOf, productionRange, type ChartModel } from '#shared/sheet/chart';
-import { presentSheet, type SheetBlock, type SheetSection, type SheetTable } from '#shared/sheet/present';
+import { colourOf, legendOf, type ChartModel } from '#shared/sheet/chart';
+import { layoutSheet, type ChartItem, type NoticeItem, type SectionItem } from '#shared/sheet/layout';
+import type { SheetBlock, SheetTable } from '#shared/sheet/present';
 import type { Sheet } from '#shared/sheet/types';
 import { PRINT_FACES, readPrintFonts, type PrintFace } from './fonts.ts';
 
@@ -191,9 +193,9 @@ function drawTable(w: Writer, t: SheetTable, s: TableStyle): void {
   }
 }
 
-function box(w: Writer, section: SheetSection | undefined, dashed: boolean): void {
-  if (!section) return;
-  const lines = section.blocks.flatMap((b) => b.lines);
+function box(w: Writer, notice: NoticeItem): void {
+  const dashed = notice.key === 'warnings';
+  const lines = notice.lines;
   const inner = w.width - 24;
   const heights = lines.map((l) => w.heightOf(`• ${l}`, 8.5, inner));
   const h = 24 + heights.reduce((a, b) => a + b + 2, 0) + 6;
@@ -203,7 +205,7 @@ function box(w: Writer, section: SheetSection | undefined, dashed: boolean): voi
   if (dashed) w.doc.dash(4, { space: 3 });
   w.doc.strokeColor(INK).stroke();
   w.doc.undash();
-  w.text(section.title, w.left + 12, top + 8, { size: 12, face: 'heading' });
+  w.text(notice.title, w.left + 12, top + 8, { size: 12, face: 'heading' });
   let y = top + 26;
   lines.forEach((l, i) => {
     w.text(`• ${l}`, w.left + 12, y, { size: 8.5, width: inner });
@@ -286,8 +288,7 @@ function chart(w: Writer, m: ChartModel): void {
   doc.moveTo(lx, ly - 1).lineTo(lx, ly + 8).lineWidth(1).dash(3, { space: 2 }).strokeColor(INK).stroke();
   doc.undash();
   w.text('first bake out', lx + 4, ly, { size: 6.5 });
-  w.y = ly + 16;
-  if (m.clipped) w.paragraph('Cooling after the last bake runs past the right edge.', 7, { colour: MUTED });
+  w.y = ly + 12;
 }
 
 const WEIGH_STYLE: TableStyle = { size: 10, weightSize: 11.5, pad: 2.3, minWidths: [125, 66] };
@@ -372,9 +373,52 @@ function columns(w: Writer, blocks: SheetBlock[]): void {
   w.y = end + 12;
 }
 
+function timeline(w: Writer, c: ChartItem): void {
+  sectionTitle(w, c.title, 24 + c.whole.rows.length * 9.5 + 42);
+  chart(w, c.whole);
+  w.paragraph(c.caption, 7, { colour: MUTED });
+  if (c.closeUp) {
+    const zoom = c.closeUp.model;
+    w.ensure(40 + zoom.rows.length * 9.5 + 42);
+    w.y += 6;
+    w.paragraph(c.closeUp.title, 12, { face: 'heading', gap: 2 });
+    chart(w, zoom);
+  }
+}
+
+function section(w: Writer, s: SectionItem): void {
+  // A section's title stays with its first card.
+  sectionTitle(w, s.title, s.key === 'mixes' ? 380 : 150);
+  if (s.key === 'preferments' || s.key === 'soakers') {
+    // Builds two by two, side by side.
+    for (let i = 0; i < s.blocks.length; i += 2) columns(w, s.blocks.slice(i, i + 2));
+    return;
+  }
+  for (const b of s.blocks) {
+    if (s.key === 'mixes') {
+      card(w, b);
+      continue;
+    }
+    const style: TableStyle =
+      s.key === 'formulas'
+        ? { size: 9, weightSize: 9, pad: 3 }
+        : { size: 10, weightSize: 11.5, pad: 2.5, maxWidth: 380, minWidths: s.key === 'totals' ? [190, 90, 100] : [230, 100] };
+    if (b.title || b.lines.length > 0) {
+      // Keep a block's title with the start of its table.
+      const head = (b.title ? 16 : 0) + b.lines.reduce((a, l) => a + w.heightOf(l, 9, w.width - 8) + 1, 0);
+      const rows = b.table ? Math.min(b.table.rows.length, 14) + 2 : 0;
+      w.ensure(head + rows * (style.weightSize * 1.2 + 2 * style.pad) + 8);
+      if (b.title) w.paragraph(b.title, 12.5, { face: 'heading', gap: 2 });
+      for (const l of b.lines) w.paragraph(l, 9, { indent: 8 });
+    }
+    if (b.table) drawTable(w, b.table, style);
+    w.y += 10;
+  }
+}
+
 export async function renderSheetPdf(sheet: Sheet, options: PdfOptions = {}): Promise<Buffer> {
   const fonts = options.fonts ?? readPrintFonts();
-  const p = presentSheet(sheet);
+  const p = layoutSheet(sheet);
   const doc = new PDFDocument({
     size: options.paper === 'letter' ? 'LETTER' : 'A4',
     margins: MARGIN,
@@ -394,49 +438,10 @@ export async function renderSheetPdf(sheet: Sheet, options: PdfOptions = {}): Pr
   w.paragraph(p.title, 18, { face: 'heading', gap: 4 });
   for (const s of p.subtitle) w.paragraph(s, 9, { colour: MUTED });
   w.y += 6;
-  box(w, p.sections.find((s) => s.key === 'cautions'), false);
-  box(w, p.sections.find((s) => s.key === 'warnings'), true);
-  const model = chartModel(sheet);
-  sectionTitle(w, 'Timeline chart', 24 + model.rows.length * 9.5 + 42);
-  chart(w, model);
-  const morning = productionRange(sheet);
-  if (morning) {
-    const zoom = chartModel(sheet, morning);
-    w.ensure(40 + zoom.rows.length * 9.5 + 42);
-    w.y += 6;
-    w.paragraph('The production morning, closer', 12, { face: 'heading', gap: 2 });
-    chart(w, zoom);
-  }
-
-  for (const s of p.sections) {
-    if (s.key === 'cautions' || s.key === 'warnings') continue;
-    // A section's title stays with its first card.
-    sectionTitle(w, s.title, s.key === 'mixes' ? 380 : 150);
-    if (s.key === 'preferments' || s.key === 'soakers') {
-      // Builds two by two, side by side.
-      for (let i = 0; i < s.blocks.length; i += 2) columns(w, s.blocks.slice(i, i + 2));
-      continue;
-    }
-    for (const b of s.blocks) {
-      if (s.key === 'mixes') {
-        card(w, b);
-        continue;
-      }
-      const style: TableStyle =
-        s.key === 'formulas'
-          ? { size: 9, weightSize: 9, pad: 3 }
-          : { size: 10, weightSize: 11.5, pad: 2.5, maxWidth: 380, minWidths: s.key === 'totals' ? [190, 90, 100] : [230, 100] };
-      if (b.title || b.lines.length > 0) {
-        // Keep a block's title with the start of its table.
-        const head = (b.title ? 16 : 0) + b.lines.reduce((a, l) => a + w.heightOf(l, 9, w.width - 8) + 1, 0);
-        const rows = b.table ? Math.min(b.table.rows.length, 14) + 2 : 0;
-        w.ensure(head + rows * (style.weightSize * 1.2 + 2 * style.pad) + 8);
-        if (b.title) w.paragraph(b.title, 12.5, { face: 'heading', gap: 2 });
-        for (const l of b.lines) w.paragraph(l, 9, { indent: 8 });
-      }
-      if (b.table) drawTable(w, b.table, style);
-      w.y += 10;
-    }
+  for (const item of p.items) {
+    if (item.kind === 'notice') box(w, item);
+    else if (item.kind === 'chart') timeline(w, item);
+    else section(w, item);
   }
 
   const range = doc.bufferedPageRange();

@@ -3,8 +3,9 @@
 // cautions in a box at the top. Self-contained: no script, no external file; the caller may pass
 // @font-face rules that embed Panform's faces (server/print/fonts.ts), else the page names them
 // and falls back to the system's. Pure; no I/O.
-import { chartModel, colourOf, legendOf, productionRange, type ChartModel } from './chart.ts';
-import { presentSheet, type SheetBlock, type SheetSection, type SheetTable } from './present.ts';
+import { colourOf, legendOf, type ChartModel } from './chart.ts';
+import { layoutSheet, type ChartItem, type NoticeItem, type SectionItem } from './layout.ts';
+import type { SheetBlock, SheetTable } from './present.ts';
 import { stepWord } from '../step-words.ts';
 import type { Sheet } from './types.ts';
 
@@ -104,15 +105,20 @@ function block(b: SheetBlock, cls: string): string {
   }</div>`;
 }
 
-function section(s: SheetSection): string {
+function section(s: SectionItem): string {
   const cls = s.key === 'formulas' ? 'summary' : 'weigh';
   const blocks = s.blocks.map((b) => block(b, cls)).join('');
   return `<section class="${s.key}"><h2>${escapeHtml(s.title)}</h2>${cls === 'weigh' ? `<div class="grid">${blocks}</div>` : blocks}</section>`;
 }
 
-function box(s: SheetSection | undefined, cls: string): string {
-  if (!s) return '';
-  return `<section class="box ${cls}"><h2>${escapeHtml(s.title)}</h2><ul>${s.blocks.flatMap((b) => b.lines).map((l) => `<li>${escapeHtml(l)}</li>`).join('')}</ul></section>`;
+function box(n: NoticeItem): string {
+  return `<section class="box ${n.key}"><h2>${escapeHtml(n.title)}</h2><ul>${n.lines.map((l) => `<li>${escapeHtml(l)}</li>`).join('')}</ul></section>`;
+}
+
+function chart(c: ChartItem): string {
+  return `<section class="chart"><h2>${escapeHtml(c.title)}</h2><figure class="chart">${timelineSvg(c.whole)}<figcaption>${escapeHtml(c.caption)}</figcaption></figure>${
+    c.closeUp ? `<h3>${escapeHtml(c.closeUp.title)}</h3><figure class="chart">${timelineSvg(c.closeUp.model)}</figure>` : ''
+  }</section>`;
 }
 
 /** The timeline chart as SVG: rows of bars, hour ticks, a line at the first bake out. */
@@ -188,33 +194,17 @@ function truncate(s: string, n: number): string {
 }
 
 export function renderSheetHtml(sheet: Sheet, options: HtmlOptions = {}): string {
-  const p = presentSheet(sheet);
+  const layout = layoutSheet(sheet);
   const paper = options.paper ?? 'a4';
-  const byKey = (k: SheetSection['key']) => p.sections.find((s) => s.key === k);
-  const model = chartModel(sheet);
   const body: string[] = [];
-  body.push(`<header><h1>${escapeHtml(p.title)}</h1><ul class="sub">${p.subtitle.map((s) => `<li>${escapeHtml(s)}</li>`).join('')}</ul></header>`);
-  body.push(box(byKey('cautions'), 'cautions'));
-  body.push(box(byKey('warnings'), 'warnings'));
-  const morning = productionRange(sheet);
-  const zoom = morning ? chartModel(sheet, morning) : undefined;
-  body.push(
-    `<section class="chart"><h2>Timeline</h2><figure class="chart">${timelineSvg(model)}<figcaption>Bars are steps; dashed bars are windows to mix a build in; the red dashed line is the first bake out.${
-      model.clipped ? ' Cooling after the last bake runs past the right edge.' : ''
-    }</figcaption></figure>${
-      zoom ? `<h3>The production morning, closer</h3><figure class="chart">${timelineSvg(zoom)}</figure>` : ''
-    }</section>`,
-  );
-  for (const s of p.sections) {
-    if (s.key === 'cautions' || s.key === 'warnings') continue;
-    body.push(section(s));
-  }
+  body.push(`<header><h1>${escapeHtml(layout.title)}</h1><ul class="sub">${layout.subtitle.map((s) => `<li>${escapeHtml(s)}</li>`).join('')}</ul></header>`);
+  for (const item of layout.items) body.push(item.kind === 'notice' ? box(item) : item.kind === 'chart' ? chart(item) : section(item));
   return `<!doctype html>
 <html lang="en">
 <head>
 <meta charset="utf-8">
 <meta name="viewport" content="width=device-width, initial-scale=1">
-<title>${escapeHtml(p.title)}</title>
+<title>${escapeHtml(layout.title)}</title>
 <style>
 ${css(paper, options.fontFaceCss ?? '')}
 </style>

@@ -1,9 +1,10 @@
 // The sheet as the bench reads it: sections of headed tables with rounded weights, shared by
 // the text, HTML and PDF renderers so that every format shows the same figures. Rounding happens
-// here (units.ts formatGrams) and nowhere earlier. Pure; no I/O.
+// here (units.ts formatMass, formatTemperature) and nowhere earlier; metric unless the reader
+// chose US customary units. Pure; no I/O.
 import { sum } from '../scale.ts';
 import { FRICTION_CONVENTION } from '../dough-water.ts';
-import { formatGrams, formatTemperature, formatTemperatureRange } from '../units.ts';
+import { celsiusDeltaToFahrenheit, formatMass, formatTemperature, formatTemperatureRange, temperatureUnitOf, type UnitSystem } from '../units.ts';
 import { shortTime } from './time.ts';
 import { stepWord } from '../step-words.ts';
 import type { Sheet, SheetBuild, SheetMix, TimelineEntry } from './types.ts';
@@ -30,6 +31,8 @@ export interface SheetBlock {
   steps?: SheetTable;
   /** Blanks to write in by hand, e.g. "dough off the mixer ____ °C". */
   blanks?: string[];
+  /** The mix a card is for (the viewer hangs its own parts on a mix's card by this). */
+  mix?: { order: number; mixNumber: number };
 }
 
 export type SectionKey = 'preferments' | 'soakers' | 'mixes' | 'totals' | 'formulas' | 'cautions' | 'warnings';
@@ -56,8 +59,35 @@ export function longDate(date: string): string {
   return `${WEEKDAYS[weekday]} ${d} ${MONTHS[m - 1]} ${y}`;
 }
 
-const g = (grams: number) => formatGrams(grams);
-const t = (celsius: number) => formatTemperature(celsius);
+/** How figures are written: grams and °C by default, or US customary units (the viewer's choice). */
+export interface Figures {
+  /** "1 234 g" or "2 lb 11.53 oz". */
+  g: (grams: number) => string;
+  /** "24.0 °C" or "75.2 °F". */
+  t: (celsius: number) => string;
+  /** "24.0–26.0 °C". */
+  range: (r: { min: number; max: number }) => string;
+  /** A temperature difference (friction, a mixer's rise): ×1.8 for °F, no offset. */
+  dt: (celsiusDegrees: number) => string;
+  /** "°C" or "°F", for the blanks. */
+  degree: string;
+}
+
+export function figuresFor(units: UnitSystem = 'metric'): Figures {
+  const unit = temperatureUnitOf(units);
+  return {
+    g: (grams) => formatMass(grams, units),
+    t: (celsius) => formatTemperature(celsius, unit),
+    range: (r) => formatTemperatureRange(r, unit),
+    dt: (d) => formatTemperature(unit === 'C' ? d : celsiusDeltaToFahrenheit(d), 'C').replace('°C', `°${unit}`),
+    degree: `°${unit}`,
+  };
+}
+
+export interface PresentOptions {
+  /** Metric unless the reader chose US customary units. */
+  units?: UnitSystem;
+}
 
 /** "03:32–03:42", or "2 Dec 11:47–11:55" off the plan's date. */
 export function span(from: string, to: string, planDate: string): string {
@@ -69,7 +99,8 @@ function hoursText(h: { min: number; max: number }): string {
   return h.min === h.max ? `${h.min} h` : `${h.min}–${h.max} h`;
 }
 
-function buildBlock(b: SheetBuild, sheet: Sheet): SheetBlock {
+function buildBlock(b: SheetBuild, sheet: Sheet, f: Figures): SheetBlock {
+  const { g, t } = f;
   const when = (x: string) => shortTime(x, sheet.date);
   const lines: string[] = [];
   const forWhom = b.formulas.length > 1 ? `combined for ${b.formulas.join(' + ')}` : `for ${b.formula}`;
@@ -89,7 +120,7 @@ function buildBlock(b: SheetBuild, sheet: Sheet): SheetBlock {
   for (const l of b.ingredients) {
     rows.push([l.seed ? `${l.ingredient} (seed)` : l.ingredient, g(l.grams)]);
     tick.push(true);
-    if (l.kind === 'water' && b.ice > 0) addIceRows(rows, tick, b.ice, b.tapWater, sheet.conditions.tapWater);
+    if (l.kind === 'water' && b.ice > 0) addIceRows(rows, tick, b.ice, b.tapWater, sheet.conditions.tapWater, f);
   }
   return {
     title: `${b.name} · ${g(b.grams)}`,
@@ -98,22 +129,23 @@ function buildBlock(b: SheetBuild, sheet: Sheet): SheetBlock {
   };
 }
 
-function addIceRows(rows: string[][], tick: boolean[], ice: number, tapWater: number, tapT: number): void {
+function addIceRows(rows: string[][], tick: boolean[], ice: number, tapWater: number, tapT: number, { g, t }: Figures): void {
   rows.push(['  as ice', g(ice)]);
   tick.push(true);
   rows.push([`  as tap water (${t(tapT)})`, g(tapWater)]);
   tick.push(true);
 }
 
-function mixBlock(m: SheetMix, sheet: Sheet, repeated: boolean): SheetBlock {
+function mixBlock(m: SheetMix, sheet: Sheet, repeated: boolean, f: Figures): SheetBlock {
+  const { g, t } = f;
   const lines: string[] = [];
   lines.push(`${m.mixer} · mix at ${span(m.start, m.end, sheet.date)}${m.customer ? ` · for ${m.customer}` : ''}`);
   if (m.waterTemperature !== null && m.doughTemperature !== null) {
-    const f = m.factors!;
-    const pre = f.preferments.map((x) => ` − ${x.name} ${t(x.temperature)} (${x.source})`).join('');
-    const aim = m.doughTemperatureRange ? `${formatTemperatureRange(m.doughTemperatureRange)}, aim ${t(m.doughTemperature)}` : t(m.doughTemperature);
+    const fa = m.factors!;
+    const pre = fa.preferments.map((x) => ` − ${x.name} ${t(x.temperature)} (${x.source})`).join('');
+    const aim = m.doughTemperatureRange ? `${f.range(m.doughTemperatureRange)}, aim ${t(m.doughTemperature)}` : t(m.doughTemperature);
     const liquid = m.liquid === null || m.liquid === 'water' ? (m.bassinage ? 'main water' : 'water') : m.liquid;
-    const sum = `${f.n} × ${t(m.doughTemperature)} − room ${t(f.room)} − flour ${t(f.flour)}${pre} − friction ${t(f.friction)} (${f.n} × rise ${t(f.rise)})`;
+    const sum = `${fa.n} × ${t(m.doughTemperature)} − room ${t(fa.room)} − flour ${t(fa.flour)}${pre} − friction ${f.dt(fa.friction)} (${fa.n} × rise ${f.dt(fa.rise)})`;
     lines.push(`${liquid} at ${t(m.waterTemperature)} for dough at ${aim} (${sum}${m.bassinage ? '; with the bassinage' : ''})`);
   }
   if (m.bassinage) lines.push(`bassinage: hold back ${g(m.bassinage.grams)} of the water at ${t(m.bassinage.temperature)}; add it late in the mix`);
@@ -126,7 +158,7 @@ function mixBlock(m: SheetMix, sheet: Sheet, repeated: boolean): SheetBlock {
     const name = l.kind === 'preferment' ? `${l.ingredient} (pre-ferment)` : l.kind === 'soaker' ? `${l.ingredient} (soaker)` : l.ingredient;
     rows.push([name, g(l.grams)]);
     tick.push(true);
-    if (l.kind === 'water' && m.ice > 0) addIceRows(rows, tick, m.ice, m.tapWater, sheet.conditions.tapWater);
+    if (l.kind === 'water' && m.ice > 0) addIceRows(rows, tick, m.ice, m.tapWater, sheet.conditions.tapWater, f);
     if (l.kind === 'water' && m.bassinage) {
       rows.push([`  held back: bassinage (${t(m.bassinage.temperature)}), add late`, g(m.bassinage.grams)]);
       tick.push(true);
@@ -137,9 +169,10 @@ function mixBlock(m: SheetMix, sheet: Sheet, repeated: boolean): SheetBlock {
     lines,
     big,
     table: { head: ['ingredient', 'weigh'], rows, align: ['left', 'right'], tick, footer: ['dough', g(m.dough)] },
-    steps: mixSteps(m, sheet),
+    steps: mixSteps(m, sheet, f),
+    mix: { order: m.order, mixNumber: m.mixNumber },
     blanks: [
-      m.doughTemperature !== null ? `dough off the mixer ______ °C (aim ${t(m.doughTemperature)})` : 'dough off the mixer ______ °C',
+      m.doughTemperature !== null ? `dough off the mixer ______ ${f.degree} (aim ${t(m.doughTemperature)})` : `dough off the mixer ______ ${f.degree}`,
       'mixed by (initials) ______',
     ],
   };
@@ -148,7 +181,7 @@ function mixBlock(m: SheetMix, sheet: Sheet, repeated: boolean): SheetBlock {
 const VESSEL: Record<NonNullable<TimelineEntry['vessel']>, string> = { deck: 'on the deck', tray: 'on trays', pot: 'in pots', tin: 'in tins', stone: 'on the stone' };
 
 /** What one step of a mix asks for, beside its clock time. */
-function stepDetail(e: TimelineEntry, m: SheetMix, sheet: Sheet): string {
+function stepDetail(e: TimelineEntry, m: SheetMix, sheet: Sheet, { g, t }: Figures): string {
   const when = (x: string) => shortTime(x, sheet.date);
   const what: string[] = [];
   if (e.step === 'mix' && e.resource?.startsWith('mixer:')) what.push(e.resource.slice('mixer:'.length));
@@ -169,20 +202,22 @@ function stepDetail(e: TimelineEntry, m: SheetMix, sheet: Sheet): string {
 }
 
 /** The mix's own steps, each with its clock times. */
-function mixSteps(m: SheetMix, sheet: Sheet): SheetTable {
+function mixSteps(m: SheetMix, sheet: Sheet, f: Figures): SheetTable {
   const rows = sheet.timeline
     .filter((e) => !e.window && e.order === m.order && e.mixNumber === m.mixNumber)
-    .map((e) => [span(e.start, e.end, sheet.date), stepWord(e.step), stepDetail(e, m, sheet)]);
+    .map((e) => [span(e.start, e.end, sheet.date), stepWord(e.step), stepDetail(e, m, sheet, f)]);
   return { head: ['time', 'step', 'what'], rows, align: ['left', 'left', 'left'], tick: rows.map(() => true) };
 }
 
-export function presentSheet(sheet: Sheet): PresentedSheet {
+export function presentSheet(sheet: Sheet, options: PresentOptions = {}): PresentedSheet {
+  const f = figuresFor(options.units);
+  const { g, t } = f;
   const when = (x: string) => shortTime(x, sheet.date);
   const c = sheet.conditions;
   const subtitle = [
     `first bake out of the oven at ${when(sheet.readyBy)}`,
     `room ${t(c.room)} · flour ${t(c.flour)} · tap water ${t(c.tapWater)}${c.preferment !== undefined ? ` · pre-ferments without a temperature of their own ${t(c.preferment)}` : ''}`,
-    `mixers: ${sheet.mixers.map((m) => `${m.name} ${m.kind === 'hand' ? `by hand, ${g(m.capacityGrams)} a person` : g(m.capacityGrams)}${m.minimumGrams !== undefined ? ` (min ${g(m.minimumGrams)})` : ''}, rise ${t(m.rise)}${m.riseFrom === 'friction' ? ` (straight-dough friction ${t(m.rise * 3)} ÷ 3)` : m.riseFrom === 'hand default' ? ' (hand mixing, common practice)' : ''}`).join(' · ')}`,
+    `mixers: ${sheet.mixers.map((m) => `${m.name} ${m.kind === 'hand' ? `by hand, ${g(m.capacityGrams)} a person` : g(m.capacityGrams)}${m.minimumGrams !== undefined ? ` (min ${g(m.minimumGrams)})` : ''}, rise ${f.dt(m.rise)}${m.riseFrom === 'friction' ? ` (straight-dough friction ${f.dt(m.rise * 3)} ÷ 3)` : m.riseFrom === 'hand default' ? ' (hand mixing, common practice)' : ''}`).join(' · ')}`,
     `water temperatures by the ${FRICTION_CONVENTION}; each pre-ferment at its own ripening temperature`,
   ];
   if (sheet.ranges !== 'mid') subtitle.push(`step ranges: ${sheet.ranges} end`);
@@ -190,14 +225,14 @@ export function presentSheet(sheet: Sheet): PresentedSheet {
 
   const sections: SheetSection[] = [];
   if (sheet.preferments.length > 0) {
-    sections.push({ key: 'preferments', title: 'Pre-ferments to build', blocks: sheet.preferments.map((b) => buildBlock(b, sheet)) });
+    sections.push({ key: 'preferments', title: 'Pre-ferments to build', blocks: sheet.preferments.map((b) => buildBlock(b, sheet, f)) });
   }
   if (sheet.soakers.length > 0) {
-    sections.push({ key: 'soakers', title: 'Soakers', blocks: sheet.soakers.map((b) => buildBlock(b, sheet)) });
+    sections.push({ key: 'soakers', title: 'Soakers', blocks: sheet.soakers.map((b) => buildBlock(b, sheet, f)) });
   }
   const orders = new Map<string, Set<number>>();
   for (const m of sheet.mixes) orders.set(m.formula, (orders.get(m.formula) ?? new Set()).add(m.order));
-  sections.push({ key: 'mixes', title: 'Mix cards', blocks: sheet.mixes.map((m) => mixBlock(m, sheet, orders.get(m.formula)!.size > 1)) });
+  sections.push({ key: 'mixes', title: 'Mix cards', blocks: sheet.mixes.map((m) => mixBlock(m, sheet, orders.get(m.formula)!.size > 1, f)) });
 
   const totalRows = sheet.totals.map((l) => [l.ingredient, l.kind, g(l.grams)]);
   sections.push({

@@ -5,6 +5,7 @@ import { useEffect } from 'react';
 import { Logo } from '../components/logo.tsx';
 import { setDeviceUnitSystem } from '../lib/units.ts';
 import { useMe } from '../features/auth/api/get-me.ts';
+import { useOutbox, useOutboxSender } from '../features/records/use-outbox.ts';
 import { paths } from './paths.ts';
 
 const shortRole: Record<string, string> = { bench: 'Bench', reviewer: 'Head baker', author: 'Technical baker', admin: 'Owner' };
@@ -18,6 +19,9 @@ export function AppShell() {
     if (accountUnits) setDeviceUnitSystem(accountUnits);
   }, [accountUnits]);
   const can = (p: Permission) => me?.permissions.includes(p) ?? false;
+  // Records kept on this tablet while offline are sent from any page once someone is signed in.
+  useOutboxSender(me !== undefined);
+  const waiting = useOutbox().items;
   const links = [
     { to: paths.formulas.getHref(), label: 'Formulas', show: true },
     { to: paths.plans.getHref(), label: 'Bake days', show: can('read:plan') },
@@ -54,6 +58,15 @@ export function AppShell() {
               </NavLink>
             ))}
           </nav>
+          {waiting.length > 0 && (
+            <NavLink
+              to={paths.plan.getHref(waiting[0].date)}
+              className="flex min-h-12 items-center gap-2 rounded-xl border-2 border-dashed border-honey bg-honey-soft px-3 font-semibold text-ink"
+              data-testid="outbox-badge"
+            >
+              <span className="figure rounded-full bg-honey px-2 text-on-crust">{waiting.length}</span> waiting to send
+            </NavLink>
+          )}
           <NavLink
             to={paths.account.getHref()}
             className={({ isActive }) =>

@@ -18,7 +18,8 @@ import { FinishesTable } from '../../features/formulas/components/finishes-table
 import { LabelPanel } from '../../features/formulas/components/label-panel.tsx';
 import { ProcessSteps } from '../../features/formulas/components/process-steps.tsx';
 import { ScaleControl } from '../../features/formulas/components/scale-control.tsx';
-import { WaterTemperatureHelper } from '../../features/formulas/components/water-temperature.tsx';
+import { WaterTemperatureHelper, type UseFriction } from '../../features/formulas/components/water-temperature.tsx';
+import { useFrictionProposal } from '../../features/records/api/get-friction.ts';
 import { getPlanQueryOptions } from '../../features/plans/api/get-plan.ts';
 import { usePlans } from '../../features/plans/api/get-plans.ts';
 import { searchFromTarget, targetFromSearch } from '../../features/formulas/scale-target.ts';
@@ -186,5 +187,11 @@ function useBakeDay(date: string): Plan | undefined {
 /** The water helper wired to the plans: the bake days to start from and their conditions. */
 function WaterPanel({ formula, scaled, catalog, onIce }: { formula: Formula; scaled: ScaleResult; catalog: Catalog; onIce: (ice: boolean) => void }) {
   const dates = usePlans().data?.plans.map((p) => p.date) ?? [];
-  return <WaterTemperatureHelper formula={formula} scaled={scaled} catalog={catalog} days={{ dates, usePlan: useBakeDay }} onIce={onIce} />;
+  return <WaterTemperatureHelper formula={formula} scaled={scaled} catalog={catalog} days={{ dates, usePlan: useBakeDay }} onIce={onIce} useFriction={useBenchFriction} />;
 }
+
+/** The friction learned from the bench's records, for those who may read records. */
+const useBenchFriction: UseFriction = (mixer, formula, date) => {
+  const canRead = ((useMe().data?.permissions ?? []) as readonly string[]).includes('read:record');
+  return useFrictionProposal(mixer, formula, date, canRead);
+};

@@ -5,6 +5,10 @@ import { PanelBoundary } from '../../components/error-boundary.tsx';
 import { Notice, PageHeading, Panel } from '../../components/panel.tsx';
 import { QueryState } from '../../components/query-state.tsx';
 import { usePlan } from '../../features/plans/api/get-plan.ts';
+import { useDayRecords } from '../../features/records/components/day-records.tsx';
+import { OutboxStatus } from '../../features/records/components/outbox-status.tsx';
+import { FrictionProposals } from '../../features/records/components/friction-proposals.tsx';
+import type { FrictionProposal } from '../../features/records/api/types.ts';
 import { BuildCard, Conditions, FormulaTotals, MixCard, PickList } from '../../features/plans/components/plan-sheet.tsx';
 import { TimelineChart } from '../../features/plans/components/timeline-chart.tsx';
 import { longDate } from '../../lib/format.ts';
@@ -26,6 +30,7 @@ function PlanPage({ detail }: { detail: PlanDetail }) {
   const titles = new Map(sheet.formulas.map((f) => [f.formula, f.title]));
   const titleOf = (id: string) => titles.get(id) ?? id;
   const mixes = [...sheet.mixes].sort((a, b) => a.start.localeCompare(b.start));
+  const records = useDayRecords(sheet.date);
   return (
     <article data-plan={sheet.date}>
       <PageHeading kicker={`Bake day · first bake out by ${sheet.readyBy.slice(11)}`} title={longDate(sheet.date)}>
@@ -38,6 +43,8 @@ function PlanPage({ detail }: { detail: PlanDetail }) {
       </PageHeading>
 
       <div className="space-y-4 print:space-y-2">
+        <OutboxStatus date={sheet.date} />
+        {records.problem && <Notice title="The bench's records could not be fetched">{records.problem}</Notice>}
         {(sheet.notes || sheet.warnings.length > 0) && (
           <div className="space-y-2">
             {sheet.notes && <Notice tone="info">{sheet.notes}</Notice>}
@@ -54,6 +61,7 @@ function PlanPage({ detail }: { detail: PlanDetail }) {
         )}
         <Panel title="Conditions" id="conditions">
           <Conditions sheet={sheet} />
+          <FrictionProposals proposals={(sheet as { frictionProposals?: FrictionProposal[] }).frictionProposals ?? []} />
         </Panel>
         <PanelBoundary title="Timeline" resetKeys={[sheet.date]}>
           <Panel title="The night at a glance" id="timeline">
@@ -64,7 +72,9 @@ function PlanPage({ detail }: { detail: PlanDetail }) {
           <Panel title="Builds to make ahead" id="builds">
             <div className="grid gap-3 lg:grid-cols-2 print:grid-cols-2">
               {builds.map((b) => (
-                <BuildCard key={`${b.formula}-${b.name}-${b.batch}`} build={b} date={sheet.date} titleOf={titleOf} />
+                <BuildCard key={`${b.formula}-${b.name}-${b.batch}`} build={b} date={sheet.date} titleOf={titleOf}>
+                  {records.forBuild(b)}
+                </BuildCard>
               ))}
             </div>
           </Panel>
@@ -72,7 +82,9 @@ function PlanPage({ detail }: { detail: PlanDetail }) {
         <Panel title="Mixes" id="mixes">
           <div className="grid gap-3 lg:grid-cols-2 print:grid-cols-2">
             {mixes.map((m) => (
-              <MixCard key={`${m.order}-${m.mixNumber}`} mix={m} date={sheet.date} />
+              <MixCard key={`${m.order}-${m.mixNumber}`} mix={m} date={sheet.date}>
+                {records.forMix(m)}
+              </MixCard>
             ))}
           </div>
         </Panel>

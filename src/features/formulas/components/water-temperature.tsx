@@ -4,7 +4,9 @@ import type { Catalog, Formula, Plan } from '#shared/model';
 import type { ScaleResult } from '#shared/scale';
 import { formatTemperatureRange } from '#shared/units';
 import { readNumber, SelectField, TextField } from '../../../components/field.tsx';
+import { Button } from '../../../components/button.tsx';
 import { useUnits } from '../../../lib/units.ts';
+import type { FrictionProposal } from '../../records/api/types.ts';
 
 /** The readings last typed on this device, kept between visits (they are the bench's, not the file's). */
 export const READINGS_KEY = 'panform:water-readings';
@@ -72,8 +74,31 @@ export interface BakeDays {
   usePlan: (date: string) => Plan | undefined;
 }
 
-/** `onIce` hears whether the water now takes ice, so the page's cautions can say how to handle it. */
-export function WaterTemperatureHelper({ formula, scaled, catalog, days, onIce }: { formula: Formula; scaled: ScaleResult; catalog: Catalog; days: BakeDays; onIce?: (ice: boolean) => void }) {
+/** The friction the bench's records propose for a mixer and formula (GET /api/friction); the app wires it. */
+export type UseFriction = (mixer: string, formula: string, date: string) => FrictionProposal | undefined;
+
+const noFriction: UseFriction = () => undefined;
+
+/**
+ * `onIce` hears whether the water now takes ice, so the page's cautions can say how to handle it.
+ * `useFriction` gives the friction learned from the bench's records: shown with its basis, used
+ * only when the baker chooses it; the plan file's rise stays the default.
+ */
+export function WaterTemperatureHelper({
+  formula,
+  scaled,
+  catalog,
+  days,
+  onIce,
+  useFriction = noFriction,
+}: {
+  formula: Formula;
+  scaled: ScaleResult;
+  catalog: Catalog;
+  days: BakeDays;
+  onIce?: (ice: boolean) => void;
+  useFriction?: UseFriction;
+}) {
   const { grams, temperature: celsius, degrees } = useUnits();
   const [readings, setReadings] = useState<Readings>(() => loadReadings() ?? EMPTY);
   const [ddt, setDdt] = useState(formula.doughTemperature === undefined ? '' : String(formula.doughTemperature));
@@ -110,6 +135,7 @@ export function WaterTemperatureHelper({ formula, scaled, catalog, days, onIce }
   useEffect(() => onIce?.(takesIce), [onIce, takesIce]);
   const liquidName = water?.liquid && water.liquid.kind === 'other' ? water.liquid.names.join(' and ') : water?.bassinage ? 'main water' : 'water';
   const mixer = plan?.mixers.find((m) => m.name === readings.mixer);
+  const proposal = useFriction(readings.mixer, formula.id, chosen);
 
   return (
     <div data-testid="water-helper" className="space-y-3">
@@ -173,6 +199,14 @@ export function WaterTemperatureHelper({ formula, scaled, catalog, days, onIce }
         />
         <TextField label="Tap water" inputMode="decimal" suffix="°C" value={readings.tap} onChange={set('tap')} />
       </div>
+      {proposal && (
+        <FrictionOffer
+          proposal={proposal}
+          fileRise={mixer?.rise}
+          rise={readNumber(readings.rise)}
+          onUse={(rise) => update({ ...readings, rise: String(Number(rise.toFixed(2))) })}
+        />
+      )}
       <p className={`text-sm text-muted ${missing ? 'print:hidden' : ''}`} data-testid="water-convention">
         By the {FRICTION_CONVENTION} (the dough comes off the mixer at its factors' average plus the rise). Pre-ferments count at the temperature measured tonight, else their ripening temperature.
         {readings.date && <> Readings kept on this device, started from {readings.date}{readings.mixer ? `, ${readings.mixer}` : ''}.</>}
@@ -227,6 +261,55 @@ export function WaterTemperatureHelper({ formula, scaled, catalog, days, onIce }
             </li>
           ))}
         </ul>
+      )}
+    </div>
+  );
+}
+
+/** The bench's friction for this mixer and dough, offered beside the file's: never put in by itself. */
+function FrictionOffer({ proposal: p, fileRise, rise, onUse }: { proposal: FrictionProposal; fileRise: number | undefined; rise: number | null; onUse: (rise: number) => void }) {
+  const { degrees } = useUnits();
+  const same = (a: number | null | undefined, b: number) => a !== null && a !== undefined && Math.abs(a - b) < 0.005;
+  const usingBench = same(rise, p.rise);
+  if (p.status === 'too few') {
+    return (
+      <p className="text-sm text-muted print:hidden" data-testid="friction-proposal" data-status={p.status}>
+        The bench has recorded {p.mixes} {p.mixes === 1 ? 'mix' : 'mixes'} of this dough on {p.mixer}; a friction is proposed from a few more.
+      </p>
+    );
+  }
+  return (
+    <div className="rounded-xl border-2 border-sage bg-sage-soft p-3 print:hidden" data-testid="friction-proposal" data-status={p.status}>
+      <p>
+        <span className="font-semibold">From the bench's records: </span>
+        {p.mixer} rises <strong className="figure">{degrees(p.rise)}</strong> with this dough (straight-dough friction <span className="figure">{degrees(p.friction)}</span>),{' '}
+        <span data-testid="friction-basis">{p.basis}</span>
+        {p.outliers.length > 0 && (
+          <>
+            ; left out as far from the rest: {p.outliers.map((o) => `${o.date} (${degrees(o.rise)})`).join(', ')}
+          </>
+        )}
+        .
+      </p>
+      <p className="mt-1 text-sm text-muted">
+        {p.status === 'agrees' ? 'It agrees with the plan file. ' : ''}
+        {fileRise !== undefined && <>The plan file's rise, {degrees(fileRise)}, stays the default until the file is changed{p.change ? ` (${p.change})` : ''}.</>}
+      </p>
+      {p.status === 'propose' && (
+        <div className="mt-2 flex flex-wrap gap-2">
+          {usingBench ? (
+            fileRise !== undefined && (
+              <Button tone="plain" onClick={() => onUse(fileRise)}>
+                Back to the file's {degrees(fileRise)}
+              </Button>
+            )
+          ) : (
+            <Button tone="primary" onClick={() => onUse(p.rise)} data-testid="use-friction">
+              Use {degrees(p.rise)} tonight
+            </Button>
+          )}
+          {usingBench && <span className="self-center font-semibold text-sage">Using the bench's rise.</span>}
+        </div>
       )}
     </div>
   );

@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import type { Sheet, SheetBuild, SheetMix } from '#shared/sheet/types';
 import { shortTime } from '#shared/sheet/time';
 import { Ledger } from '../../../components/ledger.tsx';
@@ -53,7 +54,8 @@ function WaterLine({ temperature, ice, tapWater, water, liquid = 'water' }: { te
   );
 }
 
-export function BuildCard({ build, date, titleOf }: { build: SheetBuild; date: string; titleOf: (id: string) => string }) {
+/** `children`: what goes under the build's lines (the bench's records for it). */
+export function BuildCard({ build, date, titleOf, children }: { build: SheetBuild; date: string; titleOf: (id: string) => string; children?: ReactNode }) {
   const { grams, weight, temperature } = useUnits();
   return (
     <article className="break-inside-avoid rounded-xl border border-line bg-page/50 p-3 print:rounded-none print:border-0 print:border-t print:p-0 print:pt-1" data-testid="sheet-build">
@@ -94,11 +96,13 @@ export function BuildCard({ build, date, titleOf }: { build: SheetBuild; date: s
         total={{ label: 'Whole build', weight: grams(build.grams) }}
       />
       {build.note && <p className="mt-1 text-sm text-muted">{build.note}</p>}
+      {children}
     </article>
   );
 }
 
-export function MixCard({ mix, date }: { mix: SheetMix; date: string }) {
+/** `children`: what goes under the mix's lines (the bench's records for it). */
+export function MixCard({ mix, date, children }: { mix: SheetMix; date: string; children?: ReactNode }) {
   const { grams, weight, pieceWeight, temperature } = useUnits();
   return (
     <article className="break-inside-avoid rounded-xl border border-line bg-page/50 p-3 print:rounded-none print:border-0 print:border-t print:p-0 print:pt-1" data-testid="sheet-mix">
@@ -150,6 +154,7 @@ export function MixCard({ mix, date }: { mix: SheetMix; date: string }) {
         }))}
         total={{ label: 'Mixed dough', weight: grams(mix.dough) }}
       />
+      {children}
     </article>
   );
 }

@@ -278,23 +278,22 @@ function FrictionOffer({ proposal: p, fileRise, rise, onUse }: { proposal: Frict
       </p>
     );
   }
+  const day = (iso: string) => {
+    const [, m, d] = iso.split('-').map(Number);
+    return `${d} ${['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'][m - 1]}`;
+  };
   return (
     <div className="rounded-xl border-2 border-sage bg-sage-soft p-3 print:hidden" data-testid="friction-proposal" data-status={p.status}>
       <p>
         <span className="font-semibold">From the bench's records: </span>
-        {p.mixer} rises <strong className="figure">{degrees(p.rise)}</strong> with this dough (straight-dough friction <span className="figure">{degrees(p.friction)}</span>),{' '}
-        <span data-testid="friction-basis">{p.basis}</span>
-        {p.outliers.length > 0 && (
-          <>
-            ; left out as far from the rest: {p.outliers.map((o) => `${o.date} (${degrees(o.rise)})`).join(', ')}
-          </>
-        )}
-        .
+        {p.mixer} rises <strong className="figure whitespace-nowrap">{degrees(p.rise)}</strong> with this dough, <span data-testid="friction-basis">{p.basis}</span>
+        {p.outliers.length > 0 && <> ({p.outliers.length} left out: {p.outliers.map((o) => `${day(o.date)}, ${degrees(o.rise)}`).join('; ')})</>}.
       </p>
-      <p className="mt-1 text-sm text-muted">
-        {p.status === 'agrees' ? 'It agrees with the plan file. ' : ''}
-        {fileRise !== undefined && <>The plan file's rise, {degrees(fileRise)}, stays the default until the file is changed{p.change ? ` (${p.change})` : ''}.</>}
-      </p>
+      {fileRise !== undefined && (
+        <p className="mt-1 text-sm text-muted">
+          {p.status === 'agrees' ? 'It agrees with the plan file. ' : ''}The plan file's rise, <span className="whitespace-nowrap">{degrees(fileRise)}</span>, stays the default until the file is changed.
+        </p>
+      )}
       {p.status === 'propose' && (
         <div className="mt-2 flex flex-wrap gap-2">
           {usingBench ? (

@@ -44,11 +44,6 @@ export interface RecordTarget {
   doughTemperature: number | null;
   waterTemperature: number | null;
   start: string | null;
-  /** Mixes: the sheet's order index and mix number; builds: name and batch (when the server gives them). */
-  order?: number;
-  mixNumber?: number;
-  name?: string;
-  batch?: number;
 }
 
 export interface RecordListResponse {

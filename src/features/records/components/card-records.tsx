@@ -77,9 +77,7 @@ function StoredEntry({ record: r, byId, canWrite, canHide, date, onCorrect }: { 
         <span className={faded ? 'text-muted line-through decoration-2' : ''}>
           <Figures kind={r.kind} dough={r.doughTemperature} water={r.waterTemperature} ripe={r.ripe} />
         </span>
-        <span className="font-semibold" title={r.by.name}>
-          {r.initials}
-        </span>
+        <Initials initials={r.initials} name={r.by.name} />
         {r.corrects !== null && <Badge tone="plain">correction of {byId.has(r.corrects) ? clock(byId.get(r.corrects)!.recordedAt) : `#${r.corrects}`}</Badge>}
       </div>
       {r.note && <p className={`mt-0.5 ${faded ? 'text-muted' : ''}`}>{r.note}</p>}
@@ -174,7 +172,7 @@ function PendingEntry({ pending: p }: { pending: PendingRecord }) {
       <div className="flex flex-wrap items-baseline gap-x-3 gap-y-1">
         <span className="figure text-lg font-bold">{clock(p.fields.recordedAt)}</span>
         <Figures kind={p.fields.kind} dough={p.fields.doughTemperature} water={p.fields.waterTemperature} ripe={p.fields.ripe} />
-        <span className="font-semibold">{p.fields.initials}</span>
+        <Initials initials={p.fields.initials} />
         <span className={`ml-auto rounded-full px-3 py-0.5 text-sm font-bold ${refused ? 'bg-ember text-on-crust' : 'bg-honey text-on-crust'}`} data-testid="waiting-badge">
           {refused ? 'Not sent' : 'Waiting to send'}
         </span>
@@ -198,5 +196,13 @@ function PendingEntry({ pending: p }: { pending: PendingRecord }) {
         <p className="mt-0.5 text-sm text-muted">Kept on this tablet; it is sent when the connection is back.</p>
       )}
     </li>
+  );
+}
+
+function Initials({ initials, name }: { initials: string; name?: string }) {
+  return (
+    <span className="rounded-full bg-sunk px-2 text-base font-bold" title={name ? `${name} (${initials})` : initials} aria-label={`by ${initials}`}>
+      {initials}
+    </span>
   );
 }

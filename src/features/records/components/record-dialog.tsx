@@ -216,10 +216,10 @@ export function RecordDialog({ date, target, correcting, onClose }: RecordDialog
               />
             </div>
           )}
-          <div className="sm:col-span-2">
-            <NoteField value={note} onChange={setNote} error={errors.note} />
+          <div className="sm:col-span-2 lg:col-span-1">
+            <NoteField value={note} onChange={setNote} error={errors.note} placeholder={isMix ? 'slack, added 1 % water' : 'domed, bubbly, just starting to sink'} />
           </div>
-          <div className="sm:col-span-2">
+          <div className="sm:col-span-2 lg:col-span-1">
             <p className="mb-1 font-semibold">Photos</p>
             <div className="flex flex-wrap items-start gap-3">
               {photos.map((p, i) => (
@@ -267,7 +267,8 @@ export function RecordDialog({ date, target, correcting, onClose }: RecordDialog
             {failure}
           </p>
         )}
-        <footer className="flex flex-wrap justify-end gap-3 border-t-2 border-line pt-4">
+        {/* Kept in sight at the foot of the dialog: Save is never below the fold. */}
+        <footer className="sticky bottom-0 -mx-5 -mb-5 flex flex-wrap justify-end gap-3 border-t-2 border-line bg-card px-5 py-4">
           <Button tone="plain" onClick={onClose} className="min-w-32 text-lg">
             Cancel
           </Button>
@@ -280,7 +281,7 @@ export function RecordDialog({ date, target, correcting, onClose }: RecordDialog
   );
 }
 
-function NoteField({ value, onChange, error }: { value: string; onChange: (v: string) => void; error?: string }) {
+function NoteField({ value, onChange, error, placeholder }: { value: string; onChange: (v: string) => void; error?: string; placeholder: string }) {
   const id = useId();
   return (
     <div>
@@ -289,12 +290,12 @@ function NoteField({ value, onChange, error }: { value: string; onChange: (v: st
       </label>
       <textarea
         id={id}
-        rows={2}
+        rows={3}
         value={value}
         onChange={(e) => onChange(e.target.value)}
-        placeholder="slack, added 1 % water"
+        placeholder={placeholder}
         aria-invalid={error ? true : undefined}
-        className="min-h-20 w-full rounded-xl border-2 border-line bg-card px-3 py-2 text-lg text-ink placeholder:text-muted/70 hover:border-muted focus:border-crust"
+        className="min-h-28 w-full rounded-xl border-2 border-line bg-card px-3 py-2 text-lg text-ink placeholder:text-muted/70 hover:border-muted focus:border-crust"
       />
       {error && <p className="mt-1 text-sm font-semibold text-ember">{error}</p>}
     </div>

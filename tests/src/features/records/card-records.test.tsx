@@ -73,21 +73,21 @@ describe('a card’s records', () => {
 
 describe('which target a sheet card is', () => {
   const mix = { formula: 'harbour-ciabatta', order: 0, mixNumber: 1, start: '2026-12-03T01:10', mixer: 'spiral' } as SheetMix;
-  it('matches by the sheet order and mix number when the server gives them', () => {
-    const targets = [
-      { ...target, order: 0, mixNumber: 2, target: 'harbour-ciabatta/2' },
-      { ...target, order: 0, mixNumber: 1, target: 'harbour-ciabatta/1' },
-    ];
-    expect(targetForMix(targets, mix)?.target).toBe('harbour-ciabatta/1');
+  it('is the target of the same formula, start and mixer', () => {
+    const later = { ...target, target: 'harbour-ciabatta/2', start: '2026-12-03T01:40' };
+    expect(targetForMix([later, target], mix)?.target).toBe('harbour-ciabatta/1');
   });
-  it('else by formula, start and mixer, and only when that is one', () => {
-    expect(targetForMix([target], mix)?.target).toBe('harbour-ciabatta/1');
+  it('is none when that is not one target', () => {
     expect(targetForMix([target, { ...target, target: 'harbour-ciabatta/2' }], mix)).toBeUndefined();
+    expect(targetForMix([], mix)).toBeUndefined();
   });
-  it('names a build by its name, with its batch when the day makes several', () => {
-    const poolish = { ...target, kind: 'build' as const, target: 'poolish', label: 'poolish' };
-    const levain2 = { ...target, kind: 'build' as const, target: 'levain/2', label: 'levain 2/2' };
-    expect(targetForBuild([poolish, levain2], { name: 'poolish', batch: 1, batches: 1 } as SheetBuild)?.target).toBe('poolish');
-    expect(targetForBuild([poolish, levain2], { name: 'levain', batch: 2, batches: 2 } as SheetBuild)?.target).toBe('levain/2');
+  it('names a build by its name, and among several of that name by formula and start', () => {
+    const poolish = { ...target, kind: 'build' as const, target: 'poolish', label: 'poolish', start: '2026-12-02T14:00' };
+    const levain1 = { ...target, kind: 'build' as const, target: 'levain/1', formula: 'tidewater-baguette', start: '2026-12-02T10:00' };
+    const levain2 = { ...target, kind: 'build' as const, target: 'levain/2', formula: 'tidewater-baguette', start: '2026-12-02T14:22' };
+    const build = (over: Partial<SheetBuild>) => ({ name: 'levain', formula: 'tidewater-baguette', batch: 1, batches: 2, booked: null, mixFrom: null, mixUntil: '2026-12-02T10:00', ...over }) as SheetBuild;
+    expect(targetForBuild([poolish, levain1, levain2], build({ name: 'poolish', formula: 'harbour-ciabatta' }))?.target).toBe('poolish');
+    expect(targetForBuild([poolish, levain1, levain2], build({ batch: 2, mixFrom: '2026-12-02T14:22' }))?.target).toBe('levain/2');
+    expect(targetForBuild([poolish, levain1, levain2], build({ booked: { mixer: 'spiral', start: '2026-12-02T10:00', end: '2026-12-02T10:10' } }))?.target).toBe('levain/1');
   });
 });

@@ -18,6 +18,8 @@ import { formulasRouter } from './routes/formulas.ts';
 import { plansRouter } from './routes/plans.ts';
 import { sessionRouter } from './routes/session.ts';
 import { usersRouter } from './routes/users.ts';
+import { isRecordUpload, recordsRouter } from './routes/records.ts';
+import { createPhotoStore, type PhotoStore } from './records/photo-store.ts';
 import { createInternalUsersRouter } from './routes/internal-users.ts';
 import { sendMail as sendMailDefault } from './mail.ts';
 import { MailOutbox } from './mail-outbox.ts';
@@ -42,6 +44,8 @@ export interface AppOptions {
   /** The lock file's token: mounts /api/internal/users (`panform user` while this server holds the folder). */
   localChannelToken?: string;
   log?: (message: string) => void;
+  /** Where record photos go; default from the environment (PANFORM_S3_*, else the database). */
+  photoStore?: PhotoStore;
 }
 
 export interface AppInternals {
@@ -161,6 +165,7 @@ export function createApp(opts: AppOptions): Express {
   const pending = new Set<Promise<unknown>>();
   const mailer = opts.sendMail ?? ((m: OutgoingMail) => sendMailDefault(m, { smtpUrl: env.smtpUrl, outbox: env.outbox, from: env.mailFrom }).then(() => undefined));
   const outbox = new MailOutbox(handle.db, mailer, now, log);
+  const photoStore = opts.photoStore ?? createPhotoStore(env.photoStore);
   const logFailure = (e: unknown) => log(`panform serve: background task failed: ${(e as Error)?.stack ?? String(e)}`);
 
   const context: ServerContext = {
@@ -216,6 +221,7 @@ export function createApp(opts: AppOptions): Express {
   // The busiest routes first: each request is matched against the routes in this order.
   api.use(formulasRouter(context));
   api.use(plansRouter(context));
+  api.use(recordsRouter(context, photoStore));
   api.use(sessionRouter(context));
   api.use(usersRouter(context));
 
@@ -228,7 +234,7 @@ export function createApp(opts: AppOptions): Express {
     },
     // Order matters: refuse cross-site and non-JSON writes before reading any body, then parse
     // (bounded), then find the session, then route.
-    csrfProtection(env.publicUrl),
+    csrfProtection(env.publicUrl, isRecordUpload),
     express.json({ limit: JSON_LIMIT, strict: true }),
     async (req: Request, _res: Response, next: NextFunction) => {
       req.auth = await sessionOf(req);
@@ -257,6 +263,7 @@ export function createApp(opts: AppOptions): Express {
     },
     async stop() {
       await outbox.stop();
+      if (!opts.photoStore) photoStore.close();
     },
   };
   (app as unknown as Record<symbol, AppInternals>)[INTERNALS] = internals;

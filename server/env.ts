@@ -25,7 +25,29 @@ export interface Env {
   /** Express "trust proxy": false, true, a hop count, or addresses/subnets. */
   trustProxy: TrustProxy;
   nodeEnv: 'development' | 'production' | 'test';
+  /** Where record photos are kept: the database (default), or an S3-compatible object store. */
+  photoStore: PhotoStoreSettings;
 }
+
+export type PhotoStoreSettings =
+  | { kind: 'database' }
+  | {
+      kind: 's3';
+      bucket: string;
+      /** Unset: the AWS endpoint for the region. */
+      endpoint: string | undefined;
+      region: string;
+      /** Unset (both): the AWS SDK's own credential chain (AWS_* variables, instance roles). */
+      accessKeyId: string | undefined;
+      secretAccessKey: string | undefined;
+      /** Address buckets as host/bucket/key (most stores other than AWS need it). */
+      forcePathStyle: boolean;
+      /** Prepended to every key, e.g. `panform/`. */
+      prefix: string;
+    };
+
+export const DEFAULT_S3_REGION = 'us-east-1';
+export const DEFAULT_S3_PREFIX = 'panform/';
 
 export interface EnvIssue {
   variable: string;
@@ -141,8 +163,43 @@ export function readEnv(source: Record<string, string | undefined> = process.env
     else bad('NODE_ENV', `must be one of ${NODE_ENVS.join(', ')}; got "${source.NODE_ENV}"`);
   }
 
+  const photoStore = readPhotoStore(source, bad);
+
   if (issues.length > 0) throw new EnvError(issues);
-  return { port, dataDir, databaseUrl, smtpUrl, outbox, mailFrom, publicUrl, publicUrlSet, sessionDays, trustProxy, nodeEnv };
+  return { port, dataDir, databaseUrl, smtpUrl, outbox, mailFrom, publicUrl, publicUrlSet, sessionDays, trustProxy, nodeEnv, photoStore };
+}
+
+/** PANFORM_S3_*: with a bucket, photos go to that object store; without, into the database. */
+function readPhotoStore(source: Record<string, string | undefined>, bad: (variable: string, message: string) => void): PhotoStoreSettings {
+  const names = ['PANFORM_S3_ENDPOINT', 'PANFORM_S3_REGION', 'PANFORM_S3_ACCESS_KEY_ID', 'PANFORM_S3_SECRET_ACCESS_KEY', 'PANFORM_S3_FORCE_PATH_STYLE', 'PANFORM_S3_PREFIX'];
+  if (!present(source.PANFORM_S3_BUCKET)) {
+    const stray = names.filter((n) => present(source[n]));
+    if (stray.length > 0) bad('PANFORM_S3_BUCKET', `is needed with ${stray.join(', ')} (photos go to the database without it); set it or unset those`);
+    return { kind: 'database' };
+  }
+  const bucket = source.PANFORM_S3_BUCKET.trim();
+  if (!/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/.test(bucket)) bad('PANFORM_S3_BUCKET', `must be a bucket name (3 to 63 lower-case letters, digits, dots and hyphens); got "${bucket}"`);
+  let endpoint: string | undefined;
+  if (present(source.PANFORM_S3_ENDPOINT)) {
+    const u = parseUrl(source.PANFORM_S3_ENDPOINT.trim());
+    if (!u || (u.protocol !== 'http:' && u.protocol !== 'https:')) bad('PANFORM_S3_ENDPOINT', `must be an http:// or https:// address like https://s3.tidewater.example; got "${source.PANFORM_S3_ENDPOINT}"`);
+    else endpoint = source.PANFORM_S3_ENDPOINT.trim();
+  }
+  const accessKeyId = present(source.PANFORM_S3_ACCESS_KEY_ID) ? source.PANFORM_S3_ACCESS_KEY_ID.trim() : undefined;
+  const secretAccessKey = present(source.PANFORM_S3_SECRET_ACCESS_KEY) ? source.PANFORM_S3_SECRET_ACCESS_KEY.trim() : undefined;
+  if ((accessKeyId === undefined) !== (secretAccessKey === undefined)) {
+    bad(accessKeyId === undefined ? 'PANFORM_S3_ACCESS_KEY_ID' : 'PANFORM_S3_SECRET_ACCESS_KEY', 'the access key id and the secret key go together: set both, or neither (the AWS SDK then finds its own)');
+  }
+  let forcePathStyle = endpoint !== undefined;
+  if (present(source.PANFORM_S3_FORCE_PATH_STYLE)) {
+    const v = source.PANFORM_S3_FORCE_PATH_STYLE.trim();
+    if (v === 'true' || v === '1') forcePathStyle = true;
+    else if (v === 'false' || v === '0') forcePathStyle = false;
+    else bad('PANFORM_S3_FORCE_PATH_STYLE', `must be true or false; got "${v}"`);
+  }
+  const prefix = present(source.PANFORM_S3_PREFIX) ? source.PANFORM_S3_PREFIX.trim() : DEFAULT_S3_PREFIX;
+  const region = present(source.PANFORM_S3_REGION) ? source.PANFORM_S3_REGION.trim() : DEFAULT_S3_REGION;
+  return { kind: 's3', bucket, endpoint, region, accessKeyId, secretAccessKey, forcePathStyle, prefix };
 }
 
 /**

@@ -11,6 +11,8 @@ import type { AllergenSummary } from './allergens.ts';
 import type { Caution } from './cautions.ts';
 import type { MixWater } from './dough-water.ts';
 import type { CostSummary } from './cost.ts';
+import type { FrictionProposal, MixFriction } from './friction.ts';
+import type { RecordKind, RecordTarget } from './records.ts';
 
 /** Every error response: `error` is a stable code, `message` is for people. */
 export interface ApiError {
@@ -182,4 +184,58 @@ export interface CatalogResponse {
   catalog: Catalog;
   /** The formulas this person may open that use each ingredient (directly, in a blend or as a levain's feed). */
   usedBy: Record<string, { id: string; title: string }[]>;
+}
+
+/** A photo of a bench record (GET /api/records/:id/photos/:n, `?size=preview` for the small one). */
+export interface RecordPhoto {
+  n: number;
+  contentType: string;
+  width: number;
+  height: number;
+  bytes: number;
+  url: string;
+  previewUrl: string;
+}
+
+/** One bench record (POST /api/plans/:date/records answers `{ record }`). Temperatures °C. */
+export interface BenchRecord {
+  id: number;
+  date: string;
+  target: string;
+  kind: RecordKind;
+  label: string;
+  formula: string | null;
+  mixer: string | null;
+  doughTemperature: number | null;
+  waterTemperature: number | null;
+  ripe: boolean | null;
+  note: string;
+  initials: string;
+  recordedAt: string;
+  createdAt: string;
+  by: { id: number | null; name: string; email: string };
+  clientId: string | null;
+  corrects: number | null;
+  correctedBy: number | null;
+  hidden: { by: string; at: string; reason: string } | null;
+  photos: RecordPhoto[];
+  friction: MixFriction | null;
+}
+
+export interface RecordResponse {
+  record: BenchRecord;
+}
+
+/** GET /api/plans/:date/records */
+export interface RecordListResponse {
+  date: string;
+  targets: Omit<RecordTarget, 'inputs'>[];
+  records: BenchRecord[];
+}
+
+/** GET /api/friction */
+export interface FrictionResponse {
+  minimum: number;
+  rule: string;
+  proposals: FrictionProposal[];
 }

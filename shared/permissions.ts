@@ -13,13 +13,16 @@ export const PERMISSIONS = [
   'read:cost', // prices, costs per piece
   'read:label', // ingredient statements and nutrition declarations
   'manage:users', // accounts
+  'read:record', // bench records of the bake days the role may see, their photos, the friction learned
+  'write:record', // recording a mix or a build (temperatures, note, photos) and correcting a record
+  'manage:records', // hiding a wrong record (kept, marked)
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
 
 const GRANTS: Record<Role, readonly Permission[]> = {
-  bench: ['read:formula:active', 'read:plan', 'read:catalog'],
-  reviewer: ['read:formula:active', 'read:formula:draft', 'read:history', 'read:plan', 'read:catalog', 'read:label'],
-  author: ['read:formula:active', 'read:formula:draft', 'read:history', 'read:plan', 'read:catalog', 'read:cost', 'read:label'],
+  bench: ['read:formula:active', 'read:plan', 'read:catalog', 'read:record', 'write:record'],
+  reviewer: ['read:formula:active', 'read:formula:draft', 'read:history', 'read:plan', 'read:catalog', 'read:label', 'read:record', 'write:record'],
+  author: ['read:formula:active', 'read:formula:draft', 'read:history', 'read:plan', 'read:catalog', 'read:cost', 'read:label', 'read:record', 'write:record'],
   admin: [...PERMISSIONS],
 };
 

@@ -7,7 +7,7 @@
 //    same-origin (or none: typed, bookmarked), and `Origin`, when sent, must be this server's
 //    origin or PANFORM_PUBLIC_URL's. Programs (curl, the CLI) send neither header and pass.
 // The session cookie is also SameSite=Lax, so browsers do not attach it to cross-site POSTs.
-import type { RequestHandler } from 'express';
+import type { Request, RequestHandler } from 'express';
 import { HttpError } from '../http/errors.ts';
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
@@ -18,7 +18,12 @@ function hasBody(headers: Record<string, string | string[] | undefined>): boolea
   return headers['transfer-encoding'] !== undefined;
 }
 
-export function csrfProtection(publicUrl: string): RequestHandler {
+/**
+ * `multipartAllowed` names the requests that may send `multipart/form-data` (photo uploads): such a
+ * body can be sent by a plain HTML form, so for those the browser's Origin / Sec-Fetch-Site (checked
+ * above for every request) and the SameSite=Lax cookie are what stop a forged request.
+ */
+export function csrfProtection(publicUrl: string, multipartAllowed: (req: Request) => boolean = () => false): RequestHandler {
   const publicOrigin = new URL(publicUrl).origin;
   return (req, _res, next) => {
     if (SAFE_METHODS.has(req.method)) {
@@ -36,7 +41,7 @@ export function csrfProtection(publicUrl: string): RequestHandler {
         throw new HttpError(403, { error: 'forbidden', message: `requests from ${origin} may not change anything here` });
       }
     }
-    if (hasBody(req.headers) && !req.is('application/json')) {
+    if (hasBody(req.headers) && !req.is('application/json') && !(req.is('multipart/form-data') && multipartAllowed(req))) {
       throw new HttpError(415, { error: 'invalid', message: `send the body as application/json; got ${req.get('content-type') ?? 'no content type'}` });
     }
     next();

@@ -36,6 +36,8 @@ export interface SignInLimits {
   resetAddress: LimitRule;
   /** Password-reset e-mails per account (beyond: none sent, silently). */
   resetAccount: LimitRule;
+  /** Bench records (with their photos) sent per account (then 429). */
+  recordPosts: LimitRule;
 }
 
 const MINUTE = 60_000;
@@ -47,6 +49,8 @@ export const DEFAULT_LIMITS: SignInLimits = {
   slowdownMaxMs: 10_000,
   resetAddress: { max: 10, windowMs: 60 * MINUTE },
   resetAccount: { max: 3, windowMs: 60 * MINUTE },
+  // A tablet back online sends its queue at once: room for a night's records in a minute.
+  recordPosts: { max: 30, windowMs: MINUTE },
 };
 
 /** Hits older than this are of no use to any rule and are swept now and then. */
@@ -186,12 +190,33 @@ export class ResetThrottle {
   }
 }
 
+/** Record posts per account: refused beyond the limit, counted in the database like sign-ins. */
+export class RecordThrottle {
+  constructor(
+    private readonly counter: HitCounter,
+    private readonly limits: SignInLimits,
+    private readonly now: Clock = Date.now,
+  ) {}
+
+  /** Milliseconds until this account may send again; 0 when the post is taken (and counted). */
+  async post(userId: number): Promise<number> {
+    const key = `records:user:${userId}`;
+    const rule = this.limits.recordPosts;
+    const hits = await this.counter.hit([key]);
+    const c = (await this.counter.counts([key], rule.windowMs, hits[0])).get(key)!;
+    if (c.count <= rule.max) return 0;
+    await this.counter.forgive(hits);
+    return Math.max(1_000, (c.oldest ?? this.now()) + rule.windowMs - this.now());
+  }
+}
+
 export interface Limiters {
   signIn: SignInThrottle;
   reset: ResetThrottle;
+  records: RecordThrottle;
 }
 
 export function createLimiters(db: Database, limits: SignInLimits = DEFAULT_LIMITS, now: Clock = Date.now): Limiters {
   const counter = new HitCounter(db, now);
-  return { signIn: new SignInThrottle(counter, limits, now), reset: new ResetThrottle(counter, limits, now) };
+  return { signIn: new SignInThrottle(counter, limits, now), reset: new ResetThrottle(counter, limits, now), records: new RecordThrottle(counter, limits, now) };
 }

@@ -2,7 +2,7 @@
 // drizzle/ (`npm run db:generate`) and committed; the migrator applies them at start.
 // The YAML files stay the source of truth: these tables are what the viewer reads.
 import { sql } from 'drizzle-orm';
-import { index, integer, json, jsonb, pgTable, serial, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import { boolean, customType, doublePrecision, index, integer, json, jsonb, pgTable, serial, text, timestamp, uniqueIndex, type AnyPgColumn } from 'drizzle-orm/pg-core';
 
 /** The current content of each formula, with the figures of its reference batch. */
 export const formulasTable = pgTable(
@@ -169,3 +169,90 @@ export const auditTable = pgTable(
   },
   (t) => [index('audit_log_at_idx').on(t.at)],
 );
+
+/** Raw bytes (PostgreSQL `bytea`): node-postgres gives a Buffer, PGlite a Uint8Array; both become a Buffer. */
+const bytea = customType<{ data: Buffer; driverData: Buffer | Uint8Array }>({
+  dataType: () => 'bytea',
+  fromDriver: (v) => (Buffer.isBuffer(v) ? v : Buffer.from(v.buffer, v.byteOffset, v.byteLength)),
+});
+
+/**
+ * What the bench measured on a bake day: one row per mix or build recorded. Append-only: a
+ * correction is a new row whose `corrects` names the row it corrects; an admin hides a wrong row
+ * (`hidden_*` set), never deletes it. Who wrote it is copied in (`by_*`): the food-safety file
+ * keeps its rows when an account goes.
+ */
+export const benchRecordsTable = pgTable(
+  'bench_records',
+  {
+    id: serial('id').primaryKey(),
+    planDate: text('plan_date').notNull(), // yyyy-mm-dd
+    /** `harbour-ciabatta/1` (a mix) or a build's name (`poolish`, `levain/2`). */
+    target: text('target').notNull(),
+    kind: text('kind').notNull(), // mix | build
+    /** The mix's formula; for a build, the first formula that uses it. */
+    formulaId: text('formula_id'),
+    /** Formulas a build goes into (a mix: its own). */
+    formulas: jsonb('formulas').$type<string[]>().notNull().default(sql`'[]'::jsonb`),
+    mixer: text('mixer'),
+    label: text('label').notNull(),
+    /** °C */
+    doughTemperature: doublePrecision('dough_temperature'),
+    /** °C, the water poured (main water, bassinage apart). */
+    waterTemperature: doublePrecision('water_temperature'),
+    ripe: boolean('ripe'),
+    note: text('note').notNull().default(''),
+    initials: text('initials').notNull(),
+    /** When it was measured (the tablet's clock). */
+    recordedAt: timestamp('recorded_at', { withTimezone: true }).notNull(),
+    /** When the server stored it. */
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull(),
+    userId: integer('user_id'),
+    byEmail: text('by_email').notNull(),
+    byName: text('by_name').notNull().default(''),
+    /** The client's idempotency key: sent twice, stored once. */
+    clientId: text('client_id'),
+    corrects: integer('corrects').references((): AnyPgColumn => benchRecordsTable.id),
+    /** What the sheet used for this mix (shared/friction.ts SheetMixInputs), kept as it was that day. */
+    sheetInputs: json('sheet_inputs'),
+    hiddenAt: timestamp('hidden_at', { withTimezone: true }),
+    hiddenBy: text('hidden_by'),
+    hiddenReason: text('hidden_reason'),
+  },
+  (t) => [
+    index('bench_records_date_idx').on(t.planDate),
+    index('bench_records_formula_idx').on(t.formulaId),
+    index('bench_records_corrects_idx').on(t.corrects),
+    uniqueIndex('bench_records_client_id_idx').on(t.clientId),
+  ],
+);
+
+/** The photos of a record: where their bytes are (photo_blobs or the object store) and their sizes. */
+export const recordPhotosTable = pgTable(
+  'record_photos',
+  {
+    id: serial('id').primaryKey(),
+    recordId: integer('record_id')
+      .notNull()
+      .references(() => benchRecordsTable.id),
+    /** 1-based, in the order sent. */
+    n: integer('n').notNull(),
+    contentType: text('content_type').notNull(),
+    width: integer('width').notNull(),
+    height: integer('height').notNull(),
+    bytes: integer('bytes').notNull(),
+    previewBytes: integer('preview_bytes').notNull(),
+    /** database | s3 */
+    storage: text('storage').notNull(),
+    key: text('key').notNull(),
+    previewKey: text('preview_key').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull(),
+  },
+  (t) => [uniqueIndex('record_photos_record_n_idx').on(t.recordId, t.n)],
+);
+
+/** Photo bytes when they are kept in the database (the default store). */
+export const photoBlobsTable = pgTable('photo_blobs', {
+  key: text('key').primaryKey(),
+  data: bytea('data').notNull(),
+});

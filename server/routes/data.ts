@@ -40,6 +40,8 @@ export interface PlanEntry {
   plan: Plan | null;
   problem?: string;
   updatedAt: string;
+  /** The file it was loaded from, relative to the loaded folder. */
+  path: string;
 }
 
 export interface Snapshot {
@@ -148,7 +150,7 @@ export class DataCache {
         })
         .from(formulasTable)
         .orderBy(formulasTable.title),
-      this.db.select({ date: plansTable.date, content: plansTable.content, updatedAt: plansTable.updatedAt }).from(plansTable).orderBy(desc(plansTable.date)),
+      this.db.select({ date: plansTable.date, content: plansTable.content, updatedAt: plansTable.updatedAt, path: plansTable.path }).from(plansTable).orderBy(desc(plansTable.date)),
     ]);
     const catalog = normalizeCatalog(Object.fromEntries(catalogRows.map((r) => [r.name, r.content])) as CatalogFile);
     const formulas = new Map<string, FormulaEntry>();
@@ -179,9 +181,9 @@ export class DataCache {
     }
     const plans: PlanEntry[] = planRows.map((r) => {
       try {
-        return { date: r.date, plan: normalizePlan(r.content as PlanFile), updatedAt: r.updatedAt.toISOString() };
+        return { date: r.date, plan: normalizePlan(r.content as PlanFile), updatedAt: r.updatedAt.toISOString(), path: r.path };
       } catch (e) {
-        return { date: r.date, plan: null, problem: (e as Error).message, updatedAt: r.updatedAt.toISOString() };
+        return { date: r.date, plan: null, problem: (e as Error).message, updatedAt: r.updatedAt.toISOString(), path: r.path };
       }
     });
     return { version, catalog, formulas, plans, memo: newMemo() };

@@ -2,7 +2,8 @@
 import { Router } from 'express';
 import type { CatalogResponse, PlanDetail, PlanListResponse } from '#shared/api';
 import type { Formula } from '#shared/model';
-import { canSeeFormulaStatus, type Role } from '#shared/permissions';
+import { createHash } from 'node:crypto';
+import { canSeeFormulaStatus, roleHasPermission, type Role } from '#shared/permissions';
 import { buildSheet } from '#shared/sheet/build';
 import { SheetError, type Sheet } from '#shared/sheet/types';
 import { ScaleError } from '#shared/scale';
@@ -13,6 +14,7 @@ import { queryString } from '../http/query.ts';
 import type { PlanEntry, Snapshot } from './data.ts';
 import { catalogNamesFor, visibleCatalog } from './formulas.ts';
 import { formulaIngredientNames } from '#shared/allergens';
+import { sheetWithProposals } from './records.ts';
 
 const DATE_RE = /^[0-9]{4}-[0-9]{2}-[0-9]{2}$/;
 
@@ -22,14 +24,14 @@ const DATE_RE = /^[0-9]{4}-[0-9]{2}-[0-9]{2}$/;
  * loaded: its sheet would carry the draft's quantities, and its order count or an error naming
  * the draft would tell the draft exists.
  */
-function planVisible(snapshot: Snapshot, entry: PlanEntry, role: Role): boolean {
+export function planVisible(snapshot: Snapshot, entry: PlanEntry, role: Role): boolean {
   return (entry.plan?.orders ?? []).every((o) => {
     const f = snapshot.formulas.get(o.formula);
     return !f || canSeeFormulaStatus(role, f.status);
   });
 }
 
-function planFor(snapshot: Snapshot, date: string, role: Role): { entry: PlanEntry; sheet: Sheet } {
+export function planFor(snapshot: Snapshot, date: string, role: Role): { entry: PlanEntry; sheet: Sheet } {
   if (!DATE_RE.test(date)) throw invalid(`a plan is named by its date, like 2026-12-03; got "${date}"`, [{ path: 'date', message: 'not yyyy-mm-dd' }]);
   const entry = snapshot.plans.find((p) => p.date === date);
   if (!entry || !planVisible(snapshot, entry, role)) throw notFound(`no plan for ${date}; it may not have been loaded yet`);
@@ -82,18 +84,20 @@ export function plansRouter(ctx: ServerContext): Router {
     const user = requirePermission(req, 'read:plan');
     const snapshot = await ctx.data.snapshot();
     const { entry, sheet } = planFor(snapshot, req.params.date, user.role);
-    const body: PlanDetail = { plan: entry.plan!, sheet };
+    const body: PlanDetail = { plan: entry.plan!, sheet: roleHasPermission(user.role, 'read:record') ? await sheetWithProposals(ctx, snapshot, sheet, user.role) : sheet };
     res.json(body);
   });
 
   r.get('/plans/:date/sheet.pdf', async (req, res) => {
     const user = requirePermission(req, 'read:plan');
     const snapshot = await ctx.data.snapshot();
-    const { sheet } = planFor(snapshot, req.params.date, user.role);
+    const { sheet: plain } = planFor(snapshot, req.params.date, user.role);
+    const sheet = roleHasPermission(user.role, 'read:record') ? await sheetWithProposals(ctx, snapshot, plain, user.role) : plain;
     const paper = queryString(req, 'paper') ?? 'a4';
     if (paper !== 'a4' && paper !== 'letter') throw invalid(`paper must be a4 or letter; got "${paper}"`, [{ path: 'paper', message: 'unknown paper size' }]);
     // Rendering takes a while: each PDF is made once per load.
-    const key = `pdf:${sheet.date}:${paper}`;
+    // Friction proposals change with the records, not with a load: they are part of the key.
+    const key = `pdf:${sheet.date}:${paper}:${sheet.frictionProposals ? createHash('sha256').update(JSON.stringify(sheet.frictionProposals)).digest('hex') : ''}`;
     let pdf = snapshot.memo.get(key) as Buffer | undefined;
     if (!pdf) {
       const { renderSheetPdf } = await import('../print/pdf.ts');

@@ -2,6 +2,7 @@
 // HTML/PDF renderers draw. The JSON keys are a contract (docs/batch-sheet.md); weights are grams,
 // unrounded; temperatures °C; times are local date-times "YYYY-MM-DDTHH:MM" on the plan's clock.
 import type { PrefermentTemperature } from '../dough-water.ts';
+import type { FrictionProposal } from '../friction.ts';
 import type { AllergenCode, IngredientKind, PrefermentKind, StepKind } from '../schema/shapes.ts';
 import type { Catalog, Formula, Oven, Plan, Shift } from '../model.ts';
 import type { NumberRange, RangePick } from '../units.ts';
@@ -242,6 +243,12 @@ export interface Sheet {
   cautions: Caution[];
   /** Things the baker should look at that do not stop the sheet (late orders and their reasons first). */
   warnings: string[];
+  /**
+   * What the bench's records say about the friction of the day's mixers for the day's formulas
+   * (shared/friction.ts): added by the server, which has the records; absent from a sheet made
+   * from the files alone. The plan's values stay until the baker changes the file.
+   */
+  frictionProposals?: FrictionProposal[];
 }
 
 /** The plan cannot be turned into a sheet: the message says why and what to change. */

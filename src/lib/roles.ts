@@ -16,4 +16,7 @@ export const permissionWord: Record<Permission, string> = {
   'read:cost': 'Ingredient prices and cost per piece',
   'read:label': 'Ingredient statements and nutrition',
   'manage:users': 'Accounts',
+  'read:record': 'Bench records and their photos',
+  'write:record': 'Recording mixes and builds',
+  'manage:records': 'Hiding a wrong record',
 };

@@ -75,6 +75,17 @@ const MATRIX: Record<string, Case[]> = {
     { label: 'no plan', method: 'GET', path: '/api/plans/2030-01-01', expect: all(404) },
   ],
   'GET /api/plans/:date/sheet.pdf': [{ label: 'pdf', method: 'GET', path: '/api/plans/2026-12-03/sheet.pdf', expect: all(200) }],
+  // Bench records: every role reads and writes them (a JSON body is refused: records are multipart); admins hide.
+  'POST /api/plans/:date/records': [{ label: 'not multipart', method: 'POST', path: '/api/plans/2026-12-03/records', body: { target: 'poolish' }, expect: all(415) }],
+  'GET /api/plans/:date/records': [
+    { label: 'a day', method: 'GET', path: '/api/plans/2026-12-03/records', expect: all(200) },
+    { label: 'no plan', method: 'GET', path: '/api/plans/2030-01-01/records', expect: all(404) },
+  ],
+  'GET /api/plans/:date/records.csv': [{ label: 'a day as CSV', method: 'GET', path: '/api/plans/2026-12-03/records.csv', expect: all(200) }],
+  'GET /api/records.csv': [{ label: 'a month as CSV', method: 'GET', path: '/api/records.csv?from=2026-12-01&to=2026-12-31', expect: all(200) }],
+  'GET /api/records/:id/photos/:n': [{ label: 'unknown record', method: 'GET', path: '/api/records/999999/photos/1', expect: all(404) }],
+  'POST /api/records/:id/hide': [{ label: 'unknown record', method: 'POST', path: '/api/records/999999/hide', body: { reason: 'wrong day' }, expect: adminOnly(404) }],
+  'GET /api/friction': [{ label: 'friction table', method: 'GET', path: '/api/friction', expect: all(200) }],
   'GET /api/catalog': [{ label: 'catalog', method: 'GET', path: '/api/catalog', expect: all(200) }],
   // Accounts: admins only; the cases change nothing (an unknown id, a role that does not exist).
   'GET /api/users': [{ label: 'accounts', method: 'GET', path: '/api/users', expect: adminOnly(200) }],

@@ -172,7 +172,7 @@ function unavailable(): DatabaseSetup {
 export async function truncateAll(h: DatabaseHandle): Promise<void> {
   const { sql } = await import('drizzle-orm');
   await h.db.execute(
-    sql.raw('truncate table formulas, formula_revisions, catalog, plans, loads, sessions, password_resets, users, limit_hits, mail_outbox, audit_log restart identity cascade'),
+    sql.raw('truncate table formulas, formula_revisions, catalog, plans, loads, sessions, password_resets, users, limit_hits, mail_outbox, audit_log, bench_records, record_photos, photo_blobs restart identity cascade'),
   );
 }
 

@@ -24,7 +24,7 @@ describe('signing in', () => {
   it('answers a right e-mail and password with the user, their permissions and an httpOnly SameSite=Lax cookie', async () => {
     const { status, body, res } = await sendJson(`${t.url}/api/session`, 'POST', { email: emailOf('bench'), password: PASSWORD });
     expect(status).toBe(200);
-    expect(body).toMatchObject({ user: { email: 'bench@tidewater.example', role: 'bench' }, permissions: ['read:formula:active', 'read:plan', 'read:catalog'] });
+    expect(body).toMatchObject({ user: { email: 'bench@tidewater.example', role: 'bench' }, permissions: ['read:formula:active', 'read:plan', 'read:catalog', 'read:record', 'write:record'] });
     const set = res.headers.getSetCookie()[0];
     expect(set).toMatch(/^panform_session=[A-Za-z0-9_-]{43};/);
     expect(set).toMatch(/HttpOnly/);

@@ -165,7 +165,12 @@ export interface PlanSummary {
   date: string;
   readyBy: string;
   orders: number;
+  /** Formula ids, each once, in the order of the plan. */
   formulas: string[];
+  /** The products' titles, in the same order. */
+  titles: string[];
+  /** The plan's own notes, when it has some. */
+  notes?: string;
 }
 
 /** GET /api/plans */

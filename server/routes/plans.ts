@@ -70,12 +70,17 @@ export function plansRouter(ctx: ServerContext): Router {
     const body: PlanListResponse = {
       plans: snapshot.plans
         .filter((p) => planVisible(snapshot, p, user.role))
-        .map((p) => ({
-          date: p.date,
-          readyBy: p.plan?.readyBy ?? '',
-          orders: p.plan?.orders.length ?? 0,
-          formulas: [...new Set(p.plan?.orders.map((o) => o.formula) ?? [])],
-        })),
+        .map((p) => {
+          const formulas = [...new Set(p.plan?.orders.map((o) => o.formula) ?? [])];
+          return {
+            date: p.date,
+            readyBy: p.plan?.readyBy ?? '',
+            orders: p.plan?.orders.length ?? 0,
+            formulas,
+            titles: formulas.map((id) => snapshot.formulas.get(id)?.formula?.title ?? id),
+            ...(p.plan?.notes ? { notes: p.plan.notes } : {}),
+          };
+        }),
     };
     res.json(body);
   });

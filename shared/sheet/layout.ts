@@ -95,17 +95,16 @@ export function blockTexts(b: SheetBlock): string[] {
 }
 
 /**
- * Every text of the layout in reading order, cell by cell (the chart's own labels left out: each
- * surface draws the chart its own way). What the surfaces are compared on.
+ * Every text of the layout in reading order, cell by cell. The chart's own words (lanes, hours,
+ * the close-up's heading) are left out: each surface draws the chart its own way, from the same
+ * chart models (the viewer as two views of one chart). What the surfaces are compared on.
  */
 export function layoutTexts(l: SheetLayout): string[] {
   const out = [l.title, ...l.subtitle];
   for (const item of l.items) {
     out.push(item.title);
     if (item.kind === 'notice') out.push(...item.lines);
-    else if (item.kind === 'chart') {
-      if (item.closeUp) out.push(item.closeUp.title);
-    } else for (const b of item.blocks) out.push(...blockTexts(b));
+    else if (item.kind === 'section') for (const b of item.blocks) out.push(...blockTexts(b));
   }
   return out;
 }

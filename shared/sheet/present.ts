@@ -33,6 +33,8 @@ export interface SheetBlock {
   blanks?: string[];
   /** The mix a card is for (the viewer hangs its own parts on a mix's card by this). */
   mix?: { order: number; mixNumber: number };
+  /** The build a card is for: its place in `sheet.preferments` or `sheet.soakers`. */
+  build?: { list: 'preferments' | 'soakers'; index: number };
 }
 
 export type SectionKey = 'preferments' | 'soakers' | 'mixes' | 'totals' | 'formulas' | 'cautions' | 'warnings';
@@ -99,7 +101,7 @@ function hoursText(h: { min: number; max: number }): string {
   return h.min === h.max ? `${h.min} h` : `${h.min}–${h.max} h`;
 }
 
-function buildBlock(b: SheetBuild, sheet: Sheet, f: Figures): SheetBlock {
+function buildBlock(b: SheetBuild, sheet: Sheet, f: Figures, ref: NonNullable<SheetBlock['build']>): SheetBlock {
   const { g, t } = f;
   const when = (x: string) => shortTime(x, sheet.date);
   const lines: string[] = [];
@@ -124,6 +126,7 @@ function buildBlock(b: SheetBuild, sheet: Sheet, f: Figures): SheetBlock {
   }
   return {
     title: `${b.name} · ${g(b.grams)}`,
+    build: ref,
     lines,
     table: { head: ['ingredient', 'weigh'], rows, align: ['left', 'right'], tick, footer: ['build', g(b.grams)] },
   };
@@ -225,10 +228,10 @@ export function presentSheet(sheet: Sheet, options: PresentOptions = {}): Presen
 
   const sections: SheetSection[] = [];
   if (sheet.preferments.length > 0) {
-    sections.push({ key: 'preferments', title: 'Pre-ferments to build', blocks: sheet.preferments.map((b) => buildBlock(b, sheet, f)) });
+    sections.push({ key: 'preferments', title: 'Pre-ferments to build', blocks: sheet.preferments.map((b, index) => buildBlock(b, sheet, f, { list: 'preferments', index })) });
   }
   if (sheet.soakers.length > 0) {
-    sections.push({ key: 'soakers', title: 'Soakers', blocks: sheet.soakers.map((b) => buildBlock(b, sheet, f)) });
+    sections.push({ key: 'soakers', title: 'Soakers', blocks: sheet.soakers.map((b, index) => buildBlock(b, sheet, f, { list: 'soakers', index })) });
   }
   const orders = new Map<string, Set<number>>();
   for (const m of sheet.mixes) orders.set(m.formula, (orders.get(m.formula) ?? new Set()).add(m.order));

@@ -123,8 +123,10 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
    * Runs `use` on a page of a fresh browser context, signed in as `role` (null: signed out), closes
    * the context, and fails when the page raised an error.
    */
-  async function withPage(role: Role | null, use: (page: Page) => Promise<void>): Promise<void> {
-    const context = await browser.newContext({ ...CONTEXT_OPTIONS, storageState: role ? await signedInState(role) : undefined });
+  async function withPage(role: Role | null, use: (page: Page) => Promise<void>, options: { clock?: Date; viewport?: { width: number; height: number }; touch?: boolean } = {}): Promise<void> {
+    const context = await browser.newContext({ ...CONTEXT_OPTIONS, ...(options.viewport ? { viewport: options.viewport } : {}), hasTouch: Boolean(options.touch), storageState: role ? await signedInState(role) : undefined });
+    // The page's clock, when the test needs a fixed now (the bake-day list's today, the chart's line).
+    if (options.clock) await context.clock.install({ time: options.clock });
     const errors: string[] = [];
     try {
       const page = await context.newPage();
@@ -444,7 +446,7 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
       expect(await page.getByTestId('sheet-build').count()).toBeGreaterThan(0);
       expect(await page.getByTestId('sheet-mix').count()).toBeGreaterThan(0);
       expect(await page.locator('[data-testid="pick-list"] tr[data-ingredient="bread flour"]').count()).toBe(1);
-      expect(await page.getByTestId('sheet-build').first().textContent()).toMatch(/Mix .*\d\d:\d\d/);
+      expect(await page.getByTestId('sheet-build').first().textContent()).toMatch(/mix between .*\d\d:\d\d/);
       const href = await page.getByRole('link', { name: 'Download PDF' }).getAttribute('href');
       expect(href).toBe('/api/plans/2026-12-03/sheet.pdf');
       const pdf = await page.request.get(`${base}${href}`);
@@ -456,6 +458,62 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
       await screenshot(page, 'plan-timeline-close-up', { width: 1280, height: 800, fullPage: false });
       await printPreview(page, 'plan-2026-12-03');
     }));
+
+  it('lists the bake days today first and marked, then the days to come, with the products by title', () =>
+    withPage(
+      'bench',
+      async (page) => {
+        await page.goto(`${base}/plans`);
+        await page.locator('[data-plan]').first().waitFor();
+        // The demo bakery plans 3, 4 and 5 December 2026 (formulas/plans/); the clock says 4 December.
+        const order = await page.locator('[data-plan]').evaluateAll((els) => els.map((e) => e.getAttribute('data-plan')));
+        expect(order).toEqual(['2026-12-04', '2026-12-05', '2026-12-03']);
+        const today = page.locator('[data-plan="2026-12-04"]');
+        expect(await today.getAttribute('aria-current')).toBe('date');
+        expect(await today.getByTestId('today').textContent()).toBe('Today');
+        expect(await page.getByTestId('today').count()).toBe(1);
+        expect(await page.getByRole('heading', { name: 'Days gone by' }).count()).toBe(1);
+        // Titles, not file names (formulas/harbour-ciabatta.yaml's title).
+        expect(await today.textContent()).toContain('Harbour ciabatta');
+        expect(await today.textContent()).not.toContain('harbour-ciabatta');
+      },
+      { clock: new Date(2026, 11, 4, 9, 0) },
+    ));
+
+  it('shows a bar\'s times on a tap and on keyboard focus, a line for now, the steps with fold times, a close-up that fits a tablet', () =>
+    withPage(
+      'bench',
+      async (page) => {
+        await page.goto(`${base}/plans/2026-12-03`);
+        await page.getByTestId('timeline').waitFor();
+        // 04:40 on the night: the chart opens on the close-up of the production morning, with a line for now.
+        expect(await page.getByTestId('timeline').getAttribute('data-view')).toBe('close');
+        expect(await page.getByTestId('now-line').count()).toBe(1);
+        expect(await page.getByTestId('now').textContent()).toMatch(/^Now 04:40/);
+        // No sideways scrolling on a 768 px tablet: neither the page nor the close-up.
+        const widths = await page.evaluate(() => {
+          const chart = document.querySelector('[data-testid=timeline-scroller]') as HTMLElement;
+          return [document.documentElement.scrollWidth, document.documentElement.clientWidth, chart.scrollWidth, chart.clientWidth];
+        });
+        expect(widths[0]).toBeLessThanOrEqual(widths[1]);
+        expect(widths[2]).toBeLessThanOrEqual(widths[3]);
+        const details = page.getByTestId('bar-details');
+        expect(await details.textContent()).toMatch(/Tap a bar/);
+        // A tap (a touch, no hover) on the focaccia's mix: its times from the plan (small spiral at 01:35, 8 minutes).
+        const mix = page.getByRole('button', { name: 'Harbour focaccia 1/1: mix 01:35–01:43' });
+        await mix.tap();
+        expect(await details.textContent()).toMatch(/Harbour focaccia 1\/1 · mix · 01:35–01:43 · 8 min · small spiral/);
+        expect(await mix.getAttribute('aria-pressed')).toBe('true');
+        // The keyboard: Tab to the next bar shows its times.
+        await page.keyboard.press('Tab');
+        expect(await details.textContent()).toMatch(/Harbour focaccia 1\/1 · bulk fermentation · 01:43–03:03 .* fold at 02:03, 02:23, 02:43/);
+        // Every step in words, folds included.
+        await page.getByText(/Every step in time order/).click();
+        expect(await page.getByTestId('step-list').textContent()).toContain('fold at 02:03, 02:23, 02:43');
+        await screenshot(page, 'plan-tablet-portrait-bar', { width: 768, height: 1024, fullPage: false });
+      },
+      { clock: new Date(2026, 11, 3, 4, 40), viewport: { width: 768, height: 1024 }, touch: true },
+    ));
 
   it('answers bench staff with a 403 page for changes and a not-found page for drafts and unknown pages', () =>
     withPage('bench', async (page) => {
@@ -534,7 +592,8 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
       for (const path of [...ids.map((id) => `/formulas/${id}`), ...dates.map((d) => `/plans/${d}`)]) {
         await page.goto(`${base}${path}`);
         await page.locator('[data-testid="overall"], [data-testid="timeline"]').first().waitFor();
-        await page.getByRole('heading', { name: 'Take care' }).waitFor();
+        // The formula page's cautions panel, or the bake-day page's (the sheet's own title).
+        await page.getByRole('heading', { name: /^(Take care|Cautions)$/ }).first().waitFor();
         const text = (await page.locator('main').textContent()) ?? '';
         if (/could not be shown|Something went wrong|Cannot scale/.test(text)) broken.push(path);
       }

@@ -336,7 +336,12 @@ describe('a plan that orders a draft', () => {
     }
     t.clock.now += CHECK_MS;
     const reviewer = await get<PlanListResponse>('/api/plans', 'reviewer');
-    expect(reviewer.plans.find((p) => p.date === '2026-12-05')).toMatchObject({ orders: 2, formulas: ['harbour-ciabatta', 'spelt-porridge-loaf'] });
+    expect(reviewer.plans.find((p) => p.date === '2026-12-05')).toMatchObject({
+      orders: 2,
+      formulas: ['harbour-ciabatta', 'spelt-porridge-loaf'],
+      // The products by their titles (formulas/*.yaml), for the bake-day list.
+      titles: ['Harbour ciabatta', 'Spelt porridge loaf (trial)'],
+    });
 
     const bench = await get<PlanListResponse>('/api/plans', 'bench');
     expect(bench.plans.map((p) => p.date)).not.toContain('2026-12-05');

@@ -9,7 +9,10 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { buildSheet } from '#shared/sheet/build';
 import { renderSheetHtml } from '#shared/sheet/html';
 import { layoutSheet, layoutTexts } from '#shared/sheet/layout';
+import { createElement } from 'react';
+import { renderToStaticMarkup } from 'react-dom/server';
 import { renderSheetPdf } from '../../server/print/pdf.ts';
+import { BakeDay } from '../../src/features/plans/components/bake-day.tsx';
 import { DEMO_PLANS, sheetInput } from './sheet-fixtures.ts';
 
 const sheet = buildSheet(sheetInput(DEMO_PLANS[0]));
@@ -71,6 +74,15 @@ describe('the layout of the demo day', () => {
     writeFileSync(pdf, await renderSheetPdf(sheet));
     const text = execFileSync('/usr/bin/pdftotext', ['-raw', pdf, '-'], { encoding: 'utf8' });
     expect(firstOutOfOrder(text, texts)).toBeNull();
+  });
+
+  it('the viewer\'s bake-day page carries every text in order (React\'s server renderer)', () => {
+    const html = renderToStaticMarkup(createElement(BakeDay, { sheet, now: null }));
+    // The page's own chart labels and step list are drawings of the chart: left out as in the HTML.
+    const page = html.replace(/<figure[\s\S]*?<\/figure>/g, ' ');
+    expect(firstOutOfOrder(htmlText(page), texts)).toBeNull();
+    // And nothing of the sheet's text is left out of the page: each mix is a card with its steps.
+    expect(html.match(/data-testid="sheet-mix"/g)).toHaveLength(sheet.mixes.length);
   });
 
   it('a text out of place is caught', () => {

@@ -50,6 +50,9 @@ export class S3PhotoStore implements PhotoStore {
       region: settings.region,
       endpoint: settings.endpoint,
       forcePathStyle: settings.forcePathStyle,
+      // Checksums only where S3 requires them: stores other than AWS's may not know the newer ones.
+      requestChecksumCalculation: 'WHEN_REQUIRED',
+      responseChecksumValidation: 'WHEN_REQUIRED',
       credentials: settings.accessKeyId && settings.secretAccessKey ? { accessKeyId: settings.accessKeyId, secretAccessKey: settings.secretAccessKey } : undefined,
       // A stuck store must not hold a bench request for minutes.
       requestHandler: { requestTimeout: 30_000, connectionTimeout: 5_000 },

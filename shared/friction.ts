@@ -192,11 +192,12 @@ export function proposeFriction(
   if (rise !== null) {
     status = current && Math.abs(rise - current.rise) < PROPOSE_DIFFERENCE ? 'agrees' : 'propose';
     if (status === 'propose') {
-      const where = current ? `${current.path}, mixers: ${key.mixer}: ` : `the plan's mixers: ${key.mixer}: `;
+      // Words, not an arrow: the printed sheet's fonts have no arrow.
+      const where = current ? `in ${current.path}, mixer ${key.mixer}: ` : `in the plan, mixer ${key.mixer}: `;
       change = current?.riseFrom === 'rise'
-        ? `${where}rise: ${fmt(half(current.rise))} → ${fmt(half(rise))}`
+        ? `${where}rise: ${fmt(half(current.rise))} becomes rise: ${fmt(half(rise))}`
         : current?.riseFrom === 'friction'
-          ? `${where}friction: ${fmt(half(current.rise * 3))} → ${fmt(half(rise * 3))}`
+          ? `${where}friction: ${fmt(half(current.rise * 3))} becomes friction: ${fmt(half(rise * 3))}`
           : `${where}add rise: ${fmt(half(rise))}`;
     }
   }

@@ -4,6 +4,7 @@
 // chose US customary units. Pure; no I/O.
 import { sum } from '../scale.ts';
 import { FRICTION_CONVENTION } from '../dough-water.ts';
+import { dayRange, FRICTION_MINIMUM, type FrictionProposal } from '../friction.ts';
 import { celsiusDeltaToFahrenheit, formatMass, formatTemperature, formatTemperatureRange, temperatureUnitOf, type UnitSystem } from '../units.ts';
 import { shortTime } from './time.ts';
 import { stepWord } from '../step-words.ts';
@@ -37,7 +38,7 @@ export interface SheetBlock {
   build?: { list: 'preferments' | 'soakers'; index: number };
 }
 
-export type SectionKey = 'preferments' | 'soakers' | 'mixes' | 'totals' | 'formulas' | 'cautions' | 'warnings';
+export type SectionKey = 'preferments' | 'soakers' | 'mixes' | 'totals' | 'formulas' | 'friction' | 'cautions' | 'warnings';
 
 export interface SheetSection {
   key: SectionKey;
@@ -212,6 +213,22 @@ function mixSteps(m: SheetMix, sheet: Sheet, f: Figures): SheetTable {
   return { head: ['time', 'step', 'what'], rows, align: ['left', 'left', 'left'], tick: rows.map(() => true) };
 }
 
+/** What the bench's records say about one mixer's friction for one product; the file decides. */
+function frictionBlock(p: FrictionProposal, f: Figures): SheetBlock {
+  const lines: string[] = [];
+  if (p.current) {
+    lines.push(`the plan says rise ${f.dt(p.current.rise)}${p.current.riseFrom === 'friction' ? ` (straight-dough friction ${f.dt(p.current.rise * 3)} ÷ 3)` : ''}`);
+  }
+  if (p.rise !== null && p.friction !== null) lines.push(`the mixes recorded say rise ${f.dt(p.rise)} (straight-dough friction ${f.dt(p.friction)}), median ${p.basis}`);
+  else lines.push(`${p.basis}: at least ${FRICTION_MINIMUM} are needed before a value is proposed`);
+  if (p.outliers.length > 0) lines.push(`left out as far from the others: ${p.outliers.map((o) => `${shortDay(o.date)} rise ${f.dt(o.rise)}`).join(', ')}`);
+  if (p.status === 'agrees') lines.push('the plan agrees with the records (within half a degree); nothing to change');
+  if (p.status === 'propose' && p.change) lines.push(`to use it: ${p.change}; until then the sheet keeps the plan's value`);
+  return { title: `${p.mixer} · ${p.title}`, lines };
+}
+
+const shortDay = (date: string) => dayRange(date, date);
+
 export function presentSheet(sheet: Sheet, options: PresentOptions = {}): PresentedSheet {
   const f = figuresFor(options.units);
   const { g, t } = f;
@@ -268,6 +285,9 @@ export function presentSheet(sheet: Sheet, options: PresentOptions = {}): Presen
       },
     ],
   });
+  if (sheet.frictionProposals && sheet.frictionProposals.length > 0) {
+    sections.push({ key: 'friction', title: 'Friction from the bench records', blocks: sheet.frictionProposals.map((p) => frictionBlock(p, f)) });
+  }
   sections.push({ key: 'cautions', title: 'Cautions', blocks: [{ title: '', lines: sheet.cautions.map((x) => x.text) }] });
   if (sheet.warnings.length > 0) sections.push({ key: 'warnings', title: 'Check before you start', blocks: [{ title: '', lines: sheet.warnings }] });
 

@@ -202,7 +202,7 @@ forEachDatabase('bench records', (setup) => {
       expect(p.status).toBe('propose');
       expect(p.rise).toBeCloseTo(mix.factors!.rise + 1, 9);
       expect(p.basis).toBe('from 3 mixes, 3 Dec');
-      expect(p.change).toBe('formulas/plans/2026-12-03.yaml, mixers: spiral: friction: 13 °C → 16 °C');
+      expect(p.change).toBe('in formulas/plans/2026-12-03.yaml, mixer spiral: friction: 13 °C becomes friction: 16 °C');
       const sheet = ((await getJson(`${t.url}/api/plans/2026-12-03`, bench)).body as PlanDetail).sheet;
       expect(sheet.frictionProposals?.find((x) => x.formula === 'harbour-ciabatta')).toEqual(p);
       // The file's value is untouched.

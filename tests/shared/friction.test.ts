@@ -101,14 +101,14 @@ describe('the proposal', () => {
     expect(p.friction).toBe(15);
     expect(p.outliers.map((o) => o.recordId)).toEqual([5]);
     expect(p.basis).toBe('from 6 mixes, 12–28 Nov (1 left out as an outlier)');
-    expect(p.change).toBe('formulas/plans/2026-12-03.yaml, mixers: spiral: friction: 13 °C → 15 °C');
+    expect(p.change).toBe('in formulas/plans/2026-12-03.yaml, mixer spiral: friction: 13 °C becomes friction: 15 °C');
     expect(current.rise).toBe(13 / 3);
   });
 
   it('says the file agrees within half a degree, and speaks the line\'s own word', () => {
     expect(proposeFriction(key, readings([4.5, 4.5, 4.5]), current).status).toBe('agrees');
     const p = proposeFriction(key, readings([2, 2, 2]), { ...current, rise: 4, riseFrom: 'rise' });
-    expect(p.change).toBe('formulas/plans/2026-12-03.yaml, mixers: spiral: rise: 4 °C → 2 °C');
+    expect(p.change).toBe('in formulas/plans/2026-12-03.yaml, mixer spiral: rise: 4 °C becomes rise: 2 °C');
   });
 
   it('names days across months and years', () => {
@@ -124,7 +124,7 @@ describe('the proposal', () => {
     const table = frictionTable([rec(1, 'spiral', 'b', 25), rec(2, 'small spiral', 'a', 24), rec(3, 'spiral', 'b', 25), rec(4, 'spiral', 'b', 25)], () => null);
     expect(table.map((p) => [p.mixer, p.formula, p.mixes, p.status])).toEqual([['small spiral', 'a', 1, 'too few'], ['spiral', 'b', 3, 'propose']]);
     expect(table[1].rise).toBeCloseTo(5, 12);
-    expect(table[1].change).toBe("the plan's mixers: spiral: add rise: 5 °C");
+    expect(table[1].change).toBe('in the plan, mixer spiral: add rise: 5 °C');
   });
 });
 

@@ -121,7 +121,7 @@ function formatMinutes(r: NumberRange | undefined): string | null {
 
 const temp = (c: number | undefined) => (c === undefined ? null : `${formatNumber(c)} °C`);
 
-const VESSEL_TEXT: Record<string, string> = { deck: 'on the deck', tray: 'on trays', pot: 'in pots', tin: 'in tins', stone: 'on the stone' };
+const VESSEL_TEXT: Record<string, string> = { deck: 'on the deck', tray: 'on trays', pot: 'in pots', tin: 'in tins', stone: 'on the stone', banneton: 'in bannetons', couche: 'on couches' };
 
 /** A step in a line, e.g. "bake 45 min at 230 °C, in pots, covered 20 min (note)". */
 export function describeStep(s: Step): string {

@@ -2,7 +2,7 @@
 // percent and minutes. `normalize…` turns a file that passed the schema into this shape.
 // Pure; no I/O.
 import type {
-  AllergenCode, CatalogFile, FinishUse, FormulaFile, FormulaStatus, IngredientKind, MixerKind, PlanFile, PrefermentKind, StepKind, YeastType,
+  AllergenCode, CatalogFile, EquipmentKind, FinishUse, FormulaFile, FormulaStatus, IngredientKind, MixerKind, PlanFile, PrefermentKind, StepKind, Vessel, YeastType,
 } from './schema/shapes.ts';
 import { HAND_MIXING_RISE } from './temperature.ts';
 import {
@@ -49,7 +49,7 @@ export interface Step {
   /** °C */
   temperature?: number;
   folds?: { count: number; every: number };
-  vessel?: 'deck' | 'tray' | 'pot' | 'tin' | 'stone';
+  vessel?: Vessel;
   covered?: number;
   steam?: boolean;
   /** Bake: pieces that fill one oven slot. */
@@ -117,6 +117,8 @@ export interface CatalogItem {
   /** The name on the statement for one market, where it differs from label. */
   labels?: { eu?: string; us?: string };
   nutrients?: Nutrients;
+  /** A culture's feed, as the catalog gives it (defaults are filled in by sheet/cultures.ts). */
+  feeding?: { ratio?: [number, number, number]; hours?: NumberRange; temperature?: number; temperatureRange?: NumberRange; keepGrams?: number };
   note?: string;
 }
 
@@ -168,6 +170,14 @@ export interface Shift {
   from: string;
   to: string;
   people: number;
+  name?: string;
+}
+
+/** A scale the bench weighs on: the most it weighs and the step it reads in, grams. */
+export interface Scale {
+  name: string;
+  maxGrams: number;
+  resolutionGrams: number;
 }
 
 export interface Order {
@@ -190,6 +200,10 @@ export interface Plan {
   ovens?: Oven[];
   bench?: Shift[];
   orders: Order[];
+  /** What the bakery has, by kind; undefined when the plan does not say. */
+  equipment?: Partial<Record<EquipmentKind, number>>;
+  /** Undefined when the plan lists none: weights are then not checked against a scale. */
+  scales?: Scale[];
   ranges: RangePick;
   notes?: string;
 }
@@ -299,10 +313,21 @@ export function normalizeCatalog(c: CatalogFile): Catalog {
         sodiumMg: e.nutrients.sodium_mg,
         source: e.nutrients.source,
       },
+      ...(e.feeding ? { feeding: normalizeFeeding(e.feeding) } : {}),
       note: e.note,
     };
   }
   return out;
+}
+
+function normalizeFeeding(x: NonNullable<CatalogFile[string]['feeding']>): NonNullable<CatalogItem['feeding']> {
+  const t = temperatureRange(x.temperature);
+  return {
+    ...(x.ratio ? { ratio: x.ratio.split(':').map((n) => Number(n.trim())) as [number, number, number] } : {}),
+    ...(x.hours !== undefined ? { hours: parseRange(x.hours) } : {}),
+    ...(t.middle !== undefined ? { temperature: t.middle, temperatureRange: t.range } : {}),
+    ...(x.keep !== undefined ? { keepGrams: parseMass(x.keep) } : {}),
+  };
 }
 
 export function normalizePlan(p: PlanFile): Plan {
@@ -332,7 +357,7 @@ export function normalizePlan(p: PlanFile): Plan {
       steam: o.steam ?? false,
       fan: o.fan ?? false,
     })),
-    bench: p.bench?.map((b) => ({ date: b.date ?? p.date, from: b.from, to: b.to, people: b.people })),
+    bench: p.bench?.map((b) => ({ date: b.date ?? p.date, from: b.from, to: b.to, people: b.people, ...(b.name ? { name: b.name } : {}) })),
     orders: p.orders.map((o) => ({
       formula: o.formula,
       pieces: o.pieces,
@@ -342,6 +367,8 @@ export function normalizePlan(p: PlanFile): Plan {
       customer: o.customer,
       due: o.due,
     })),
+    ...(p.equipment ? { equipment: { ...p.equipment } } : {}),
+    ...(p.scales ? { scales: p.scales.map((x) => ({ name: x.name, maxGrams: parseMass(x.max), resolutionGrams: parseMass(x.resolution) })) } : {}),
     ranges: p.ranges ?? 'mid',
     notes: p.notes,
   };

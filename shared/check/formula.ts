@@ -413,6 +413,8 @@ function checkProcess(out: FindingList, f: Formula, raw: FormulaFile): void {
     }
     if (s.vessel !== undefined && s.step !== 'bake' && s.step !== 'proof' && s.step !== 'retard') {
       out.warning(at('vessel'), `"vessel" is for bake, proof and retard steps; step ${i + 1} is ${s.step}`, 'key');
+    } else if (s.step === 'bake' && (s.vessel === 'banneton' || s.vessel === 'couche')) {
+      out.error(at('vessel'), `a ${s.vessel} is for the proof, not the oven; step ${i + 1} bakes: say deck, stone, tray, tin or pot`);
     }
     if (s.folds && longest !== undefined && s.folds.count * s.folds.every > longest + EPS) {
       out.warning(at('folds'), `${s.folds.count} folds every ${s.folds.every} min take ${s.folds.count * s.folds.every} min, longer than the step (${longest} min)`, 'key');

@@ -1,5 +1,5 @@
-// Every task of several plans that falls in a time window ("what to do on this shift"): builds,
-// mixes, bench tasks, bakes, cold holds, from each plan's sheet. Pure; no I/O.
+// Every task of several plans that falls in a time window ("what to do on this shift"): culture
+// feeds, builds, mixes, bench tasks, bakes, cold holds, from each plan's sheet. Pure; no I/O.
 import type { Booking, LocalDateTime, Sheet } from '../sheet/types.ts';
 import { compareText } from '../text.ts';
 
@@ -8,7 +8,7 @@ export interface ShiftTask {
   plan: string;
   start: LocalDateTime;
   end: LocalDateTime;
-  /** The process step, "build" for a pre-ferment, "soak" for a soaker's window. */
+  /** The process step, "build" for a pre-ferment, "soak" for a soaker's window, "feed" for a culture's feed. */
   task: string;
   formula: string;
   /** The mix's label, or the build's name. */
@@ -46,6 +46,14 @@ export function tasksInWindow(sheets: Sheet[], from: LocalDateTime, to: LocalDat
         plan: sheet.date, start, end, task: 'build', formula: b.formula, what: b.batches > 1 ? `${b.name} (${b.batch}/${b.batches})` : b.name,
         resource: b.booked ? { kind: 'mixer', name: b.booked.mixer, unit: null } : null,
         temperature: b.targetTemperature, note: b.booked ? null : 'mix by hand within this window',
+      });
+    }
+    for (const c of sheet.cultures ?? []) {
+      if (!inside(c.at, c.at)) continue;
+      out.push({
+        plan: sheet.date, start: c.at, end: c.at, task: 'feed', formula: c.uses[0].formula, what: c.feeds > 1 ? `${c.culture} (feed ${c.feed}/${c.feeds})` : c.culture,
+        resource: null, temperature: c.temperature,
+        note: `${Math.round(c.seed)} g culture + ${Math.round(c.flour.grams)} g ${c.flour.ingredient} + ${Math.round(c.water)} g water; ripe ${c.ripeFrom.slice(5, 16).replace('T', ' ')} to ${c.ripeUntil.slice(5, 16).replace('T', ' ')}`,
       });
     }
     for (const b of sheet.soakers) {

@@ -3,7 +3,7 @@
 // tests/shared/schema-drift.test.ts fails when the committed files and these shapes differ.
 import { Type, type Static } from '@sinclair/typebox';
 import {
-  ALLERGEN_CODES, BAKE_VESSELS, CLOCK_PATTERN, DATE_PATTERN, FINISH_USES, FORMULA_STATUSES, ID_PATTERN, INGREDIENT_KINDS, MASS_PATTERN,
+  ALLERGEN_CODES, CLOCK_PATTERN, EQUIPMENT_KINDS, RATIO_PATTERN, VESSELS, DATE_PATTERN, FINISH_USES, FORMULA_STATUSES, ID_PATTERN, INGREDIENT_KINDS, MASS_PATTERN,
   MIXER_KINDS, PERCENT_PATTERN, PREFERMENT_KINDS, RANGE_PATTERN, RATE_PATTERN, STEP_KINDS, TEMPERATURE_PATTERN, TEMPERATURE_RANGE_PATTERN, YEAST_TYPES,
 } from './vocabulary.ts';
 
@@ -95,7 +95,11 @@ export const Step = Type.Object(
         { additionalProperties: false },
       ),
     ),
-    vessel: Type.Optional(Type.Unsafe<(typeof BAKE_VESSELS)[number]>({ type: 'string', enum: [...BAKE_VESSELS] })),
+    vessel: Type.Optional(Type.Unsafe<(typeof VESSELS)[number]>({
+      type: 'string',
+      enum: [...VESSELS],
+      description: 'What the pieces are in: bake deck, tray, pot, tin or stone; proof and retard also banneton or couche.',
+    })),
     covered: Type.Optional(Type.Number({ minimum: 0, description: 'Minutes of the bake under a lid or cover.' })),
     steam: Type.Optional(Type.Boolean()),
     per_slot: Type.Optional(Type.Number({
@@ -209,6 +213,15 @@ export const CatalogEntry = Type.Object(
       { additionalProperties: false, description: 'The name on the statement for one market, where it differs from label.' },
     )),
     nutrients: Type.Optional(Nutrients),
+    feeding: Type.Optional(Type.Object(
+      {
+        ratio: Type.Optional(Type.String({ pattern: RATIO_PATTERN, description: 'Culture : flour : water by weight at a feed, e.g. "1:2:2" (default 1:2:2, water scaled to the hydration).' })),
+        hours: Type.Optional(Range),
+        temperature: Type.Optional(TemperatureRange),
+        keep: Type.Optional(Type.String({ pattern: MASS_PATTERN, description: 'Ripe culture kept back after the builds, to feed again, e.g. "300 g".' })),
+      },
+      { additionalProperties: false, description: "A culture's feed before the night's builds: ratio, hours to ripe, temperature and what is kept back." },
+    )),
     note: Type.Optional(Type.String()),
   },
   { additionalProperties: false },
@@ -263,8 +276,29 @@ export const Shift = Type.Object(
     to: Type.String({ pattern: CLOCK_PATTERN, description: 'End, "HH:MM"; a time not after `from` ends the next day.' }),
     people: Type.Integer({ minimum: 1, description: 'People on the bench for dividing, preshaping and shaping.' }),
     date: Type.Optional(Type.String({ pattern: DATE_PATTERN, description: "The day the shift starts; default the plan's date." })),
+    name: Type.Optional(Type.String({ minLength: 1, description: 'A name to print the sheet for this shift by (panform sheet --shift NAME), e.g. "evening builds".' })),
   },
   { additionalProperties: false },
+);
+
+export const Scale = Type.Object(
+  {
+    name: Type.String({ minLength: 1 }),
+    max: Type.String({ pattern: MASS_PATTERN, description: 'The most it weighs, e.g. "60 kg".' }),
+    resolution: Type.String({ pattern: MASS_PATTERN, description: 'The step it reads in (its division), e.g. "0.5 g".' }),
+  },
+  { additionalProperties: false },
+);
+
+export const Equipment = Type.Object(
+  {
+    tray: Type.Optional(Type.Integer({ minimum: 0, description: 'Baking trays (one fills an oven slot).' })),
+    tin: Type.Optional(Type.Integer({ minimum: 0, description: 'Loaf tins.' })),
+    pot: Type.Optional(Type.Integer({ minimum: 0, description: 'Lidded pots.' })),
+    banneton: Type.Optional(Type.Integer({ minimum: 0, description: 'Proofing baskets.' })),
+    couche: Type.Optional(Type.Integer({ minimum: 0, description: "Linen couches (each holds one oven slot's load)." })),
+  },
+  { additionalProperties: false, description: 'What the bakery has to hold the pieces: trays, tins, pots, bannetons, couches.' },
 );
 
 export const Order = Type.Object(
@@ -298,6 +332,8 @@ export const PlanFile = Type.Object(
     ovens: Type.Optional(Type.Array(Oven, { minItems: 1 })),
     bench: Type.Optional(Type.Array(Shift, { minItems: 1, description: 'Shifts of people for dividing, preshaping and shaping.' })),
     orders: Type.Array(Order, { minItems: 1 }),
+    equipment: Type.Optional(Equipment),
+    scales: Type.Optional(Type.Array(Scale, { minItems: 1, description: 'The scales the bench weighs on.' })),
     ranges: Type.Optional(Type.Union([Type.Literal('short'), Type.Literal('mid'), Type.Literal('long')], {
       description: 'Which end of a step range the timeline uses; default mid.',
     })),
@@ -311,6 +347,10 @@ export type CatalogFile = Static<typeof CatalogFile>;
 export type CatalogEntry = Static<typeof CatalogEntry>;
 export type PlanFile = Static<typeof PlanFile>;
 export type StepFile = Static<typeof Step>;
+export type ScaleFile = Static<typeof Scale>;
+export type EquipmentFile = Static<typeof Equipment>;
+export type Vessel = (typeof VESSELS)[number];
+export type EquipmentKind = (typeof EQUIPMENT_KINDS)[number];
 export type OvenFile = Static<typeof Oven>;
 export type ShiftFile = Static<typeof Shift>;
 export type PrefermentFile = Static<typeof Preferment>;

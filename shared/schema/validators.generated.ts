@@ -20,7 +20,7 @@ const runtime0 = function ucs2length(str) {
 };
 "use strict";
 export const formula = validate10;
-const schema11 = {"$schema":"http://json-schema.org/draft-07/schema#","additionalProperties":false,"$id":"https://panform.example/schema/formula.schema.json","title":"Panform formula","type":"object","required":["id","title","status","category","yield","flour","ingredients"],"properties":{"$schema":{"type":"string"},"id":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","description":"kebab-case; equals the file name.","type":"string"},"title":{"minLength":1,"type":"string"},"status":{"type":"string","enum":["draft","active","retired"]},"category":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","description":"e.g. lean, sourdough, rye, enriched, oil, rolls.","type":"string"},"description":{"type":"string"},"tags":{"uniqueItems":true,"type":"array","items":{"minLength":1,"type":"string"}},"yield":{"additionalProperties":false,"description":"The batch the formula is written for.","type":"object","required":["pieces","piece"],"properties":{"pieces":{"minimum":1,"type":"integer"},"piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"}}},"loss":{"description":"A percentage, e.g. \"2 %\" or 2.","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"bake_loss":{"description":"Weight lost in the oven, in percent of the dough weight (taken as water). Default by category (common practice).","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"dough_temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*-?[0-9]+(\\.[0-9]+)?)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature, or a range with one unit, e.g. \"25 °C\" or \"25-26 °C\" (aimed at the middle).","type":"string"},"bassinage":{"additionalProperties":false,"description":"Water held back and added late in the mix (bassinage), with its own temperature.","type":"object","required":["percent","temperature"],"properties":{"percent":{"exclusiveMinimum":0,"description":"Baker's percent of water held back, part of the formula's water line.","type":"number"},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"}}},"flour":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"preferments":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","kind","share","ingredients"],"properties":{"name":{"minLength":1,"type":"string"},"kind":{"type":"string","enum":["poolish","biga","levain","sponge","old-dough","other"]},"share":{"description":"Share of the total flour that this pre-ferment holds, e.g. \"30 %\".","anyOf":[{"exclusiveMinimum":0,"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"ripen":{"additionalProperties":false,"description":"How long and how warm a pre-ferment ripens.","type":"object","required":["hours"],"properties":{"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*-?[0-9]+(\\.[0-9]+)?)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature, or a range with one unit, e.g. \"25 °C\" or \"25-26 °C\" (aimed at the middle).","type":"string"}}},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"Target temperature of the build when mixed.","type":"string"},"note":{"type":"string"}}}},"soakers":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","ingredients"],"properties":{"name":{"minLength":1,"type":"string"},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"soak":{"additionalProperties":false,"type":"object","required":["hours"],"properties":{"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"hot":{"description":"Made with boiling water (a scald).","type":"boolean"}}},"note":{"type":"string"}}}},"process":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["step"],"properties":{"step":{"type":"string","enum":["autolyse","mix","bulk","fold","divide","preshape","rest","shape","proof","retard","bake","cool","other"]},"minutes":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"folds":{"additionalProperties":false,"type":"object","required":["count","every"],"properties":{"count":{"minimum":1,"type":"integer"},"every":{"exclusiveMinimum":0,"description":"Minutes between folds.","type":"number"}}},"vessel":{"type":"string","enum":["deck","tray","pot","tin","stone"]},"covered":{"minimum":0,"description":"Minutes of the bake under a lid or cover.","type":"number"},"steam":{"type":"boolean"},"per_slot":{"exclusiveMinimum":0,"description":"Bake: pieces that fill one oven slot (tray or peel place); below 1 when a piece takes more than one slot.","type":"number"},"seconds_per_piece":{"exclusiveMinimum":0,"description":"Divide, preshape or shape: one person's handling time per piece, in seconds.","type":"number"},"note":{"type":"string"}}}},"finishes":{"type":"array","items":{"additionalProperties":false,"description":"What goes on or under the dough: counted in the ingredient statement, allergens and nutrition.","type":"object","required":["ingredient","per_piece","use"],"properties":{"ingredient":{"minLength":1,"description":"Catalog name of what goes on or under the piece.","type":"string"},"per_piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"Weight used on each piece, e.g. \"4 g\".","type":"string"},"use":{"type":"string","enum":["topping","wash","tray","dusting"],"description":"topping (on top), wash (brushed on), tray (oil or grease under the piece), dusting (flour on the piece or the peel)."},"note":{"type":"string"}}}},"may_contain":{"uniqueItems":true,"type":"array","items":{"type":"string","enum":["wheat","rye","barley","oats","spelt","khorasan","crustaceans","eggs","fish","peanuts","soybeans","milk","almonds","hazelnuts","walnuts","cashews","pecans","brazil-nuts","pistachios","macadamia","celery","mustard","sesame","sulphites","lupin","molluscs"],"description":"An allergen code; the EU and US roll-ups are derived from these."}},"notes":{"type":"string"}}};
+const schema11 = {"$schema":"http://json-schema.org/draft-07/schema#","additionalProperties":false,"$id":"https://panform.example/schema/formula.schema.json","title":"Panform formula","type":"object","required":["id","title","status","category","yield","flour","ingredients"],"properties":{"$schema":{"type":"string"},"id":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","description":"kebab-case; equals the file name.","type":"string"},"title":{"minLength":1,"type":"string"},"status":{"type":"string","enum":["draft","active","retired"]},"category":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","description":"e.g. lean, sourdough, rye, enriched, oil, rolls.","type":"string"},"description":{"type":"string"},"tags":{"uniqueItems":true,"type":"array","items":{"minLength":1,"type":"string"}},"yield":{"additionalProperties":false,"description":"The batch the formula is written for.","type":"object","required":["pieces","piece"],"properties":{"pieces":{"minimum":1,"type":"integer"},"piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"}}},"loss":{"description":"A percentage, e.g. \"2 %\" or 2.","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"bake_loss":{"description":"Weight lost in the oven, in percent of the dough weight (taken as water). Default by category (common practice).","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"dough_temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*-?[0-9]+(\\.[0-9]+)?)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature, or a range with one unit, e.g. \"25 °C\" or \"25-26 °C\" (aimed at the middle).","type":"string"},"bassinage":{"additionalProperties":false,"description":"Water held back and added late in the mix (bassinage), with its own temperature.","type":"object","required":["percent","temperature"],"properties":{"percent":{"exclusiveMinimum":0,"description":"Baker's percent of water held back, part of the formula's water line.","type":"number"},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"}}},"flour":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"preferments":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","kind","share","ingredients"],"properties":{"name":{"minLength":1,"type":"string"},"kind":{"type":"string","enum":["poolish","biga","levain","sponge","old-dough","other"]},"share":{"description":"Share of the total flour that this pre-ferment holds, e.g. \"30 %\".","anyOf":[{"exclusiveMinimum":0,"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"ripen":{"additionalProperties":false,"description":"How long and how warm a pre-ferment ripens.","type":"object","required":["hours"],"properties":{"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*-?[0-9]+(\\.[0-9]+)?)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature, or a range with one unit, e.g. \"25 °C\" or \"25-26 °C\" (aimed at the middle).","type":"string"}}},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"Target temperature of the build when mixed.","type":"string"},"note":{"type":"string"}}}},"soakers":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","ingredients"],"properties":{"name":{"minLength":1,"type":"string"},"ingredients":{"description":"Ingredient name (as in the catalog) → baker's percent.","type":"object","patternProperties":{"^(.*)$":{"type":"number"}}},"soak":{"additionalProperties":false,"type":"object","required":["hours"],"properties":{"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"hot":{"description":"Made with boiling water (a scald).","type":"boolean"}}},"note":{"type":"string"}}}},"process":{"type":"array","items":{"additionalProperties":false,"type":"object","required":["step"],"properties":{"step":{"type":"string","enum":["autolyse","mix","bulk","fold","divide","preshape","rest","shape","proof","retard","bake","cool","other"]},"minutes":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"folds":{"additionalProperties":false,"type":"object","required":["count","every"],"properties":{"count":{"minimum":1,"type":"integer"},"every":{"exclusiveMinimum":0,"description":"Minutes between folds.","type":"number"}}},"vessel":{"type":"string","enum":["deck","tray","pot","tin","stone","banneton","couche"],"description":"What the pieces are in: bake deck, tray, pot, tin or stone; proof and retard also banneton or couche."},"covered":{"minimum":0,"description":"Minutes of the bake under a lid or cover.","type":"number"},"steam":{"type":"boolean"},"per_slot":{"exclusiveMinimum":0,"description":"Bake: pieces that fill one oven slot (tray or peel place); below 1 when a piece takes more than one slot.","type":"number"},"seconds_per_piece":{"exclusiveMinimum":0,"description":"Divide, preshape or shape: one person's handling time per piece, in seconds.","type":"number"},"note":{"type":"string"}}}},"finishes":{"type":"array","items":{"additionalProperties":false,"description":"What goes on or under the dough: counted in the ingredient statement, allergens and nutrition.","type":"object","required":["ingredient","per_piece","use"],"properties":{"ingredient":{"minLength":1,"description":"Catalog name of what goes on or under the piece.","type":"string"},"per_piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"Weight used on each piece, e.g. \"4 g\".","type":"string"},"use":{"type":"string","enum":["topping","wash","tray","dusting"],"description":"topping (on top), wash (brushed on), tray (oil or grease under the piece), dusting (flour on the piece or the peel)."},"note":{"type":"string"}}}},"may_contain":{"uniqueItems":true,"type":"array","items":{"type":"string","enum":["wheat","rye","barley","oats","spelt","khorasan","crustaceans","eggs","fish","peanuts","soybeans","milk","almonds","hazelnuts","walnuts","cashews","pecans","brazil-nuts","pistachios","macadamia","celery","mustard","sesame","sulphites","lupin","molluscs"],"description":"An allergen code; the EU and US roll-ups are derived from these."}},"notes":{"type":"string"}}};
 const func2 = Object.prototype.hasOwnProperty;
 const func3 = runtime0;
 const pattern0 = new RegExp("^[a-z0-9]+(-[a-z0-9]+)*$", "u");
@@ -1752,7 +1752,7 @@ vErrors.push(err128);
 }
 errors++;
 }
-if(!(((((data52 === "deck") || (data52 === "tray")) || (data52 === "pot")) || (data52 === "tin")) || (data52 === "stone"))){
+if(!(((((((data52 === "deck") || (data52 === "tray")) || (data52 === "pot")) || (data52 === "tin")) || (data52 === "stone")) || (data52 === "banneton")) || (data52 === "couche"))){
 const err129 = {instancePath:instancePath+"/process/" + i4+"/vessel",schemaPath:"#/properties/process/items/properties/vessel/enum",keyword:"enum",params:{allowedValues: schema11.properties.process.items.properties.vessel.enum},message:"must be equal to one of the allowed values"};
 if(vErrors === null){
 vErrors = [err129];
@@ -2135,8 +2135,9 @@ return errors === 0;
 }
 
 export const catalog = validate11;
-const schema12 = {"$schema":"http://json-schema.org/draft-07/schema#","$id":"https://panform.example/schema/catalog.schema.json","title":"Panform ingredient catalog","type":"object","patternProperties":{"^(.*)$":{"additionalProperties":false,"type":"object","required":["kind"],"properties":{"kind":{"type":"string","enum":["flour","water","salt","yeast","sugar","fat","dairy","egg","seed","inclusion","culture","improver","other"]},"water":{"description":"Water content in percent of its weight.","anyOf":[{"minimum":0,"maximum":100,"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"water_source":{"minLength":1,"description":"Where the water content comes from: a food composition table and its number, or a supplier specification.","type":"string"},"allergens":{"uniqueItems":true,"type":"array","items":{"type":"string","enum":["wheat","rye","barley","oats","spelt","khorasan","crustaceans","eggs","fish","peanuts","soybeans","milk","almonds","hazelnuts","walnuts","cashews","pecans","brazil-nuts","pistachios","macadamia","celery","mustard","sesame","sulphites","lupin","molluscs"],"description":"An allergen code; the EU and US roll-ups are derived from these."}},"yeast":{"type":"string","enum":["fresh","active-dry","instant"]},"yeast_factor":{"exclusiveMinimum":0,"description":"Grams of this yeast that replace 1 g of fresh yeast (default: fresh 1, active-dry 0.4, instant 0.33).","type":"number"},"hydration":{"description":"A percentage, e.g. \"2 %\" or 2.","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"fed_with":{"minLength":1,"type":"string"},"cost_per_kg":{"minimum":0,"type":"number"},"cost_date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","type":"string"},"components":{"minItems":1,"type":"array","items":{"minLength":1,"type":"string"}},"label":{"minLength":1,"description":"Name on the ingredient statement.","type":"string"},"labels":{"additionalProperties":false,"description":"The name on the statement for one market, where it differs from label.","type":"object","properties":{"eu":{"minLength":1,"type":"string"},"us":{"minLength":1,"type":"string"}}},"nutrients":{"additionalProperties":false,"description":"Per 100 g, grams unless the key says mg.","type":"object","required":["fat","saturates","carbohydrate","sugars","fibre","protein","sodium_mg","source"],"properties":{"fat":{"minimum":0,"maximum":100,"description":"Fat, g per 100 g.","type":"number"},"saturates":{"minimum":0,"maximum":100,"description":"Saturated fatty acids, g per 100 g.","type":"number"},"carbohydrate":{"minimum":0,"maximum":100,"description":"Total carbohydrate (by difference, fibre included), g per 100 g.","type":"number"},"sugars":{"minimum":0,"maximum":100,"description":"Total sugars, g per 100 g.","type":"number"},"fibre":{"minimum":0,"maximum":100,"description":"Dietary fibre, g per 100 g.","type":"number"},"protein":{"minimum":0,"maximum":100,"description":"Protein, g per 100 g.","type":"number"},"sodium_mg":{"minimum":0,"maximum":100000,"description":"Sodium, mg per 100 g.","type":"number"},"source":{"minLength":1,"description":"Where the values come from: a supplier specification, or a food composition table and its number.","type":"string"}}},"note":{"type":"string"}}}}};
+const schema12 = {"$schema":"http://json-schema.org/draft-07/schema#","$id":"https://panform.example/schema/catalog.schema.json","title":"Panform ingredient catalog","type":"object","patternProperties":{"^(.*)$":{"additionalProperties":false,"type":"object","required":["kind"],"properties":{"kind":{"type":"string","enum":["flour","water","salt","yeast","sugar","fat","dairy","egg","seed","inclusion","culture","improver","other"]},"water":{"description":"Water content in percent of its weight.","anyOf":[{"minimum":0,"maximum":100,"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"water_source":{"minLength":1,"description":"Where the water content comes from: a food composition table and its number, or a supplier specification.","type":"string"},"allergens":{"uniqueItems":true,"type":"array","items":{"type":"string","enum":["wheat","rye","barley","oats","spelt","khorasan","crustaceans","eggs","fish","peanuts","soybeans","milk","almonds","hazelnuts","walnuts","cashews","pecans","brazil-nuts","pistachios","macadamia","celery","mustard","sesame","sulphites","lupin","molluscs"],"description":"An allergen code; the EU and US roll-ups are derived from these."}},"yeast":{"type":"string","enum":["fresh","active-dry","instant"]},"yeast_factor":{"exclusiveMinimum":0,"description":"Grams of this yeast that replace 1 g of fresh yeast (default: fresh 1, active-dry 0.4, instant 0.33).","type":"number"},"hydration":{"description":"A percentage, e.g. \"2 %\" or 2.","anyOf":[{"type":"number"},{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*%\\s*$","type":"string"}]},"fed_with":{"minLength":1,"type":"string"},"cost_per_kg":{"minimum":0,"type":"number"},"cost_date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","type":"string"},"components":{"minItems":1,"type":"array","items":{"minLength":1,"type":"string"}},"label":{"minLength":1,"description":"Name on the ingredient statement.","type":"string"},"labels":{"additionalProperties":false,"description":"The name on the statement for one market, where it differs from label.","type":"object","properties":{"eu":{"minLength":1,"type":"string"},"us":{"minLength":1,"type":"string"}}},"nutrients":{"additionalProperties":false,"description":"Per 100 g, grams unless the key says mg.","type":"object","required":["fat","saturates","carbohydrate","sugars","fibre","protein","sodium_mg","source"],"properties":{"fat":{"minimum":0,"maximum":100,"description":"Fat, g per 100 g.","type":"number"},"saturates":{"minimum":0,"maximum":100,"description":"Saturated fatty acids, g per 100 g.","type":"number"},"carbohydrate":{"minimum":0,"maximum":100,"description":"Total carbohydrate (by difference, fibre included), g per 100 g.","type":"number"},"sugars":{"minimum":0,"maximum":100,"description":"Total sugars, g per 100 g.","type":"number"},"fibre":{"minimum":0,"maximum":100,"description":"Dietary fibre, g per 100 g.","type":"number"},"protein":{"minimum":0,"maximum":100,"description":"Protein, g per 100 g.","type":"number"},"sodium_mg":{"minimum":0,"maximum":100000,"description":"Sodium, mg per 100 g.","type":"number"},"source":{"minLength":1,"description":"Where the values come from: a supplier specification, or a food composition table and its number.","type":"string"}}},"feeding":{"additionalProperties":false,"description":"A culture's feed before the night's builds: ratio, hours to ripe, temperature and what is kept back.","type":"object","properties":{"ratio":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*:\\s*[0-9]+(\\.[0-9]+)?\\s*:\\s*[0-9]+(\\.[0-9]+)?\\s*$","description":"Culture : flour : water by weight at a feed, e.g. \"1:2:2\" (default 1:2:2, water scaled to the hydration).","type":"string"},"hours":{"description":"A number or a range such as \"10-14\".","anyOf":[{"minimum":0,"type":"number"},{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$","type":"string"}]},"temperature":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*-?[0-9]+(\\.[0-9]+)?)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature, or a range with one unit, e.g. \"25 °C\" or \"25-26 °C\" (aimed at the middle).","type":"string"},"keep":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"Ripe culture kept back after the builds, to feed again, e.g. \"300 g\".","type":"string"}}},"note":{"type":"string"}}}}};
 const pattern24 = new RegExp("^[0-9]{4}-[0-9]{2}-[0-9]{2}$", "u");
+const pattern25 = new RegExp("^\\s*[0-9]+(\\.[0-9]+)?\\s*:\\s*[0-9]+(\\.[0-9]+)?\\s*:\\s*[0-9]+(\\.[0-9]+)?\\s*$", "u");
 
 function validate11(data, {instancePath="", parentData, parentDataProperty, rootData=data}={}){
 /*# sourceURL="https://panform.example/schema/catalog.schema.json" */;
@@ -3087,9 +3088,12 @@ vErrors.push(err74);
 errors++;
 }
 }
-if(data0.note !== undefined){
-if(typeof data0.note !== "string"){
-const err75 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/note",schemaPath:"#/patternProperties/%5E(.*)%24/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data0.feeding !== undefined){
+let data27 = data0.feeding;
+if(data27 && typeof data27 == "object" && !Array.isArray(data27)){
+for(const key4 in data27){
+if(!((((key4 === "ratio") || (key4 === "hours")) || (key4 === "temperature")) || (key4 === "keep"))){
+const err75 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/feeding",schemaPath:"#/patternProperties/%5E(.*)%24/properties/feeding/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key4},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err75];
 }
@@ -3099,9 +3103,11 @@ vErrors.push(err75);
 errors++;
 }
 }
-}
-else {
-const err76 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data27.ratio !== undefined){
+let data28 = data27.ratio;
+if(typeof data28 === "string"){
+if(!pattern25.test(data28)){
+const err76 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/feeding/ratio",schemaPath:"#/patternProperties/%5E(.*)%24/properties/feeding/properties/ratio/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*:\\s*[0-9]+(\\.[0-9]+)?\\s*:\\s*[0-9]+(\\.[0-9]+)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*:\\s*[0-9]+(\\.[0-9]+)?\\s*:\\s*[0-9]+(\\.[0-9]+)?\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err76];
 }
@@ -3111,10 +3117,8 @@ vErrors.push(err76);
 errors++;
 }
 }
-}
-}
 else {
-const err77 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err77 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/feeding/ratio",schemaPath:"#/patternProperties/%5E(.*)%24/properties/feeding/properties/ratio/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err77];
 }
@@ -3123,14 +3127,191 @@ vErrors.push(err77);
 }
 errors++;
 }
+}
+if(data27.hours !== undefined){
+let data29 = data27.hours;
+const _errs72 = errors;
+let valid12 = false;
+const _errs73 = errors;
+if(typeof data29 == "number"){
+if(data29 < 0 || isNaN(data29)){
+const err78 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/feeding/hours",schemaPath:"#/patternProperties/%5E(.*)%24/properties/feeding/properties/hours/anyOf/0/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+if(vErrors === null){
+vErrors = [err78];
+}
+else {
+vErrors.push(err78);
+}
+errors++;
+}
+}
+else {
+const err79 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/feeding/hours",schemaPath:"#/patternProperties/%5E(.*)%24/properties/feeding/properties/hours/anyOf/0/type",keyword:"type",params:{type: "number"},message:"must be number"};
+if(vErrors === null){
+vErrors = [err79];
+}
+else {
+vErrors.push(err79);
+}
+errors++;
+}
+var _valid2 = _errs73 === errors;
+valid12 = valid12 || _valid2;
+if(!valid12){
+const _errs75 = errors;
+if(typeof data29 === "string"){
+if(!pattern11.test(data29)){
+const err80 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/feeding/hours",schemaPath:"#/patternProperties/%5E(.*)%24/properties/feeding/properties/hours/anyOf/1/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*[0-9]+(\\.[0-9]+)?)?\\s*$"+"\""};
+if(vErrors === null){
+vErrors = [err80];
+}
+else {
+vErrors.push(err80);
+}
+errors++;
+}
+}
+else {
+const err81 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/feeding/hours",schemaPath:"#/patternProperties/%5E(.*)%24/properties/feeding/properties/hours/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err81];
+}
+else {
+vErrors.push(err81);
+}
+errors++;
+}
+var _valid2 = _errs75 === errors;
+valid12 = valid12 || _valid2;
+}
+if(!valid12){
+const err82 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/feeding/hours",schemaPath:"#/patternProperties/%5E(.*)%24/properties/feeding/properties/hours/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(vErrors === null){
+vErrors = [err82];
+}
+else {
+vErrors.push(err82);
+}
+errors++;
+}
+else {
+errors = _errs72;
+if(vErrors !== null){
+if(_errs72){
+vErrors.length = _errs72;
+}
+else {
+vErrors = null;
+}
+}
+}
+}
+if(data27.temperature !== undefined){
+let data30 = data27.temperature;
+if(typeof data30 === "string"){
+if(!pattern5.test(data30)){
+const err83 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/feeding/temperature",schemaPath:"#/patternProperties/%5E(.*)%24/properties/feeding/properties/temperature/pattern",keyword:"pattern",params:{pattern: "^\\s*-?[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*-?[0-9]+(\\.[0-9]+)?)?\\s*°?\\s*(C|F)\\s*$"},message:"must match pattern \""+"^\\s*-?[0-9]+(\\.[0-9]+)?(\\s*[-–]\\s*-?[0-9]+(\\.[0-9]+)?)?\\s*°?\\s*(C|F)\\s*$"+"\""};
+if(vErrors === null){
+vErrors = [err83];
+}
+else {
+vErrors.push(err83);
+}
+errors++;
+}
+}
+else {
+const err84 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/feeding/temperature",schemaPath:"#/patternProperties/%5E(.*)%24/properties/feeding/properties/temperature/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err84];
+}
+else {
+vErrors.push(err84);
+}
+errors++;
+}
+}
+if(data27.keep !== undefined){
+let data31 = data27.keep;
+if(typeof data31 === "string"){
+if(!pattern2.test(data31)){
+const err85 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/feeding/keep",schemaPath:"#/patternProperties/%5E(.*)%24/properties/feeding/properties/keep/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
+if(vErrors === null){
+vErrors = [err85];
+}
+else {
+vErrors.push(err85);
+}
+errors++;
+}
+}
+else {
+const err86 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/feeding/keep",schemaPath:"#/patternProperties/%5E(.*)%24/properties/feeding/properties/keep/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err86];
+}
+else {
+vErrors.push(err86);
+}
+errors++;
+}
+}
+}
+else {
+const err87 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/feeding",schemaPath:"#/patternProperties/%5E(.*)%24/properties/feeding/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err87];
+}
+else {
+vErrors.push(err87);
+}
+errors++;
+}
+}
+if(data0.note !== undefined){
+if(typeof data0.note !== "string"){
+const err88 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1")+"/note",schemaPath:"#/patternProperties/%5E(.*)%24/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err88];
+}
+else {
+vErrors.push(err88);
+}
+errors++;
+}
+}
+}
+else {
+const err89 = {instancePath:instancePath+"/" + key0.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/patternProperties/%5E(.*)%24/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err89];
+}
+else {
+vErrors.push(err89);
+}
+errors++;
+}
+}
+}
+}
+else {
+const err90 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err90];
+}
+else {
+vErrors.push(err90);
+}
+errors++;
+}
 validate11.errors = vErrors;
 return errors === 0;
 }
 
 export const plan = validate12;
-const schema13 = {"$schema":"http://json-schema.org/draft-07/schema#","additionalProperties":false,"$id":"https://panform.example/schema/plan.schema.json","title":"Panform production plan","type":"object","required":["date","ready_by","conditions","mixers","orders"],"properties":{"$schema":{"type":"string"},"date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","type":"string"},"ready_by":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"First bake out of the oven, \"HH:MM\".","type":"string"},"conditions":{"additionalProperties":false,"type":"object","required":["room","flour","tap_water"],"properties":{"room":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"flour":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"tap_water":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"preferment":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"}}},"mixers":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","capacity"],"properties":{"name":{"minLength":1,"type":"string"},"kind":{"type":"string","enum":["machine","hand"],"description":"machine (default) or hand; by hand the capacity is the batch one person mixes."},"capacity":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"minimum":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"rise":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"The mixer's temperature rise: how much warmer a dough comes off it than its ingredients' average (a difference).","type":"string"},"friction":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"The friction factor found on a straight dough (three factors: room, flour, water), a difference; rise = friction / 3.","type":"string"},"clean_down":{"minimum":0,"description":"Minutes to clean the bowl and hook before a dough without an allergen follows one with it.","type":"number"}}}},"ovens":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","decks","slots"],"properties":{"name":{"minLength":1,"type":"string"},"decks":{"minimum":1,"description":"Independent chambers, each with its own temperature (a rack oven: 1).","type":"integer"},"slots":{"minimum":1,"description":"Trays or peel places per deck.","type":"integer"},"heat":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$","description":"How fast a deck heats up, e.g. \"4 °C/min\".","type":"string"},"cool":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$","description":"How fast a deck cools down, e.g. \"2 °C/min\".","type":"string"},"steam":{"description":"The oven can steam.","type":"boolean"},"fan":{"description":"A fan (convection or rack) oven: trays, tins and pots, no bread on the sole.","type":"boolean"}}}},"bench":{"minItems":1,"description":"Shifts of people for dividing, preshaping and shaping.","type":"array","items":{"additionalProperties":false,"type":"object","required":["from","to","people"],"properties":{"from":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"Start, \"HH:MM\".","type":"string"},"to":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"End, \"HH:MM\"; a time not after `from` ends the next day.","type":"string"},"people":{"minimum":1,"description":"People on the bench for dividing, preshaping and shaping.","type":"integer"},"date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","description":"The day the shift starts; default the plan's date.","type":"string"}}}},"orders":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["formula","pieces"],"properties":{"formula":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","type":"string"},"pieces":{"minimum":1,"type":"integer"},"piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"mixer":{"minLength":1,"type":"string"},"oven":{"minLength":1,"description":"The oven to bake it in; default any oven that suits the bake.","type":"string"},"customer":{"type":"string"},"due":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"When the last piece must be out of the oven, \"HH:MM\" on the plan's date; default ready_by.","type":"string"}}}},"ranges":{"description":"Which end of a step range the timeline uses; default mid.","anyOf":[{"const":"short","type":"string"},{"const":"mid","type":"string"},{"const":"long","type":"string"}]},"notes":{"type":"string"}}};
-const pattern26 = new RegExp("^([01][0-9]|2[0-3]):[0-5][0-9]$", "u");
-const pattern35 = new RegExp("^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$", "u");
+const schema13 = {"$schema":"http://json-schema.org/draft-07/schema#","additionalProperties":false,"$id":"https://panform.example/schema/plan.schema.json","title":"Panform production plan","type":"object","required":["date","ready_by","conditions","mixers","orders"],"properties":{"$schema":{"type":"string"},"date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","type":"string"},"ready_by":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"First bake out of the oven, \"HH:MM\".","type":"string"},"conditions":{"additionalProperties":false,"type":"object","required":["room","flour","tap_water"],"properties":{"room":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"flour":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"tap_water":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"},"preferment":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"A temperature with its unit, e.g. \"25 °C\" or \"77 °F\".","type":"string"}}},"mixers":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","capacity"],"properties":{"name":{"minLength":1,"type":"string"},"kind":{"type":"string","enum":["machine","hand"],"description":"machine (default) or hand; by hand the capacity is the batch one person mixes."},"capacity":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"minimum":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"rise":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"The mixer's temperature rise: how much warmer a dough comes off it than its ingredients' average (a difference).","type":"string"},"friction":{"pattern":"^\\s*-?[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*$","description":"The friction factor found on a straight dough (three factors: room, flour, water), a difference; rise = friction / 3.","type":"string"},"clean_down":{"minimum":0,"description":"Minutes to clean the bowl and hook before a dough without an allergen follows one with it.","type":"number"}}}},"ovens":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["name","decks","slots"],"properties":{"name":{"minLength":1,"type":"string"},"decks":{"minimum":1,"description":"Independent chambers, each with its own temperature (a rack oven: 1).","type":"integer"},"slots":{"minimum":1,"description":"Trays or peel places per deck.","type":"integer"},"heat":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$","description":"How fast a deck heats up, e.g. \"4 °C/min\".","type":"string"},"cool":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$","description":"How fast a deck cools down, e.g. \"2 °C/min\".","type":"string"},"steam":{"description":"The oven can steam.","type":"boolean"},"fan":{"description":"A fan (convection or rack) oven: trays, tins and pots, no bread on the sole.","type":"boolean"}}}},"bench":{"minItems":1,"description":"Shifts of people for dividing, preshaping and shaping.","type":"array","items":{"additionalProperties":false,"type":"object","required":["from","to","people"],"properties":{"from":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"Start, \"HH:MM\".","type":"string"},"to":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"End, \"HH:MM\"; a time not after `from` ends the next day.","type":"string"},"people":{"minimum":1,"description":"People on the bench for dividing, preshaping and shaping.","type":"integer"},"date":{"pattern":"^[0-9]{4}-[0-9]{2}-[0-9]{2}$","description":"The day the shift starts; default the plan's date.","type":"string"},"name":{"minLength":1,"description":"A name to print the sheet for this shift by (panform sheet --shift NAME), e.g. \"evening builds\".","type":"string"}}}},"orders":{"minItems":1,"type":"array","items":{"additionalProperties":false,"type":"object","required":["formula","pieces"],"properties":{"formula":{"pattern":"^[a-z0-9]+(-[a-z0-9]+)*$","type":"string"},"pieces":{"minimum":1,"type":"integer"},"piece":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"A weight with its unit: g, kg, oz or lb, e.g. \"320 g\" or \"2 lb\".","type":"string"},"mixer":{"minLength":1,"type":"string"},"oven":{"minLength":1,"description":"The oven to bake it in; default any oven that suits the bake.","type":"string"},"customer":{"type":"string"},"due":{"pattern":"^([01][0-9]|2[0-3]):[0-5][0-9]$","description":"When the last piece must be out of the oven, \"HH:MM\" on the plan's date; default ready_by.","type":"string"}}}},"equipment":{"additionalProperties":false,"description":"What the bakery has to hold the pieces: trays, tins, pots, bannetons, couches.","type":"object","properties":{"tray":{"minimum":0,"description":"Baking trays (one fills an oven slot).","type":"integer"},"tin":{"minimum":0,"description":"Loaf tins.","type":"integer"},"pot":{"minimum":0,"description":"Lidded pots.","type":"integer"},"banneton":{"minimum":0,"description":"Proofing baskets.","type":"integer"},"couche":{"minimum":0,"description":"Linen couches (each holds one oven slot's load).","type":"integer"}}},"scales":{"minItems":1,"description":"The scales the bench weighs on.","type":"array","items":{"additionalProperties":false,"type":"object","required":["name","max","resolution"],"properties":{"name":{"minLength":1,"type":"string"},"max":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"The most it weighs, e.g. \"60 kg\".","type":"string"},"resolution":{"pattern":"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$","description":"The step it reads in (its division), e.g. \"0.5 g\".","type":"string"}}}},"ranges":{"description":"Which end of a step range the timeline uses; default mid.","anyOf":[{"const":"short","type":"string"},{"const":"mid","type":"string"},{"const":"long","type":"string"}]},"notes":{"type":"string"}}};
+const pattern30 = new RegExp("^([01][0-9]|2[0-3]):[0-5][0-9]$", "u");
+const pattern39 = new RegExp("^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$", "u");
 
 function validate12(data, {instancePath="", parentData, parentDataProperty, rootData=data}={}){
 /*# sourceURL="https://panform.example/schema/plan.schema.json" */;
@@ -3239,7 +3420,7 @@ errors++;
 if(data.ready_by !== undefined){
 let data2 = data.ready_by;
 if(typeof data2 === "string"){
-if(!pattern26.test(data2)){
+if(!pattern30.test(data2)){
 const err9 = {instancePath:instancePath+"/ready_by",schemaPath:"#/properties/ready_by/pattern",keyword:"pattern",params:{pattern: "^([01][0-9]|2[0-3]):[0-5][0-9]$"},message:"must match pattern \""+"^([01][0-9]|2[0-3]):[0-5][0-9]$"+"\""};
 if(vErrors === null){
 vErrors = [err9];
@@ -3801,7 +3982,7 @@ errors++;
 if(data18.heat !== undefined){
 let data22 = data18.heat;
 if(typeof data22 === "string"){
-if(!pattern35.test(data22)){
+if(!pattern39.test(data22)){
 const err55 = {instancePath:instancePath+"/ovens/" + i1+"/heat",schemaPath:"#/properties/ovens/items/properties/heat/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err55];
@@ -3826,7 +4007,7 @@ errors++;
 if(data18.cool !== undefined){
 let data23 = data18.cool;
 if(typeof data23 === "string"){
-if(!pattern35.test(data23)){
+if(!pattern39.test(data23)){
 const err57 = {instancePath:instancePath+"/ovens/" + i1+"/cool",schemaPath:"#/properties/ovens/items/properties/cool/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*°?\\s*(C|F)\\s*/\\s*min\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err57];
@@ -3944,7 +4125,7 @@ vErrors.push(err66);
 errors++;
 }
 for(const key4 in data27){
-if(!((((key4 === "from") || (key4 === "to")) || (key4 === "people")) || (key4 === "date"))){
+if(!(((((key4 === "from") || (key4 === "to")) || (key4 === "people")) || (key4 === "date")) || (key4 === "name"))){
 const err67 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key4},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err67];
@@ -3958,7 +4139,7 @@ errors++;
 if(data27.from !== undefined){
 let data28 = data27.from;
 if(typeof data28 === "string"){
-if(!pattern26.test(data28)){
+if(!pattern30.test(data28)){
 const err68 = {instancePath:instancePath+"/bench/" + i2+"/from",schemaPath:"#/properties/bench/items/properties/from/pattern",keyword:"pattern",params:{pattern: "^([01][0-9]|2[0-3]):[0-5][0-9]$"},message:"must match pattern \""+"^([01][0-9]|2[0-3]):[0-5][0-9]$"+"\""};
 if(vErrors === null){
 vErrors = [err68];
@@ -3983,7 +4164,7 @@ errors++;
 if(data27.to !== undefined){
 let data29 = data27.to;
 if(typeof data29 === "string"){
-if(!pattern26.test(data29)){
+if(!pattern30.test(data29)){
 const err70 = {instancePath:instancePath+"/bench/" + i2+"/to",schemaPath:"#/properties/bench/items/properties/to/pattern",keyword:"pattern",params:{pattern: "^([01][0-9]|2[0-3]):[0-5][0-9]$"},message:"must match pattern \""+"^([01][0-9]|2[0-3]):[0-5][0-9]$"+"\""};
 if(vErrors === null){
 vErrors = [err70];
@@ -4055,9 +4236,11 @@ vErrors.push(err75);
 errors++;
 }
 }
-}
-else {
-const err76 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data27.name !== undefined){
+let data32 = data27.name;
+if(typeof data32 === "string"){
+if(func3(data32) < 1){
+const err76 = {instancePath:instancePath+"/bench/" + i2+"/name",schemaPath:"#/properties/bench/items/properties/name/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err76];
 }
@@ -4067,9 +4250,8 @@ vErrors.push(err76);
 errors++;
 }
 }
-}
 else {
-const err77 = {instancePath:instancePath+"/bench",schemaPath:"#/properties/bench/type",keyword:"type",params:{type: "array"},message:"must be array"};
+const err77 = {instancePath:instancePath+"/bench/" + i2+"/name",schemaPath:"#/properties/bench/items/properties/name/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err77];
 }
@@ -4079,11 +4261,9 @@ vErrors.push(err77);
 errors++;
 }
 }
-if(data.orders !== undefined){
-let data32 = data.orders;
-if(Array.isArray(data32)){
-if(data32.length < 1){
-const err78 = {instancePath:instancePath+"/orders",schemaPath:"#/properties/orders/minItems",keyword:"minItems",params:{limit: 1},message:"must NOT have fewer than 1 items"};
+}
+else {
+const err78 = {instancePath:instancePath+"/bench/" + i2,schemaPath:"#/properties/bench/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err78];
 }
@@ -4092,12 +4272,10 @@ vErrors.push(err78);
 }
 errors++;
 }
-const len3 = data32.length;
-for(let i3=0; i3<len3; i3++){
-let data33 = data32[i3];
-if(data33 && typeof data33 == "object" && !Array.isArray(data33)){
-if(data33.formula === undefined){
-const err79 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/required",keyword:"required",params:{missingProperty: "formula"},message:"must have required property '"+"formula"+"'"};
+}
+}
+else {
+const err79 = {instancePath:instancePath+"/bench",schemaPath:"#/properties/bench/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err79];
 }
@@ -4106,8 +4284,12 @@ vErrors.push(err79);
 }
 errors++;
 }
-if(data33.pieces === undefined){
-const err80 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/required",keyword:"required",params:{missingProperty: "pieces"},message:"must have required property '"+"pieces"+"'"};
+}
+if(data.orders !== undefined){
+let data33 = data.orders;
+if(Array.isArray(data33)){
+if(data33.length < 1){
+const err80 = {instancePath:instancePath+"/orders",schemaPath:"#/properties/orders/minItems",keyword:"minItems",params:{limit: 1},message:"must NOT have fewer than 1 items"};
 if(vErrors === null){
 vErrors = [err80];
 }
@@ -4116,9 +4298,12 @@ vErrors.push(err80);
 }
 errors++;
 }
-for(const key5 in data33){
-if(!(((((((key5 === "formula") || (key5 === "pieces")) || (key5 === "piece")) || (key5 === "mixer")) || (key5 === "oven")) || (key5 === "customer")) || (key5 === "due"))){
-const err81 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key5},message:"must NOT have additional properties"};
+const len3 = data33.length;
+for(let i3=0; i3<len3; i3++){
+let data34 = data33[i3];
+if(data34 && typeof data34 == "object" && !Array.isArray(data34)){
+if(data34.formula === undefined){
+const err81 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/required",keyword:"required",params:{missingProperty: "formula"},message:"must have required property '"+"formula"+"'"};
 if(vErrors === null){
 vErrors = [err81];
 }
@@ -4127,12 +4312,8 @@ vErrors.push(err81);
 }
 errors++;
 }
-}
-if(data33.formula !== undefined){
-let data34 = data33.formula;
-if(typeof data34 === "string"){
-if(!pattern0.test(data34)){
-const err82 = {instancePath:instancePath+"/orders/" + i3+"/formula",schemaPath:"#/properties/orders/items/properties/formula/pattern",keyword:"pattern",params:{pattern: "^[a-z0-9]+(-[a-z0-9]+)*$"},message:"must match pattern \""+"^[a-z0-9]+(-[a-z0-9]+)*$"+"\""};
+if(data34.pieces === undefined){
+const err82 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/required",keyword:"required",params:{missingProperty: "pieces"},message:"must have required property '"+"pieces"+"'"};
 if(vErrors === null){
 vErrors = [err82];
 }
@@ -4141,9 +4322,9 @@ vErrors.push(err82);
 }
 errors++;
 }
-}
-else {
-const err83 = {instancePath:instancePath+"/orders/" + i3+"/formula",schemaPath:"#/properties/orders/items/properties/formula/type",keyword:"type",params:{type: "string"},message:"must be string"};
+for(const key5 in data34){
+if(!(((((((key5 === "formula") || (key5 === "pieces")) || (key5 === "piece")) || (key5 === "mixer")) || (key5 === "oven")) || (key5 === "customer")) || (key5 === "due"))){
+const err83 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key5},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err83];
 }
@@ -4153,10 +4334,11 @@ vErrors.push(err83);
 errors++;
 }
 }
-if(data33.pieces !== undefined){
-let data35 = data33.pieces;
-if(!((typeof data35 == "number") && (!(data35 % 1) && !isNaN(data35)))){
-const err84 = {instancePath:instancePath+"/orders/" + i3+"/pieces",schemaPath:"#/properties/orders/items/properties/pieces/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
+if(data34.formula !== undefined){
+let data35 = data34.formula;
+if(typeof data35 === "string"){
+if(!pattern0.test(data35)){
+const err84 = {instancePath:instancePath+"/orders/" + i3+"/formula",schemaPath:"#/properties/orders/items/properties/formula/pattern",keyword:"pattern",params:{pattern: "^[a-z0-9]+(-[a-z0-9]+)*$"},message:"must match pattern \""+"^[a-z0-9]+(-[a-z0-9]+)*$"+"\""};
 if(vErrors === null){
 vErrors = [err84];
 }
@@ -4165,9 +4347,9 @@ vErrors.push(err84);
 }
 errors++;
 }
-if(typeof data35 == "number"){
-if(data35 < 1 || isNaN(data35)){
-const err85 = {instancePath:instancePath+"/orders/" + i3+"/pieces",schemaPath:"#/properties/orders/items/properties/pieces/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
+}
+else {
+const err85 = {instancePath:instancePath+"/orders/" + i3+"/formula",schemaPath:"#/properties/orders/items/properties/formula/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err85];
 }
@@ -4177,12 +4359,10 @@ vErrors.push(err85);
 errors++;
 }
 }
-}
-if(data33.piece !== undefined){
-let data36 = data33.piece;
-if(typeof data36 === "string"){
-if(!pattern2.test(data36)){
-const err86 = {instancePath:instancePath+"/orders/" + i3+"/piece",schemaPath:"#/properties/orders/items/properties/piece/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
+if(data34.pieces !== undefined){
+let data36 = data34.pieces;
+if(!((typeof data36 == "number") && (!(data36 % 1) && !isNaN(data36)))){
+const err86 = {instancePath:instancePath+"/orders/" + i3+"/pieces",schemaPath:"#/properties/orders/items/properties/pieces/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
 if(vErrors === null){
 vErrors = [err86];
 }
@@ -4191,9 +4371,9 @@ vErrors.push(err86);
 }
 errors++;
 }
-}
-else {
-const err87 = {instancePath:instancePath+"/orders/" + i3+"/piece",schemaPath:"#/properties/orders/items/properties/piece/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(typeof data36 == "number"){
+if(data36 < 1 || isNaN(data36)){
+const err87 = {instancePath:instancePath+"/orders/" + i3+"/pieces",schemaPath:"#/properties/orders/items/properties/pieces/minimum",keyword:"minimum",params:{comparison: ">=", limit: 1},message:"must be >= 1"};
 if(vErrors === null){
 vErrors = [err87];
 }
@@ -4203,11 +4383,12 @@ vErrors.push(err87);
 errors++;
 }
 }
-if(data33.mixer !== undefined){
-let data37 = data33.mixer;
+}
+if(data34.piece !== undefined){
+let data37 = data34.piece;
 if(typeof data37 === "string"){
-if(func3(data37) < 1){
-const err88 = {instancePath:instancePath+"/orders/" + i3+"/mixer",schemaPath:"#/properties/orders/items/properties/mixer/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+if(!pattern2.test(data37)){
+const err88 = {instancePath:instancePath+"/orders/" + i3+"/piece",schemaPath:"#/properties/orders/items/properties/piece/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
 if(vErrors === null){
 vErrors = [err88];
 }
@@ -4218,7 +4399,7 @@ errors++;
 }
 }
 else {
-const err89 = {instancePath:instancePath+"/orders/" + i3+"/mixer",schemaPath:"#/properties/orders/items/properties/mixer/type",keyword:"type",params:{type: "string"},message:"must be string"};
+const err89 = {instancePath:instancePath+"/orders/" + i3+"/piece",schemaPath:"#/properties/orders/items/properties/piece/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err89];
 }
@@ -4228,11 +4409,11 @@ vErrors.push(err89);
 errors++;
 }
 }
-if(data33.oven !== undefined){
-let data38 = data33.oven;
+if(data34.mixer !== undefined){
+let data38 = data34.mixer;
 if(typeof data38 === "string"){
 if(func3(data38) < 1){
-const err90 = {instancePath:instancePath+"/orders/" + i3+"/oven",schemaPath:"#/properties/orders/items/properties/oven/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+const err90 = {instancePath:instancePath+"/orders/" + i3+"/mixer",schemaPath:"#/properties/orders/items/properties/mixer/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err90];
 }
@@ -4243,7 +4424,7 @@ errors++;
 }
 }
 else {
-const err91 = {instancePath:instancePath+"/orders/" + i3+"/oven",schemaPath:"#/properties/orders/items/properties/oven/type",keyword:"type",params:{type: "string"},message:"must be string"};
+const err91 = {instancePath:instancePath+"/orders/" + i3+"/mixer",schemaPath:"#/properties/orders/items/properties/mixer/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err91];
 }
@@ -4253,9 +4434,11 @@ vErrors.push(err91);
 errors++;
 }
 }
-if(data33.customer !== undefined){
-if(typeof data33.customer !== "string"){
-const err92 = {instancePath:instancePath+"/orders/" + i3+"/customer",schemaPath:"#/properties/orders/items/properties/customer/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data34.oven !== undefined){
+let data39 = data34.oven;
+if(typeof data39 === "string"){
+if(func3(data39) < 1){
+const err92 = {instancePath:instancePath+"/orders/" + i3+"/oven",schemaPath:"#/properties/orders/items/properties/oven/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
 if(vErrors === null){
 vErrors = [err92];
 }
@@ -4265,11 +4448,8 @@ vErrors.push(err92);
 errors++;
 }
 }
-if(data33.due !== undefined){
-let data40 = data33.due;
-if(typeof data40 === "string"){
-if(!pattern26.test(data40)){
-const err93 = {instancePath:instancePath+"/orders/" + i3+"/due",schemaPath:"#/properties/orders/items/properties/due/pattern",keyword:"pattern",params:{pattern: "^([01][0-9]|2[0-3]):[0-5][0-9]$"},message:"must match pattern \""+"^([01][0-9]|2[0-3]):[0-5][0-9]$"+"\""};
+else {
+const err93 = {instancePath:instancePath+"/orders/" + i3+"/oven",schemaPath:"#/properties/orders/items/properties/oven/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err93];
 }
@@ -4279,8 +4459,9 @@ vErrors.push(err93);
 errors++;
 }
 }
-else {
-const err94 = {instancePath:instancePath+"/orders/" + i3+"/due",schemaPath:"#/properties/orders/items/properties/due/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(data34.customer !== undefined){
+if(typeof data34.customer !== "string"){
+const err94 = {instancePath:instancePath+"/orders/" + i3+"/customer",schemaPath:"#/properties/orders/items/properties/customer/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err94];
 }
@@ -4290,9 +4471,11 @@ vErrors.push(err94);
 errors++;
 }
 }
-}
-else {
-const err95 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(data34.due !== undefined){
+let data41 = data34.due;
+if(typeof data41 === "string"){
+if(!pattern30.test(data41)){
+const err95 = {instancePath:instancePath+"/orders/" + i3+"/due",schemaPath:"#/properties/orders/items/properties/due/pattern",keyword:"pattern",params:{pattern: "^([01][0-9]|2[0-3]):[0-5][0-9]$"},message:"must match pattern \""+"^([01][0-9]|2[0-3]):[0-5][0-9]$"+"\""};
 if(vErrors === null){
 vErrors = [err95];
 }
@@ -4302,9 +4485,8 @@ vErrors.push(err95);
 errors++;
 }
 }
-}
 else {
-const err96 = {instancePath:instancePath+"/orders",schemaPath:"#/properties/orders/type",keyword:"type",params:{type: "array"},message:"must be array"};
+const err96 = {instancePath:instancePath+"/orders/" + i3+"/due",schemaPath:"#/properties/orders/items/properties/due/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
 vErrors = [err96];
 }
@@ -4314,13 +4496,9 @@ vErrors.push(err96);
 errors++;
 }
 }
-if(data.ranges !== undefined){
-let data41 = data.ranges;
-const _errs90 = errors;
-let valid14 = false;
-const _errs91 = errors;
-if(typeof data41 !== "string"){
-const err97 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/0/type",keyword:"type",params:{type: "string"},message:"must be string"};
+}
+else {
+const err97 = {instancePath:instancePath+"/orders/" + i3,schemaPath:"#/properties/orders/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
 vErrors = [err97];
 }
@@ -4329,8 +4507,10 @@ vErrors.push(err97);
 }
 errors++;
 }
-if("short" !== data41){
-const err98 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/0/const",keyword:"const",params:{allowedValue: "short"},message:"must be equal to constant"};
+}
+}
+else {
+const err98 = {instancePath:instancePath+"/orders",schemaPath:"#/properties/orders/type",keyword:"type",params:{type: "array"},message:"must be array"};
 if(vErrors === null){
 vErrors = [err98];
 }
@@ -4339,12 +4519,13 @@ vErrors.push(err98);
 }
 errors++;
 }
-var _valid0 = _errs91 === errors;
-valid14 = valid14 || _valid0;
-if(!valid14){
-const _errs93 = errors;
-if(typeof data41 !== "string"){
-const err99 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
+}
+if(data.equipment !== undefined){
+let data42 = data.equipment;
+if(data42 && typeof data42 == "object" && !Array.isArray(data42)){
+for(const key6 in data42){
+if(!(((((key6 === "tray") || (key6 === "tin")) || (key6 === "pot")) || (key6 === "banneton")) || (key6 === "couche"))){
+const err99 = {instancePath:instancePath+"/equipment",schemaPath:"#/properties/equipment/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key6},message:"must NOT have additional properties"};
 if(vErrors === null){
 vErrors = [err99];
 }
@@ -4353,8 +4534,11 @@ vErrors.push(err99);
 }
 errors++;
 }
-if("mid" !== data41){
-const err100 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/1/const",keyword:"const",params:{allowedValue: "mid"},message:"must be equal to constant"};
+}
+if(data42.tray !== undefined){
+let data43 = data42.tray;
+if(!((typeof data43 == "number") && (!(data43 % 1) && !isNaN(data43)))){
+const err100 = {instancePath:instancePath+"/equipment/tray",schemaPath:"#/properties/equipment/properties/tray/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
 if(vErrors === null){
 vErrors = [err100];
 }
@@ -4363,12 +4547,9 @@ vErrors.push(err100);
 }
 errors++;
 }
-var _valid0 = _errs93 === errors;
-valid14 = valid14 || _valid0;
-if(!valid14){
-const _errs95 = errors;
-if(typeof data41 !== "string"){
-const err101 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/2/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(typeof data43 == "number"){
+if(data43 < 0 || isNaN(data43)){
+const err101 = {instancePath:instancePath+"/equipment/tray",schemaPath:"#/properties/equipment/properties/tray/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err101];
 }
@@ -4377,8 +4558,12 @@ vErrors.push(err101);
 }
 errors++;
 }
-if("long" !== data41){
-const err102 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/2/const",keyword:"const",params:{allowedValue: "long"},message:"must be equal to constant"};
+}
+}
+if(data42.tin !== undefined){
+let data44 = data42.tin;
+if(!((typeof data44 == "number") && (!(data44 % 1) && !isNaN(data44)))){
+const err102 = {instancePath:instancePath+"/equipment/tin",schemaPath:"#/properties/equipment/properties/tin/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
 if(vErrors === null){
 vErrors = [err102];
 }
@@ -4387,12 +4572,9 @@ vErrors.push(err102);
 }
 errors++;
 }
-var _valid0 = _errs95 === errors;
-valid14 = valid14 || _valid0;
-}
-}
-if(!valid14){
-const err103 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(typeof data44 == "number"){
+if(data44 < 0 || isNaN(data44)){
+const err103 = {instancePath:instancePath+"/equipment/tin",schemaPath:"#/properties/equipment/properties/tin/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
 if(vErrors === null){
 vErrors = [err103];
 }
@@ -4401,11 +4583,345 @@ vErrors.push(err103);
 }
 errors++;
 }
+}
+}
+if(data42.pot !== undefined){
+let data45 = data42.pot;
+if(!((typeof data45 == "number") && (!(data45 % 1) && !isNaN(data45)))){
+const err104 = {instancePath:instancePath+"/equipment/pot",schemaPath:"#/properties/equipment/properties/pot/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
+if(vErrors === null){
+vErrors = [err104];
+}
 else {
-errors = _errs90;
+vErrors.push(err104);
+}
+errors++;
+}
+if(typeof data45 == "number"){
+if(data45 < 0 || isNaN(data45)){
+const err105 = {instancePath:instancePath+"/equipment/pot",schemaPath:"#/properties/equipment/properties/pot/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+if(vErrors === null){
+vErrors = [err105];
+}
+else {
+vErrors.push(err105);
+}
+errors++;
+}
+}
+}
+if(data42.banneton !== undefined){
+let data46 = data42.banneton;
+if(!((typeof data46 == "number") && (!(data46 % 1) && !isNaN(data46)))){
+const err106 = {instancePath:instancePath+"/equipment/banneton",schemaPath:"#/properties/equipment/properties/banneton/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
+if(vErrors === null){
+vErrors = [err106];
+}
+else {
+vErrors.push(err106);
+}
+errors++;
+}
+if(typeof data46 == "number"){
+if(data46 < 0 || isNaN(data46)){
+const err107 = {instancePath:instancePath+"/equipment/banneton",schemaPath:"#/properties/equipment/properties/banneton/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+if(vErrors === null){
+vErrors = [err107];
+}
+else {
+vErrors.push(err107);
+}
+errors++;
+}
+}
+}
+if(data42.couche !== undefined){
+let data47 = data42.couche;
+if(!((typeof data47 == "number") && (!(data47 % 1) && !isNaN(data47)))){
+const err108 = {instancePath:instancePath+"/equipment/couche",schemaPath:"#/properties/equipment/properties/couche/type",keyword:"type",params:{type: "integer"},message:"must be integer"};
+if(vErrors === null){
+vErrors = [err108];
+}
+else {
+vErrors.push(err108);
+}
+errors++;
+}
+if(typeof data47 == "number"){
+if(data47 < 0 || isNaN(data47)){
+const err109 = {instancePath:instancePath+"/equipment/couche",schemaPath:"#/properties/equipment/properties/couche/minimum",keyword:"minimum",params:{comparison: ">=", limit: 0},message:"must be >= 0"};
+if(vErrors === null){
+vErrors = [err109];
+}
+else {
+vErrors.push(err109);
+}
+errors++;
+}
+}
+}
+}
+else {
+const err110 = {instancePath:instancePath+"/equipment",schemaPath:"#/properties/equipment/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err110];
+}
+else {
+vErrors.push(err110);
+}
+errors++;
+}
+}
+if(data.scales !== undefined){
+let data48 = data.scales;
+if(Array.isArray(data48)){
+if(data48.length < 1){
+const err111 = {instancePath:instancePath+"/scales",schemaPath:"#/properties/scales/minItems",keyword:"minItems",params:{limit: 1},message:"must NOT have fewer than 1 items"};
+if(vErrors === null){
+vErrors = [err111];
+}
+else {
+vErrors.push(err111);
+}
+errors++;
+}
+const len4 = data48.length;
+for(let i4=0; i4<len4; i4++){
+let data49 = data48[i4];
+if(data49 && typeof data49 == "object" && !Array.isArray(data49)){
+if(data49.name === undefined){
+const err112 = {instancePath:instancePath+"/scales/" + i4,schemaPath:"#/properties/scales/items/required",keyword:"required",params:{missingProperty: "name"},message:"must have required property '"+"name"+"'"};
+if(vErrors === null){
+vErrors = [err112];
+}
+else {
+vErrors.push(err112);
+}
+errors++;
+}
+if(data49.max === undefined){
+const err113 = {instancePath:instancePath+"/scales/" + i4,schemaPath:"#/properties/scales/items/required",keyword:"required",params:{missingProperty: "max"},message:"must have required property '"+"max"+"'"};
+if(vErrors === null){
+vErrors = [err113];
+}
+else {
+vErrors.push(err113);
+}
+errors++;
+}
+if(data49.resolution === undefined){
+const err114 = {instancePath:instancePath+"/scales/" + i4,schemaPath:"#/properties/scales/items/required",keyword:"required",params:{missingProperty: "resolution"},message:"must have required property '"+"resolution"+"'"};
+if(vErrors === null){
+vErrors = [err114];
+}
+else {
+vErrors.push(err114);
+}
+errors++;
+}
+for(const key7 in data49){
+if(!(((key7 === "name") || (key7 === "max")) || (key7 === "resolution"))){
+const err115 = {instancePath:instancePath+"/scales/" + i4,schemaPath:"#/properties/scales/items/additionalProperties",keyword:"additionalProperties",params:{additionalProperty: key7},message:"must NOT have additional properties"};
+if(vErrors === null){
+vErrors = [err115];
+}
+else {
+vErrors.push(err115);
+}
+errors++;
+}
+}
+if(data49.name !== undefined){
+let data50 = data49.name;
+if(typeof data50 === "string"){
+if(func3(data50) < 1){
+const err116 = {instancePath:instancePath+"/scales/" + i4+"/name",schemaPath:"#/properties/scales/items/properties/name/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"};
+if(vErrors === null){
+vErrors = [err116];
+}
+else {
+vErrors.push(err116);
+}
+errors++;
+}
+}
+else {
+const err117 = {instancePath:instancePath+"/scales/" + i4+"/name",schemaPath:"#/properties/scales/items/properties/name/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err117];
+}
+else {
+vErrors.push(err117);
+}
+errors++;
+}
+}
+if(data49.max !== undefined){
+let data51 = data49.max;
+if(typeof data51 === "string"){
+if(!pattern2.test(data51)){
+const err118 = {instancePath:instancePath+"/scales/" + i4+"/max",schemaPath:"#/properties/scales/items/properties/max/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
+if(vErrors === null){
+vErrors = [err118];
+}
+else {
+vErrors.push(err118);
+}
+errors++;
+}
+}
+else {
+const err119 = {instancePath:instancePath+"/scales/" + i4+"/max",schemaPath:"#/properties/scales/items/properties/max/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err119];
+}
+else {
+vErrors.push(err119);
+}
+errors++;
+}
+}
+if(data49.resolution !== undefined){
+let data52 = data49.resolution;
+if(typeof data52 === "string"){
+if(!pattern2.test(data52)){
+const err120 = {instancePath:instancePath+"/scales/" + i4+"/resolution",schemaPath:"#/properties/scales/items/properties/resolution/pattern",keyword:"pattern",params:{pattern: "^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"},message:"must match pattern \""+"^\\s*[0-9]+(\\.[0-9]+)?\\s*(g|kg|oz|lb)\\s*$"+"\""};
+if(vErrors === null){
+vErrors = [err120];
+}
+else {
+vErrors.push(err120);
+}
+errors++;
+}
+}
+else {
+const err121 = {instancePath:instancePath+"/scales/" + i4+"/resolution",schemaPath:"#/properties/scales/items/properties/resolution/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err121];
+}
+else {
+vErrors.push(err121);
+}
+errors++;
+}
+}
+}
+else {
+const err122 = {instancePath:instancePath+"/scales/" + i4,schemaPath:"#/properties/scales/items/type",keyword:"type",params:{type: "object"},message:"must be object"};
+if(vErrors === null){
+vErrors = [err122];
+}
+else {
+vErrors.push(err122);
+}
+errors++;
+}
+}
+}
+else {
+const err123 = {instancePath:instancePath+"/scales",schemaPath:"#/properties/scales/type",keyword:"type",params:{type: "array"},message:"must be array"};
+if(vErrors === null){
+vErrors = [err123];
+}
+else {
+vErrors.push(err123);
+}
+errors++;
+}
+}
+if(data.ranges !== undefined){
+let data53 = data.ranges;
+const _errs116 = errors;
+let valid18 = false;
+const _errs117 = errors;
+if(typeof data53 !== "string"){
+const err124 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/0/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err124];
+}
+else {
+vErrors.push(err124);
+}
+errors++;
+}
+if("short" !== data53){
+const err125 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/0/const",keyword:"const",params:{allowedValue: "short"},message:"must be equal to constant"};
+if(vErrors === null){
+vErrors = [err125];
+}
+else {
+vErrors.push(err125);
+}
+errors++;
+}
+var _valid0 = _errs117 === errors;
+valid18 = valid18 || _valid0;
+if(!valid18){
+const _errs119 = errors;
+if(typeof data53 !== "string"){
+const err126 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/1/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err126];
+}
+else {
+vErrors.push(err126);
+}
+errors++;
+}
+if("mid" !== data53){
+const err127 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/1/const",keyword:"const",params:{allowedValue: "mid"},message:"must be equal to constant"};
+if(vErrors === null){
+vErrors = [err127];
+}
+else {
+vErrors.push(err127);
+}
+errors++;
+}
+var _valid0 = _errs119 === errors;
+valid18 = valid18 || _valid0;
+if(!valid18){
+const _errs121 = errors;
+if(typeof data53 !== "string"){
+const err128 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/2/type",keyword:"type",params:{type: "string"},message:"must be string"};
+if(vErrors === null){
+vErrors = [err128];
+}
+else {
+vErrors.push(err128);
+}
+errors++;
+}
+if("long" !== data53){
+const err129 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf/2/const",keyword:"const",params:{allowedValue: "long"},message:"must be equal to constant"};
+if(vErrors === null){
+vErrors = [err129];
+}
+else {
+vErrors.push(err129);
+}
+errors++;
+}
+var _valid0 = _errs121 === errors;
+valid18 = valid18 || _valid0;
+}
+}
+if(!valid18){
+const err130 = {instancePath:instancePath+"/ranges",schemaPath:"#/properties/ranges/anyOf",keyword:"anyOf",params:{},message:"must match a schema in anyOf"};
+if(vErrors === null){
+vErrors = [err130];
+}
+else {
+vErrors.push(err130);
+}
+errors++;
+}
+else {
+errors = _errs116;
 if(vErrors !== null){
-if(_errs90){
-vErrors.length = _errs90;
+if(_errs116){
+vErrors.length = _errs116;
 }
 else {
 vErrors = null;
@@ -4415,24 +4931,24 @@ vErrors = null;
 }
 if(data.notes !== undefined){
 if(typeof data.notes !== "string"){
-const err104 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string"};
+const err131 = {instancePath:instancePath+"/notes",schemaPath:"#/properties/notes/type",keyword:"type",params:{type: "string"},message:"must be string"};
 if(vErrors === null){
-vErrors = [err104];
+vErrors = [err131];
 }
 else {
-vErrors.push(err104);
+vErrors.push(err131);
 }
 errors++;
 }
 }
 }
 else {
-const err105 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
+const err132 = {instancePath,schemaPath:"#/type",keyword:"type",params:{type: "object"},message:"must be object"};
 if(vErrors === null){
-vErrors = [err105];
+vErrors = [err132];
 }
 else {
-vErrors.push(err105);
+vErrors.push(err132);
 }
 errors++;
 }

@@ -19,6 +19,12 @@ export const STEP_KINDS = [
   'autolyse', 'mix', 'bulk', 'fold', 'divide', 'preshape', 'rest', 'shape', 'proof', 'retard', 'bake', 'cool', 'other',
 ] as const;
 export const BAKE_VESSELS = ['deck', 'tray', 'pot', 'tin', 'stone'] as const;
+/** What a step holds the pieces in: the bake vessels, and for proof and retard also bannetons and couches. */
+export const VESSELS = [...BAKE_VESSELS, 'banneton', 'couche'] as const;
+/** What a plan counts of its equipment (`equipment:`), each a number of pieces of kit. */
+export const EQUIPMENT_KINDS = ['tray', 'tin', 'pot', 'banneton', 'couche'] as const;
+/** A culture's feeding ratio, culture : flour : water, e.g. "1:2:2". */
+export const RATIO_PATTERN = '^\\s*[0-9]+(\\.[0-9]+)?\\s*:\\s*[0-9]+(\\.[0-9]+)?\\s*:\\s*[0-9]+(\\.[0-9]+)?\\s*$';
 export const INGREDIENT_KINDS = [
   'flour', 'water', 'salt', 'yeast', 'sugar', 'fat', 'dairy', 'egg', 'seed', 'inclusion', 'culture', 'improver', 'other',
 ] as const;

@@ -18,7 +18,6 @@
 import { lookupIngredient, type Catalog, type Formula, type Mixer, type Order } from '../model.ts';
 import { scaleFormula, ScaleError, sum, type ScaledBuild, type ScaleResult } from '../scale.ts';
 import type { AllergenCode, IngredientKind } from '../schema/shapes.ts';
-import { INGREDIENT_KINDS } from '../schema/vocabulary.ts';
 import { AllergenError, allergenSummary } from '../allergens.ts';
 import { cautionFacts, cautionsFor, type CautionSet } from '../cautions.ts';
 import { planBuildWater, planMixWater, type MixWater } from '../dough-water.ts';
@@ -39,6 +38,10 @@ import {
   type TimelineEntry,
 } from './types.ts';
 import { compareText } from '../text.ts';
+import { mixFinishes, pickLines, sheetFinishes } from './pick.ts';
+import { checkWeights } from './scales.ts';
+import { equipmentNeeds } from './equipment.ts';
+import { cultureFeeds } from './cultures.ts';
 
 const EPSILON = 1e-9;
 
@@ -198,7 +201,7 @@ export function buildSheet(input: SheetInput): Sheet {
       mixer: p.mixer.name, mixNumber: p.mixNumber, of: p.of, dough: p.scaled.mixedDough, flour: p.scaled.flour,
       ingredients, doughTemperature: f.doughTemperature ?? null, doughTemperatureRange: w?.doughTemperatureRange ?? null, factors, waterTemperature,
       liquid, water, ice, tapWater: water - ice - (bassinage?.grams ?? 0), bassinage, pieces: p.pieces, pieceGrams: p.pieceGrams,
-      start: at(p.mixStart), end: at(p.mixEnd),
+      finishes: mixFinishes(f, p.pieces, catalog), start: at(p.mixStart), end: at(p.mixEnd),
     };
   });
   const mixOrder = mixes.map((m, i) => ({ m, start: planned[i].mixStart, i }));
@@ -251,6 +254,25 @@ export function buildSheet(input: SheetInput): Sheet {
   for (const p of planned) used.set(p.formula.id, p.formula);
   const { allergens, mayContain, cautions } = makeCautions([...used.values()], catalog, mixes, [...preferments, ...soakers]);
 
+  // ---- what the night holds its pieces in, its scales and its cultures ------------------------
+  const sortedMixes = mixOrder.map((x) => x.m);
+  const equipment = equipmentNeeds(sortedMixes, timeline, formulas, plan.equipment, at);
+  const weights = checkWeights(
+    [
+      ...[...preferments, ...soakers].map((b) => ({ where: 'build' as const, label: b.batches > 1 ? `${b.name} (${b.batch}/${b.batches})` : b.name, formula: b.formula, lines: b.ingredients })),
+      ...sortedMixes.map((m) => ({ where: 'mix' as const, label: `${m.title} ${m.mixNumber}/${m.of}`, formula: m.formula, lines: m.ingredients })),
+    ],
+    plan.scales,
+  );
+  if (weights.smallWeights.length > 0) {
+    warnings.push(
+      `${weights.smallWeights.length === 1 ? '1 weight is' : `${weights.smallWeights.length} weights are`} too small for the scale that weighs it (fewer than 20 divisions): ${weights.smallWeights
+        .map((w) => `${w.ingredient} ${grams(w.grams)} in ${w.label}`)
+        .join('; ')}; see "Small weights"`,
+    );
+  }
+  const cultures = cultureFeeds(preferments, catalog, (t) => minuteOf(t, date), at);
+
   return {
     date,
     readyBy: at(readyBy),
@@ -262,16 +284,21 @@ export function buildSheet(input: SheetInput): Sheet {
     ...(plan.notes ? { notes: plan.notes } : {}),
     preferments,
     soakers,
-    mixes: mixOrder.map((x) => x.m),
+    mixes: sortedMixes,
     timeline,
     bookings: finishBookings(night, at),
     orders: night.orders,
     totals: pick.lines(),
+    finishes: sheetFinishes(sortedMixes),
+    equipment: equipment.needs,
+    scales: weights.scales,
+    smallWeights: weights.smallWeights,
+    cultures: cultures.feeds,
     formulas: summaries,
     allergens,
     mayContain,
     cautions,
-    warnings: [...night.warnings, ...warnings],
+    warnings: [...night.warnings, ...warnings, ...equipment.warnings, ...cultures.warnings],
   };
 }
 
@@ -324,17 +351,13 @@ function iceFor(water: number, tap: number, target: number, what: string, warnin
 }
 
 class PickList {
-  private readonly grams = new Map<string, number[]>();
+  private readonly all: { ingredient: string; grams: number; kind: IngredientKind }[] = [];
   constructor(private readonly catalog: Catalog) {}
   add(ingredient: string, g: number): void {
-    const list = this.grams.get(ingredient) ?? [];
-    list.push(g);
-    this.grams.set(ingredient, list);
+    this.all.push({ ingredient, grams: g, kind: lookupIngredient(this.catalog, ingredient).kind });
   }
   lines(): PickLine[] {
-    const out = [...this.grams].map(([ingredient, gs]) => ({ ingredient, grams: sum(gs), kind: lookupIngredient(this.catalog, ingredient).kind }));
-    const rank = (k: IngredientKind) => INGREDIENT_KINDS.indexOf(k);
-    return out.sort((a, b) => rank(a.kind) - rank(b.kind) || b.grams - a.grams || compareText(a.ingredient, b.ingredient));
+    return pickLines(this.all);
   }
 }
 

@@ -8,7 +8,9 @@ import { dayRange, FRICTION_MINIMUM, type FrictionProposal } from '../friction.t
 import { celsiusDeltaToFahrenheit, formatMass, formatTemperature, formatTemperatureRange, temperatureUnitOf, type UnitSystem } from '../units.ts';
 import { shortTime } from './time.ts';
 import { stepWord } from '../step-words.ts';
-import type { Sheet, SheetBuild, SheetMix, TimelineEntry } from './types.ts';
+import type { Sheet, SheetBuild, SheetLine, SheetMix, TimelineEntry } from './types.ts';
+import { FINISH_USE_WORDS } from '../finishes.ts';
+import { culturesSection, equipmentSection, finishesBlock, scalesSection } from './present-parts.ts';
 
 export type Align = 'left' | 'right';
 
@@ -38,7 +40,7 @@ export interface SheetBlock {
   build?: { list: 'preferments' | 'soakers'; index: number };
 }
 
-export type SectionKey = 'preferments' | 'soakers' | 'mixes' | 'totals' | 'formulas' | 'friction' | 'cautions' | 'warnings';
+export type SectionKey = 'cultures' | 'preferments' | 'soakers' | 'mixes' | 'totals' | 'equipment' | 'scales' | 'formulas' | 'friction' | 'cautions' | 'warnings';
 
 export interface SheetSection {
   key: SectionKey;
@@ -121,7 +123,7 @@ function buildBlock(b: SheetBuild, sheet: Sheet, f: Figures, ref: NonNullable<Sh
   const rows: string[][] = [];
   const tick: boolean[] = [];
   for (const l of b.ingredients) {
-    rows.push([l.seed ? `${l.ingredient} (seed)` : l.ingredient, g(l.grams)]);
+    rows.push([`${l.seed ? `${l.ingredient} (seed)` : l.ingredient}${smallMark(l, sheet)}`, g(l.grams)]);
     tick.push(true);
     if (l.kind === 'water' && b.ice > 0) addIceRows(rows, tick, b.ice, b.tapWater, sheet.conditions.tapWater, f);
   }
@@ -131,6 +133,13 @@ function buildBlock(b: SheetBuild, sheet: Sheet, f: Figures, ref: NonNullable<Sh
     lines,
     table: { head: ['ingredient', 'weigh'], rows, align: ['left', 'right'], tick, footer: ['build', g(b.grams)] },
   };
+}
+
+/** " (premix)" or " (too small)" beside a line the scale check flagged. */
+function smallMark(l: SheetLine, sheet: Sheet): string {
+  const w = sheet.smallWeights.find((x) => x.ingredient === l.ingredient && x.grams === l.grams);
+  if (!w) return '';
+  return w.premix ? ' (premix)' : ' (too small)';
 }
 
 function addIceRows(rows: string[][], tick: boolean[], ice: number, tapWater: number, tapT: number, { g, t }: Figures): void {
@@ -152,6 +161,7 @@ function mixBlock(m: SheetMix, sheet: Sheet, repeated: boolean, f: Figures): She
     const sum = `${fa.n} × ${t(m.doughTemperature)} − room ${t(fa.room)} − flour ${t(fa.flour)}${pre} − friction ${f.dt(fa.friction)} (${fa.n} × rise ${f.dt(fa.rise)})`;
     lines.push(`${liquid} at ${t(m.waterTemperature)} for dough at ${aim} (${sum}${m.bassinage ? '; with the bassinage' : ''})`);
   }
+  for (const x of m.finishes) lines.push(`finish: ${x.ingredient} ${FINISH_USE_WORDS[x.use]}, ${m.pieces} × ${g(x.perPiece)} = ${g(x.grams)}${x.note ? ` (${x.note})` : ''}`);
   if (m.bassinage) lines.push(`bassinage: hold back ${g(m.bassinage.grams)} of the water at ${t(m.bassinage.temperature)}; add it late in the mix`);
   const big: string[] = [];
   if (m.waterTemperature !== null) big.push(`water ${t(m.waterTemperature)}`);
@@ -160,7 +170,7 @@ function mixBlock(m: SheetMix, sheet: Sheet, repeated: boolean, f: Figures): She
   const tick: boolean[] = [];
   for (const l of m.ingredients) {
     const name = l.kind === 'preferment' ? `${l.ingredient} (pre-ferment)` : l.kind === 'soaker' ? `${l.ingredient} (soaker)` : l.ingredient;
-    rows.push([name, g(l.grams)]);
+    rows.push([`${name}${smallMark(l, sheet)}`, g(l.grams)]);
     tick.push(true);
     if (l.kind === 'water' && m.ice > 0) addIceRows(rows, tick, m.ice, m.tapWater, sheet.conditions.tapWater, f);
     if (l.kind === 'water' && m.bassinage) {
@@ -182,7 +192,9 @@ function mixBlock(m: SheetMix, sheet: Sheet, repeated: boolean, f: Figures): She
   };
 }
 
-const VESSEL: Record<NonNullable<TimelineEntry['vessel']>, string> = { deck: 'on the deck', tray: 'on trays', pot: 'in pots', tin: 'in tins', stone: 'on the stone' };
+const VESSEL: Record<NonNullable<TimelineEntry['vessel']>, string> = {
+  deck: 'on the deck', tray: 'on trays', pot: 'in pots', tin: 'in tins', stone: 'on the stone', banneton: 'in bannetons', couche: 'on couches',
+};
 
 /** What one step of a mix asks for, beside its clock time. */
 function stepDetail(e: TimelineEntry, m: SheetMix, sheet: Sheet, { g, t }: Figures): string {
@@ -198,7 +210,10 @@ function stepDetail(e: TimelineEntry, m: SheetMix, sheet: Sheet, { g, t }: Figur
     if (e.vessel) what.push(VESSEL[e.vessel]);
     if (e.covered !== undefined && e.covered > 0) what.push(`lid on ${e.covered} min, then off`);
     what.push(e.steam ? 'steam' : 'no steam');
-  } else if (e.temperature !== undefined) what.push(`at ${t(e.temperature)}`);
+  } else {
+    if (e.temperature !== undefined) what.push(`at ${t(e.temperature)}`);
+    if (e.vessel) what.push(VESSEL[e.vessel]);
+  }
   if (e.step !== 'divide' && e.step !== 'mix' && e.resource === 'bench' && e.unit !== undefined) what.push(`person ${e.unit}`);
   if (e.folds && e.folds.length > 0) what.push(`fold at ${e.folds.map(when).join(', ')}`);
   if (e.note) what.push(e.note);
@@ -244,6 +259,8 @@ export function presentSheet(sheet: Sheet, options: PresentOptions = {}): Presen
   if (sheet.notes) subtitle.push(sheet.notes);
 
   const sections: SheetSection[] = [];
+  const cultures = culturesSection(sheet, f);
+  if (cultures) sections.push(cultures);
   if (sheet.preferments.length > 0) {
     sections.push({ key: 'preferments', title: 'Pre-ferments to build', blocks: sheet.preferments.map((b, index) => buildBlock(b, sheet, f, { list: 'preferments', index })) });
   }
@@ -264,8 +281,10 @@ export function presentSheet(sheet: Sheet, options: PresentOptions = {}): Presen
         lines: ['everything weighed today: builds and mixes, seed cultures included'],
         table: { head: ['ingredient', 'kind', 'total'], rows: totalRows, align: ['left', 'left', 'right'], tick: totalRows.map(() => true), footer: ['all', '', g(sum(sheet.totals.map((l) => l.grams)))] },
       },
+      ...[finishesBlock(sheet, f)].filter((b) => b !== null),
     ],
   });
+  for (const s of [equipmentSection(sheet), scalesSection(sheet, f)]) if (s) sections.push(s);
 
   const formulaRows = sheet.formulas.map((f) => [f.title, String(f.pieces), String(f.mixes), f.mixers.join(', '), g(f.dividedDough), g(f.mixedDough)]);
   sections.push({

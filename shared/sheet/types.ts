@@ -3,7 +3,7 @@
 // unrounded; temperatures °C; times are local date-times "YYYY-MM-DDTHH:MM" on the plan's clock.
 import type { PrefermentTemperature } from '../dough-water.ts';
 import type { FrictionProposal } from '../friction.ts';
-import type { AllergenCode, IngredientKind, PrefermentKind, StepKind } from '../schema/shapes.ts';
+import type { AllergenCode, EquipmentKind, FinishUse, IngredientKind, PrefermentKind, StepKind, Vessel } from '../schema/shapes.ts';
 import type { Catalog, Formula, Oven, Plan, Shift } from '../model.ts';
 import type { NumberRange, RangePick } from '../units.ts';
 import type { Caution } from '../cautions.ts';
@@ -28,6 +28,8 @@ export interface SheetLine {
   kind: LineKind;
   /** A mature culture that seeds a levain build; its flour and water are inside the build's lines. */
   seed?: boolean;
+  /** The scale that weighs it (the plan's `scales`), when the plan lists scales. */
+  scale?: string;
 }
 
 /** One mix that takes part of a build. */
@@ -131,8 +133,114 @@ export interface SheetMix {
   /** Whole pieces to divide from this mix, and their weight. */
   pieces: number;
   pieceGrams: number;
+  /** What goes on or under this mix's pieces (the formula's finishes × its pieces). */
+  finishes: MixFinish[];
   start: LocalDateTime;
   end: LocalDateTime;
+}
+
+export interface MixFinish {
+  ingredient: string;
+  kind: IngredientKind;
+  use: FinishUse;
+  /** g on each piece, and for all the mix's pieces. */
+  perPiece: number;
+  grams: number;
+  note?: string;
+}
+
+/** A finish for the night's pieces of one formula: what the pick list weighs out. */
+export interface SheetFinish extends MixFinish {
+  formula: string;
+  title: string;
+  pieces: number;
+}
+
+/** What the night holds its pieces in at the busiest moment, against what the bakery has. */
+export interface EquipmentNeed {
+  kind: EquipmentKind;
+  /** Most in use at once, and when that is first reached. */
+  peak: number;
+  at: LocalDateTime;
+  /** What the plan's `equipment` says the bakery has; null when it does not say. */
+  have: number | null;
+  /** peak − have when that is above 0, else 0. */
+  short: number;
+  /** Each mix that uses it: how many in all, taken from `from` and all given back by `until`. */
+  uses: { formula: string; label: string; step: 'proof' | 'bake'; count: number; from: LocalDateTime; until: LocalDateTime }[];
+}
+
+/** A weight on the sheet checked against the scale that weighs it. */
+export interface ScaleCheck {
+  /** "mix" (a mix card's line) or "build" (a pre-ferment or soaker). */
+  where: 'mix' | 'build';
+  /** The mix's or build's label, e.g. "Quay biga loaf 1/1" or "biga". */
+  label: string;
+  formula: string;
+  ingredient: string;
+  grams: number;
+  scale: string;
+  resolution: number;
+  /** grams ÷ resolution. */
+  divisions: number;
+  /** What is wrong: below one division, or fewer than MIN_DIVISIONS. */
+  problem: 'below-resolution' | 'few-divisions';
+  /** Dissolve in part of the water: what to weigh, in how much water, and how much of the solution to take. */
+  premix: { dissolve: number; water: number; factor: number; take: number; lessWater: number } | null;
+  /** What to do instead when no premix is suggested. */
+  advice: string;
+}
+
+export interface ScaleUse {
+  name: string;
+  max: number;
+  resolution: number;
+  /** Weights on the sheet that go on it. */
+  weights: number;
+  /** The lightest weight it can take by the rule (MIN_DIVISIONS × resolution). */
+  least: number;
+}
+
+/** Feeding a culture so that it is ripe for the night's builds, with some kept back. */
+export interface CultureFeed {
+  culture: string;
+  /** 1-based, when the builds are too far apart for one feed to be ripe for all. */
+  feed: number;
+  feeds: number;
+  /** Ripe culture the builds take, g, and each build. */
+  needed: number;
+  uses: { build: string; formula: string; grams: number; at: LocalDateTime }[];
+  /** Ripe culture kept back to feed again, g, and where that figure comes from. */
+  keep: number;
+  keepSource: string;
+  /** needed + keep: what this feed makes. */
+  grams: number;
+  /** culture : flour : water, and where it comes from. */
+  ratio: [number, number, number];
+  ratioSource: string;
+  /** What to weigh for the feed: ripe culture from the last feed, flour, water. */
+  seed: number;
+  flour: { ingredient: string; grams: number };
+  water: number;
+  hours: NumberRange;
+  temperature: number;
+  temperatureRange: NumberRange;
+  timingSource: string;
+  /** Feed at this time (aimed at the middle of the ripening hours before the first build), within [from, until]. */
+  at: LocalDateTime;
+  from: LocalDateTime;
+  until: LocalDateTime;
+  /** Ripe from (at + min hours) to (at + max hours). */
+  ripeFrom: LocalDateTime;
+  ripeUntil: LocalDateTime;
+}
+
+/** The time window a sheet was cut to (panform sheet --from/--to or --shift). */
+export interface SheetWindow {
+  from: LocalDateTime;
+  to: LocalDateTime;
+  /** The plan's shift name, when printed for a named shift. */
+  name?: string;
 }
 
 export type TimelineStep = StepKind | 'build' | 'soak';
@@ -165,8 +273,9 @@ export interface TimelineEntry {
   window?: boolean;
   cold?: boolean;
   steam?: boolean;
-  /** Bakes: what the pieces bake in or on, and minutes of the bake under a lid. */
-  vessel?: 'deck' | 'tray' | 'pot' | 'tin' | 'stone';
+  /** Bakes: what the pieces bake in or on; proof and retard: what they rise in (banneton, couche, tray, tin). */
+  vessel?: Vessel;
+  /** Bakes: minutes of the bake under a lid. */
   covered?: number;
   note?: string;
 }
@@ -237,6 +346,18 @@ export interface Sheet {
   bookings: Booking[];
   orders: OrderOutcome[];
   totals: PickLine[];
+  /** Finishes (seeds on top, washes, tray oil, dusting flour) for the night's pieces, by formula. */
+  finishes: SheetFinish[];
+  /** Trays, tins, pots, bannetons and couches at the peak of the night. */
+  equipment: EquipmentNeed[];
+  /** The plan's scales and how many weights each takes; empty when the plan lists none. */
+  scales: ScaleUse[];
+  /** Weights too small for the scale that weighs them. */
+  smallWeights: ScaleCheck[];
+  /** Feeds that make the cultures the builds take ripe in time. */
+  cultures: CultureFeed[];
+  /** Set when the sheet is cut to one shift or time window. */
+  window?: SheetWindow;
   formulas: FormulaSummary[];
   allergens: AllergenCode[];
   mayContain: AllergenCode[];

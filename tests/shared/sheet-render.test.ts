@@ -46,7 +46,7 @@ describe('presentSheet', () => {
 
   it('has the sections in bench order', () => {
     // The fixture plan lists no ovens or bench, so the sheet ends with the defaults it assumed.
-    expect(p.sections.map((s) => s.key)).toEqual(['preferments', 'soakers', 'mixes', 'totals', 'formulas', 'cautions', 'warnings']);
+    expect(p.sections.map((s) => s.key)).toEqual(['cultures', 'preferments', 'soakers', 'mixes', 'totals', 'formulas', 'cautions', 'warnings']);
   });
 
   it('rounds every weight for display and puts a tick box beside it', () => {

@@ -48,7 +48,7 @@ afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 describe('the layout of the demo day', () => {
   it('puts the boxes first, then the chart, then the sections of cards and tables', () => {
-    expect(layout.items.map((i) => i.key)).toEqual(['cautions', 'warnings', 'timeline', 'preferments', 'soakers', 'mixes', 'totals', 'formulas'].filter((k) => k !== 'warnings' || sheet.warnings.length > 0));
+    expect(layout.items.map((i) => i.key)).toEqual(['cautions', 'warnings', 'timeline', 'cultures', 'preferments', 'soakers', 'mixes', 'totals', 'equipment', 'scales', 'formulas'].filter((k) => k !== 'warnings' || sheet.warnings.length > 0));
     const mixes = layout.items.find((i) => i.key === 'mixes');
     expect(mixes?.kind === 'section' && mixes.blocks.map((b) => b.mix)).toEqual(sheet.mixes.map((m) => ({ order: m.order, mixNumber: m.mixNumber })));
     expect(texts.length).toBeGreaterThan(500);

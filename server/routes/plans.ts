@@ -1,5 +1,6 @@
 // Production plans and their batch sheets (JSON and PDF), and the ingredient catalog.
-import { Router } from 'express';
+import { Router, type Request } from 'express';
+import { resolveWindow, windowSheet } from '#shared/sheet/window';
 import type { CatalogResponse, PlanDetail, PlanListResponse } from '#shared/api';
 import type { Formula } from '#shared/model';
 import { createHash } from 'node:crypto';
@@ -61,6 +62,21 @@ export function planFor(snapshot: Snapshot, date: string, role: Role): { entry: 
   return { entry, sheet };
 }
 
+/**
+ * The sheet cut to the window the query asks for (`from`, `to` or `shift`, as `panform sheet`'s
+ * flags; shared/sheet/window.ts), with a memo key suffix; the whole sheet without them.
+ */
+function windowFor(req: Request, sheet: Sheet): { sheet: Sheet; key: string } {
+  const ask = { from: queryString(req, 'from'), to: queryString(req, 'to'), shift: queryString(req, 'shift') };
+  try {
+    const w = resolveWindow(sheet, ask);
+    return w ? { sheet: windowSheet(sheet, w), key: `:${w.from}:${w.to}` } : { sheet, key: '' };
+  } catch (e) {
+    if (e instanceof SheetError) throw invalid(e.message, [{ path: ask.shift !== undefined ? 'shift' : 'from', message: e.message }]);
+    throw e;
+  }
+}
+
 export function plansRouter(ctx: ServerContext): Router {
   const r = Router();
 
@@ -88,21 +104,23 @@ export function plansRouter(ctx: ServerContext): Router {
   r.get('/plans/:date', async (req, res) => {
     const user = requirePermission(req, 'read:plan');
     const snapshot = await ctx.data.snapshot();
-    const { entry, sheet } = planFor(snapshot, req.params.date, user.role);
-    const body: PlanDetail = { plan: entry.plan!, sheet: roleHasPermission(user.role, 'read:record') ? await sheetWithProposals(ctx, snapshot, sheet, user.role) : sheet };
+    const { entry, sheet: whole } = planFor(snapshot, req.params.date, user.role);
+    const { sheet: cut } = windowFor(req, whole);
+    const body: PlanDetail = { plan: entry.plan!, sheet: roleHasPermission(user.role, 'read:record') ? await sheetWithProposals(ctx, snapshot, cut, user.role) : cut };
     res.json(body);
   });
 
   r.get('/plans/:date/sheet.pdf', async (req, res) => {
     const user = requirePermission(req, 'read:plan');
     const snapshot = await ctx.data.snapshot();
-    const { sheet: plain } = planFor(snapshot, req.params.date, user.role);
+    const { sheet: whole } = planFor(snapshot, req.params.date, user.role);
+    const { sheet: plain, key: windowKey } = windowFor(req, whole);
     const sheet = roleHasPermission(user.role, 'read:record') ? await sheetWithProposals(ctx, snapshot, plain, user.role) : plain;
     const paper = queryString(req, 'paper') ?? 'a4';
     if (paper !== 'a4' && paper !== 'letter') throw invalid(`paper must be a4 or letter; got "${paper}"`, [{ path: 'paper', message: 'unknown paper size' }]);
     // Rendering takes a while: each PDF is made once per load.
     // Friction proposals change with the records, not with a load: they are part of the key.
-    const key = `pdf:${sheet.date}:${paper}:${sheet.frictionProposals ? createHash('sha256').update(JSON.stringify(sheet.frictionProposals)).digest('hex') : ''}`;
+    const key = `pdf:${sheet.date}:${paper}${windowKey}:${sheet.frictionProposals ? createHash('sha256').update(JSON.stringify(sheet.frictionProposals)).digest('hex') : ''}`;
     let pdf = snapshot.memo.get(key) as Buffer | undefined;
     if (!pdf) {
       const { renderSheetPdf } = await import('../print/pdf.ts');

@@ -19,10 +19,15 @@ export interface ShiftTask {
   note: string | null;
 }
 
+/** A task from `start` to `end` falls in [from, to): it overlaps it, or it is a moment inside it. */
+export function inWindow(start: LocalDateTime, end: LocalDateTime, from: LocalDateTime, to: LocalDateTime): boolean {
+  return start < to && (end > from || (end === start && start >= from));
+}
+
 /** The tasks of the given sheets that overlap [from, to), sorted by start. Times compare as local date-times. */
 export function tasksInWindow(sheets: Sheet[], from: LocalDateTime, to: LocalDateTime): ShiftTask[] {
   const out: ShiftTask[] = [];
-  const inside = (start: string, end: string) => start < to && (end > from || (end === start && start >= from));
+  const inside = (start: string, end: string) => inWindow(start, end, from, to);
   for (const sheet of sheets) {
     const resourceOf = (e: Sheet['timeline'][number]): Booking['resource'] | null => {
       if (!e.resource) return null;

@@ -278,7 +278,7 @@ export function presentSheet(sheet: Sheet, options: PresentOptions = {}): Presen
     blocks: [
       {
         title: '',
-        lines: ['everything weighed today: builds and mixes, seed cultures included'],
+        lines: [sheet.window ? 'everything weighed in this window: its builds and mixes, seed cultures included' : 'everything weighed today: builds and mixes, seed cultures included'],
         table: { head: ['ingredient', 'kind', 'total'], rows: totalRows, align: ['left', 'left', 'right'], tick: totalRows.map(() => true), footer: ['all', '', g(sum(sheet.totals.map((l) => l.grams)))] },
       },
       ...[finishesBlock(sheet, f)].filter((b) => b !== null),
@@ -310,5 +310,7 @@ export function presentSheet(sheet: Sheet, options: PresentOptions = {}): Presen
   sections.push({ key: 'cautions', title: 'Cautions', blocks: [{ title: '', lines: sheet.cautions.map((x) => x.text) }] });
   if (sheet.warnings.length > 0) sections.push({ key: 'warnings', title: 'Check before you start', blocks: [{ title: '', lines: sheet.warnings }] });
 
-  return { title: `Batch sheet · ${longDate(sheet.date)}`, subtitle, sections };
+  const w = sheet.window;
+  if (w) subtitle.unshift(`this window only (${w.name ? `${w.name}, ` : ''}${span(w.from, w.to, sheet.date)}): the feeds, builds and mix cards with work in it, each card with its steps in it, and the pick list of what is weighed in it; equipment is the whole night's`);
+  return { title: `Batch sheet · ${longDate(sheet.date)}${w ? ` · ${w.name ? `${w.name} ` : ''}${span(w.from, w.to, sheet.date)}` : ''}`, subtitle, sections };
 }

@@ -223,6 +223,47 @@ describe('panform sheet --format pdf', () => {
     expect(execFileSync('/usr/bin/pdfinfo', [out], { encoding: 'utf8' })).toMatch(/Pages:\s+([1-9]|10)\n/);
   });
 
+  it('prints the demo day with its feeding plan, its equipment against the plan and the small weight with its premix', SLOW, async () => {
+    const out = join(dir, 'demo-parts.pdf');
+    expect((await cli.run(['sheet', DEMO_PLAN, '--format', 'pdf', '--out', out])).code).toBe(0);
+    if (!existsSync(PDFTOTEXT)) return;
+    const pdfText = execFileSync(PDFTOTEXT, ['-layout', out, '-'], { encoding: 'utf8' }).replace(/[\u00a0\u202f]/g, ' ');
+    const sheet = JSON.parse((await run(['sheet', DEMO_PLAN, '--json'])).stdout) as Sheet;
+    // The feeding plan: each feed's title and time, the default marked as common practice.
+    expect(pdfText).toContain('Cultures to feed');
+    for (const c of sheet.cultures) expect(pdfText).toContain(`${c.culture}${c.feeds > 1 ? ` · feed ${c.feed} of ${c.feeds}` : ''} · ${formatGrams(c.grams)}`);
+    expect(pdfText).toMatch(/feed at 2 Dec 01:55/);
+    expect(pdfText).toContain('default, common practice');
+    // Equipment: each kind with what the night needs and what the plan has.
+    expect(pdfText).toContain('Equipment');
+    for (const e of sheet.equipment) expect(pdfText).toMatch(new RegExp(`${e.kind === 'couche' ? 'couches' : `${e.kind}s`}\\s+${e.peak}\\s+${e.have}\\s+enough`));
+    // The small weight: flagged on its build and given a premix.
+    expect(pdfText).toContain('Scales and small weights');
+    expect(pdfText).toContain('instant yeast (premix)');
+    expect(pdfText).toMatch(/premix 1 in 5: weigh 10\.0 g of instant yeast into 40\.0 g of the water/);
+    // The finishes in the pick list.
+    expect(pdfText).toContain('Finishes: on or under the pieces');
+    expect(pdfText).toMatch(/harbour seed mix \(topping\)\s+Saltmere seeded rye\s+8 × 20\.0 g\s+160 g/);
+  });
+
+  it('prints one shift: its title names the window, with only that shift\'s cards', SLOW, async () => {
+    const out = join(dir, 'night.pdf');
+    expect((await cli.run(['sheet', DEMO_PLAN, '--shift', 'night', '--format', 'pdf', '--out', out])).code).toBe(0);
+    const night = JSON.parse((await run(['sheet', DEMO_PLAN, '--shift', 'night', '--json'])).stdout) as Sheet;
+    expect(night.window).toEqual({ from: '2026-12-03T00:30', to: '2026-12-03T08:00', name: 'night' });
+    const evening = JSON.parse((await run(['sheet', DEMO_PLAN, '--from', '2026-12-02 10:00', '--to', '2026-12-02 16:00', '--json'])).stdout) as Sheet;
+    expect(evening.mixes.map((m) => m.formula)).toEqual(['country-levain']);
+    expect(evening.preferments.length).toBeGreaterThan(0);
+    if (!existsSync(PDFTOTEXT)) return;
+    const pdfText = execFileSync(PDFTOTEXT, ['-layout', out, '-'], { encoding: 'utf8' });
+    expect(pdfText).toContain('Batch sheet · Thursday 3 December 2026 · night 00:30–08:00');
+    expect(pdfText).not.toContain('Pre-ferments to build');
+    expect(pdfText.match(/dough off the mixer ______ °C/g)).toHaveLength(night.mixes.length);
+    const bad = await cli.run(['sheet', DEMO_PLAN, '--shift', 'evening']);
+    expect(bad.code).toBe(2);
+    expect(bad.stderr).toContain('the plan has no shift "evening"; its shifts: day builds, night');
+  });
+
   it('prints on Letter paper with --paper letter', SLOW, async () => {
     const out = join(dir, 'letter.pdf');
     expect((await cli.run(['sheet', HOT_PLAN, '--format', 'pdf', '--paper', 'letter', '--out', out])).code).toBe(0);

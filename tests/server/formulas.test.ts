@@ -248,6 +248,21 @@ describe('plans and the catalog', () => {
     expect(bytes.subarray(0, 5).toString('latin1')).toBe('%PDF-');
   });
 
+  it('cuts the sheet to one shift as panform sheet does (shared/sheet/window.ts), the PDF too', async () => {
+    const { resolveWindow, windowSheet } = await import('#shared/sheet/window');
+    const whole = await get<PlanDetail>('/api/plans/2026-12-03', 'bench');
+    const night = await get<PlanDetail>('/api/plans/2026-12-03?shift=night', 'bench');
+    expect(night.sheet.window).toEqual({ from: '2026-12-03T00:30', to: '2026-12-03T08:00', name: 'night' });
+    expect(night.sheet).toEqual(windowSheet(whole.sheet, resolveWindow(whole.sheet, { shift: 'night' })!));
+    const evening = await get<PlanDetail>('/api/plans/2026-12-03?from=10:00&to=16:00', 'bench');
+    expect(evening.sheet.window).toEqual({ from: '2026-12-03T10:00', to: '2026-12-03T16:00' });
+    const pdf = await fetch(`${t.url}/api/plans/2026-12-03/sheet.pdf?shift=night`, { headers: { cookie: cookie.bench } });
+    expect(pdf.status).toBe(200);
+    const bad = await getJson(`${t.url}/api/plans/2026-12-03?shift=evening`, cookie.bench);
+    expect(bad.status).toBe(422);
+    expect(bad.body).toMatchObject({ issues: [{ path: 'shift' }] });
+  });
+
   it('answers 422 for a date that is not a date and 404 for a day without a plan', async () => {
     expect((await getJson(`${t.url}/api/plans/tomorrow`, cookie.bench)).status).toBe(422);
     expect((await getJson(`${t.url}/api/plans/2031-02-03`, cookie.bench)).status).toBe(404);

@@ -188,3 +188,58 @@ describe('culture feeds in the task list', () => {
     ]);
   });
 });
+
+describe('the sheet for one shift or window', async () => {
+  const { resolveWindow, windowSheet, windowTime } = await import('#shared/sheet/window');
+  const { tasksInWindow } = await import('#shared/schedule/window');
+  const { presentSheet } = await import('#shared/sheet/present');
+
+  it('reads bare times on the plan\'s night: from 12:00 the evening before, else the plan\'s date', () => {
+    expect(windowTime('18:00', '2026-12-03', '--from')).toBe('2026-12-02T18:00');
+    expect(windowTime('04:30', '2026-12-03', '--to')).toBe('2026-12-03T04:30');
+    expect(windowTime('2026-12-02 10:00', '2026-12-03', '--from')).toBe('2026-12-02T10:00');
+    expect(resolveWindow(demo, { from: '22:00', to: '06:00' })).toEqual({ from: '2026-12-02T22:00', to: '2026-12-03T06:00' });
+    expect(resolveWindow(demo, {})).toBeNull();
+  });
+
+  it('takes a named shift of the plan, and says which names there are', () => {
+    expect(resolveWindow(demo, { shift: 'night' })).toEqual({ from: '2026-12-03T00:30', to: '2026-12-03T08:00', name: 'night' });
+    expect(() => resolveWindow(demo, { shift: 'evening' })).toThrow('the plan has no shift "evening"; its shifts: day builds, night');
+    expect(() => resolveWindow(demo, { from: '25:00', to: '06:00' })).toThrow('--from needs a time');
+    expect(() => resolveWindow(demo, { from: '2026-12-03 06:00', to: '2026-12-03 05:00' })).toThrow('the window ends');
+  });
+
+  it('keeps the work whose task falls in the window, by the task list\'s rule', () => {
+    const w = resolveWindow(demo, { shift: 'day builds' })!;
+    const day = windowSheet(demo, w);
+    const tasks = tasksInWindow([demo], w.from, w.to);
+    // The builds and feeds are exactly the task list's.
+    expect(day.preferments.map((b) => b.name).sort()).toEqual(tasks.filter((t) => t.task === 'build').map((t) => t.what.replace(/ \(\d\/\d\)$/, '')).sort());
+    expect(day.cultures.length).toBe(tasks.filter((t) => t.task === 'feed').length);
+    // The country levain is mixed, divided and shaped on the day shift (it retards overnight): its card is there.
+    expect(day.mixes.map((m) => m.formula)).toEqual(tasks.filter((t) => t.task === 'mix').map((t) => t.formula));
+    expect(day.mixes.map((m) => m.formula)).toContain('country-levain');
+    // The pick list is what is weighed in the window: these builds and mixes, nothing of the night's mixes.
+    const weighed = [...day.preferments, ...day.soakers].flatMap((b) => b.ingredients).concat(day.mixes.flatMap((m) => m.ingredients.filter((l) => l.kind !== 'preferment' && l.kind !== 'soaker')));
+    expect(day.totals.reduce((a, l) => a + l.grams, 0)).toBeCloseTo(weighed.reduce((a, l) => a + l.grams, 0), 6);
+    expect(day.totals.reduce((a, l) => a + l.grams, 0)).toBeLessThan(demo.totals.reduce((a, l) => a + l.grams, 0));
+    // Its steps are only those in the window.
+    expect(day.timeline.filter((e) => !e.window).every((e) => e.start < w.to && e.end > w.from)).toBe(true);
+    const p = presentSheet(day);
+    expect(p.title).toBe('Batch sheet · Thursday 3 December 2026 · day builds 2 Dec 10:00–16:00');
+  });
+
+  it('puts on the night shift the mixes, their finishes and the small weights of that night', () => {
+    const night = windowSheet(demo, resolveWindow(demo, { shift: 'night' })!);
+    expect(night.preferments).toEqual([]);
+    // The country levain, mixed the day before, bakes on this shift: its card is there with its bake, not its mix.
+    const levain = night.timeline.filter((e) => e.formula === 'country-levain');
+    expect(night.mixes.map((m) => m.formula)).toContain('country-levain');
+    expect(levain.map((e) => e.step)).toContain('bake');
+    expect(levain.map((e) => e.step)).not.toContain('mix');
+    expect(night.finishes.map((f) => f.ingredient)).toEqual(demo.finishes.map((f) => f.ingredient));
+    // The biga (with the small weight) is built the day before: not on this shift.
+    expect(night.smallWeights).toEqual([]);
+    expect(night.equipment).toEqual(demo.equipment);
+  });
+});

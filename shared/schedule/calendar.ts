@@ -28,7 +28,30 @@ export interface Conflict {
   end: number;
 }
 
+/**
+ * A refusal with the end times the same reason rules out for an operation of the same length:
+ * every end strictly between `above` and `below` is refused too, so a search can jump past them
+ * without checking each (the next-event step of the search).
+ */
+export interface Refusal extends Conflict {
+  above: number;
+  below: number;
+}
+
 const overlaps = (s: number, e: number, b: Busy) => s < b.end && b.start < e;
+
+/**
+ * The ends refused because of `list[i]` for an operation of `minutes`: those that end less than
+ * `before` minutes ahead of it, or start less than `after` minutes past it. Bounded by its
+ * neighbours' starts, so `list[i]` is still the booking the check compares with there.
+ */
+function ruledOut(list: Busy[], i: number, minutes: number, before: number, after: number): { above: number; below: number } {
+  const b = list[i];
+  return {
+    above: Math.max(b.start - before, list[i - 1]?.start ?? -Infinity),
+    below: Math.min(b.end + after + minutes, list[i + 1]?.start ?? Infinity),
+  };
+}
 
 export class Calendar {
   readonly mixers = new Map<string, Busy[]>();
@@ -62,29 +85,23 @@ export class Calendar {
     return this.mixerByName.get(mixer)?.cleanDown ?? 0;
   }
 
-  mixerConflict(mixer: string, start: number, end: number, allergens: readonly string[]): Conflict | null {
+  mixerConflict(mixer: string, start: number, end: number, allergens: readonly string[]): Refusal | null {
     // The bookings of one mixer never overlap and are kept sorted, so only the neighbours can clash.
     const list = this.mixers.get(mixer) ?? [];
-    const i = firstStartingAtOrAfter(list, end);
-    const prev = list[i - 1];
-    const next = list[i];
-    if (prev && (prev.end > start || start < prev.end + this.cleanDown(mixer, prev.allergens, allergens))) {
-      return { kind: 'mixer', name: mixer, start: prev.start, end: prev.end };
-    }
-    if (next && next.start < end + this.cleanDown(mixer, allergens, next.allergens)) return { kind: 'mixer', name: mixer, start: next.start, end: next.end };
-    return null;
+    return neighbourConflict(
+      list, start, end, 'mixer', mixer,
+      (b) => this.cleanDown(mixer, allergens, b.allergens),
+      (b) => this.cleanDown(mixer, b.allergens, allergens),
+    );
   }
 
-  deckConflict(oven: OvenResource, deck: number, start: number, end: number, temperature: number | null): Conflict | null {
+  deckConflict(oven: OvenResource, deck: number, start: number, end: number, temperature: number | null): Refusal | null {
     const list = this.decks.get(deckKey(oven.name, deck)) ?? [];
-    const i = firstStartingAtOrAfter(list, end);
-    const prev = list[i - 1];
-    const next = list[i];
-    if (prev && (prev.end > start || start < prev.end + changeMinutes(oven, prev.temperature, temperature))) {
-      return { kind: 'oven', name: oven.name, start: prev.start, end: prev.end };
-    }
-    if (next && next.start < end + changeMinutes(oven, temperature, next.temperature)) return { kind: 'oven', name: oven.name, start: next.start, end: next.end };
-    return null;
+    return neighbourConflict(
+      list, start, end, 'oven', oven.name,
+      (b) => changeMinutes(oven, temperature, b.temperature),
+      (b) => changeMinutes(oven, b.temperature, temperature),
+    );
   }
 
   /** The temperature the deck bakes at just before `start`, if anything is baked before it. */
@@ -93,6 +110,30 @@ export class Calendar {
     let i = firstStartingAtOrAfter(list, start);
     while (i > 0 && list[i - 1].end > start) i--;
     return list[i - 1]?.temperature;
+  }
+
+  /**
+   * Why nobody on the bench can take the task: the busy stretch, and the ends refused for the same
+   * reasons (each person is out of their shift or busy for a stretch around `end`; the stretch all
+   * of them share is refused).
+   */
+  benchRefusal(start: number, end: number): Refusal {
+    const minutes = end - start;
+    let above = -Infinity;
+    let below = Infinity;
+    for (const p of this.people) {
+      const to = this.overtime && p.overtime ? Infinity : p.to;
+      let r: { above: number; below: number };
+      if (p.from > start) r = { above: -Infinity, below: p.from + minutes };
+      else if (end > to) r = { above: to, below: Infinity };
+      else {
+        const j = firstStartingAtOrAfter(p.busy, end);
+        r = ruledOut(p.busy, j - 1, minutes, 0, 0);
+      }
+      above = Math.max(above, r.above);
+      below = Math.min(below, r.below);
+    }
+    return { ...this.benchConflict(start, end), above, below };
   }
 
   /** Bench people free for the whole task; of people with nothing booked yet on the same shift, only the first. */
@@ -120,6 +161,24 @@ export class Calendar {
     if (on.length === 0 || busy.length === 0) return { kind: 'bench', name: 'bench', start, end };
     return { kind: 'bench', name: 'bench', start: Math.min(...busy.map((b) => b.start)), end: Math.max(...busy.map((b) => b.end)) };
   }
+}
+
+/** The booking of a sorted, non-overlapping list that an operation [start, end] clashes with, if any. */
+function neighbourConflict(
+  list: Busy[], start: number, end: number, kind: ResourceKind, name: string,
+  /** Minutes needed between this operation's end and a booking after it. */
+  gapBefore: (b: Busy) => number,
+  /** Minutes needed between a booking's end and this operation's start. */
+  gapAfter: (b: Busy) => number,
+): Refusal | null {
+  const i = firstStartingAtOrAfter(list, end);
+  const prev = list[i - 1];
+  let at = -1;
+  if (prev && (prev.end > start || start < prev.end + gapAfter(prev))) at = i - 1;
+  else if (i < list.length && list[i].start < end + gapBefore(list[i])) at = i;
+  if (at < 0) return null;
+  const b = list[at];
+  return { kind, name, start: b.start, end: b.end, ...ruledOut(list, at, end - start, gapBefore(b), gapAfter(b)) };
 }
 
 export const deckKey = (oven: string, deck: number) => `${oven}\u0000${deck}`;

@@ -9,13 +9,18 @@
 // - A mix is placed backward: its oven loads as late as they can end by the due time, then its
 //   shaping, preshaping, dividing and mixing each as late as the waits between them (their
 //   ranges) and the free resources allow. Candidate times are the window's ends, the preferred
-//   waits (the plan's `ranges`) and every 5 minutes between.
+//   waits (the plan's `ranges`) and every 5 minutes between. A refused candidate rules out the
+//   stretch of end times its booking blocks (next-event search: the search jumps past the booking,
+//   binary-searched in each resource's sorted list, without checking each 5 minutes), and no end
+//   is tried before the night's start leaves room for the operations before it.
 // - Search with chronological backtracking (a depth-first search over those candidates, across
 //   mixes) until every order is on time, within a budget of checks; on a small night it is
-//   exhaustive, so an on-time schedule on the 5-minute grid is found whenever one exists.
+//   exhaustive, so an on-time schedule on the 5-minute grid is found whenever one exists. Subtrees
+//   that found nothing are remembered per window and per end time, so a neighbouring window does
+//   not search them again.
 // - When the budget runs out or no on-time schedule exists, a single greedy pass keeps every order
 //   it can on time and places the others at the earliest time they can be out.
-import { book, Calendar, deckKey, unbook, type Busy, type Conflict } from './calendar.ts';
+import { book, Calendar, deckKey, unbook, type Busy, type Conflict, type Refusal } from './calendar.ts';
 import type { Job, Load, Operation, OvenResource, Placement, Problem } from './problem.ts';
 
 export const GRID_MINUTES = 5;
@@ -151,24 +156,49 @@ export function minimumLength(job: Job): number {
   return processLength(job) + (last.kind === 'bake' ? 0 : job.tail.min);
 }
 
-/** End times to try for an operation in [lo, hi]: the preferred one, the latest, every grid step, the earliest. */
-function* candidates(lo: number, hi: number, preferred: number): Generator<number> {
+/** End times a refusal ruled out: every end strictly between `above` and `below`. */
+interface Skip {
+  above: number;
+  below: number;
+}
+
+const NO_SKIP: Readonly<Skip> = { above: Infinity, below: -Infinity };
+const skipped = (t: number, skip: Readonly<Skip>) => t > skip.above && t < skip.below;
+
+/**
+ * End times to try for an operation in [lo, hi]: the preferred one, the latest, every grid step, the
+ * earliest. Grid steps inside the stretch `skip` rules out (the caller widens it as bookings turn
+ * candidates away) are jumped over without being tried.
+ */
+function* candidates(lo: number, hi: number, preferred: number, skip: Readonly<Skip> = NO_SKIP): Generator<number> {
   if (lo > hi) return;
   if (preferred >= lo && preferred <= hi) yield preferred;
   if (hi !== preferred) yield hi;
-  for (let t = Math.ceil(hi / GRID_MINUTES) * GRID_MINUTES - GRID_MINUTES; t > lo; t -= GRID_MINUTES) if (t !== preferred) yield t;
+  for (let t = Math.ceil(hi / GRID_MINUTES) * GRID_MINUTES - GRID_MINUTES; t > lo; t -= GRID_MINUTES) {
+    if (skipped(t, skip)) {
+      // Jump to the last grid step at or below the refused stretch.
+      t = Math.floor(skip.above / GRID_MINUTES) * GRID_MINUTES + GRID_MINUTES;
+      continue;
+    }
+    if (t !== preferred) yield t;
+  }
   if (lo < hi && lo !== preferred) yield lo;
 }
 
-function note(tally: Tally | null, c: Conflict): void {
+/**
+ * Counts a refusal against its resource, weighed by the candidate end times in [lo, hi] it turned
+ * away (the search jumps over them without a check each).
+ */
+function note(tally: Tally | null, c: Refusal, lo: number, hi: number): void {
   if (!tally) return;
+  const weight = Math.max(1, Math.round((Math.min(c.below, hi) - Math.max(c.above, lo)) / GRID_MINUTES));
   const key = `${c.kind}\u0000${c.name}`;
   const t = tally.get(key);
   if (t) {
-    t.count++;
+    t.count += weight;
     // Keep the latest busy stretch: the one nearest the due time.
-    if (c.end > t.conflict.end) t.conflict = c;
-  } else tally.set(key, { count: 1, conflict: c });
+    if (c.end > t.conflict.end) t.conflict = { kind: c.kind, name: c.name, start: c.start, end: c.end };
+  } else tally.set(key, { count: weight, conflict: { kind: c.kind, name: c.name, start: c.start, end: c.end } });
 }
 
 /**
@@ -183,15 +213,23 @@ function* placeJob(
   const k = ops.length - 1;
   const times: { start: number; end: number }[] = ops.map(() => ({ start: 0, end: 0 }));
   const people = new Map<number, number>();
-  // Subtrees that yielded nothing, by what they depend on: their window and this job's mixer and
-  // bench bookings after them (the loads do not touch the mixer or the bench). Trying the same
-  // shaping window for a load on another deck then costs nothing.
+  // The earliest each operation can end: every operation and shortest wait before it after the
+  // night's start. An end before that leaves no room for the mix; it is not tried.
+  const earliest: number[] = [];
+  ops.forEach((op, i) => earliest.push((i === 0 ? nightStart : earliest[i - 1] + job.gaps[i].min) + op.minutes));
+  // Subtrees that yielded nothing, by what they depend on: the window (or the one end time) of an
+  // operation and this job's mixer and bench bookings after it (the loads do not touch the mixer
+  // or the bench). Trying the same shaping window for a load on another deck, or an end time a
+  // neighbouring window already tried, then costs nothing.
   const failed = new Set<string>();
-  const keyOf = (i: number, lo: number, hi: number, preferred: number) => {
-    let key = `${i}|${lo}|${hi}|${preferred}`;
-    for (let j = i + 1; j < k; j++) key += `|${times[j].start}:${people.get(j) ?? ''}`;
+  /** Per operation and bookings after it, the end times whose subtree yielded nothing. */
+  const failedEnds = new Map<string, Set<number>>();
+  const later = (i: number) => {
+    let key = `${i}`;
+    for (let j = i + 1; j < ops.length; j++) if (ops[j].kind !== 'bake') key += `|${times[j].start}:${people.get(j) ?? ''}`;
     return key;
   };
+  const keyOf = (i: number, lo: number, hi: number, preferred: number) => `${lo}|${hi}|${preferred}|${later(i)}`;
 
   function* before(i: number, lo: number, hi: number, preferred: number, loads: Load[], out: number): Generator<Placement> {
     if (i >= 0) {
@@ -215,53 +253,75 @@ function* placeJob(
     }
     const op = ops[i];
     const gap = job.gaps[i];
-    // A booking in the way rules out every candidate that overlaps it: skip those without a check.
-    let blocked: Conflict | null = null;
-    for (const end of candidates(Math.max(lo, nightStart + op.minutes), hi, preferred)) {
-      if (blocked && end - op.minutes < blocked.end && end > blocked.start) continue;
+    // A refusal rules out a stretch of candidates around it: jump over those without a check.
+    const skip: Skip = { above: Infinity, below: -Infinity };
+    const rest = later(i);
+    let ends = failedEnds.get(rest);
+    if (!ends) failedEnds.set(rest, (ends = new Set()));
+    const from = Math.max(lo, earliest[i]);
+    for (const end of candidates(from, hi, preferred, skip)) {
+      if (skipped(end, skip)) continue;
+      if (ends.has(end)) continue;
       if (budget.left-- <= 0) return;
-      const start = end - op.minutes;
-      times[i] = { start, end };
-      const next = (): Generator<Placement> => before(i - 1, start - gap.max, start - gap.min, start - gap.preferred, loads, out);
-      if (op.kind === 'mix') {
-        if (op.minutes === 0) {
-          yield* next();
-          return;
-        }
-        const c = cal.mixerConflict(job.mixer, start, end, job.allergens);
-        if (c) {
-          note(tally, c);
-          blocked = c;
-          continue;
-        }
-        const b: Busy = { start, end, allergens: job.allergens };
-        const list = cal.mixers.get(job.mixer)!;
-        book(list, b);
+      if (op.minutes === 0) {
+        // Nothing to book: the first candidate is as good as any.
+        yield* at(i, end, loads, out, skip, from, hi);
+        return;
+      }
+      let found = false;
+      for (const p of at(i, end, loads, out, skip, from, hi)) {
+        found = true;
+        yield p;
+      }
+      if (!found && budget.left > 0) ends.add(end);
+    }
+  }
+
+  /** Every placement with operation `i` ending at `end`; a refusal sets `skip` (`lo`, `hi`: the window, for the tally). */
+  function* at(i: number, end: number, loads: Load[], out: number, skip: Skip, lo: number, hi: number): Generator<Placement> {
+    const op = ops[i];
+    const gap = job.gaps[i];
+    const start = end - op.minutes;
+    times[i] = { start, end };
+    const next = (): Generator<Placement> => before(i - 1, start - gap.max, start - gap.min, start - gap.preferred, loads, out);
+    if (op.minutes === 0) {
+      yield* next();
+      return;
+    }
+    if (op.kind === 'mix') {
+      const c = cal.mixerConflict(job.mixer, start, end, job.allergens);
+      if (c) {
+        note(tally, c, lo, hi);
+        skip.above = c.above;
+        skip.below = c.below;
+        return;
+      }
+      const b: Busy = { start, end, allergens: job.allergens };
+      const list = cal.mixers.get(job.mixer)!;
+      book(list, b);
+      try {
+        yield* next();
+      } finally {
+        unbook(list, b);
+      }
+    } else if (op.kind === 'bench') {
+      const free = cal.freePeople(start, end);
+      if (free.length === 0) {
+        const r = cal.benchRefusal(start, end);
+        note(tally, r, lo, hi);
+        skip.above = r.above;
+        skip.below = r.below;
+        return;
+      }
+      for (const person of free) {
+        const b: Busy = { start, end };
+        book(person.busy, b);
+        people.set(i, person.unit);
         try {
           yield* next();
         } finally {
-          unbook(list, b);
-        }
-      } else if (op.kind === 'bench') {
-        if (op.minutes === 0) {
-          yield* next();
-          return;
-        }
-        const free = cal.freePeople(start, end);
-        if (free.length === 0) {
-          note(tally, cal.benchConflict(start, end));
-          continue;
-        }
-        for (const person of free) {
-          const b: Busy = { start, end };
-          book(person.busy, b);
-          people.set(i, person.unit);
-          try {
-            yield* next();
-          } finally {
-            people.delete(i);
-            unbook(person.busy, b);
-          }
+          people.delete(i);
+          unbook(person.busy, b);
         }
       }
     }
@@ -301,27 +361,27 @@ function* placeJob(
         j === 0
           ? [outLo, outHi, outHi]
           : [loads[0].start - spread + bake.minutes, loads[j - 1].start + bake.minutes, loads[j - 1].start + bake.minutes];
-      const blocked = new Map<number, Conflict>();
-      const allDecks = Array.from({ length: oven.decks }, (_, d) => d + 1);
-      let ceiling = Infinity;
-      for (const end of candidates(Math.max(lo, nightStart + bake.minutes), hi, preferred)) {
+      // Per deck, the stretch of ends its last refusal ruled out; where every deck refuses, the
+      // stretch they share is jumped over.
+      const refused: Skip[] = Array.from({ length: oven.decks }, () => ({ ...NO_SKIP }));
+      const all: Skip = { ...NO_SKIP };
+      const from = Math.max(lo, earliest[k]);
+      for (const end of candidates(from, hi, preferred, all)) {
+        if (skipped(end, all)) continue;
         const start = end - bake.minutes;
-        if (end > ceiling) continue;
-        const open = allDecks.filter((d) => {
-          const x = blocked.get(d);
-          return !x || start >= x.end || end <= x.start;
-        });
+        const open: number[] = [];
+        for (let d = 1; d <= oven.decks; d++) if (!skipped(end, refused[d - 1])) open.push(d);
         if (open.length === 0) {
-          // Every deck is taken around here: the next place can end no later than the latest of their starts.
-          ceiling = Math.max(...allDecks.map((d) => blocked.get(d)!.start));
+          all.above = Math.max(...refused.map((r) => r.above));
+          all.below = Math.min(...refused.map((r) => r.below));
           continue;
         }
         for (const deck of deckOrder(cal, oven, start, bake.temperature, open)) {
           if (budget.left-- <= 0) return;
           const c = cal.deckConflict(oven, deck, start, end, bake.temperature);
           if (c) {
-            note(tally, c);
-            blocked.set(deck, c);
+            note(tally, c, from, hi);
+            refused[deck - 1] = { above: c.above, below: c.below };
             continue;
           }
           const b: Busy = { start, end, temperature: bake.temperature };

@@ -1,10 +1,12 @@
 // The night's scheduler (shared/schedule/solve.ts) on random small nights: no resource over its
 // capacity, every wait inside its range, and an on-time night found whenever a brute-force search
-// over the same 5-minute grid finds one.
+// over the same 5-minute grid finds one; and the stretch of end times a refused booking rules out
+// (the next-event jumps of the search) holds only end times the check refuses too.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { changeMinutes, type Job, type Placement, type Problem } from '#shared/schedule/problem';
 import { solve } from '#shared/schedule/solve';
+import { book, Calendar, deckKey } from '#shared/schedule/calendar';
 
 const RUNS = Number(process.env.PANFORM_FUZZ_RUNS ?? 60);
 const G = 5;
@@ -193,6 +195,49 @@ describe('solve on random small nights', () => {
         else expect(s.late.length).toBeGreaterThan(0);
       }),
       { numRuns: RUNS },
+    );
+  });
+});
+
+describe('a refusal rules out only end times the check refuses too', () => {
+  // The search jumps over the stretch a refusal gives (next-event search); this holds it to the
+  // check itself: every end inside the stretch is refused by the same check.
+  const arbBooking = fc.record({ start: fc.integer({ min: 0, max: 40 }).map((n) => n * 5), minutes: fc.constantFrom(5, 10, 15, 20), egg: fc.boolean(), hot: fc.boolean() });
+  it('on a mixer (with clean-downs), an oven deck (with temperature changes) and the bench', () => {
+    fc.assert(
+      fc.property(fc.array(arbBooking, { maxLength: 8 }), fc.integer({ min: 0, max: 440 }), fc.constantFrom(5, 7.5, 10, 25), fc.boolean(), (raw, end, minutes, egg) => {
+        const problem: Problem = {
+          mixers: [{ name: 'spiral', cleanDown: 10 }],
+          ovens: [{ name: 'deck oven', decks: 1, slots: 2, heatRate: 5, coolRate: 2, steam: true, fan: false }],
+          shifts: [{ from: 20, to: 400, people: 1 }],
+          room: 20,
+          jobs: [],
+        };
+        const cal = new Calendar(problem);
+        const oven = problem.ovens[0];
+        const allergens = (e: boolean) => (e ? ['egg', 'wheat'] : ['wheat']);
+        const temperature = (h: boolean) => (h ? 230 : 190);
+        for (const b of raw) {
+          const s = b.start;
+          const e = b.start + b.minutes;
+          if (!cal.mixerConflict('spiral', s, e, allergens(b.egg))) book(cal.mixers.get('spiral')!, { start: s, end: e, allergens: allergens(b.egg) });
+          if (!cal.deckConflict(oven, 1, s, e, temperature(b.hot))) book(cal.decks.get(deckKey(oven.name, 1))!, { start: s, end: e, temperature: temperature(b.hot) });
+          if (cal.freePeople(s, e).length > 0) book(cal.people[0].busy, { start: s, end: e });
+        }
+        const inside = (r: { above: number; below: number }) => {
+          const out: number[] = [];
+          for (let t = Math.max(r.above, end - 200) + 0.5; t < Math.min(r.below, end + 200); t += 0.5) out.push(t);
+          return out;
+        };
+        const mixer = cal.mixerConflict('spiral', end - minutes, end, allergens(egg));
+        if (mixer) for (const t of inside(mixer)) expect(cal.mixerConflict('spiral', t - minutes, t, allergens(egg)), `mixer end ${t}`).not.toBeNull();
+        const deck = cal.deckConflict(oven, 1, end - minutes, end, temperature(egg));
+        if (deck) for (const t of inside(deck)) expect(cal.deckConflict(oven, 1, t - minutes, t, temperature(egg)), `deck end ${t}`).not.toBeNull();
+        if (cal.freePeople(end - minutes, end).length === 0) {
+          for (const t of inside(cal.benchRefusal(end - minutes, end))) expect(cal.freePeople(t - minutes, t), `bench end ${t}`).toEqual([]);
+        }
+      }),
+      { numRuns: RUNS * 4 },
     );
   });
 });

@@ -1,16 +1,16 @@
 // `panform check [paths..]`: schema and trade checks of formulas, the catalog and plans, one
 // line per finding. Reading files happens here; the checks themselves are in shared/check/.
 import { Command } from 'commander';
-import { readdirSync, statSync } from 'node:fs';
-import { fileKindOf, KIND_ORDER, readFileText, type FileKind } from '#server/load/read';
+import { statSync } from 'node:fs';
+import { listYamlFiles, LoadPathError, readFileText } from '#server/load/read';
+import { fileKindOf, orderableFormula, orderFiles } from '#shared/files';
 import { join, relative, resolve } from 'node:path';
 import { checkFileText, fileStem } from '#shared/check/check-file';
 import type { KnownFormula } from '#shared/check/plan';
 import type { Catalog } from '#shared/model';
 import { formatFinding, parseYamlText, sortFindings, type Finding } from '#shared/parse';
 import { ExitError, UsageError } from '../errors.ts';
-import { CATALOG_FILE, findCatalogPath, formulasDirForPlan } from '../files.ts';
-import { compareText } from '#shared/text';
+import { findCatalogPath, formulasDirForPlan } from '../files.ts';
 
 export interface CheckOptions {
   paths: string[];
@@ -31,29 +31,13 @@ export interface CheckReport {
 
 const DEFAULT_PATH = 'formulas';
 
-/** The kind of a file as a load sees it (server/load/read.ts), or the catalog given with --catalog. */
-export function classify(path: string, catalogPath?: string): FileKind {
-  if (catalogPath !== undefined && resolve(path) === resolve(catalogPath)) return 'catalog';
-  return fileKindOf(path);
-}
-
-const isYaml = (name: string) => /\.ya?ml$/i.test(name);
-
-function readFolder(dir: string) {
-  try {
-    return readdirSync(dir, { withFileTypes: true }).sort((a, b) => compareText(a.name, b.name));
-  } catch (e) {
-    throw new UsageError(`cannot read the folder ${dir}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
-  }
-}
-
-/** .yaml/.yml files under `dir`, skipping hidden entries; a linked file counts, a linked folder is not followed. */
+/** The .yaml/.yml files under a folder, as a load finds them (server/load/read.ts). */
 function walk(dir: string, out: string[]): void {
-  for (const e of readFolder(dir)) {
-    if (e.name.startsWith('.') || e.name === 'node_modules') continue;
-    const p = join(dir, e.name);
-    if (e.isDirectory()) walk(p, out);
-    else if (isYaml(e.name) && (e.isFile() || (e.isSymbolicLink() && statSync(p, { throwIfNoEntry: false })?.isFile()))) out.push(p);
+  try {
+    out.push(...listYamlFiles(dir));
+  } catch (e) {
+    if (e instanceof LoadPathError) throw new UsageError(e.message);
+    throw e;
   }
 }
 
@@ -124,7 +108,9 @@ export function collectCheck(options: Pick<CheckOptions, 'paths' | 'catalog'>): 
       m = new Map();
       let names: string[] = [];
       try {
-        names = readdirSync(dir).filter((n) => isYaml(n) && n !== CATALOG_FILE && !n.startsWith('.') && statSync(join(dir, n), { throwIfNoEntry: false })?.isFile());
+        names = listYamlFiles(dir)
+          .filter((p) => fileKindOf(p) === 'formula' && orderableFormula(relative(dir, p)))
+          .map((p) => relative(dir, p));
       } catch {
         // An unreadable folder holds no formulas we can name; each order then says so.
       }
@@ -149,9 +135,11 @@ export function collectCheck(options: Pick<CheckOptions, 'paths' | 'catalog'>): 
     return m;
   };
 
-  const byKind = [...files].sort((a, b) => KIND_ORDER[classify(a, options.catalog)] - KIND_ORDER[classify(b, options.catalog)]);
-  for (const file of byKind) {
-    const kind = classify(file, options.catalog);
+  // The catalog, formulas, plans (shared/files.ts); paths compared resolved, shown as given.
+  const shown = new Map(files.map((f) => [resolve(f), f]));
+  const byKind = orderFiles([...shown.keys()], options.catalog === undefined ? undefined : resolve(options.catalog));
+  for (const { path, kind } of byKind) {
+    const file = shown.get(path)!;
     if (kind === 'catalog') {
       findings.push(...loadCatalog(file).findings);
       continue;

@@ -8,6 +8,7 @@ import { sortFindings, type Finding } from '#shared/parse';
 import { referenceFigures } from '#shared/figures';
 import { checkFileText, fileStem } from '#shared/check/check-file';
 import type { KnownFormula } from '#shared/check/plan';
+import { orderableFormula } from '#shared/files';
 import type { LoadFile, LoadInput } from './read.ts';
 
 export interface CheckedCatalog {
@@ -79,7 +80,8 @@ export function checkLoadInput(input: LoadInput, extra: ExtraCheck[] = [], ctx: 
   const known = new Map<string, KnownFormula>(ctx.folderFormulas ?? []);
   for (const file of input.files) {
     if (file.kind !== 'formula') continue;
-    known.set(fileStem(file.path), {});
+    const orderable = orderableFormula(file.path.slice(file.path.indexOf('/') + 1));
+    if (orderable) known.set(fileStem(file.path), {});
     if (unread(file)) continue;
     const res = checkFileText({
       kind: 'formula',
@@ -89,7 +91,7 @@ export function checkLoadInput(input: LoadInput, extra: ExtraCheck[] = [], ctx: 
       noCatalog: catalogFile ? `the catalog ${catalogFile.path} has errors` : 'no ingredients.yaml was found beside it or in its parent folder',
     });
     findings.push(...res.findings);
-    if (res.kind === 'formula' && res.value) known.set(fileStem(file.path), { status: res.value.status });
+    if (orderable && res.kind === 'formula' && res.value) known.set(fileStem(file.path), { status: res.value.status });
     if (res.kind !== 'formula' || !res.value || res.raw === undefined || !res.source) continue;
     const f = res.value;
     const before = seenIds.get(f.id);

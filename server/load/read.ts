@@ -5,12 +5,12 @@ import { closeSync, existsSync, openSync, readdirSync, readSync, statSync } from
 import { basename, dirname, join, relative, resolve, sep } from 'node:path';
 import { promisify } from 'node:util';
 import { CATALOG_FILE, MAX_FILE_BYTES, tooLargeProblem } from '#shared/check/check-file';
+import { compareText } from '#shared/text';
+import { fileKindOf, isYamlName, orderableFormula, orderFiles, skippedEntry, type FileKind } from '#shared/files';
 
 const run = promisify(execFile);
 
-export type FileKind = 'catalog' | 'formula' | 'plan';
-
-export { CATALOG_FILE };
+export { CATALOG_FILE, type FileKind };
 
 export interface LoadFile {
   kind: FileKind;
@@ -45,38 +45,36 @@ export interface LoadInput {
   folderFormulas?: Map<string, { status?: string }>;
 }
 
-const isYaml = (name: string) => /\.ya?ml$/i.test(name);
-
-/** A formulas folder's files: ingredients.yaml, <id>.yaml, plans/<date>.yaml. */
-function folderFiles(dir: string): { kind: FileKind; absPath: string; root: string }[] {
-  const out: { kind: FileKind; absPath: string; root: string }[] = [];
-  for (const name of readdirSync(dir).sort()) {
-    const p = join(dir, name);
-    if (!isYaml(name) || !statSync(p).isFile()) continue;
-    out.push({ kind: name === CATALOG_FILE ? 'catalog' : 'formula', absPath: p, root: dir });
-  }
-  const plans = join(dir, 'plans');
-  if (existsSync(plans) && statSync(plans).isDirectory()) {
-    for (const name of readdirSync(plans).sort()) {
-      const p = join(plans, name);
-      if (isYaml(name) && statSync(p).isFile()) out.push({ kind: 'plan', absPath: p, root: dir });
+/**
+ * The .yaml/.yml files under `dir`, for `panform check` and for a load alike: every folder below
+ * it, hidden entries and node_modules skipped (shared/files.ts), a linked file counted, a linked
+ * folder not followed. Sorted by name within each folder.
+ */
+export function listYamlFiles(dir: string): string[] {
+  const out: string[] = [];
+  const walk = (d: string) => {
+    let entries;
+    try {
+      entries = readdirSync(d, { withFileTypes: true });
+    } catch (e) {
+      throw new LoadPathError(`cannot read the folder ${d}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
     }
-  }
+    for (const e of entries.sort((a, b) => compareText(a.name, b.name))) {
+      if (skippedEntry(e.name)) continue;
+      const p = join(d, e.name);
+      if (e.isDirectory()) walk(p);
+      else if (isYamlName(e.name) && (e.isFile() || (e.isSymbolicLink() && statSync(p, { throwIfNoEntry: false })?.isFile()))) out.push(p);
+    }
+  };
+  walk(dir);
   return out;
 }
 
-/**
- * Which kind a file is, by where it lies (for `panform check` and a load alike): ingredients.yaml
- * is the catalog, a file in a plans/ folder a plan, any other .yaml/.yml a formula.
- */
-export function fileKindOf(path: string): FileKind {
-  if (basename(path) === CATALOG_FILE) return 'catalog';
-  if (basename(dirname(resolve(path))) === 'plans') return 'plan';
-  return 'formula';
+/** A formulas folder's files (the catalog, formulas, plans/<date>.yaml), each with the folder as its root. */
+function folderFiles(dir: string): { kind: FileKind; absPath: string; root: string }[] {
+  return orderFiles(listYamlFiles(dir)).map((f) => ({ kind: f.kind, absPath: f.path, root: dir }));
 }
 
-/** The order files are checked in: each kind needs what the one before it reads. */
-export const KIND_ORDER: Readonly<Record<FileKind, number>> = { catalog: 0, formula: 1, plan: 2 };
 
 /** A single file: which kind, and the formulas folder it belongs to. */
 function classifyFile(absPath: string): { kind: FileKind; absPath: string; root: string } {
@@ -107,7 +105,7 @@ export async function readLoadInput(paths: string[], opts: { git?: boolean } = {
     if (st.isDirectory()) {
       for (const f of folderFiles(abs)) picked.set(f.absPath, f);
     } else {
-      if (!isYaml(abs)) throw new LoadPathError(`${given} is not a YAML file (.yaml or .yml)`);
+      if (!isYamlName(abs)) throw new LoadPathError(`${given} is not a YAML file (.yaml or .yml)`);
       complete = false;
       const f = classifyFile(abs);
       picked.set(f.absPath, f);
@@ -126,7 +124,7 @@ export async function readLoadInput(paths: string[], opts: { git?: boolean } = {
   if (catalogs.length > 1) {
     throw new LoadPathError(`one catalog per load; found ${catalogs.map((c) => c.absPath).join(' and ')}`);
   }
-  const list = [...picked.values()].sort((a, b) => KIND_ORDER[a.kind] - KIND_ORDER[b.kind]);
+  const list = orderFiles([...picked.keys()]).map((o) => picked.get(o.path)!);
   const git = opts.git === false ? null : await readGitInfo(list.map((f) => f.absPath));
   const files: LoadFile[] = list.map((f) => {
     const g = git?.files.get(f.absPath);
@@ -147,7 +145,9 @@ export async function readLoadInput(paths: string[], opts: { git?: boolean } = {
   if (!complete) {
     folderFormulas = new Map();
     for (const root of new Set(list.map((f) => f.root))) {
-      for (const f of folderFiles(root)) if (f.kind === 'formula') folderFormulas.set(basename(f.absPath).replace(/\.ya?ml$/i, ''), {});
+      for (const f of folderFiles(root)) {
+        if (f.kind === 'formula' && orderableFormula(relative(root, f.absPath))) folderFormulas.set(basename(f.absPath).replace(/\.ya?ml$/i, ''), {});
+      }
     }
   }
   return { files, complete, gitCommit: git?.head ?? null, folderFormulas };

@@ -388,7 +388,7 @@ function timeline(w: Writer, c: ChartItem): void {
 
 function section(w: Writer, s: SectionItem): void {
   // A section's title stays with its first card.
-  sectionTitle(w, s.title, s.key === 'mixes' ? 380 : s.key === 'equipment' ? 240 : 150);
+  sectionTitle(w, s.title, s.key === 'mixes' ? 380 : s.key === 'equipment' ? 240 : s.key === 'totals' ? 340 : 150);
   if (s.key === 'cultures' || s.key === 'preferments' || s.key === 'soakers') {
     // Builds two by two, side by side.
     for (let i = 0; i < s.blocks.length; i += 2) columns(w, s.blocks.slice(i, i + 2));

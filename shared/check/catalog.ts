@@ -41,7 +41,17 @@ export function checkCatalog(input: CatalogCheckInput): Finding[] {
       } else if (catalog[e.fedWith].kind !== 'flour') {
         out.error(at('fed_with'), `${quote(name)} is fed with ${quote(e.fedWith)}, whose kind is ${catalog[e.fedWith].kind}; a culture is fed with a flour`);
       }
+      const r = e.feeding?.ratio;
+      if (r && !(r[0] > 0 && r[1] > 0)) {
+        out.error(at('feeding', 'ratio'), `the feeding ratio of ${quote(name)} needs some culture and some flour (culture : flour : water, e.g. "1:2:2")`);
+      } else if (r && e.hydration !== undefined && finite(e.hydration) && Math.abs((r[2] / r[1]) * 100 - e.hydration) > 1) {
+        out.warning(
+          at('feeding', 'ratio'),
+          `${quote(name)} is fed ${r.join(':')}, water ${pct((r[2] / r[1]) * 100)} of the flour, but its hydration is ${pct(e.hydration)}; fed so, the culture drifts away from the hydration the builds count it at`,
+        );
+      }
     } else {
+      if (e.feeding !== undefined) out.warning(at('feeding'), `"feeding" is used only for a culture; ${quote(name)} is of kind ${e.kind}`, 'key');
       if (e.hydration !== undefined) out.warning(at('hydration'), `"hydration" is used only for a culture; ${quote(name)} is of kind ${e.kind}`, 'key');
       if (e.fedWith !== undefined) out.warning(at('fed_with'), `"fed_with" is used only for a culture; ${quote(name)} is of kind ${e.kind}`, 'key');
     }

@@ -54,9 +54,24 @@ export function checkPlan(input: PlanCheckInput): Finding[] {
     if (ovenNames.has(o.name)) out.error(pointer('ovens', String(i), 'name'), `oven ${quote(o.name)} is listed twice; give each oven its own name`);
     ovenNames.add(o.name);
   });
+  const shiftNames = new Set<string>();
   (plan.bench ?? []).forEach((b, i) => {
+    if (b.name !== undefined) {
+      if (shiftNames.has(b.name)) out.error(pointer('bench', String(i), 'name'), `shift ${quote(b.name)} is named twice; give each shift its own name (panform sheet --shift picks it by name)`);
+      shiftNames.add(b.name);
+    }
     if (!isCalendarDate(b.date)) out.error(pointer('bench', String(i), 'date'), `date ${quote(b.date)} is not a date in the calendar (YYYY-MM-DD)`);
     if (b.from === b.to) out.error(pointer('bench', String(i), 'to'), `the shift from ${b.from} to ${b.to} has no length; a shift over midnight ends the next day (e.g. from "22:00" to "06:00")`);
+  });
+
+  const scaleNames = new Set<string>();
+  (plan.scales ?? []).forEach((s, i) => {
+    const at = (k: string) => pointer('scales', String(i), k);
+    if (scaleNames.has(s.name)) out.error(at('name'), `scale ${quote(s.name)} is listed twice; give each scale its own name`);
+    scaleNames.add(s.name);
+    if (!(s.maxGrams > 0)) out.error(at('max'), `scale ${quote(s.name)} weighs at most ${grams(s.maxGrams)}; it must be above 0 g`);
+    if (!(s.resolutionGrams > 0)) out.error(at('resolution'), `scale ${quote(s.name)} reads in steps of ${grams(s.resolutionGrams)}; the step must be above 0 g`);
+    else if (s.resolutionGrams >= s.maxGrams) out.error(at('resolution'), `scale ${quote(s.name)} reads in steps of ${grams(s.resolutionGrams)}, not below its maximum ${grams(s.maxGrams)}; swap max and resolution?`);
   });
 
   const ids = [...formulas.keys()];

@@ -11,6 +11,7 @@ import { stepWord } from '../step-words.ts';
 import type { Sheet, SheetBuild, SheetLine, SheetMix, TimelineEntry } from './types.ts';
 import { FINISH_USE_WORDS } from '../finishes.ts';
 import { culturesSection, equipmentSection, finishesBlock, scalesSection } from './present-parts.ts';
+import { inWindow } from '../schedule/window.ts';
 
 export type Align = 'left' | 'right';
 
@@ -177,6 +178,18 @@ function mixBlock(m: SheetMix, sheet: Sheet, repeated: boolean, f: Figures): She
       rows.push([`  held back: bassinage (${t(m.bassinage.temperature)}), add late`, g(m.bassinage.grams)]);
       tick.push(true);
     }
+  }
+  // Cut to a window that does not hold the mix itself: its weights are shown for reference, not to weigh again.
+  const w = sheet.window;
+  if (w && !inWindow(m.start, m.end, w.from, w.to)) {
+    lines.unshift(`mixed before this window (${span(m.start, m.end, sheet.date)}): weights for reference only; its steps in this window below`);
+    return {
+      title: `${m.title}${repeated ? ` (order ${m.order + 1})` : ''} · mix ${m.mixNumber} of ${m.of} · ${g(m.dough)}`,
+      lines,
+      table: { head: ['ingredient', 'weighed'], rows, align: ['left', 'right'], tick: tick.map(() => false), footer: ['dough', g(m.dough)] },
+      steps: mixSteps(m, sheet, f),
+      mix: { order: m.order, mixNumber: m.mixNumber },
+    };
   }
   return {
     title: `${m.title}${repeated ? ` (order ${m.order + 1})` : ''} · mix ${m.mixNumber} of ${m.of} · ${g(m.dough)}`,

@@ -127,6 +127,21 @@ orders:
       PLAN.replace('orders:', '  - { name: spiral, capacity: 20 kg, friction: 9 °C }\norders:'),
       ['6:13 error mixer "spiral" is listed twice; give each mixer its own name'],
     ],
+    [
+      'a scale whose step is not below its maximum',
+      PLAN.replace('orders:', 'scales:\n  - { name: bench scale, max: 0.5 g, resolution: 3 kg }\norders:'),
+      ['7:50 error scale "bench scale" reads in steps of 3000 g, not below its maximum 0.5 g; swap max and resolution?'],
+    ],
+    [
+      'a scale listed twice',
+      PLAN.replace('orders:', 'scales:\n  - { name: s, max: 3 kg, resolution: 1 g }\n  - { name: s, max: 60 kg, resolution: 20 g }\norders:'),
+      ['8:13 error scale "s" is listed twice; give each scale its own name'],
+    ],
+    [
+      'two shifts with one name',
+      PLAN.replace('orders:', 'bench:\n  - { name: night, from: "00:00", to: "04:00", people: 1 }\n  - { name: night, from: "04:00", to: "08:00", people: 2 }\norders:'),
+      ['8:13 error shift "night" is named twice; give each shift its own name (panform sheet --shift picks it by name)'],
+    ],
     ['a temperature without its unit', PLAN.replace('room: 22 °C', 'room: 22'), ['3:21 error conditions.room is 22 without a unit; write a temperature as a number and °C or °F, e.g. "25 °C"']],
   ])('reports %s', (_, text, expected) => {
     expect(plan(text)).toEqual(expected);
@@ -159,6 +174,16 @@ describe('checkFileText on a catalog', () => {
         '2:1 error the culture "starter" needs "fed_with": the flour it is fed with',
         '2:1 error the culture "starter" needs "hydration" (e.g. "hydration: 100 %"): a levain build counts its flour and water by it',
       ],
+    ],
+    [
+      'a culture fed at a ratio that does not keep its hydration',
+      'rye flour: { kind: flour }\nrye sour: { kind: culture, hydration: 100 %, fed_with: rye flour, feeding: { ratio: "1:5:4" } }\n',
+      ['2:85 warning "rye sour" is fed 1:5:4, water 80 % of the flour, but its hydration is 100 %; fed so, the culture drifts away from the hydration the builds count it at'],
+    ],
+    [
+      'feeding on something that is not a culture',
+      'rye flour: { kind: flour, feeding: { keep: 100 g } }\n',
+      ['1:27 warning "feeding" is used only for a culture; "rye flour" is of kind flour'],
     ],
     [
       'a culture fed with something that is not a flour',
@@ -198,6 +223,11 @@ describe('checkFileText on formula arithmetic and units', () => {
       ['15:28 error process.0.hours is "16-12": range runs backwards; expected the smaller number first (e.g. "10-14")'],
     ],
     ['a negative loss', BASE.replace('loss: 2 %', 'loss: -2 %'), ['6:7 error loss is -2 %; it cannot be negative']],
+    [
+      'a banneton in the oven',
+      withLines('process:\n  - { step: bake, minutes: 40, temperature: 230 °C, vessel: banneton }\n'),
+      ['15:61 error a banneton is for the proof, not the oven; step 1 bakes: say deck, stone, tray, tin or pot'],
+    ],
     ['a misspelt status', BASE.replace('status: active', 'status: activ'), ['3:9 error status is "activ", not one of: draft, active, retired; did you mean "active"?']],
     ['a flour listed under ingredients', withLines('  rye flour: 5\n'), ['14:3 error "rye flour" is a flour (catalog kind flour); list it under flour so the flours sum to 100 %']],
     ['an ingredient listed under flour', BASE.replace('  bread flour: 100\n', '  bread flour: 100\n  fine salt: 0\n'), [

@@ -121,6 +121,8 @@ function buildBlock(b: SheetBuild, sheet: Sheet, f: Figures, ref: NonNullable<Sh
   if (b.hot) lines.push('made with boiling water: pour with care');
   lines.push(`used at ${b.uses.map((u) => `${when(u.at)} (${u.formula} ${u.mixNumber}, ${g(u.grams)})`).join('; ')}`);
   if (b.note) lines.push(b.note);
+  const onScales = scalesLine(b.ingredients);
+  if (onScales) lines.push(onScales);
   const rows: string[][] = [];
   const tick: boolean[] = [];
   for (const l of b.ingredients) {
@@ -134,6 +136,17 @@ function buildBlock(b: SheetBuild, sheet: Sheet, f: Figures, ref: NonNullable<Sh
     lines,
     table: { head: ['ingredient', 'weigh'], rows, align: ['left', 'right'], tick, footer: ['build', g(b.grams)] },
   };
+}
+
+/** Which scale weighs which line (the plan's scales): "scales: platform scale for bread flour, water; bench scale for the rest". */
+function scalesLine(lines: SheetLine[]): string | null {
+  const by = new Map<string, string[]>();
+  for (const l of lines) if (l.scale) by.set(l.scale, [...(by.get(l.scale) ?? []), l.ingredient]);
+  if (by.size === 0) return null;
+  if (by.size === 1) return `scale: all on the ${[...by.keys()][0]}`;
+  const groups = [...by].sort((a, b) => a[1].length - b[1].length);
+  const last = groups.pop()!;
+  return `scales: ${groups.map(([s, names]) => `${s} for ${names.join(', ')}`).join('; ')}; ${last[0]} for the rest`;
 }
 
 /** " (premix)" or " (too small)" beside a line the scale check flagged. */
@@ -163,6 +176,8 @@ function mixBlock(m: SheetMix, sheet: Sheet, repeated: boolean, f: Figures): She
     lines.push(`${liquid} at ${t(m.waterTemperature)} for dough at ${aim} (${sum}${m.bassinage ? '; with the bassinage' : ''})`);
   }
   for (const x of m.finishes) lines.push(`finish: ${x.ingredient} ${FINISH_USE_WORDS[x.use]}, ${m.pieces} × ${g(x.perPiece)} = ${g(x.grams)}${x.note ? ` (${x.note})` : ''}`);
+  const onScales = scalesLine(m.ingredients);
+  if (onScales) lines.push(onScales);
   if (m.bassinage) lines.push(`bassinage: hold back ${g(m.bassinage.grams)} of the water at ${t(m.bassinage.temperature)}; add it late in the mix`);
   const big: string[] = [];
   if (m.waterTemperature !== null) big.push(`water ${t(m.waterTemperature)}`);

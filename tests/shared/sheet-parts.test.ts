@@ -238,6 +238,14 @@ describe('the sheet for one shift or window', async () => {
     expect(levain.map((e) => e.step)).toContain('bake');
     expect(levain.map((e) => e.step)).not.toContain('mix');
     expect(night.finishes.map((f) => f.ingredient)).toEqual(demo.finishes.map((f) => f.ingredient));
+    // Its card shows the weights for reference only: no tick boxes, no blanks.
+    const card = presentSheet(night).sections.find((s) => s.key === 'mixes')!.blocks.find((b) => b.title.startsWith('Country levain'))!;
+    expect(card.lines[0]).toBe('mixed before this window (2 Dec 10:06–10:14): weights for reference only; its steps in this window below');
+    expect(card.table!.tick.every((x) => !x)).toBe(true);
+    expect(card.blanks).toBeUndefined();
+    // Every card says which scale weighs which line.
+    const ciabatta = presentSheet(demo).sections.find((s) => s.key === 'mixes')!.blocks.find((b) => b.title.startsWith('Harbour ciabatta'))!;
+    expect(ciabatta.lines).toContain('scales: bench scale for fine salt, instant yeast; platform scale for the rest');
     // The biga (with the small weight) is built the day before: not on this shift.
     expect(night.smallWeights).toEqual([]);
     expect(night.equipment).toEqual(demo.equipment);

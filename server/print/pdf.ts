@@ -31,9 +31,12 @@ const FEATURES = { liga: false, calt: false, clig: false, dlig: false } as unkno
 const INK = '#2b1e15';
 const MUTED = '#6a5442';
 
-/** The latin subset has no narrow no-break space (formatGrams' thousands separator): use a no-break space. */
+/**
+ * The latin subset has no narrow no-break space (formatGrams' thousands separator): use a no-break
+ * space. A figure and its unit stay on one line ("4 978 g", "20 min", "230 °C").
+ */
 function clean(s: string): string {
-  return s.replace(/\u202f/g, '\u00a0');
+  return s.replace(/\u202f/g, '\u00a0').replace(/(\d) (g|kg|oz|lb|°C|°F|min|h)(?![\p{L}])/gu, '$1\u00a0$2');
 }
 
 class Writer {
@@ -105,12 +108,12 @@ class Writer {
 }
 
 function sectionTitle(w: Writer, title: string, keepWith = 150): void {
-  w.ensure(32 + keepWith);
-  w.y += 8;
-  w.text(title, w.left, w.y, { size: 14, face: 'heading' });
-  w.y += 18;
-  w.doc.moveTo(w.left, w.y).lineTo(w.left + w.width, w.y).lineWidth(1.2).strokeColor(INK).stroke();
+  w.ensure(28 + keepWith);
   w.y += 6;
+  w.text(title, w.left, w.y, { size: 13, face: 'heading' });
+  w.y += 16;
+  w.doc.moveTo(w.left, w.y).lineTo(w.left + w.width, w.y).lineWidth(1.2).strokeColor(INK).stroke();
+  w.y += 5;
 }
 
 interface TableStyle {
@@ -214,8 +217,11 @@ function box(w: Writer, notice: NoticeItem): void {
   w.y = top + h + 8;
 }
 
+/** A chart lane's height, pt. */
+const CHART_ROW = 8;
+
 function chart(w: Writer, m: ChartModel): void {
-  const rowH = 9.5;
+  const rowH = CHART_ROW;
   const labelW = 150;
   const top = 24;
   const h = top + m.rows.length * rowH + 26;
@@ -291,31 +297,55 @@ function chart(w: Writer, m: ChartModel): void {
   w.y = ly + 12;
 }
 
-const WEIGH_STYLE: TableStyle = { size: 10, weightSize: 11.5, pad: 2.3, minWidths: [125, 66] };
-const STEP_STYLE: TableStyle = { size: 7.5, weightSize: 7.5, pad: 1.8, wrapColumn: 2, minWidths: [0, 40] };
-const WEIGH_W = 215;
+const WEIGH_STYLE: TableStyle = { size: 9.5, weightSize: 10.5, pad: 1.7, minWidths: [110, 62] };
+const STEP_STYLE: TableStyle = { size: 7.5, weightSize: 7.5, pad: 1.2, wrapColumn: 2, minWidths: [0, 40] };
+const WEIGH_W = 190;
+/** Size of a card's facts under its title. */
+const CARD_LINE = 8;
 const GAP = 12;
 
-/** A mix's card: its facts, the water in large type, the weights beside its own steps, the blanks. */
-function card(w: Writer, b: SheetBlock): void {
-  const head = 18 + b.lines.reduce((a, l) => a + w.heightOf(l, 8.5, w.width - 8) + 1, 0) + (b.big?.length ? 22 : 0);
+/** How tall a mix's card draws, pt (its title, facts, weights beside steps, blanks). */
+function cardHeight(w: Writer, b: SheetBlock): number {
+  const big = b.big && b.big.length > 0 ? b.big.join('     ') : '';
+  const beside = big !== '' && b.title !== '' && w.widthOf(b.title, 12, 'heading') + w.widthOf(big, 14, 'text-bold') + 24 <= w.width;
+  const head = 18 + b.lines.reduce((a, l) => a + w.heightOf(l, CARD_LINE, w.width - 8) + 1, 0) + (big && !beside ? 18 : 0);
   const weighH = ((b.table?.rows.length ?? 0) + 2) * (WEIGH_STYLE.weightSize * 1.2 + 2 * WEIGH_STYLE.pad);
   const stepsW = w.width - WEIGH_W - GAP;
   const stepsH = (b.steps?.rows ?? []).reduce(
     (a, r) => a + Math.max(STEP_STYLE.size * 1.2, w.heightOf(r[2], STEP_STYLE.size, stepsW - 140)) + 2 * STEP_STYLE.pad,
     STEP_STYLE.size * 1.2 + 2 * STEP_STYLE.pad,
   );
-  const height = head + Math.max(weighH, stepsH) + 34;
+  return head + Math.max(weighH, stepsH) + 26;
+}
+
+/** A mix's card: its facts, the water in large type, the weights beside its own steps, the blanks. */
+function card(w: Writer, b: SheetBlock): void {
+  // The water in large type on the title's line, at the right, when both fit; else under the facts.
+  const big = b.big && b.big.length > 0 ? b.big.join('     ') : '';
+  const beside = big !== '' && b.title !== '' && w.widthOf(b.title, 12, 'heading') + w.widthOf(big, 14, 'text-bold') + 24 <= w.width;
+  const weighH = ((b.table?.rows.length ?? 0) + 2) * (WEIGH_STYLE.weightSize * 1.2 + 2 * WEIGH_STYLE.pad);
+  const stepsW = w.width - WEIGH_W - GAP;
+  const stepsH = (b.steps?.rows ?? []).reduce(
+    (a, r) => a + Math.max(STEP_STYLE.size * 1.2, w.heightOf(r[2], STEP_STYLE.size, stepsW - 140)) + 2 * STEP_STYLE.pad,
+    STEP_STYLE.size * 1.2 + 2 * STEP_STYLE.pad,
+  );
+  const height = cardHeight(w, b);
   w.ensure(height);
   const top = w.y;
   const page = w.doc.bufferedPageRange().count;
-  if (b.title) w.paragraph(b.title, 12.5, { face: 'heading', gap: 1 });
-  for (const l of b.lines) w.paragraph(l, 8.5, { indent: 8, colour: MUTED });
-  if (b.big && b.big.length > 0) {
-    w.text(b.big.join('     '), w.left + 8, w.y + 2, { size: 15, face: 'text-bold', width: w.width - 8 });
-    w.y += 22;
+  const titleY = w.y;
+  if (b.title) {
+    w.paragraph(b.title, 12, { face: 'heading', gap: 0.5 });
+    if (beside) w.y = Math.max(w.y, titleY + 17);
   }
-  const fits = w.y + Math.max(weighH, stepsH) + 30 <= w.bottom;
+  for (const l of b.lines) w.paragraph(l, CARD_LINE, { indent: 8, colour: MUTED, gap: 0.5 });
+  // Drawn after the facts, as the layout reads (title, facts, large type), though set on the title's line.
+  if (beside) w.text(big, w.left, titleY - 1, { size: 14, face: 'text-bold', width: w.width, align: 'right' });
+  if (big && !beside) {
+    w.text(big, w.left + 8, w.y + 1, { size: 14, face: 'text-bold', width: w.width - 8 });
+    w.y += 18;
+  }
+  const fits = w.y + Math.max(weighH, stepsH) + 22 <= w.bottom;
   const start = w.y;
   if (fits && b.steps) {
     // Side by side: weights on the left, the steps on the right.
@@ -336,26 +366,28 @@ function card(w: Writer, b: SheetBlock): void {
     if (b.steps) drawTable(w, b.steps, STEP_STYLE);
   }
   if (b.blanks) {
-    w.ensure(22);
-    w.y += 9;
-    w.text(b.blanks.join('        '), w.left + 8, w.y, { size: 10, width: w.width - 8 });
-    w.y += 14;
+    w.ensure(18);
+    w.y += 7;
+    w.text(b.blanks.join('        '), w.left + 8, w.y, { size: 9.5, width: w.width - 8 });
+    w.y += 12;
   }
   // The card's frame, when it stayed on one page.
-  if (w.doc.bufferedPageRange().count === page) w.doc.roundedRect(w.left - 6, top - 5, w.width + 12, w.y - top + 4, 4).lineWidth(0.8).strokeColor(INK).stroke();
-  w.y += 12;
+  if (w.doc.bufferedPageRange().count === page) w.doc.roundedRect(w.left - 6, top - 4, w.width + 12, w.y - top + 3, 4).lineWidth(0.8).strokeColor(INK).stroke();
+  w.y += 9;
 }
 
-const BUILD_STYLE: TableStyle = { size: 9.5, weightSize: 11, pad: 2.2, minWidths: [140, 66] };
+const BUILD_STYLE: TableStyle = { size: 8.5, weightSize: 10, pad: 1.5, wrapColumn: 0, minWidths: [80, 52] };
 
 function buildHeight(w: Writer, b: SheetBlock, width: number): number {
-  const lines = b.lines.reduce((a, l) => a + w.heightOf(l, 8.5, width - 8) + 1, 0);
-  return 18 + lines + ((b.table?.rows.length ?? 0) + 2) * (BUILD_STYLE.weightSize * 1.2 + 2 * BUILD_STYLE.pad) + 6;
+  const lines = b.lines.reduce((a, l) => a + w.heightOf(l, CARD_LINE, width - 6) + 0.5, 0);
+  return 16 + lines + ((b.table?.rows.length ?? 0) + 2) * (BUILD_STYLE.weightSize * 1.2 + 2 * BUILD_STYLE.pad) + 6;
 }
 
-/** Up to two blocks (builds) side by side, each in half the width. */
+const BUILD_COLUMNS = 3;
+
+/** Up to three blocks (builds) side by side, each in a third of the width. */
 function columns(w: Writer, blocks: SheetBlock[]): void {
-  const half = (w.width - GAP) / 2;
+  const half = (w.width - GAP * (BUILD_COLUMNS - 1)) / BUILD_COLUMNS;
   w.ensure(Math.max(...blocks.map((b) => buildHeight(w, b, half))));
   const [left, width, start] = [w.left, w.width, w.y];
   let end = start;
@@ -363,23 +395,23 @@ function columns(w: Writer, blocks: SheetBlock[]): void {
     w.left = left + i * (half + GAP);
     w.width = half;
     w.y = start;
-    if (b.title) w.paragraph(b.title, 12, { face: 'heading', gap: 1 });
-    for (const l of b.lines) w.paragraph(l, 8.5, { indent: 6, colour: MUTED });
+    if (b.title) w.paragraph(b.title, 11.5, { face: 'heading', gap: 0.5 });
+    for (const l of b.lines) w.paragraph(l, CARD_LINE, { indent: 6, colour: MUTED, gap: 0.5 });
     if (b.table) drawTable(w, b.table, BUILD_STYLE);
     end = Math.max(end, w.y);
   });
   w.left = left;
   w.width = width;
-  w.y = end + 12;
+  w.y = end + 9;
 }
 
 function timeline(w: Writer, c: ChartItem): void {
-  sectionTitle(w, c.title, 24 + c.whole.rows.length * 9.5 + 42);
+  sectionTitle(w, c.title, 24 + c.whole.rows.length * CHART_ROW + 42);
   chart(w, c.whole);
   w.paragraph(c.caption, 7, { colour: MUTED });
   if (c.closeUp) {
     const zoom = c.closeUp.model;
-    w.ensure(40 + zoom.rows.length * 9.5 + 42);
+    w.ensure(40 + zoom.rows.length * CHART_ROW + 42);
     w.y += 6;
     w.paragraph(c.closeUp.title, 12, { face: 'heading', gap: 2 });
     chart(w, zoom);
@@ -387,11 +419,14 @@ function timeline(w: Writer, c: ChartItem): void {
 }
 
 function section(w: Writer, s: SectionItem): void {
-  // A section's title stays with its first card.
-  sectionTitle(w, s.title, s.key === 'mixes' ? 380 : s.key === 'equipment' ? 240 : s.key === 'totals' ? 340 : 150);
-  if (s.key === 'cultures' || s.key === 'preferments' || s.key === 'soakers') {
-    // Builds two by two, side by side.
-    for (let i = 0; i < s.blocks.length; i += 2) columns(w, s.blocks.slice(i, i + 2));
+  const builds = s.key === 'cultures' || s.key === 'preferments' || s.key === 'soakers';
+  const colW = (w.width - GAP * (BUILD_COLUMNS - 1)) / BUILD_COLUMNS;
+  // A section's title stays with its first card or row of builds.
+  const keep = s.key === 'mixes' ? (s.blocks[0] ? cardHeight(w, s.blocks[0]) : 0) : s.key === 'equipment' ? 240 : s.key === 'totals' ? 200 : builds ? Math.max(0, ...s.blocks.slice(0, BUILD_COLUMNS).map((b) => buildHeight(w, b, colW))) : 120;
+  sectionTitle(w, s.title, keep);
+  if (builds) {
+    // Builds three by three, side by side.
+    for (let i = 0; i < s.blocks.length; i += BUILD_COLUMNS) columns(w, s.blocks.slice(i, i + BUILD_COLUMNS));
     return;
   }
   for (const b of s.blocks) {
@@ -401,19 +436,39 @@ function section(w: Writer, s: SectionItem): void {
     }
     const style: TableStyle =
       s.key === 'formulas'
-        ? { size: 9, weightSize: 9, pad: 3 }
-        : { size: 10, weightSize: 11.5, pad: 2.5, maxWidth: 380, minWidths: s.key === 'totals' ? [190, 90, 100] : [230, 100] };
-    if (b.title || b.lines.length > 0) {
-      // Keep a block's title with the start of its table.
-      const head = (b.title ? 16 : 0) + b.lines.reduce((a, l) => a + w.heightOf(l, 9, w.width - 8) + 1, 0);
-      const rows = b.table ? Math.min(b.table.rows.length, 14) + 2 : 0;
-      w.ensure(head + rows * (style.weightSize * 1.2 + 2 * style.pad) + 8);
-      if (b.title) w.paragraph(b.title, 12.5, { face: 'heading', gap: 2 });
-      for (const l of b.lines) w.paragraph(l, 9, { indent: 8 });
-    }
-    if (b.table) drawTable(w, b.table, style);
+        ? { size: 8.5, weightSize: 8.5, pad: 2.2 }
+        : { size: 9.5, weightSize: 10.5, pad: 1.8, maxWidth: 380, minWidths: s.key === 'totals' ? [110, 50, 70] : [200, 90] };
+    const rowH = style.weightSize * 1.2 + 2 * style.pad;
+    // A long list of weights goes in two columns, its rows in order down the left, then the right.
+    const halves = b.table && b.table.rows.length > 12 && b.table.tick.some(Boolean) ? split(b.table) : null;
+    const rows = b.table ? (halves ? halves[0].rows.length : b.table.rows.length) + 2 : 0;
+    // Keep a block's title and lines with its table; a table of up to 24 rows stays on one page.
+    const head = (b.title ? 16 : 0) + b.lines.reduce((a, l) => a + w.heightOf(l, 9, w.width - 8) + 1, 0);
+    w.ensure(head + Math.min(rows, 26) * rowH + 8);
+    if (b.title) w.paragraph(b.title, 12.5, { face: 'heading', gap: 2 });
+    for (const l of b.lines) w.paragraph(l, 9, { indent: 8 });
+    if (halves) {
+      const [left, width, start] = [w.left, w.width, w.y];
+      const half = (width - GAP * 2) / 2;
+      w.width = half;
+      drawTable(w, halves[0], style);
+      w.y = start;
+      w.left = left + half + GAP * 2;
+      drawTable(w, halves[1], style);
+      w.left = left;
+      w.width = width;
+    } else if (b.table) drawTable(w, b.table, style);
     w.y += 10;
   }
+}
+
+/** A table cut in two: the first half of its rows, then the rest with the footer. */
+function split(t: SheetTable): [SheetTable, SheetTable] {
+  const n = Math.ceil(t.rows.length / 2);
+  return [
+    { ...t, rows: t.rows.slice(0, n), tick: t.tick.slice(0, n), footer: undefined },
+    { ...t, rows: t.rows.slice(n), tick: t.tick.slice(n) },
+  ];
 }
 
 export async function renderSheetPdf(sheet: Sheet, options: PdfOptions = {}): Promise<Buffer> {

@@ -38,43 +38,49 @@ function css(paper: Paper, fontFaceCss: string): string {
 html { font-family: ${FONTS.text}; color: var(--ink); }
 h1, h2, h3 { font-family: ${FONTS.heading}; font-weight: 600; }
 td.r, th.r, td.time, .fig { font-family: ${FONTS.figures}; font-variant-ligatures: none; font-variant-numeric: tabular-nums; }
-body { margin: 0 auto; max-width: 190mm; padding: 6mm 0; font-size: 12.5pt; line-height: 1.35; }
-h1 { font-size: 20pt; margin: 0 0 2mm; }
-h2 { font-size: 16pt; margin: 7mm 0 2mm; padding-bottom: 1mm; border-bottom: 0.6mm solid var(--ink); break-after: avoid; }
-h3 { font-size: 13.5pt; margin: 0 0 1mm; }
-ul.sub { list-style: none; margin: 0 0 3mm; padding: 0; color: var(--muted); font-size: 11pt; }
-.block { break-inside: avoid; margin: 0 0 5mm; }
-.block p { margin: 0; font-size: 10.5pt; color: var(--muted); }
+body { margin: 0 auto; max-width: 190mm; padding: 6mm 0; font-size: 10.5pt; line-height: 1.3; }
+h1 { font-size: 18pt; margin: 0 0 1.5mm; }
+h2 { font-size: 13pt; margin: 4mm 0 1.5mm; padding-bottom: 0.8mm; border-bottom: 0.6mm solid var(--ink); break-after: avoid; }
+h3 { font-size: 12pt; margin: 0 0 0.5mm; }
+ul.sub { list-style: none; margin: 0 0 2mm; padding: 0; color: var(--muted); font-size: 9pt; }
+.block { break-inside: avoid; margin: 0 0 3mm; }
+.block p { margin: 0; font-size: 8pt; color: var(--muted); }
 table { border-collapse: collapse; margin-top: 1.5mm; }
-.grid { display: grid; grid-template-columns: 1fr 1fr; column-gap: 8mm; }
+.grid { display: grid; grid-template-columns: 1fr 1fr 1fr; column-gap: 5mm; }
 table.weigh { width: 100%; }
 section.totals .grid, section.formulas .grid { display: block; }
 section.totals table.weigh { width: auto; min-width: 120mm; }
-th, td { padding: 1mm 2.5mm; border-bottom: 0.2mm solid var(--rule); vertical-align: top; text-align: left; }
-th { font-size: 10pt; color: var(--muted); font-weight: 400; border-bottom: 0.4mm solid var(--ink); }
+th, td { padding: 0.6mm 1.8mm; border-bottom: 0.2mm solid var(--rule); vertical-align: top; text-align: left; }
+th { font-size: 8pt; color: var(--muted); font-weight: 400; border-bottom: 0.4mm solid var(--ink); }
 td.r, th.r { text-align: right; }
-table.weigh td.r { font-size: 14pt; font-weight: 700; white-space: nowrap; }
+table.weigh td.r { font-size: 11pt; font-weight: 700; white-space: nowrap; }
 tfoot td { border-top: 0.4mm solid var(--ink); border-bottom: none; font-weight: 700; }
-td.tick { width: 9mm; padding-left: 1mm; }
-.tick span { display: inline-block; width: 5.5mm; height: 5.5mm; border: 0.45mm solid var(--ink); border-radius: 0.6mm; vertical-align: middle; }
+td.tick { width: 7mm; padding-left: 1mm; }
+.tick span { display: inline-block; width: 4.2mm; height: 4.2mm; border: 0.45mm solid var(--ink); border-radius: 0.6mm; vertical-align: middle; }
 table.steps { font-size: 9.5pt; width: 100%; margin-top: 2mm; }
 table.steps td { padding: 0.6mm 1.5mm; }
 table.steps td.time { white-space: nowrap; }
-section.mixes .block { border: 0.5mm solid var(--ink); border-radius: 2mm; padding: 2.5mm 3.5mm; display: grid; grid-template-columns: 72mm 1fr; column-gap: 5mm; align-items: start; }
+section.mixes .block { border: 0.5mm solid var(--ink); border-radius: 2mm; padding: 2mm 3mm; display: grid; grid-template-columns: 62mm 1fr auto; column-gap: 4mm; align-items: start; }
 section.mixes .block > :not(table) { grid-column: 1 / -1; }
+section.mixes .block > h3 { grid-column: 1 / 3; grid-row: 1; }
+section.mixes .block > .big { grid-column: 3; grid-row: 1; justify-self: end; margin: 0; }
+section.mixes .block > table.weigh { grid-column: 1; }
+section.mixes .block > table.steps { grid-column: 2 / -1; }
 section.mixes .grid { display: block; }
-section.mixes table.weigh td { padding: 0.6mm 1.5mm; }
-section.mixes table.weigh td.r { font-size: 12.5pt; }
-section.mixes table.steps { font-size: 8.5pt; margin-top: 1.5mm; }
+section.mixes table.weigh td { padding: 0.4mm 1.2mm; }
+section.mixes table.weigh td.r { font-size: 10.5pt; }
+section.mixes table.steps { font-size: 7.5pt; margin-top: 1.5mm; }
+section.mixes table.steps td { padding: 0.3mm 1.2mm; }
 .block p { line-height: 1.25; }
-.big { font-size: 16pt; font-weight: 700; margin: 1mm 0; }
+.big { font-size: 14pt; font-weight: 700; margin: 0.5mm 0; }
 .big span { margin-right: 8mm; }
-.blanks { display: flex; gap: 10mm; margin-top: 3mm; font-size: 11pt; }
-.box { border: 0.7mm solid var(--ink); border-radius: 2mm; padding: 2.5mm 4mm; margin: 3mm 0; break-inside: avoid; }
-.box h2 { margin-top: 0; border: none; font-size: 14pt; }
-.box ul { margin: 0; padding-left: 5mm; font-size: 10.5pt; }
+.blanks { display: flex; gap: 10mm; margin-top: 2mm; font-size: 9.5pt; }
+.box { border: 0.7mm solid var(--ink); border-radius: 2mm; padding: 2mm 3.5mm; margin: 2mm 0; break-inside: avoid; }
+.box h2 { margin-top: 0; border: none; font-size: 12pt; }
+.box ul { margin: 0; padding-left: 5mm; font-size: 8.5pt; }
 .box.warnings { border-style: dashed; }
 figure.chart { margin: 2mm 0 4mm; break-inside: avoid; }
+.closeup { break-inside: avoid; }
 figure.chart svg { width: 100%; height: auto; display: block; }
 figure.chart figcaption { font-size: 9pt; color: var(--muted); }
 @media screen { body { padding: 8mm; } }
@@ -117,7 +123,7 @@ function box(n: NoticeItem): string {
 
 function chart(c: ChartItem): string {
   return `<section class="chart"><h2>${escapeHtml(c.title)}</h2><figure class="chart">${timelineSvg(c.whole)}<figcaption>${escapeHtml(c.caption)}</figcaption></figure>${
-    c.closeUp ? `<h3>${escapeHtml(c.closeUp.title)}</h3><figure class="chart">${timelineSvg(c.closeUp.model)}</figure>` : ''
+    c.closeUp ? `<div class="closeup"><h3>${escapeHtml(c.closeUp.title)}</h3><figure class="chart">${timelineSvg(c.closeUp.model)}</figure></div>` : ''
   }</section>`;
 }
 

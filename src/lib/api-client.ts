@@ -28,34 +28,17 @@ export function withQuery(path: string, params: Record<string, string | number |
   return text ? `${path}?${text}` : path;
 }
 
-/** How long after page load an early answer may still be used: the first page's loaders, no later. */
-const EARLY_FOR_MS = 10_000;
-
-/** A GET that src/public/early-fetch.js already started for this URL, taken once. */
-function takeEarly(url: string): Promise<Response> | undefined {
-  const early = (globalThis as { __panformEarly?: Map<string, Promise<Response>> }).__panformEarly;
-  if (!early || early.size === 0) return undefined;
-  if (performance.now() > EARLY_FOR_MS) {
-    early.clear();
-    return undefined;
-  }
-  const response = early.get(url);
-  if (response) early.delete(url);
-  return response;
-}
-
 export async function apiRequest<T>(url: string, options: RequestOptions = {}): Promise<T> {
   const headers: Record<string, string> = { Accept: 'application/json' };
   if (options.body !== undefined) headers['Content-Type'] = 'application/json';
   const method = options.method ?? 'GET';
-  const response = await ((method === 'GET' && takeEarly(url)) ||
-    fetch(url, {
-      method,
-      headers,
-      body: options.body === undefined ? undefined : JSON.stringify(options.body),
-      credentials: 'same-origin',
-      signal: options.signal,
-    }));
+  const response = await fetch(url, {
+    method,
+    headers,
+    body: options.body === undefined ? undefined : JSON.stringify(options.body),
+    credentials: 'same-origin',
+    signal: options.signal,
+  });
   if (response.status === 204) return undefined as T;
   const text = await response.text();
   let data: unknown = null;

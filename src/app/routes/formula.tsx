@@ -24,7 +24,6 @@ import { getPlanQueryOptions } from '../../features/plans/api/get-plan.ts';
 import { usePlans } from '../../features/plans/api/get-plans.ts';
 import { searchFromTarget, targetFromSearch } from '../../features/formulas/scale-target.ts';
 import { getErrorMessage } from '../../lib/errors.ts';
-import { useAfterFirstPaint } from '../../lib/use-after-first-paint.ts';
 import { shortDateTime } from '../../lib/format.ts';
 import { useUnits } from '../../lib/units.ts';
 import { paths } from '../paths.ts';
@@ -47,7 +46,6 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
   const target = targetFromSearch(params, formula);
   const canSeeCost = me?.permissions.includes('read:cost') ?? false;
   const canSeeHistory = me?.permissions.includes('read:history') ?? false;
-  const restReady = useAfterFirstPaint();
   const [ice, setIce] = useState(false);
 
   const targetKey = JSON.stringify(target);
@@ -95,8 +93,7 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
         <span className="font-semibold">Batch: </span>
         <span className="figure font-bold">{batchLine}</span>
         {scaled.loss > 0 && <span className="text-muted"> · {scaled.loss} % loss allowed</span>}
-        {/* In the reader's time zone, so not in the server's first render. */}
-        {restReady && <span className="hidden print:inline text-muted"> · revision {detail.revision}, loaded {shortDateTime(detail.updatedAt)}</span>}
+        <span className="hidden print:inline text-muted"> · revision {detail.revision}, loaded {shortDateTime(detail.updatedAt)}</span>
       </p>
 
       {/* Below lg the two columns dissolve (display: contents) so `order` can put the batch first and the tables next. */}
@@ -113,14 +110,12 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
           <Panel title="Key figures" id="figures" className="order-4 print:mb-2">
             <DerivedFigures scaled={scaled} formula={formula} />
           </Panel>
-          {restReady && (
-            <PanelBoundary title="Water for the mix" resetKeys={[formula.id]}>
-              <Panel title="Water for the mix" className="order-5 print:mb-2" id="water">
-                <WaterPanel formula={formula} scaled={scaled} catalog={catalog} onIce={setIce} />
-              </Panel>
-            </PanelBoundary>
-          )}
-          {restReady && canSeeCost && (
+          <PanelBoundary title="Water for the mix" resetKeys={[formula.id]}>
+            <Panel title="Water for the mix" className="order-5 print:mb-2" id="water">
+              <WaterPanel formula={formula} scaled={scaled} catalog={catalog} onIce={setIce} />
+            </Panel>
+          </PanelBoundary>
+          {canSeeCost && (
             <PanelBoundary title="Cost" resetKeys={[formula.id]}>
               <Panel title="Ingredient cost" className="order-6 print:hidden" id="cost">
                 <CostPanel scaled={scaled} catalog={catalog} currency={currency} />
@@ -147,26 +142,22 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
               </div>
             </Panel>
           )}
-          {restReady && (
-            <Panel title="How it is made" id="process" className="order-7">
-              <ProcessSteps steps={formula.process} />
-              {formula.finishes.length > 0 && <FinishesTable formula={formula} pieces={scaled.pieces ?? Math.floor(scaled.dividedDough / formula.yield.pieceGrams)} />}
-              {formula.notes && <p className="mt-3 text-muted">{formula.notes}</p>}
-            </Panel>
-          )}
-          {restReady && (
-            <div className="order-8 grid gap-4 print:grid-cols-2">
-              <PanelBoundary title="Allergens" resetKeys={[formula.id]}>
-                <Panel title="Allergens" id="allergens">
-                  <AllergensPanel summary={detail.allergens} />
-                </Panel>
-              </PanelBoundary>
-              <Panel title="Take care" id="cautions">
-                <Cautions items={cautionsWithIce(detail.cautions, ice)} />
+          <Panel title="How it is made" id="process" className="order-7">
+            <ProcessSteps steps={formula.process} />
+            {formula.finishes.length > 0 && <FinishesTable formula={formula} pieces={scaled.pieces ?? Math.floor(scaled.dividedDough / formula.yield.pieceGrams)} />}
+            {formula.notes && <p className="mt-3 text-muted">{formula.notes}</p>}
+          </Panel>
+          <div className="order-8 grid gap-4 print:grid-cols-2">
+            <PanelBoundary title="Allergens" resetKeys={[formula.id]}>
+              <Panel title="Allergens" id="allergens">
+                <AllergensPanel summary={detail.allergens} />
               </Panel>
-            </div>
-          )}
-          {restReady && detail.label && (
+            </PanelBoundary>
+            <Panel title="Take care" id="cautions">
+              <Cautions items={cautionsWithIce(detail.cautions, ice)} />
+            </Panel>
+          </div>
+          {detail.label && (
             <PanelBoundary title="Label" resetKeys={[formula.id]}>
               <Panel title="Label: ingredients and nutrition" id="label" className="order-9">
                 <LabelPanel label={detail.label} />

@@ -17,6 +17,7 @@ export const COMMANDS: CommandTable = {
   diff: () => import('./commands/diff.ts'),
   load: () => import('./commands/load.ts'),
   user: () => import('./commands/user.ts'),
+  friction: () => import('./commands/friction.ts'),
   serve: () => import('./commands/serve.ts'),
   init: () => import('./commands/init.ts'),
   cost: () => import('./commands/cost.ts'),

@@ -21,6 +21,7 @@ import { usersRouter } from './routes/users.ts';
 import { isRecordUpload, recordsRouter } from './routes/records.ts';
 import { createPhotoStore, type PhotoStore } from './records/photo-store.ts';
 import { createInternalUsersRouter } from './routes/internal-users.ts';
+import { createInternalFrictionRouter } from './routes/internal-friction.ts';
 import { sendMail as sendMailDefault } from './mail.ts';
 import { MailOutbox } from './mail-outbox.ts';
 
@@ -215,7 +216,10 @@ export function createApp(opts: AppOptions): Express {
     );
   }
 
-  if (opts.localChannelToken) app.use('/api/internal/users', createInternalUsersRouter(context, opts.localChannelToken));
+  if (opts.localChannelToken) {
+    app.use('/api/internal/users', createInternalUsersRouter(context, opts.localChannelToken));
+    app.use('/api/internal/friction', createInternalFrictionRouter(context, opts.localChannelToken));
+  }
 
   const api = Router();
   // The busiest routes first: each request is matched against the routes in this order.

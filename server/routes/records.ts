@@ -6,8 +6,8 @@ import { Router } from 'express';
 import multer from 'multer';
 import { stringify } from 'csv-stringify/sync';
 import type { BenchRecord, FrictionResponse, RecordListResponse, RecordResponse } from '#shared/api';
-import { FRICTION_MINIMUM, frictionTable, OUTLIER_MADS, type CurrentRise, type FrictionProposal } from '#shared/friction';
-import { canSeeFormulaStatus, roleHasPermission, type Role } from '#shared/permissions';
+import { frictionTable, type CurrentRise } from '#shared/friction';
+import { roleHasPermission, type Role } from '#shared/permissions';
 import {
   DOUGH_TEMPERATURE_RANGE, findTarget, INITIALS_MAX, NOTE_MAX, PHOTO_BYTES_MAX, PHOTOS_MAX, recordTargets, WATER_TEMPERATURE_RANGE,
 } from '#shared/records';
@@ -19,6 +19,7 @@ import { HttpError, invalid, notFound, rateLimited } from '../http/errors.ts';
 import { queryString } from '../http/query.ts';
 import { ImageRefused, preparePhoto, type PreparedPhoto } from '../records/images.ts';
 import type { PhotoStore } from '../records/photo-store.ts';
+import { frictionResponse } from '../records/friction.ts';
 import {
   ClientIdTaken, findRecord, frictionRecords, hideRecord, insertRecord, listRecords, photosOf, correctionsOf, recordJson, type RecordRow,
 } from '../records/store.ts';
@@ -29,9 +30,6 @@ const DATE_RE = /^[0-9]{4}-[0-9]{2}-[0-9]{2}$/;
 const CLIENT_ID_RE = /^[A-Za-z0-9_-]{8,100}$/;
 /** A tablet's clock may run a little ahead of the server's. */
 const FUTURE_SLACK_MS = 5 * 60_000;
-
-/** The rule the friction table follows, in words (shared/friction.ts). */
-export const FRICTION_RULE = `median of each mix's rise once ${FRICTION_MINIMUM} mixes are kept; a mix more than ${OUTLIER_MADS} scaled MADs from the median is left out and shown`;
 
 /** Whether this request is the one that may send multipart (see csrfProtection). */
 export const isRecordUpload = (req: Request): boolean => req.method === 'POST' && /^\/plans\/[^/]+\/records\/?$/.test(req.path);
@@ -99,28 +97,6 @@ function dayVisible(snapshot: Snapshot, date: string, role: Role): boolean {
 
 export function recordsRouter(ctx: ServerContext, photos: PhotoStore): Router {
   const r = Router();
-
-  const titleOf = (snapshot: Snapshot) => (id: string) => snapshot.formulas.get(id)?.title ?? id;
-
-  /** Where the plan files give each mixer's rise: the given day's plan, else the newest plan with that mixer. */
-  const currentOf = (snapshot: Snapshot, role: Role, date?: string) => (mixer: string): CurrentRise | null => {
-    for (const entry of snapshot.plans) {
-      if (date && entry.date !== date) continue;
-      if (!entry.plan || !planVisible(snapshot, entry, role)) continue;
-      const m = entry.plan.mixers.find((x) => x.name === mixer);
-      if (m && Number.isFinite(m.rise)) return { rise: m.rise, riseFrom: m.riseFrom, plan: entry.date, path: entry.path };
-    }
-    return null;
-  };
-
-  /** The friction table as a role may see it (formulas it may open). */
-  async function proposals(snapshot: Snapshot, role: Role, opts: { upTo?: string; date?: string }): Promise<FrictionProposal[]> {
-    const records = (await frictionRecords(ctx.db, titleOf(snapshot), opts.upTo)).filter((rec) => {
-      const f = snapshot.formulas.get(rec.formula);
-      return !f || canSeeFormulaStatus(role, f.status);
-    });
-    return frictionTable(records, currentOf(snapshot, role, opts.date));
-  }
 
   async function recordsWithDetail(rows: RecordRow[]): Promise<BenchRecord[]> {
     const ids = rows.map((x) => x.id);
@@ -301,13 +277,7 @@ export function recordsRouter(ctx: ServerContext, photos: PhotoStore): Router {
     const formula = queryString(req, 'formula');
     const date = queryString(req, 'date');
     if (date !== undefined && !DATE_RE.test(date)) throw invalid(`date must be like 2026-12-03; got "${date}"`, [{ path: 'date', message: 'not yyyy-mm-dd' }]);
-    const snapshot = await ctx.data.snapshot();
-    const all = await proposals(snapshot, user.role, { date });
-    const body: FrictionResponse = {
-      minimum: FRICTION_MINIMUM,
-      rule: FRICTION_RULE,
-      proposals: all.filter((p) => (!mixer || p.mixer === mixer) && (!formula || p.formula === formula)),
-    };
+    const body: FrictionResponse = await frictionResponse(ctx.db, await ctx.data.snapshot(), user.role, { mixer, formula, date });
     res.json(body);
   });
 

@@ -1,13 +1,13 @@
 // `panform serve --demo` on a fresh data folder, end to end, then `panform user` on the same
 // folder: the demo accounts, the lock while the server runs, and adding, listing, resetting and
 // removing accounts. One data folder for the file: creating one takes seconds to a minute.
-import { spawn, type ChildProcess } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
 import { cpSync, existsSync, mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { pathToFileURL } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildCli, ROOT, type BuiltCli } from './arithmetic-cli.ts';
+import { startServe as startServeIn } from './serve-process.ts';
 
 let cli: BuiltCli;
 let dir: string;
@@ -27,24 +27,9 @@ afterAll(() => {
 });
 
 /** Starts `panform serve --demo` from source in `dir` and resolves with its output once it listens. */
-function startServe(): Promise<{ url: string; stdout: () => string; exited: Promise<number | null> }> {
-  return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ['--import', pathToFileURL(join(ROOT, 'node_modules/tsx/dist/loader.mjs')).href, join(ROOT, 'cli/index.ts'), 'serve', '--demo', '--port', '0', '--host', '127.0.0.1', '--data', data], {
-      cwd: dir,
-      env: { ...process.env, PANFORM_OUTBOX: join(dir, 'outbox'), NO_COLOR: '1' },
-      stdio: ['ignore', 'pipe', 'pipe'],
-    });
+function startServe() {
+  return startServeIn(dir, data, (child) => {
     server = child;
-    let out = '';
-    let err = '';
-    const exited = new Promise<number | null>((r) => child.on('exit', (code) => r(code)));
-    child.stdout!.on('data', (d: Buffer) => {
-      out += d.toString();
-      const m = /serving on (http:\/\/localhost:\d+)/.exec(out);
-      if (m && out.includes('Press Ctrl+C')) resolve({ url: m[1].replace('localhost', '127.0.0.1'), stdout: () => out, exited });
-    });
-    child.stderr!.on('data', (d: Buffer) => (err += d.toString()));
-    void exited.then((code) => reject(new Error(`serve exited with ${code} before listening:\n${out}\n${err}`)));
   });
 }
 

@@ -183,6 +183,6 @@ function WaterPanel({ formula, scaled, catalog, onIce }: { formula: Formula; sca
 
 /** The friction learned from the bench's records, for those who may read records. */
 const useBenchFriction: UseFriction = (mixer, formula, date) => {
-  const canRead = ((useMe().data?.permissions ?? []) as readonly string[]).includes('read:record');
+  const canRead = useMe().data?.permissions.includes('read:record') ?? false;
   return useFrictionProposal(mixer, formula, date, canRead);
 };

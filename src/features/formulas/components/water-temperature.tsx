@@ -269,15 +269,15 @@ export function WaterTemperatureHelper({
 /** The bench's friction for this mixer and dough, offered beside the file's: never put in by itself. */
 function FrictionOffer({ proposal: p, fileRise, rise, onUse }: { proposal: FrictionProposal; fileRise: number | undefined; rise: number | null; onUse: (rise: number) => void }) {
   const { degrees } = useUnits();
-  const same = (a: number | null | undefined, b: number) => a !== null && a !== undefined && Math.abs(a - b) < 0.005;
-  const usingBench = same(rise, p.rise);
-  if (p.status === 'too few') {
+  if (p.status === 'too few' || p.rise === null) {
     return (
       <p className="text-sm text-muted print:hidden" data-testid="friction-proposal" data-status={p.status}>
         The bench has recorded {p.mixes} {p.mixes === 1 ? 'mix' : 'mixes'} of this dough on {p.mixer}; a friction is proposed from a few more.
       </p>
     );
   }
+  const bench = p.rise;
+  const usingBench = rise !== null && Math.abs(rise - bench) < 0.005;
   const day = (iso: string) => {
     const [, m, d] = iso.split('-').map(Number);
     return `${d} ${['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'][m - 1]}`;
@@ -286,9 +286,14 @@ function FrictionOffer({ proposal: p, fileRise, rise, onUse }: { proposal: Frict
     <div className="rounded-xl border-2 border-sage bg-sage-soft p-3 print:hidden" data-testid="friction-proposal" data-status={p.status}>
       <p>
         <span className="font-semibold">From the bench's records: </span>
-        {p.mixer} rises <strong className="figure whitespace-nowrap">{degrees(p.rise)}</strong> with this dough, <span data-testid="friction-basis">{p.basis}</span>
-        {p.outliers.length > 0 && <> ({p.outliers.length} left out: {p.outliers.map((o) => `${day(o.date)}, ${degrees(o.rise)}`).join('; ')})</>}.
+        {p.mixer} rises <strong className="figure whitespace-nowrap">{degrees(bench)}</strong> with this dough, <span data-testid="friction-basis">{p.basis}</span>
+.
       </p>
+      {p.outliers.length > 0 && (
+        <p className="mt-1 text-sm text-muted" data-testid="friction-outliers">
+          Left out as far from the rest: {p.outliers.map((o) => `${day(o.date)} (${degrees(o.rise)})`).join(', ')}.
+        </p>
+      )}
       {fileRise !== undefined && (
         <p className="mt-1 text-sm text-muted">
           {p.status === 'agrees' ? 'It agrees with the plan file. ' : ''}The plan file's rise, <span className="whitespace-nowrap">{degrees(fileRise)}</span>, stays the default until the file is changed.
@@ -303,8 +308,8 @@ function FrictionOffer({ proposal: p, fileRise, rise, onUse }: { proposal: Frict
               </Button>
             )
           ) : (
-            <Button tone="primary" onClick={() => onUse(p.rise)} data-testid="use-friction">
-              Use {degrees(p.rise)} tonight
+            <Button tone="primary" onClick={() => onUse(bench)} data-testid="use-friction">
+              Use {degrees(bench)} tonight
             </Button>
           )}
           {usingBench && <span className="self-center font-semibold text-sage">Using the bench's rise.</span>}

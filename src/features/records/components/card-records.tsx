@@ -28,7 +28,7 @@ export function CardRecords({ date, target, records, pending, canWrite, canHide 
   const byId = useMemo(() => new Map(records.map((r) => [r.id, r])), [records]);
   const mine = records.filter((r) => r.target === target.target);
   const isMix = target.kind === 'mix';
-  const count = mine.filter((r) => r.correctedBy === null && r.hidden === null).length;
+  const count = mine.filter((r) => r.correctedBy === null && r.hidden === null).length + pending.length;
   return (
     <section className="mt-3 border-t-2 border-dashed border-line pt-2 print:hidden" aria-label={`Records: ${target.label}`} data-testid="card-records" data-target={target.target}>
       {(mine.length > 0 || pending.length > 0) && (

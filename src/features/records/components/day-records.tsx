@@ -18,7 +18,7 @@ export interface DayRecords {
 
 export function useDayRecords(date: string): DayRecords {
   const me = useMe().data;
-  const permissions = (me?.permissions ?? []) as readonly string[];
+  const permissions = me?.permissions ?? [];
   const canRead = permissions.includes('read:record');
   const canWrite = permissions.includes('write:record');
   const canHide = permissions.includes('manage:records');

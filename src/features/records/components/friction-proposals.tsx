@@ -5,7 +5,7 @@ import type { FrictionProposal } from '../api/types.ts';
 
 export function FrictionProposals({ proposals }: { proposals: readonly FrictionProposal[] }) {
   const { degrees } = useUnits();
-  const shown = proposals.filter((p) => p.status !== 'too few');
+  const shown = proposals.flatMap((p) => (p.status !== 'too few' && p.rise !== null && p.friction !== null ? [{ ...p, rise: p.rise, friction: p.friction }] : []));
   if (shown.length === 0) return null;
   return (
     <div className="mt-3 rounded-xl border-2 border-sage bg-sage-soft p-3 print:border print:p-1" data-testid="sheet-friction">

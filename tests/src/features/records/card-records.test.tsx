@@ -9,7 +9,7 @@ import { CardRecords } from '../../../../src/features/records/components/card-re
 import { timeOfDay, type PendingRecord } from '../../../../src/features/records/outbox.ts';
 import { targetForBuild, targetForMix } from '../../../../src/features/records/targets.ts';
 
-const target: RecordTarget = { target: 'harbour-ciabatta/1', kind: 'mix', label: 'Harbour ciabatta 1/2', formula: 'harbour-ciabatta', mixer: 'spiral', doughTemperature: 24, waterTemperature: 9.5, start: '2026-12-03T01:10' };
+const target: RecordTarget = { target: 'harbour-ciabatta/1', kind: 'mix', label: 'Harbour ciabatta 1/2', formula: 'harbour-ciabatta', formulas: ['harbour-ciabatta'], mixer: 'spiral', doughTemperature: 24, waterTemperature: 9.5, start: '2026-12-03T01:10' };
 
 function record(id: number, over: Partial<BenchRecord> = {}): BenchRecord {
   return {

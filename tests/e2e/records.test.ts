@@ -216,17 +216,16 @@ forEachDatabase(
         });
         await context.setOffline(false);
         await page.goto(`${base}/plans/${DAY}`);
-        await mix.locator('[data-testid="record-entry"][data-state="waiting"]').waitFor();
         await expect.poll(() => reached).toBeGreaterThanOrEqual(1);
         expect((await dayRecords(page)).filter((r) => r.note === note)).toHaveLength(1); // stored by the lost send
-        expect(await mix.locator('[data-testid="record-entry"][data-state="waiting"]').count()).toBe(1); // the tablet does not know
+        expect(await page.getByTestId('outbox-count').textContent()).toBe('1'); // the tablet does not know: still waiting
 
         // The line is good again: sent once more, the server stores nothing twice.
-        await page.unroute('**/api/plans/*/records');
+        await page.unrouteAll({ behavior: 'wait' }); // a send in flight finishes losing its answer first
         await page.evaluate(() => window.dispatchEvent(new Event('online'))); // what the tablet hears when its Wi-Fi is back
+        await page.getByTestId('outbox-status').waitFor({ state: 'detached' });
         await mix.locator('[data-testid="record-entry"][data-state="stored"]', { hasText: note }).waitFor();
-        expect(await mix.locator('[data-testid="record-entry"][data-state="waiting"]').count()).toBe(0);
-        expect(await page.getByTestId('outbox-status').count()).toBe(0);
+        expect(await mix.locator('[data-testid="record-entry"]', { hasText: note }).count()).toBe(1);
         const stored = (await dayRecords(page)).filter((r) => r.note === note);
         expect(stored).toHaveLength(1);
         expect(stored[0]).toMatchObject({ target: 'harbour-ciabatta/2', doughTemperature: 27.5, initials: 'JT' });
@@ -255,11 +254,16 @@ forEachDatabase(
         expect(proposal?.status).toBe('propose');
         expect(proposal!.basis).toMatch(/^from \d+ mixes/);
 
-        // The bake-day page shows it beside the conditions, as a proposal.
+        // The bake-day page shows it in the sheet's own section (the printed sheet and the PDF have the same), as a proposal.
         await page.goto(`${base}/plans/${NEXT_DAY}`);
-        const onSheet = page.locator('[data-testid="sheet-friction"] li[data-mixer="spiral"][data-formula="harbour-ciabatta"]');
+        const onSheet = page.locator('[data-section="friction"]');
         await onSheet.waitFor();
-        expect(await onSheet.textContent()).toContain(proposal!.basis);
+        const text = (await onSheet.textContent()) ?? '';
+        expect(text).toContain('spiral · Harbour ciabatta');
+        expect(text).toContain(proposal!.basis);
+        expect(text).toContain('until then the sheet keeps the plan');
+        await onSheet.scrollIntoViewIfNeeded();
+        await screenshot(page, 'friction-on-sheet-tablet-light', { width: 1280, height: 800, fullPage: false });
 
         // The water helper offers it; the file's rise stays in the field until the baker chooses.
         await page.goto(`${base}/formulas/harbour-ciabatta`);

@@ -10,8 +10,6 @@ import { minuteOnPlan } from '../../features/plans/lib/bake-days.ts';
 import { useClock } from '../../features/plans/lib/use-clock.ts';
 import { useDayRecords } from '../../features/records/components/day-records.tsx';
 import { OutboxStatus } from '../../features/records/components/outbox-status.tsx';
-import { FrictionProposals } from '../../features/records/components/friction-proposals.tsx';
-import type { FrictionProposal } from '../../features/records/api/types.ts';
 import { paths } from '../paths.ts';
 
 export default function PlanRoute() {
@@ -37,7 +35,6 @@ function PlanPage({ sheet }: { sheet: Sheet }) {
       now={minuteOnPlan(sheet.date, clock)}
       mixExtra={records.forMix}
       buildExtra={records.forBuild}
-      conditionsExtra={<FrictionProposals proposals={(sheet as { frictionProposals?: FrictionProposal[] }).frictionProposals ?? []} />}
       top={
         <>
           <OutboxStatus date={sheet.date} />

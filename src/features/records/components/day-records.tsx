@@ -27,7 +27,9 @@ export function useDayRecords(date: string): DayRecords {
   const data = query.data;
   const slot = (target: RecordTarget | undefined): ReactNode => {
     if (!target || !data) return null;
-    const pending = items.filter((p) => p.date === date && p.target === target.target);
+    // One the server already has (its answer was lost, the tablet sends it again to be sure) shows once, as stored.
+    const stored = new Set(data.records.map((r) => r.clientId));
+    const pending = items.filter((p) => p.date === date && p.target === target.target && !stored.has(p.clientId));
     return <CardRecords date={date} target={target} records={data.records} pending={pending} canWrite={canWrite} canHide={canHide} />;
   };
   return {

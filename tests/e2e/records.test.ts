@@ -1,7 +1,8 @@
 // Bench records in the browser, on each database (PGlite, and PostgreSQL 15 where installed): bench
 // staff record a mix on the tablet with a photo that carries a GPS location, the photo comes back
 // without it, a reviewer sees the record; a record saved offline waits on the tablet through a
-// reload and, its first answer lost on the way, is sent again and stored once; after enough
+// reload and, its first answer lost on the way, is sent again and stored once; a correction is a
+// new entry, and the owner hides a wrong one (kept, marked for owners); after enough
 // records the friction proposal is on the day's sheet and in the water helper. Each test opens its
 // own browser context from a sign-in saved per role, so the tests run alone and in any order.
 import { resolve } from 'node:path';
@@ -231,6 +232,58 @@ forEachDatabase(
         expect(stored[0]).toMatchObject({ target: 'harbour-ciabatta/2', doughTemperature: 27.5, initials: 'JT' });
         expect(stored[0].clientId).toMatch(/^[0-9a-f-]{36}$/);
       }),
+      STEP,
+    );
+
+    const note = `probe in the wrong dough ${setup.kind}`;
+    it.skipIf(skip)('a correction is a new entry and marks the old one; the owner hides a wrong one, kept and marked for owners only', () =>
+      withPage('bench', async (page) => {
+        const res = await page.request.post(`${base}/api/plans/${DAY}/records`, {
+          headers: { origin: base },
+          multipart: { target: 'tidewater-baguette/1', dough_temperature: '52', initials: 'AB', note, client_id: `wrong-${setup.kind}-key` },
+        });
+        expect(res.status(), await res.text()).toBe(201);
+        await page.goto(`${base}/plans/${DAY}`);
+        const mix = card(page, 'tidewater-baguette/1');
+        await mix.locator('[data-testid="record-entry"]', { hasText: note }).getByRole('button', { name: 'Correct' }).click();
+        const dialog = page.getByTestId('record-dialog');
+        await dialog.waitFor();
+        expect(await dialog.getByLabel('Dough off the mixer').inputValue()).toBe('52'); // the form starts from the record it corrects
+        await dialog.getByLabel('Dough off the mixer').fill('25.2');
+        await dialog.getByLabel('Your initials').fill('CD');
+        await dialog.getByRole('button', { name: 'Save the correction' }).click();
+        const old = mix.locator('[data-testid="record-entry"][data-state="corrected"]', { hasText: note });
+        await old.getByTestId('corrected-by').waitFor();
+        expect(await old.getByTestId('corrected-by').textContent()).toMatch(/^corrected by CD at \d\d:\d\d$/);
+        const fix = mix.locator('[data-testid="record-entry"][data-state="stored"]', { hasText: 'correction of' });
+        await fix.waitFor();
+        expect(await fix.textContent()).toContain('dough 25.2 °C');
+        await mix.scrollIntoViewIfNeeded();
+        await screenshot(page, 'record-corrected-tablet-light', { width: 1280, height: 800, fullPage: false });
+      })
+        .then(() =>
+          withPage('admin', async (page) => {
+            await page.goto(`${base}/plans/${DAY}`);
+            const mix = card(page, 'tidewater-baguette/1');
+            const fix = mix.locator('[data-testid="record-entry"][data-state="stored"]', { hasText: 'correction of' });
+            await fix.getByRole('button', { name: 'Hide…' }).click();
+            await fix.getByLabel('Why hide it').fill('mixed for the wrong order');
+            await fix.getByRole('button', { name: 'Hide this record' }).click();
+            const hidden = mix.locator('[data-testid="record-entry"][data-state="hidden"]');
+            await hidden.getByTestId('hidden-mark').waitFor();
+            expect(await hidden.getByTestId('hidden-mark').textContent()).toContain('mixed for the wrong order');
+            expect(await hidden.textContent()).toContain('dough 25.2 °C');
+          }),
+        )
+        .then(() =>
+          withPage('bench', async (page) => {
+            await page.goto(`${base}/plans/${DAY}`);
+            const mix = card(page, 'tidewater-baguette/1');
+            await mix.locator('[data-testid="record-entry"]', { hasText: note }).waitFor();
+            expect(await mix.locator('[data-testid="record-entry"][data-state="hidden"]').count()).toBe(0);
+            expect(await mix.locator('[data-testid="record-entry"]', { hasText: 'dough 25.2 °C' }).count()).toBe(0);
+          }),
+        ),
       STEP,
     );
 

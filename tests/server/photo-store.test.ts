@@ -16,6 +16,7 @@ import { createPhotoStore, DatabasePhotoStore, S3PhotoStore, type PhotoStore } f
 import { insertRecord } from '../../server/records/store.ts';
 import { buildSheet } from '#shared/sheet/build';
 import { startFakeS3, type FakeS3 } from './fake-s3.ts';
+import { forEachDatabase } from '../setup/databases.ts';
 import { openTestDatabase, startTestServer } from './harness.ts';
 import { photoWithLocation, postRecord } from './records-helpers.ts';
 import { DEMO_PLANS, sheetInput } from '../shared/sheet-fixtures.ts';
@@ -38,53 +39,60 @@ const backends: [string, () => PhotoStore][] = [
 ];
 
 describe.each(backends)('photos kept in %s', (_name, make) => {
-  it('gives back what was put, nothing for an unknown key, and nothing once removed', async () => {
-    const store = make();
-    try {
-      const bytes = Buffer.from([0xff, 0xd8, 0xff, 0xe0, 1, 2, 3, 0, 255]);
-      await store.put(handle.db, 'records/test/a.jpg', bytes, 'image/jpeg');
-      expect(await store.get(handle.db, 'records/test/a.jpg')).toEqual(bytes);
-      expect(await store.get(handle.db, 'records/test/none.jpg')).toBeNull();
-      await store.remove(handle.db, ['records/test/a.jpg']);
-      expect(await store.get(handle.db, 'records/test/a.jpg')).toBeNull();
-    } finally {
-      store.close();
-    }
-  });
-
-  it('stores a record and its photo together, and leaves nothing when the record cannot be written', async () => {
-    const store = make();
-    try {
-      const sheet = buildSheet(sheetInput(DEMO_PLANS[0]));
-      const target = recordTargets(sheet).find((t) => t.target === 'harbour-ciabatta/1')!;
-      const photo = await preparePhoto(await photoWithLocation(), 'crumb.jpg');
-      const input = {
-        date: '2026-12-03', target, doughTemperature: 25, waterTemperature: null, ripe: null, note: '', initials: 'MK',
-        recordedAt: new Date(), createdAt: new Date(), by: { id: 1, email: 'bench@tidewater.example', name: '' }, clientId: null, corrects: null,
-      };
-      const { row } = await insertRecord(handle.db, store, input, [photo]);
-      const [p] = await handle.db.select().from(recordPhotosTable).where(eq(recordPhotosTable.recordId, row.id));
-      expect(p).toMatchObject({ recordId: row.id, n: 1, storage: store.kind });
-      const stored = (await store.get(handle.db, p.key))!;
-      expect(stored.equals(photo.data)).toBe(true);
-      expect(await exifr.gps(stored)).toBeUndefined();
-      expect((await store.get(handle.db, p.previewKey))!.equals(photo.preview)).toBe(true);
-
-      // corrects names no record: the foreign key refuses the row, and the photo goes too.
-      const before = await keysIn(store);
-      await expect(insertRecord(handle.db, store, { ...input, corrects: 999_999 }, [photo])).rejects.toThrow();
-      expect(await keysIn(store)).toEqual(before);
-      const photosBefore = Number((await handle.db.select({ n: count() }).from(recordPhotosTable))[0].n);
-      await expect(insertRecord(handle.db, store, { ...input, corrects: 999_998 }, [photo])).rejects.toThrow();
-      expect(Number((await handle.db.select({ n: count() }).from(recordPhotosTable))[0].n)).toBe(photosBefore);
-    } finally {
-      store.close();
-    }
-  });
+  it('gives back what was put, nothing for an unknown key, and nothing once removed', () => putGetRemove(handle, make()));
+  it('stores a record and its photo together, and leaves nothing when the record cannot be written', () => allOrNothing(handle, make()));
 });
 
+// The database store on each database setup (PGlite and PostgreSQL 15): the same two tests.
+forEachDatabase('photos kept in the database', (setup) => {
+  it('gives back what was put, nothing for an unknown key, and nothing once removed', async () => putGetRemove(await setup.fresh(), new DatabasePhotoStore()));
+  it('stores a record and its photo together, and leaves nothing when the record cannot be written', async () => allOrNothing(await setup.fresh(), new DatabasePhotoStore()), 120_000);
+});
+
+async function putGetRemove(handle: DatabaseHandle, store: PhotoStore): Promise<void> {
+  try {
+    const bytes = Buffer.from([0xff, 0xd8, 0xff, 0xe0, 1, 2, 3, 0, 255]);
+    await store.put(handle.db, 'records/test/a.jpg', bytes, 'image/jpeg');
+    expect(await store.get(handle.db, 'records/test/a.jpg')).toEqual(bytes);
+    expect(await store.get(handle.db, 'records/test/none.jpg')).toBeNull();
+    await store.remove(handle.db, ['records/test/a.jpg']);
+    expect(await store.get(handle.db, 'records/test/a.jpg')).toBeNull();
+  } finally {
+    store.close();
+  }
+}
+
+async function allOrNothing(handle: DatabaseHandle, store: PhotoStore): Promise<void> {
+  try {
+    const sheet = buildSheet(sheetInput(DEMO_PLANS[0]));
+    const target = recordTargets(sheet).find((t) => t.target === 'harbour-ciabatta/1')!;
+    const photo = await preparePhoto(await photoWithLocation(), 'crumb.jpg');
+    const input = {
+      date: '2026-12-03', target, doughTemperature: 25, waterTemperature: null, ripe: null, note: '', initials: 'MK',
+      recordedAt: new Date(), createdAt: new Date(), by: { id: 1, email: 'bench@tidewater.example', name: '' }, clientId: null, corrects: null,
+    };
+    const { row } = await insertRecord(handle.db, store, input, [photo]);
+    const [p] = await handle.db.select().from(recordPhotosTable).where(eq(recordPhotosTable.recordId, row.id));
+    expect(p).toMatchObject({ recordId: row.id, n: 1, storage: store.kind });
+    const stored = (await store.get(handle.db, p.key))!;
+    expect(stored.equals(photo.data)).toBe(true);
+    expect(await exifr.gps(stored)).toBeUndefined();
+    expect((await store.get(handle.db, p.previewKey))!.equals(photo.preview)).toBe(true);
+
+    // corrects names no record: the foreign key refuses the row, and the photo goes too.
+    const before = await keysIn(handle, store);
+    await expect(insertRecord(handle.db, store, { ...input, corrects: 999_999 }, [photo])).rejects.toThrow();
+    expect(await keysIn(handle, store)).toEqual(before);
+    const photosBefore = Number((await handle.db.select({ n: count() }).from(recordPhotosTable))[0].n);
+    await expect(insertRecord(handle.db, store, { ...input, corrects: 999_998 }, [photo])).rejects.toThrow();
+    expect(Number((await handle.db.select({ n: count() }).from(recordPhotosTable))[0].n)).toBe(photosBefore);
+  } finally {
+    store.close();
+  }
+}
+
 /** Every key the store holds (the bucket's objects, or photo_blobs' rows). */
-async function keysIn(store: PhotoStore): Promise<string[]> {
+async function keysIn(handle: DatabaseHandle, store: PhotoStore): Promise<string[]> {
   if (store.kind === 'database') return (await handle.db.select({ key: photoBlobsTable.key }).from(photoBlobsTable)).map((r) => r.key).sort();
   const client = new S3Client({ region: 'us-east-1', endpoint: s3.settings.endpoint, forcePathStyle: true, credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' } });
   try {
@@ -105,7 +113,7 @@ describe('the server with PANFORM_S3_* set', () => {
     const t = await startTestServer(db, { envVars: s3.env });
     try {
       const bench = await t.signIn('bench');
-      const before = (await keysIn(new S3PhotoStore(s3.settings))).length;
+      const before = (await keysIn(db, new S3PhotoStore(s3.settings))).length;
       const sent = await postRecord(t, bench, '2026-12-03', [
         { name: 'target', value: 'harbour-ciabatta/2' },
         { name: 'dough_temperature', value: '24.5' },
@@ -114,7 +122,7 @@ describe('the server with PANFORM_S3_* set', () => {
       ]);
       expect(sent.status).toBe(201);
       const rec = sent.body.record as BenchRecord;
-      expect((await keysIn(new S3PhotoStore(s3.settings))).length).toBe(before + 2);
+      expect((await keysIn(db, new S3PhotoStore(s3.settings))).length).toBe(before + 2);
       expect(Number((await db.db.select({ n: count() }).from(photoBlobsTable))[0].n)).toBe(0);
       const res = await fetch(`${t.url}${rec.photos[0].url}`, { headers: { cookie: bench } });
       expect(res.headers.get('content-type')).toBe('image/jpeg');

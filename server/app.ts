@@ -22,6 +22,7 @@ import { isRecordUpload, recordsRouter } from './routes/records.ts';
 import { createPhotoStore, type PhotoStore } from './records/photo-store.ts';
 import { createInternalUsersRouter } from './routes/internal-users.ts';
 import { createInternalFrictionRouter } from './routes/internal-friction.ts';
+import { schemasRouter } from './routes/schemas.ts';
 import { sendMail as sendMailDefault } from './mail.ts';
 import { MailOutbox } from './mail-outbox.ts';
 
@@ -220,6 +221,9 @@ export function createApp(opts: AppOptions): Express {
     app.use('/api/internal/users', createInternalUsersRouter(context, opts.localChannelToken));
     app.use('/api/internal/friction', createInternalFrictionRouter(context, opts.localChannelToken));
   }
+
+  // The file formats for editors, public (server/routes/schemas.ts).
+  app.use(schemasRouter());
 
   const api = Router();
   // The busiest routes first: each request is matched against the routes in this order.

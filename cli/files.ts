@@ -22,6 +22,15 @@ export function readText(path: string): string {
   }
 }
 
+/**
+ * The formulas folder a command uses when given none: ./formulas, or the current folder itself
+ * when it holds the catalog and has no formulas/ (the top of a `panform new` repository).
+ */
+export function defaultFormulasFolder(cwd = process.cwd()): string {
+  if (!existsSync(join(cwd, 'formulas')) && existsSync(join(cwd, CATALOG_FILE))) return '.';
+  return 'formulas';
+}
+
 /** The catalog beside a formula or plan, or in its parent folder. */
 export function findCatalogPath(near: string): string | undefined {
   const dir = statSync(near, { throwIfNoEntry: false })?.isDirectory() ? near : dirname(near);

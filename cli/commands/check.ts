@@ -10,7 +10,7 @@ import type { KnownFormula } from '#shared/check/plan';
 import type { Catalog } from '#shared/model';
 import { formatFinding, parseYamlText, sortFindings, type Finding } from '#shared/parse';
 import { ExitError, UsageError } from '../errors.ts';
-import { findCatalogPath, formulasDirForPlan } from '../files.ts';
+import { defaultFormulasFolder, findCatalogPath, formulasDirForPlan } from '../files.ts';
 
 export interface CheckOptions {
   paths: string[];
@@ -29,7 +29,6 @@ export interface CheckReport {
   warnings: number;
 }
 
-const DEFAULT_PATH = 'formulas';
 
 /** The .yaml/.yml files under a folder, as a load finds them (server/load/read.ts). */
 function walk(dir: string, out: string[]): void {
@@ -47,7 +46,7 @@ export function listFiles(paths: string[]): string[] {
   const seen = new Set<string>();
   for (const p of paths) {
     const st = statSync(p, { throwIfNoEntry: false });
-    if (!st) throw new UsageError(`no such file or folder: ${p}`, p === DEFAULT_PATH ? 'run panform check in the project folder, or give the files or folders to check' : undefined);
+    if (!st) throw new UsageError(`no such file or folder: ${p}`, p === 'formulas' ? 'run panform check in the project folder, or give the files or folders to check' : undefined);
     const found: string[] = [];
     if (st.isDirectory()) {
       walk(p, found);
@@ -72,7 +71,7 @@ function readForCheck(path: string): { text: string } | { finding: Finding } {
 
 /** Reads and checks every file; returns the findings, sorted. Throws UsageError for a bad path. */
 export function collectCheck(options: Pick<CheckOptions, 'paths' | 'catalog'>): CheckReport {
-  const paths = options.paths.length > 0 ? options.paths : [DEFAULT_PATH];
+  const paths = options.paths.length > 0 ? options.paths : [defaultFormulasFolder()];
   if (options.catalog !== undefined && !statSync(options.catalog, { throwIfNoEntry: false })?.isFile()) {
     throw new UsageError(`--catalog ${options.catalog}: no such file`, 'give the path of an ingredient catalog, e.g. --catalog formulas/ingredients.yaml');
   }
@@ -194,7 +193,7 @@ export function printCheck(r: CheckReport): string {
 
 export const command = new Command('check')
   .description('check formulas, the ingredient catalog and plans: schema, units and the baker\'s arithmetic')
-  .argument('[paths...]', 'files or folders to check (default: formulas/)')
+  .argument('[paths...]', 'files or folders to check (default: formulas/, or . when it holds ingredients.yaml)')
   .option('--catalog <file>', 'use this ingredient catalog for every formula')
   .option('--json', 'print the findings as JSON', false)
   .addHelpText(

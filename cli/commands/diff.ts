@@ -12,7 +12,7 @@ import type { Catalog, Formula } from '#shared/model';
 import { parseCatalogText, parseFormulaText, type Finding } from '#shared/parse';
 import { InputError, UsageError } from '../errors.ts';
 import { fitText } from '../print/width.ts';
-import { CATALOG_FILE, findCatalogPath, readText } from '../files.ts';
+import { CATALOG_FILE, defaultFormulasFolder, findCatalogPath, readText } from '../files.ts';
 
 const run = promisify(execFile);
 
@@ -108,7 +108,7 @@ async function gitListFolder(rev: string, absDir: string): Promise<string[]> {
 const isFormulaName = (n: string) => /\.ya?ml$/i.test(n) && n !== CATALOG_FILE;
 
 async function collectRev(rev: string, given: string[], explicitCatalog?: string): Promise<DiffEntry[]> {
-  const paths = given.length > 0 ? given : ['formulas'];
+  const paths = given.length > 0 ? given : [defaultFormulasFolder()];
   const files: string[] = [];
   for (const p of paths) {
     const abs = resolve(p);
@@ -288,7 +288,7 @@ export function textconv(file: string): string {
 
 export const command = new Command('diff')
   .description("what changed in a formula, in baker's terms: lines, pre-ferments, soakers, process and the figures")
-  .argument('[paths...]', 'OLD NEW formula files, or with --rev the files and folders to compare (default: formulas/)')
+  .argument('[paths...]', 'OLD NEW formula files, or with --rev the files and folders to compare (default: formulas/, or . when it holds ingredients.yaml)')
   .option('--rev <rev>', 'compare with this git revision (commit, branch or tag)')
   .option('--catalog <file>', 'use this ingredient catalog for both sides')
   .option('--textconv <file>', "print a formula's figures and its YAML (git's diff driver; see `panform git-setup`)")

@@ -7,6 +7,7 @@ import { join, resolve } from 'node:path';
 import { userInfo } from 'node:os';
 import { formatFinding, type Finding } from '#shared/parse';
 import { InputError, UsageError } from '../errors.ts';
+import { defaultFormulasFolder } from '../files.ts';
 import { fitText } from '../print/width.ts';
 import type { LoadProgress, LoadSummary, KindSummary } from '../../server/load/index.ts';
 import type { InternalLoadResponse } from '../../server/routes/internal-load.ts';
@@ -33,7 +34,6 @@ export interface LoadReport {
   warnings: Finding[];
 }
 
-const DEFAULT_PATH = 'formulas';
 
 function hidePassword(url: string): string {
   try {
@@ -111,7 +111,7 @@ async function progressBar(enabled: boolean): Promise<{ update: (p: LoadProgress
 
 /** Checks, then loads; returns what changed. */
 export async function collectLoad(options: LoadCommandOptions): Promise<LoadReport> {
-  const given = options.paths.length > 0 ? options.paths : [DEFAULT_PATH];
+  const given = options.paths.length > 0 ? options.paths : [defaultFormulasFolder()];
   // The server's working folder may differ: it gets absolute paths.
   const paths = given.map((p) => resolve(p));
   const { prepareLoad, applyLoad, LoadPathError } = await import('../../server/load/index.ts');
@@ -204,7 +204,7 @@ function defaultBy(): string {
 
 export const command = new Command('load')
   .description('check formulas, the catalog and plans, then load them into the database in one transaction')
-  .argument('[paths...]', 'folders or files to load (default: formulas/)')
+  .argument('[paths...]', 'folders or files to load (default: formulas/, or . when it holds ingredients.yaml)')
   .option('--data <dir>', 'PGlite data directory (default: PANFORM_DATA, else var/data; DATABASE_URL selects a PostgreSQL server)')
   .option('--by <name>', 'who loads, for the log of loads (default: your user name)')
   .option('--json', 'print what changed as JSON', false)

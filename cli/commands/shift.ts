@@ -7,6 +7,7 @@ import { join } from 'node:path';
 import type { ShiftTask } from '#shared/schedule/window';
 import { InputError, UsageError } from '../errors.ts';
 import { boxTable } from '../print/sheet.ts';
+import { defaultFormulasFolder } from '../files.ts';
 
 export interface ShiftOptions {
   folder: string;
@@ -45,7 +46,7 @@ export function toShiftOptions(folder: string | undefined, flags: ShiftFlags): S
     to = new Date(t).toISOString().slice(0, 16);
   }
   if (to <= from) throw new UsageError(`the window ends (${to}) before it starts (${from})`);
-  return { folder: folder ?? 'formulas', from, to, json: Boolean(flags.json), catalog: flags.catalog };
+  return { folder: folder ?? defaultFormulasFolder(), from, to, json: Boolean(flags.json), catalog: flags.catalog };
 }
 
 /** Builds every plan's sheet in `<folder>/plans` and returns the tasks in the window. */
@@ -82,7 +83,7 @@ export async function runShift(o: ShiftOptions, stdout: NodeJS.WritableStream = 
 
 export const command = new Command('shift')
   .description('every task of every plan in the folder that falls in a time window: what the bench does now')
-  .argument('[folder]', 'the folder that holds plans/ (default: formulas)')
+  .argument('[folder]', 'the folder that holds plans/ (default: formulas, or . when it holds ingredients.yaml)')
   .option('--from <when>', 'start of the window, local "YYYY-MM-DD HH:MM"')
   .option('--to <when>', 'end of the window (default: 12 hours after --from)')
   .option('--hours <n>', 'length of the window in hours, instead of --to')

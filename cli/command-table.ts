@@ -23,4 +23,5 @@ export const COMMANDS: CommandTable = {
   cost: () => import('./commands/cost.ts'),
   label: () => import('./commands/label.ts'),
   'git-setup': () => import('./commands/git-setup.ts'),
+  new: () => import('./commands/new.ts'),
 };

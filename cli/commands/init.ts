@@ -13,7 +13,8 @@ import { ID_PATTERN, PREFERMENT_KINDS } from '#shared/schema/vocabulary';
 import type { PrefermentKind } from '#shared/schema/shapes';
 import { parseMassArgument, QuantityError } from '#shared/units';
 import { InputError, UsageError } from '../errors.ts';
-import { readCatalogFor } from '../files.ts';
+import { defaultFormulasFolder, readCatalogFor } from '../files.ts';
+import { SCHEMAS_FOLDER } from '../new-repository.ts';
 
 export interface InitLine {
   name: string;
@@ -251,20 +252,27 @@ export async function askAnswers(prompts: Prompts, exists: (id: string) => boole
 
 // ---- the command -------------------------------------------------------------------------------
 
-function findSchemaUpwards(start: string): string | undefined {
+/** The first `rel` (a schema file) found in `start` or a folder above it. */
+function findUpwards(start: string, rel: string): string | undefined {
   for (let d = resolve(start); ; d = dirname(d)) {
-    const candidate = join(d, 'shared', 'schema', 'formula.schema.json');
+    const candidate = join(d, rel);
     if (existsSync(candidate)) return candidate;
     if (dirname(d) === d) return undefined;
   }
 }
 
+const PROJECT_SCHEMA = join('shared', 'schema', 'formula.schema.json');
+const REPOSITORY_SCHEMA = join(SCHEMAS_FOLDER, 'formula.schema.json');
+
 /**
- * The formula schema for the new file's schema line, relative to the folder it goes into: the
- * project's own copy when the folder is inside a Panform project, else this installation's.
+ * The formula schema for the new file's schema line, relative to the folder it goes into, so it
+ * works from any folder and, inside a repository, for everyone who clones it: Panform's own
+ * project copy (the demo in formulas/), else the copy a `panform new` repository keeps in
+ * schemas/, else this installation's (shipped in the package; the path then holds on this
+ * computer only).
  */
 export function schemaReference(dir: string, installedAt = dirname(fileURLToPath(import.meta.url))): string {
-  const schema = findSchemaUpwards(dir) ?? findSchemaUpwards(installedAt);
+  const schema = findUpwards(dir, PROJECT_SCHEMA) ?? findUpwards(dir, REPOSITORY_SCHEMA) ?? findUpwards(installedAt, PROJECT_SCHEMA);
   if (!schema) return 'https://panform.example/schema/formula.schema.json';
   return relative(resolve(dir), schema).split(sep).join('/');
 }
@@ -343,7 +351,7 @@ export async function runInit(opts: InitOptions, prompts?: Prompts): Promise<Ini
 
 export const command = new Command('init')
   .description('Write a new formula file by answering questions, then check it.')
-  .option('--dir <folder>', 'folder for the new file', 'formulas')
+  .option('--dir <folder>', 'folder for the new file (default: formulas, or . when it holds ingredients.yaml)')
   .option('--answers <file.json>', 'take the answers from a JSON file instead of asking (for scripts)')
   .addHelpText(
     'after',
@@ -357,10 +365,10 @@ flours: [{ name, percent }], ingredients: [{ name, percent }], preferment?: { ki
 hydration, yeast?: { name, percent }, seed?: { name, percent } } }. An existing file is never
 written over.`,
   )
-  .action(async (raw: { dir: string; answers?: string }) => {
+  .action(async (raw: { dir?: string; answers?: string }) => {
     let result: InitResult;
     try {
-      result = await runInit({ dir: raw.dir, answers: raw.answers });
+      result = await runInit({ dir: raw.dir ?? defaultFormulasFolder(), answers: raw.answers });
     } catch (e) {
       // Ctrl-C in a prompt: stop quietly, nothing was written.
       if ((e as Error)?.name === 'ExitPromptError') throw new UsageError('stopped; nothing was written');

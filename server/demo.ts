@@ -41,6 +41,17 @@ export function findDemoFormulas(cwd = process.cwd()): string | null {
   return null;
 }
 
+/**
+ * The first start of `panform serve --formulas DIR` (and of --demo): loads the folder when the
+ * database has no formula yet; null when it has (later starts leave it as it is: `panform load`
+ * brings changes in).
+ */
+export async function loadIfEmpty(handle: DatabaseHandle, formulasDir: string, by: string): Promise<LoadSummary | null> {
+  const anyFormula = await handle.db.select({ id: formulasTable.id }).from(formulasTable).limit(1);
+  if (anyFormula.length > 0) return null;
+  return loadFolder(handle, formulasDir, { by });
+}
+
 export interface DemoResult {
   /** The load, when the database had no formulas. */
   loaded: LoadSummary | null;
@@ -52,9 +63,7 @@ export async function seedDemo(
   handle: DatabaseHandle,
   opts: { formulasDir: string | null; accountsFile: string; scrypt?: ScryptParams },
 ): Promise<DemoResult> {
-  let loaded: LoadSummary | null = null;
-  const anyFormula = await handle.db.select({ id: formulasTable.id }).from(formulasTable).limit(1);
-  if (anyFormula.length === 0 && opts.formulasDir) loaded = await loadFolder(handle, opts.formulasDir, { by: 'panform serve --demo' });
+  const loaded = opts.formulasDir ? await loadIfEmpty(handle, opts.formulasDir, 'panform serve --demo') : null;
 
   let accounts: DemoAccount[] | null = null;
   if ((await countUsers(handle.db)) === 0) {

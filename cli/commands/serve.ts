@@ -1,5 +1,6 @@
 // `panform serve`: the viewer and its API for the bakery's network. Opens the database (PGlite in
 // a folder, or PostgreSQL from DATABASE_URL), applies the migrations, and listens until Ctrl+C.
+import { statSync } from 'node:fs';
 import { dirname, join, relative, resolve } from 'node:path';
 import { Command } from 'commander';
 import { InputError, UsageError } from '../errors.ts';
@@ -9,6 +10,7 @@ interface RawOptions {
   data?: string;
   host?: string;
   demo?: boolean;
+  formulas?: string;
 }
 
 export interface ServeOptions {
@@ -16,6 +18,8 @@ export interface ServeOptions {
   dataDir?: string;
   host?: string;
   demo: boolean;
+  /** The formulas folder to load on the first start (a database without formulas). */
+  formulas?: string;
 }
 
 export function toServeOptions(raw: RawOptions): ServeOptions {
@@ -26,7 +30,19 @@ export function toServeOptions(raw: RawOptions): ServeOptions {
     }
     port = Number(raw.port);
   }
-  return { port, dataDir: raw.data, host: raw.host, demo: raw.demo === true };
+  let formulas: string | undefined;
+  if (raw.formulas !== undefined) {
+    formulas = resolve(raw.formulas);
+    if (!statSync(formulas, { throwIfNoEntry: false })?.isDirectory()) {
+      throw new UsageError(`--formulas ${raw.formulas}: no such folder`, 'give the folder that holds ingredients.yaml, e.g. --formulas .');
+    }
+  }
+  return { port, dataDir: raw.data, host: raw.host, demo: raw.demo === true, formulas };
+}
+
+/** A later start: the database keeps what it has; `panform load` brings the folder's changes in. */
+function notLoaded(shown: string): string {
+  return `The database has formulas already, so ${shown} was not loaded again; \`panform load ${shown}\` brings its changes in (it hands the load to this server).\n`;
 }
 
 /** Beside the data folder: var/data's accounts in var/demo-accounts.txt, --data DIR's beside DIR. */
@@ -59,10 +75,11 @@ async function serve(opts: ServeOptions): Promise<void> {
   let running;
   try {
     await migrateDatabase(handle);
+    const shown = opts.formulas ? relative(process.cwd(), opts.formulas) || '.' : undefined;
     if (opts.demo) {
       const { seedDemo, findDemoFormulas, formatAccounts } = await import('#server/demo');
       const accountsFile = join(dirname(resolve(env.dataDir)), DEMO_ACCOUNTS_NAME);
-      const formulasDir = findDemoFormulas();
+      const formulasDir = opts.formulas ?? findDemoFormulas();
       if (!formulasDir) out.write('No ./formulas folder with an ingredients.yaml here: starting without the demo formulas.\n');
       const demo = await seedDemo(handle, { formulasDir, accountsFile });
       if (demo.loaded) {
@@ -72,15 +89,22 @@ async function serve(opts: ServeOptions): Promise<void> {
       if (demo.accounts) {
         out.write(`Demo accounts (shown once; also in ${relative(process.cwd(), accountsFile) || accountsFile}, readable only by you):\n${formatAccounts(demo.accounts)}\n`);
       }
+      if (!demo.loaded && opts.formulas) out.write(notLoaded(shown!));
+    } else if (opts.formulas) {
+      const { loadIfEmpty } = await import('#server/demo');
+      const s = await loadIfEmpty(handle, opts.formulas, 'panform serve --formulas');
+      if (s) out.write(`First start: loaded ${shown}: ${s.formulas.added.length} formulas, ${s.catalog.added.length} catalog entries, ${s.plans.added.length} plans.\n`);
+      else out.write(notLoaded(shown!));
     }
     running = await startServer({ handle, env, host: opts.host, handleSignals: true });
   } catch (e) {
     await handle.close();
     const { LoadCheckError, LoadPathError } = await import('#server/load/index');
+    const what = opts.formulas ? `the formulas in ${relative(process.cwd(), opts.formulas) || '.'}` : 'the demo formulas';
     if (e instanceof LoadCheckError) {
-      throw new InputError(`the demo formulas could not be loaded: ${e.message}`, e.findings, 'fix them (`panform check formulas`) and start again');
+      throw new InputError(`${what} could not be loaded: ${e.message}`, e.findings, `fix them (\`panform check ${opts.formulas ? relative(process.cwd(), opts.formulas) || '.' : 'formulas'}\`) and start again`);
     }
-    if (e instanceof LoadPathError) throw new InputError(`the demo formulas could not be loaded: ${e.message}`);
+    if (e instanceof LoadPathError) throw new InputError(`${what} could not be loaded: ${e.message}`);
     if ((e as NodeJS.ErrnoException).code === 'EADDRINUSE') {
       throw new InputError(`port ${env.port} is already in use`, [], 'stop what uses it, or pick another with --port N (or PORT=N)');
     }
@@ -102,12 +126,14 @@ export const command = new Command('serve')
   .option('--port <n>', 'port to listen on (default PORT or 3000)')
   .option('--data <dir>', 'PGlite data folder (default PANFORM_DATA or var/data)')
   .option('--host <address>', 'interface to listen on (default: all)')
-  .option('--demo', 'on an empty database: load ./formulas and create one demo account per role')
+  .option('--formulas <dir>', 'on the first start (a database without formulas): load this folder; later starts keep the database (`panform load` brings changes in)')
+  .option('--demo', 'on an empty database: load ./formulas (or --formulas DIR) and create one demo account per role')
   .addHelpText(
     'after',
     `
 Example:
   $ panform serve --port 8080 --data /srv/panform/data
+  $ panform serve --formulas .   # in the bakery's repository: its files on the first start
   $ npm start          # panform serve --demo: the demo bakery on port 3000
 
 Environment: PORT, PANFORM_DATA, DATABASE_URL, SMTP_URL, PANFORM_PUBLIC_URL, SESSION_DAYS,

@@ -143,7 +143,8 @@ date: ${date}
 ready_by: "07:00"
 conditions: { room: 22 °C, flour: 20 °C, tap_water: 12 °C }
 mixers:
-  - { name: spiral, capacity: 40 kg, minimum: 5 kg, friction: 12 °C }
+  - { name: spiral, capacity: 40 kg, minimum: 5 kg, friction: 12 °C, clean_down: 15 }
+  - { name: small spiral, capacity: 12 kg, minimum: 2 kg, friction: 10 °C, clean_down: 10 }
 ovens:
   - { name: deck oven, decks: 2, slots: 4, heat: 4 °C/min, cool: 2 °C/min, steam: true, fan: false }
 bench:

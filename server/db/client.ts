@@ -280,7 +280,11 @@ export async function openDatabase(opts: OpenOptions = {}): Promise<DatabaseHand
     // A new folder starts as a copy of the prepared empty database when there is one: creating a
     // database (initdb) takes seconds and leaves the process holding hundreds of MB.
     const seed = existsSync(join(target.dataDir, 'PG_VERSION')) ? null : databaseSeed();
-    if (seed) cpSync(seed, target.dataDir, { recursive: true, filter: (from) => !from.endsWith(LOCK_FILE) });
+    if (seed) {
+      cpSync(seed, target.dataDir, { recursive: true, filter: (from) => !from.endsWith(LOCK_FILE) });
+      // An installed package has lost the seed's empty folders (npm packs files only).
+      for (const folder of EMPTY_DATA_FOLDERS) mkdirSync(join(target.dataDir, folder), { recursive: true, mode: 0o700 });
+    }
     client = new PGlite(target.dataDir, { startParams: [...PGlite.defaultStartParams, ...PGLITE_SETTINGS] });
     await client.waitReady;
     // PGlite writes its files 666 whatever the umask. The folder (700) already keeps others out;
@@ -303,6 +307,16 @@ export async function openDatabase(opts: OpenOptions = {}): Promise<DatabaseHand
     },
   });
 }
+
+/**
+ * The folders of a PostgreSQL data directory that are empty in a new database. `npm pack` keeps
+ * files only, so a seed from an installed package lacks them, and PostgreSQL will not start
+ * without them.
+ */
+export const EMPTY_DATA_FOLDERS = [
+  'pg_commit_ts', 'pg_dynshmem', 'pg_logical/mappings', 'pg_logical/snapshots', 'pg_notify', 'pg_replslot', 'pg_serial',
+  'pg_snapshots', 'pg_stat', 'pg_stat_tmp', 'pg_tblspc', 'pg_twophase', 'pg_wal/archive_status', 'pg_wal/summaries',
+];
 
 /**
  * The prepared empty database a new PGlite folder starts from (scripts/prepare-database.mjs, run

@@ -12,6 +12,8 @@ import { collectNew, repositoryFiles, tomorrow } from '../../cli/commands/new.ts
 import { collectSheet } from '../../cli/commands/sheet.ts';
 import { schemaReference } from '../../cli/commands/init.ts';
 import { UsageError } from '../../cli/errors.ts';
+import { toServeOptions } from '../../cli/commands/serve.ts';
+import { defaultFormulasFolder } from '../../cli/files.ts';
 import { buildCli } from './arithmetic-cli.ts';
 
 const scratch = mkdtempSync(join(tmpdir(), 'panform-new-test-'));
@@ -105,5 +107,19 @@ describe('panform new', () => {
     expect(res.code).toBe(2);
     expect(res.stderr).toMatch(/is not empty/);
     expect(res.stderr).not.toMatch(/\n\s+at /);
+  });
+});
+
+describe('commands in a bakery repository', () => {
+  it('default to the repository itself when it holds ingredients.yaml and no formulas/', () => {
+    expect(defaultFormulasFolder(join(scratch, 'plain'))).toBe('.');
+    // Panform's own clone keeps its demo in formulas/.
+    expect(defaultFormulasFolder(join(__dirname, '..', '..'))).toBe('formulas');
+    expect(defaultFormulasFolder(scratch)).toBe('formulas');
+  });
+
+  it('serve --formulas takes a folder, and refuses one that does not exist', () => {
+    expect(toServeOptions({ formulas: join(scratch, 'plain') }).formulas).toBe(join(scratch, 'plain'));
+    expect(() => toServeOptions({ formulas: join(scratch, 'nowhere') })).toThrow(UsageError);
   });
 });

@@ -42,7 +42,7 @@ export function toServeOptions(raw: RawOptions): ServeOptions {
 
 /** A later start: the database keeps what it has; `panform load` brings the folder's changes in. */
 function notLoaded(shown: string): string {
-  return `The database has formulas already, so ${shown} was not loaded again; \`panform load ${shown}\` brings its changes in (it hands the load to this server).\n`;
+  return `The database has formulas already, so ${shown} was not loaded again; \`panform load ${shown}\` brings its changes in (with this server's --data or DATABASE_URL).\n`;
 }
 
 /** Beside the data folder: var/data's accounts in var/demo-accounts.txt, --data DIR's beside DIR. */

@@ -35,6 +35,8 @@ async function sh(cmd: string, args: string[], cwd: string, input?: string): Pro
       const code = e ? (typeof (e as { code?: unknown }).code === 'number' ? (e as { code: number }).code : 1) : 0;
       resolve({ code, out: stdout, err: stderr });
     });
+    // A command that exits without reading its input must not fail the test on a closed pipe.
+    child.stdin?.on('error', () => {});
     child.stdin?.end(input ?? '');
   });
 }
@@ -86,7 +88,8 @@ afterAll(() => {
   if (work) rmSync(work, { recursive: true, force: true });
 });
 
-describe('the package', () => {
+// Each step runs processes (a hash at full cost, a database opening): minutes on a loaded machine.
+describe('the package', { timeout: 120_000 }, () => {
   it('ships the built CLI, the viewer, the PGlite seed, the migrations, the schemas, bin/ and the README, and nothing else', () => {
     const tops = new Set(packed.map((p) => (p.startsWith('dist/') || p.startsWith('shared/') ? p.split('/').slice(0, 2).join('/') : p.split('/')[0])));
     expect([...tops].sort()).toEqual(['README.md', 'bin', 'dist/cli', 'dist/pglite-seed', 'dist/web', 'drizzle', 'package.json', 'shared/schema']);
@@ -118,7 +121,7 @@ describe('the package', () => {
   });
 });
 
-describe('a bakery repository made by the installed panform', () => {
+describe('a bakery repository made by the installed panform', { timeout: 300_000 }, () => {
   let bakery: string;
   let planFile: string;
   const password = 'a long bakery password';

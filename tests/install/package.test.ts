@@ -236,7 +236,7 @@ describe('a bakery repository made by the installed panform', { timeout: 300_000
       expect(commit.code, commit.out + commit.err).toBe(0);
       const load = await sh('panform', ['load'], bakery);
       expect(load.code, load.out + load.err).toBe(0);
-      expect(load.out).toMatch(/through the running server/);
+      expect(load.out).toMatch(/through the\s+running server/);
       expect(load.out).toMatch(/~ house-loaf \(new revision\)/);
       expect(await hydrationOf(s.url, cookie)).toBeCloseTo(75, 9);
     } finally {

@@ -4,11 +4,14 @@ import { build } from 'esbuild';
 import { join } from 'node:path';
 
 // Small pure-JavaScript packages are bundled in: loading one file is faster than resolving
-// dozens. Packages that read files beside their own code (WASM, fonts, PDF metrics), or that only
-// the server and prompts use, stay outside.
+// dozens. Packages that read files beside their own code (WASM, fonts, PDF metrics, sharp's native
+// library), or that only the server and prompts use, stay outside. The packages named here are
+// exactly the `dependencies` in package.json, what an installed Panform needs at run time
+// (tests/install/package.test.ts checks); everything else is a devDependency.
 export const EXTERNAL = [
   '@electric-sql/pglite', '@electric-sql/pglite/*', 'drizzle-orm', 'drizzle-orm/*', 'pg', 'express', 'helmet',
   'pdfkit', 'nodemailer', '@fontsource/*', 'cli-progress', '@inquirer/prompts',
+  'sharp', 'multer', 'file-type', 'csv-stringify', 'csv-stringify/*', '@aws-sdk/client-s3',
 ];
 
 /**

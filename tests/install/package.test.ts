@@ -19,6 +19,7 @@ import { promisify } from 'node:util';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { ROOT } from '../cli/arithmetic-cli.ts';
 import { ensureViewerBuilt } from '../e2e/support/viewer-build.ts';
+import { EXTERNAL } from '../../scripts/cli-bundle.mjs';
 
 const run = promisify(execFile);
 
@@ -96,6 +97,15 @@ describe('the package', { timeout: 120_000 }, () => {
     expect(packed.filter((p) => p.startsWith('shared/')).sort()).toEqual(['shared/schema/catalog.schema.json', 'shared/schema/formula.schema.json', 'shared/schema/plan.schema.json']);
     expect(packed).toContain('dist/web/index.html');
     expect(packed).toContain('drizzle/meta/_journal.json');
+  });
+
+  it('depends on exactly the packages the CLI bundle leaves outside', () => {
+    const deps = Object.keys((JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8')) as { dependencies: Record<string, string> }).dependencies);
+    const outside = EXTERNAL.filter((e) => !e.endsWith('/*') || e.startsWith('@fontsource/')).map((e) => e.replace(/\/\*$/, ''));
+    const fonts = deps.filter((d) => d.startsWith('@fontsource/'));
+    expect(deps.filter((d) => !d.startsWith('@fontsource/')).sort()).toEqual(outside.filter((e) => e !== '@fontsource').sort());
+    // The print fonts: the faces server/print/fonts.ts reads.
+    expect(fonts.sort()).toEqual(['@fontsource/atkinson-hyperlegible-next', '@fontsource/fraunces', '@fontsource/jetbrains-mono']);
   });
 
   it('installs only run-time dependencies: no build tools', () => {

@@ -298,7 +298,7 @@ export function buildSheet(input: SheetInput): Sheet {
     allergens,
     mayContain,
     cautions,
-    warnings: [...night.warnings, ...warnings, ...equipment.warnings, ...cultures.warnings],
+    warnings: [...night.warnings, ...warnings, ...equipment.warnings, ...weights.warnings, ...cultures.warnings],
   };
 }
 

@@ -2,7 +2,7 @@
 //
 // Rules (docs/batch-sheet.md, "Scales and small weights"):
 // - A weight goes on the finest scale (smallest resolution) whose maximum holds it; a weight
-//   above every scale's maximum goes on the largest, in lots.
+//   above every scale's maximum goes on the largest, in lots (a warning says how many).
 // - A reading is off by up to half a division, so a weight needs enough divisions for that to be
 //   small: at least MIN_DIVISIONS = 20 (at most 2.5 % off). 20 divisions is the minimum capacity
 //   of a class III weighing instrument, OIML R 76-1 (2006) Table 3 (from memory).
@@ -50,8 +50,9 @@ export interface WeighedGroup {
  * Gives each line its scale (sets `line.scale`) and returns the small weights and how many
  * weights each scale takes. Without scales nothing is assigned or flagged.
  */
-export function checkWeights(groups: WeighedGroup[], scales: Scale[] | undefined): { scales: ScaleUse[]; smallWeights: ScaleCheck[] } {
-  if (!scales || scales.length === 0) return { scales: [], smallWeights: [] };
+export function checkWeights(groups: WeighedGroup[], scales: Scale[] | undefined): { scales: ScaleUse[]; smallWeights: ScaleCheck[]; warnings: string[] } {
+  if (!scales || scales.length === 0) return { scales: [], smallWeights: [], warnings: [] };
+  const warnings: string[] = [];
   const count = new Map<string, number>();
   const smallWeights: ScaleCheck[] = [];
   for (const g of groups) {
@@ -61,6 +62,10 @@ export function checkWeights(groups: WeighedGroup[], scales: Scale[] | undefined
       const s = scaleFor(l.grams, scales);
       l.scale = s.name;
       count.set(s.name, (count.get(s.name) ?? 0) + 1);
+      if (l.grams > s.maxGrams + EPS) {
+        const lots = Math.ceil(l.grams / s.maxGrams - EPS);
+        warnings.push(`${l.ingredient} for ${g.label} (${Number((l.grams / 1000).toFixed(2))} kg) is more than the ${s.name} takes (${Number((s.maxGrams / 1000).toFixed(2))} kg): weigh it in ${lots} lots`);
+      }
       const divisions = l.grams / s.resolutionGrams;
       if (divisions >= MIN_DIVISIONS - EPS) continue;
       const premix = DISSOLVES.includes(l.kind as IngredientKind) ? premixFor(l.grams, s.resolutionGrams, water) : null;
@@ -76,5 +81,6 @@ export function checkWeights(groups: WeighedGroup[], scales: Scale[] | undefined
   return {
     scales: scales.map((s) => ({ name: s.name, max: s.maxGrams, resolution: s.resolutionGrams, weights: count.get(s.name) ?? 0, least: MIN_DIVISIONS * s.resolutionGrams })),
     smallWeights,
+    warnings,
   };
 }

@@ -65,7 +65,13 @@ describe('scales and small weights', () => {
   });
 
   it('checks nothing when the plan lists no scales', () => {
-    expect(checkWeights([{ where: 'mix', label: 'x', formula: 'x', lines: [{ ingredient: 'salt', grams: 0.1, kind: 'salt' }] }], undefined)).toEqual({ scales: [], smallWeights: [] });
+    expect(checkWeights([{ where: 'mix', label: 'x', formula: 'x', lines: [{ ingredient: 'salt', grams: 0.1, kind: 'salt' }] }], undefined)).toEqual({ scales: [], smallWeights: [], warnings: [] });
+  });
+
+  it('weighs what no scale holds on the largest, in lots', () => {
+    // 130 kg on a 60 kg scale: ceil(130 / 60) = 3 lots.
+    const r = checkWeights([{ where: 'mix', label: 'Big 1/1', formula: 'big', lines: [{ ingredient: 'bread flour', grams: 130_000, kind: 'flour' }] }], SCALES);
+    expect(r.warnings).toEqual(['bread flour for Big 1/1 (130 kg) is more than the platform takes (60 kg): weigh it in 3 lots']);
   });
 
   it('flags the instant yeast of the demo day\'s biga, with its premix', () => {

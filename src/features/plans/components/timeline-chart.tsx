@@ -188,6 +188,9 @@ function Bars({
   const ticks: number[] = [];
   for (let m = Math.ceil(model.from / every) * every; m <= model.to; m += every) ticks.push(m);
   const days = model.ticks.filter((t) => t.day);
+  const right = x(model.to) + 6;
+  // A label near the right edge is set to the left of its line, so it is never cut off.
+  const readyAnchor = x(model.readyBy) + 96 > right ? 'end' : 'start';
   const keys = (b: ChartBar) => (e: KeyboardEvent) => {
     if (e.key === 'Enter' || e.key === ' ') {
       e.preventDefault();
@@ -196,7 +199,7 @@ function Bars({
   };
   return (
     <>
-      {ticks.map((m) => (
+      {ticks.filter((m) => x(m) + 42 <= right).map((m) => (
         <g key={m}>
           <line x1={x(m)} x2={x(m)} y1={AXIS_H - 6} y2={AXIS_H + model.rows.length * LANE_H} stroke="var(--color-line)" strokeWidth={1} />
           <text x={x(m) + 3} y={AXIS_H - 10} fontSize="13" fill="var(--color-muted)" fontFamily="var(--font-mono)">
@@ -258,7 +261,7 @@ function Bars({
       {model.readyBy >= model.from && model.readyBy <= model.to && (
         <>
           <line x1={x(model.readyBy)} x2={x(model.readyBy)} y1={AXIS_H - 4} y2={AXIS_H + model.rows.length * LANE_H} stroke="var(--color-ember)" strokeWidth={3} strokeDasharray="6 4" pointerEvents="none" />
-          <text x={x(model.readyBy) + 4} y={AXIS_H - 27} fontSize="13" fontWeight="700" fill="var(--color-ember)">
+          <text x={x(model.readyBy) + (readyAnchor === 'end' ? -4 : 4)} y={AXIS_H - 27} fontSize="13" fontWeight="700" fill="var(--color-ember)" textAnchor={readyAnchor}>
             out by {clock(model.readyBy)}
           </text>
         </>
@@ -266,9 +269,12 @@ function Bars({
       {now !== null && now >= model.from && now <= model.to && (
         <g data-testid="now-line" pointerEvents="none">
           <line x1={x(now)} x2={x(now)} y1={AXIS_H - 4} y2={AXIS_H + model.rows.length * LANE_H} stroke="var(--color-focus)" strokeWidth={3} />
-          <text x={x(now) - 4} y={AXIS_H - 27} fontSize="13" fontWeight="700" fill="var(--color-focus)" textAnchor="end">
-            now {clock(now)}
-          </text>
+          {/* The words for now are above the chart; here only when they do not run into "out by". */}
+          {Math.abs(x(now) - x(model.readyBy)) > 110 && (
+            <text x={x(now) + (x(now) - left < 90 ? 4 : -4)} y={AXIS_H - 27} fontSize="13" fontWeight="700" fill="var(--color-focus)" textAnchor={x(now) - left < 90 ? 'start' : 'end'}>
+              now {clock(now)}
+            </text>
+          )}
         </g>
       )}
     </>

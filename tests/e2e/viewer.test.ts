@@ -333,6 +333,8 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
     withPage('bench', async (page) => {
       await page.goto(`${base}/formulas/harbour-ciabatta?pieces=60`);
       await page.getByRole('heading', { name: 'Harbour ciabatta', level: 1 }).waitFor();
+      // The water helper fills in once the bake day's plan has come: print the page as the bench would.
+      await page.getByTestId('water-temperature').waitFor();
       const { pages } = await printPreview(page, 'formula-harbour-ciabatta');
       if (pages !== null) expect(pages).toBe(1);
     }));

@@ -147,7 +147,7 @@ function FormulaPage({ detail, me }: { detail: FormulaDetail; me: Me | undefined
             {formula.finishes.length > 0 && <FinishesTable formula={formula} pieces={scaled.pieces ?? Math.floor(scaled.dividedDough / formula.yield.pieceGrams)} />}
             {formula.notes && <p className="mt-3 text-muted">{formula.notes}</p>}
           </Panel>
-          <div className="order-8 grid gap-4 print:grid-cols-2">
+          <div className="order-8 grid gap-4 print:grid-cols-[2fr_3fr]">
             <PanelBoundary title="Allergens" resetKeys={[formula.id]}>
               <Panel title="Allergens" id="allergens">
                 <AllergensPanel summary={detail.allergens} />

@@ -11,6 +11,7 @@ import { colourOf, legendOf, type ChartModel } from '#shared/sheet/chart';
 import { layoutSheet, type ChartItem, type NoticeItem, type SectionItem } from '#shared/sheet/layout';
 import type { SheetBlock, SheetTable } from '#shared/sheet/present';
 import type { Sheet } from '#shared/sheet/types';
+import type { UnitSystem } from '#shared/units';
 import { PRINT_FACES, readPrintFonts, type PrintFace } from './fonts.ts';
 
 export type Paper = 'a4' | 'letter';
@@ -21,6 +22,8 @@ export type PdfFonts = Record<PrintFace, Uint8Array>;
 export interface PdfOptions {
   paper?: Paper;
   fonts?: PdfFonts;
+  /** Metric unless the reader chose US customary units (the viewer's setting). */
+  units?: UnitSystem;
 }
 
 type Doc = InstanceType<typeof PDFDocument>;
@@ -473,7 +476,7 @@ function split(t: SheetTable): [SheetTable, SheetTable] {
 
 export async function renderSheetPdf(sheet: Sheet, options: PdfOptions = {}): Promise<Buffer> {
   const fonts = options.fonts ?? readPrintFonts();
-  const p = layoutSheet(sheet);
+  const p = layoutSheet(sheet, { units: options.units });
   const doc = new PDFDocument({
     size: options.paper === 'letter' ? 'LETTER' : 'A4',
     margins: MARGIN,

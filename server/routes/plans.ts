@@ -9,6 +9,7 @@ import { buildSheet } from '#shared/sheet/build';
 import { SheetError, type Sheet } from '#shared/sheet/types';
 import { ScaleError } from '#shared/scale';
 import { requirePermission } from '../auth/guards.ts';
+import { readUnitSystem } from '../auth/users.ts';
 import type { ServerContext } from '../context.ts';
 import { HttpError, invalid, notFound } from '../http/errors.ts';
 import { queryString } from '../http/query.ts';
@@ -120,11 +121,13 @@ export function plansRouter(ctx: ServerContext): Router {
     if (paper !== 'a4' && paper !== 'letter') throw invalid(`paper must be a4 or letter; got "${paper}"`, [{ path: 'paper', message: 'unknown paper size' }]);
     // Rendering takes a while: each PDF is made once per load.
     // Friction proposals change with the records, not with a load: they are part of the key.
-    const key = `pdf:${sheet.date}:${paper}${windowKey}:${sheet.frictionProposals ? createHash('sha256').update(JSON.stringify(sheet.frictionProposals)).digest('hex') : ''}`;
+    // Printed in the person's units, as the viewer shows them.
+    const units = await readUnitSystem(ctx.db, user.id);
+    const key = `pdf:${sheet.date}:${paper}:${units}${windowKey}:${sheet.frictionProposals ? createHash('sha256').update(JSON.stringify(sheet.frictionProposals)).digest('hex') : ''}`;
     let pdf = snapshot.memo.get(key) as Buffer | undefined;
     if (!pdf) {
       const { renderSheetPdf } = await import('../print/pdf.ts');
-      pdf = await renderSheetPdf(sheet, { paper });
+      pdf = await renderSheetPdf(sheet, { paper, units });
       snapshot.memo.set(key, pdf);
     }
     // The browser's PDF viewer is blocked by the page CSP (object-src 'none'), and a PDF runs no

@@ -10,7 +10,7 @@ import type { CatalogResponse, ChangeListResponse, FormulaDetail, FormulaListRes
 import { loadFolder } from '../../server/load/index.ts';
 import { CHECK_MS } from '../../server/routes/data.ts';
 import type { DatabaseHandle } from '../../server/db/client.ts';
-import { getJson, openTestDatabase, startTestServer, type TestServer } from './harness.ts';
+import { getJson, openTestDatabase, sendJson, startTestServer, type TestServer } from './harness.ts';
 
 let handle: DatabaseHandle;
 let t: TestServer;
@@ -246,6 +246,32 @@ describe('plans and the catalog', () => {
     expect(res.headers.get('content-disposition')).toMatch(/inline; filename="panform-sheet-2026-12-03.pdf"/);
     const bytes = Buffer.from(await res.arrayBuffer());
     expect(bytes.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+  });
+
+  it('prints the PDF sheet in the units the person chose, as the viewer shows them', async () => {
+    const pdfText = async () => {
+      const res = await fetch(`${t.url}/api/plans/2026-12-03/sheet.pdf`, { headers: { cookie: cookie.reviewer } });
+      expect(res.status).toBe(200);
+      const dir = mkdtempSync(join(tmpdir(), 'panform-units-'));
+      try {
+        writeFileSync(join(dir, 'sheet.pdf'), Buffer.from(await res.arrayBuffer()));
+        return execFileSync('/usr/bin/pdftotext', [join(dir, 'sheet.pdf'), '-'], { encoding: 'utf8' });
+      } finally {
+        rmSync(dir, { recursive: true, force: true });
+      }
+    };
+    const metric = await pdfText();
+    expect(metric).toMatch(/\d kg|\d g\b/);
+    expect((await sendJson(`${t.url}/api/me/preferences`, 'PUT', { unitSystem: 'us' }, { cookie: cookie.reviewer })).status).toBe(200);
+    try {
+      const us = await pdfText();
+      expect(us).toMatch(/\d+ lb|\d+(\.\d+)? oz/);
+      // 22 °C room = 71.6 °F (NIST SP 811, 4.2.1.1: t/°F = 1.8 t/°C + 32); warnings' own words stay as written.
+      expect(us).toMatch(/room 71\.6 °F/);
+      expect(metric).toMatch(/room 22\.0 °C/);
+    } finally {
+      await sendJson(`${t.url}/api/me/preferences`, 'PUT', { unitSystem: 'metric' }, { cookie: cookie.reviewer });
+    }
   });
 
   it('cuts the sheet to one shift as panform sheet does (shared/sheet/window.ts), the PDF too', async () => {

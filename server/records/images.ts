@@ -2,8 +2,6 @@
 // name or declared type; decoded and written again by sharp as JPEG, which applies the camera's
 // orientation and keeps no metadata (sharp drops EXIF, GPS, XMP and ICC unless asked to keep
 // them), so no location or camera data is stored; plus a small preview for lists.
-import { fileTypeFromBuffer } from 'file-type';
-import sharp from 'sharp';
 
 /** Types a photo may arrive in (what the tablets' cameras and browsers send; HEIC is converted by the browser). */
 export const PHOTO_TYPES = ['image/jpeg', 'image/png', 'image/webp'] as const;
@@ -30,6 +28,9 @@ export interface PreparedPhoto {
 
 /** Checks and re-encodes one upload; throws ImageRefused with a message for the person. */
 export async function preparePhoto(input: Buffer, name: string): Promise<PreparedPhoto> {
+  // Loaded on the first photo, not at start: the image libraries hold tens of MB a server without
+  // records never needs.
+  const [{ fileTypeFromBuffer }, { default: sharp }] = await Promise.all([import('file-type'), import('sharp')]);
   const type = await fileTypeFromBuffer(input);
   if (!type || !(PHOTO_TYPES as readonly string[]).includes(type.mime)) {
     throw new ImageRefused(`${name || 'the file'} is not a JPEG, PNG or WebP image${type ? ` (its content is ${type.mime})` : ''}, whatever its name says`);

@@ -1,7 +1,7 @@
 // Where record photos' bytes are kept, behind one interface: the database (the default; the same
 // on PGlite and on a PostgreSQL server several servers share), or an S3-compatible object store
 // named by PANFORM_S3_* (docs/operations.md). The record_photos rows say which and under what key.
-import { DeleteObjectCommand, GetObjectCommand, NoSuchKey, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import type { S3Client } from '@aws-sdk/client-s3';
 import { eq, inArray } from 'drizzle-orm';
 import type { Database } from '../db/client.ts';
 import { photoBlobsTable } from '../db/schema.ts';
@@ -43,20 +43,30 @@ export class DatabasePhotoStore implements PhotoStore {
 
 export class S3PhotoStore implements PhotoStore {
   readonly kind = 's3' as const;
-  private readonly client: S3Client;
+  /** The S3 client, loaded on first use (the SDK holds tens of MB a database-store server never needs). */
+  private client: S3Client | null = null;
+  private sdk: typeof import('@aws-sdk/client-s3') | null = null;
 
-  constructor(private readonly settings: Extract<PhotoStoreSettings, { kind: 's3' }>) {
-    this.client = new S3Client({
-      region: settings.region,
-      endpoint: settings.endpoint,
-      forcePathStyle: settings.forcePathStyle,
-      // Checksums only where S3 requires them: stores other than AWS's may not know the newer ones.
-      requestChecksumCalculation: 'WHEN_REQUIRED',
-      responseChecksumValidation: 'WHEN_REQUIRED',
-      credentials: settings.accessKeyId && settings.secretAccessKey ? { accessKeyId: settings.accessKeyId, secretAccessKey: settings.secretAccessKey } : undefined,
-      // A stuck store must not hold a bench request for minutes.
-      requestHandler: { requestTimeout: 30_000, connectionTimeout: 5_000 },
-    });
+  constructor(private readonly settings: Extract<PhotoStoreSettings, { kind: 's3' }>) {}
+
+  private async open(): Promise<{ client: S3Client; sdk: typeof import('@aws-sdk/client-s3') }> {
+    if (!this.client || !this.sdk) {
+      const sdk = await import('@aws-sdk/client-s3');
+      const settings = this.settings;
+      this.client = new sdk.S3Client({
+        region: settings.region,
+        endpoint: settings.endpoint,
+        forcePathStyle: settings.forcePathStyle,
+        // Checksums only where S3 requires them: stores other than AWS's may not know the newer ones.
+        requestChecksumCalculation: 'WHEN_REQUIRED',
+        responseChecksumValidation: 'WHEN_REQUIRED',
+        credentials: settings.accessKeyId && settings.secretAccessKey ? { accessKeyId: settings.accessKeyId, secretAccessKey: settings.secretAccessKey } : undefined,
+        // A stuck store must not hold a bench request for minutes.
+        requestHandler: { requestTimeout: 30_000, connectionTimeout: 5_000 },
+      });
+      this.sdk = sdk;
+    }
+    return { client: this.client, sdk: this.sdk };
   }
 
   private objectKey(key: string): string {
@@ -64,26 +74,29 @@ export class S3PhotoStore implements PhotoStore {
   }
 
   async put(_db: Database, key: string, data: Buffer, contentType: string): Promise<void> {
-    await this.client.send(new PutObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(key), Body: data, ContentType: contentType }));
+    const { client, sdk } = await this.open();
+    await client.send(new sdk.PutObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(key), Body: data, ContentType: contentType }));
   }
 
   async get(_db: Database, key: string): Promise<Buffer | null> {
+    const { client, sdk } = await this.open();
     try {
-      const out = await this.client.send(new GetObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(key) }));
+      const out = await client.send(new sdk.GetObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(key) }));
       if (!out.Body) return null;
       return Buffer.from(await out.Body.transformToByteArray());
     } catch (e) {
-      if (e instanceof NoSuchKey || (e as { name?: string }).name === 'NoSuchKey') return null;
+      if (e instanceof sdk.NoSuchKey || (e as { name?: string }).name === 'NoSuchKey') return null;
       throw e;
     }
   }
 
   async remove(_db: Database, keys: string[]): Promise<void> {
-    for (const key of keys) await this.client.send(new DeleteObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(key) }));
+    const { client, sdk } = await this.open();
+    for (const key of keys) await client.send(new sdk.DeleteObjectCommand({ Bucket: this.settings.bucket, Key: this.objectKey(key) }));
   }
 
   close(): void {
-    this.client.destroy();
+    this.client?.destroy();
   }
 }
 

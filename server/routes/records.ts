@@ -3,7 +3,7 @@
 // friction learned from the records (shared/friction.ts). The contract: docs/api.md.
 import type { Request, Response } from 'express';
 import { Router } from 'express';
-import multer from 'multer';
+import type { Multer, MulterError } from 'multer';
 import { stringify } from 'csv-stringify/sync';
 import type { BenchRecord, FrictionResponse, RecordListResponse, RecordResponse } from '#shared/api';
 import { frictionTable, type CurrentRise } from '#shared/friction';
@@ -34,17 +34,30 @@ const FUTURE_SLACK_MS = 5 * 60_000;
 /** Whether this request is the one that may send multipart (see csrfProtection). */
 export const isRecordUpload = (req: Request): boolean => req.method === 'POST' && /^\/plans\/[^/]+\/records\/?$/.test(req.path);
 
-const upload = multer({
-  storage: multer.memoryStorage(),
-  limits: { fileSize: PHOTO_BYTES_MAX, files: PHOTOS_MAX, fields: 20, fieldSize: 16 * 1024, parts: PHOTOS_MAX + 20 },
-});
+/** multer, loaded on the first upload rather than at start. */
+let upload: { multer: typeof import('multer'); upload: Multer } | null = null;
+async function uploader(): Promise<NonNullable<typeof upload>> {
+  if (!upload) {
+    const { default: multer } = await import('multer');
+    upload = {
+      multer,
+      upload: multer({
+        storage: multer.memoryStorage(),
+        limits: { fileSize: PHOTO_BYTES_MAX, files: PHOTOS_MAX, fields: 20, fieldSize: 16 * 1024, parts: PHOTOS_MAX + 20 },
+      }),
+    };
+  }
+  return upload;
+}
 
 /** Reads the multipart body; multer's refusals become the API's error answers. */
-function readMultipart(req: Request, res: Response): Promise<void> {
+async function readMultipart(req: Request, res: Response): Promise<void> {
+  const { multer, upload } = await uploader();
   return new Promise((ok, fail) => {
-    upload.any()(req, res, (err: unknown) => {
-      if (!err) return ok();
-      if (err instanceof multer.MulterError) {
+    upload.any()(req, res, (caught: unknown) => {
+      if (!caught) return ok();
+      const err = caught as MulterError;
+      if (caught instanceof multer.MulterError) {
         if (err.code === 'LIMIT_FILE_SIZE') {
           return fail(new HttpError(413, { error: 'payload_too_large', message: `a photo is larger than ${PHOTO_BYTES_MAX / 1024 / 1024} MB; nothing was stored`, issues: [{ path: 'photo', message: 'larger than 10 MB' }] }));
         }

@@ -18,6 +18,7 @@
 //   MAD_FLOOR so that identical readings do not make every other reading an outlier.
 // - The file's value is never changed here: a proposal names the plan line the baker edits.
 import { computeFriction } from './temperature.ts';
+import { dayMonth } from './sheet/time.ts';
 
 /** Mixes needed before a rise is proposed (common practice: three readings before trusting a figure). */
 export const FRICTION_MINIMUM = 3;
@@ -156,16 +157,12 @@ export interface FrictionProposal {
   change: string | null;
 }
 
-const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
-
 /** "12–28 Nov", "28 Nov – 3 Dec", "30 Dec 2026 – 2 Jan 2027", "3 Dec" for yyyy-mm-dd days. */
 export function dayRange(from: string, to: string): string {
-  const [fy, fm, fd] = from.split('-').map(Number);
-  const [ty, tm, td] = to.split('-').map(Number);
-  if (from === to) return `${fd} ${MONTHS[fm - 1]}`;
-  if (fy !== ty) return `${fd} ${MONTHS[fm - 1]} ${fy} – ${td} ${MONTHS[tm - 1]} ${ty}`;
-  if (fm !== tm) return `${fd} ${MONTHS[fm - 1]} – ${td} ${MONTHS[tm - 1]}`;
-  return `${fd}–${td} ${MONTHS[fm - 1]}`;
+  if (from === to) return dayMonth(from);
+  if (from.slice(0, 4) !== to.slice(0, 4)) return `${dayMonth(from)} ${from.slice(0, 4)} – ${dayMonth(to)} ${to.slice(0, 4)}`;
+  if (from.slice(5, 7) !== to.slice(5, 7)) return `${dayMonth(from)} – ${dayMonth(to)}`;
+  return `${Number(from.slice(8, 10))}–${dayMonth(to)}`;
 }
 
 /** Rounds a temperature difference for a file line: to 0.5 °C-degree. */

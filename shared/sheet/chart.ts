@@ -1,6 +1,6 @@
 // The timeline as a chart: one row per build and per mix, a bar per step, hour ticks. The HTML
 // page draws it as SVG and the PDF with vector shapes, from this one model. Pure; no I/O.
-import { clockOf, localDateTime, minuteOf } from './time.ts';
+import { clockOf, dayMonth, localDateTime, minuteOf } from './time.ts';
 import type { Sheet, TimelineEntry, TimelineStep } from './types.ts';
 
 export interface ChartBar {
@@ -153,7 +153,7 @@ export function chartModel(sheet: Sheet, range?: ChartRange): ChartModel {
   for (let m = Math.ceil(start / step) * step; m <= end; m += step) {
     const at = localDateTime(sheet.date, m);
     const day = at.slice(0, 10);
-    ticks.push({ minute: m, label: clockOf(at), ...(day !== lastDay ? { day: dayLabel(day) } : {}) });
+    ticks.push({ minute: m, label: clockOf(at), ...(day !== lastDay ? { day: dayMonth(day) } : {}) });
     lastDay = day;
   }
   const readyBy = minuteOf(sheet.readyBy, sheet.date);
@@ -176,9 +176,3 @@ export function productionRange(sheet: Sheet): ChartRange | undefined {
   return to - from < whole.to - whole.from - 60 ? { from, to } : undefined;
 }
 
-const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
-
-function dayLabel(date: string): string {
-  const [, m, d] = date.split('-').map(Number);
-  return `${d} ${MONTHS[m - 1]}`;
-}

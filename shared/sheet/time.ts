@@ -60,8 +60,13 @@ export function clockOf(t: LocalDateTime): string {
 /** "04:10", or "Wed 22:00"-style with the day when it is not the plan's date: "2 Dec 22:00". */
 export function shortTime(t: LocalDateTime, planDate: string): string {
   if (t.slice(0, 10) === planDate) return clockOf(t);
-  const [, m, d] = t.slice(0, 10).split('-').map(Number);
-  return `${d} ${MONTHS[m - 1]} ${clockOf(t)}`;
+  return `${dayMonth(t.slice(0, 10))} ${clockOf(t)}`;
 }
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+
+/** "3 Dec" for a yyyy-mm-dd day: the one way the sheet, the chart and the records name a day. */
+export function dayMonth(date: string): string {
+  const [, m, d] = date.split('-').map(Number);
+  return `${d} ${MONTHS[m - 1]}`;
+}

@@ -3,6 +3,7 @@ import { FRICTION_CONVENTION, planMixWater, prefermentTemperature, type MixWater
 import type { Catalog, Formula, Plan } from '#shared/model';
 import type { ScaleResult } from '#shared/scale';
 import { formatTemperatureRange } from '#shared/units';
+import { dayMonth } from '#shared/sheet/time';
 import { readNumber, SelectField, TextField } from '../../../components/field.tsx';
 import { Button } from '../../../components/button.tsx';
 import { useUnits } from '../../../lib/units.ts';
@@ -278,10 +279,6 @@ function FrictionOffer({ proposal: p, fileRise, rise, onUse }: { proposal: Frict
   }
   const bench = p.rise;
   const usingBench = rise !== null && Math.abs(rise - bench) < 0.005;
-  const day = (iso: string) => {
-    const [, m, d] = iso.split('-').map(Number);
-    return `${d} ${['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'][m - 1]}`;
-  };
   return (
     <div className="rounded-xl border-2 border-sage bg-sage-soft p-3 print:hidden" data-testid="friction-proposal" data-status={p.status}>
       <p>
@@ -291,7 +288,7 @@ function FrictionOffer({ proposal: p, fileRise, rise, onUse }: { proposal: Frict
       </p>
       {p.outliers.length > 0 && (
         <p className="mt-1 text-sm text-muted" data-testid="friction-outliers">
-          Left out as far from the rest: {p.outliers.map((o) => `${day(o.date)} (${degrees(o.rise)})`).join(', ')}.
+          Left out as far from the rest: {p.outliers.map((o) => `${dayMonth(o.date)} (${degrees(o.rise)})`).join(', ')}.
         </p>
       )}
       {fileRise !== undefined && (

@@ -5,6 +5,7 @@ import { Command } from 'commander';
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import type { ShiftTask } from '#shared/schedule/window';
+import { localDateTime, minuteOf, parseLocalDateTime } from '#shared/sheet/time';
 import { InputError, UsageError } from '../errors.ts';
 import { boxTable } from '../print/sheet.ts';
 import { defaultFormulasFolder } from '../files.ts';
@@ -25,12 +26,10 @@ export interface ShiftFlags {
   catalog?: string;
 }
 
-const WHEN = /^(\d{4}-\d{2}-\d{2})[T ](\d{2}:\d{2})$/;
-
 function when(text: string, flag: string): string {
-  const m = WHEN.exec(text.trim());
-  if (!m) throw new UsageError(`--${flag} needs a local date and time; got "${text}"`, 'e.g. --from "2026-12-02 18:00"');
-  return `${m[1]}T${m[2]}`;
+  const t = parseLocalDateTime(text);
+  if (!t) throw new UsageError(`--${flag} needs a local date and time "YYYY-MM-DD HH:MM"; got "${text}"`, 'e.g. --from "2026-12-02 18:00"');
+  return t;
 }
 
 export function toShiftOptions(folder: string | undefined, flags: ShiftFlags): ShiftOptions {
@@ -42,8 +41,7 @@ export function toShiftOptions(folder: string | undefined, flags: ShiftFlags): S
   else {
     const hours = Number(flags.hours ?? 12);
     if (!(hours > 0 && hours <= 24 * 14)) throw new UsageError(`--hours must be a number of hours above 0 (at most two weeks); got "${flags.hours}"`);
-    const t = new Date(`${from}:00Z`).getTime() + hours * 3_600_000;
-    to = new Date(t).toISOString().slice(0, 16);
+    to = localDateTime(from.slice(0, 10), minuteOf(from, from.slice(0, 10)) + hours * 60);
   }
   if (to <= from) throw new UsageError(`the window ends (${to}) before it starts (${from})`);
   return { folder: folder ?? defaultFormulasFolder(), from, to, json: Boolean(flags.json), catalog: flags.catalog };

@@ -16,7 +16,7 @@ const two = (n: number) => (n < 10 ? `0${n}` : String(n));
 const shifted = new Map<string, string>();
 
 /** "2026-12-03" shifted by whole days ("2026-12-02" for -1), on the UTC calendar. */
-function shiftDate(date: string, days: number): string {
+export function shiftDate(date: string, days: number): string {
   if (days === 0) return date;
   const key = `${date}${days}`;
   let day = shifted.get(key);
@@ -36,6 +36,22 @@ export function localDateTime(date: string, minute: number): LocalDateTime {
   const days = Math.floor(total / MINUTES_PER_DAY);
   const m = total - days * MINUTES_PER_DAY;
   return `${shiftDate(date, days)}T${two(Math.floor(m / 60))}:${two(m % 60)}`;
+}
+
+const WRITTEN = /^(\d{4})-(\d{2})-(\d{2})[T ]([01]\d|2[0-3]):([0-5]\d)$/;
+
+/**
+ * A date and time as a person writes it, "2026-12-02 18:00" (or with a T), → "2026-12-02T18:00";
+ * null when it is not one (a day that is not on the calendar, an hour past 23). The one reader of
+ * typed window times: `panform sheet --from/--to`, `panform shift`, and the server's sheet routes.
+ */
+export function parseLocalDateTime(text: string): LocalDateTime | null {
+  const m = WRITTEN.exec(text.trim());
+  if (!m) return null;
+  const date = `${m[1]}-${m[2]}-${m[3]}`;
+  // A day past the month's end (2026-02-30) comes back from the calendar as another day.
+  if (new Date(midnightUtc(date)).toISOString().slice(0, 10) !== date) return null;
+  return `${date}T${m[4]}:${m[5]}`;
 }
 
 /** "2026-12-03T04:10" → minutes from midnight of `date` (negative the day before). */

@@ -14,15 +14,10 @@
 import { inWindow } from '../schedule/window.ts';
 import type { IngredientKind } from '../schema/shapes.ts';
 import { pickLines, sheetFinishes } from './pick.ts';
+import { parseLocalDateTime, shiftDate } from './time.ts';
 import { SheetError, type LocalDateTime, type Sheet, type SheetLine, type SheetWindow } from './types.ts';
 
 const CLOCK = /^([01]\d|2[0-3]):[0-5]\d$/;
-const WHEN = /^(\d{4}-\d{2}-\d{2})[T ]([01]\d|2[0-3]):([0-5]\d)$/;
-
-function dayBefore(date: string, days = -1): string {
-  const [y, m, d] = date.split('-').map(Number);
-  return new Date(Date.UTC(y, m - 1, d + days)).toISOString().slice(0, 10);
-}
 
 /**
  * A time as given for a window: "YYYY-MM-DD HH:MM", or a bare "HH:MM" on the plan's night: from
@@ -30,10 +25,10 @@ function dayBefore(date: string, days = -1): string {
  */
 export function windowTime(text: string, planDate: string, what: string): LocalDateTime {
   const t = text.trim();
-  const full = WHEN.exec(t);
-  if (full) return `${full[1]}T${full[2]}:${full[3]}`;
+  const full = parseLocalDateTime(t);
+  if (full) return full;
   if (!CLOCK.test(t)) throw new SheetError(`${what} needs a time "HH:MM" or "YYYY-MM-DD HH:MM"; got "${text}"`);
-  return `${t >= '12:00' ? dayBefore(planDate) : planDate}T${t}`;
+  return `${t >= '12:00' ? shiftDate(planDate, -1) : planDate}T${t}`;
 }
 
 export interface WindowAsk {
@@ -55,7 +50,7 @@ export function resolveWindow(sheet: Pick<Sheet, 'date' | 'bench'>, ask: WindowA
           : `the plan has no shift "${ask.shift}"; its shifts: ${named.map((b) => b.name).join(', ')}`,
       );
     }
-    const to = s.to > s.from ? s.date : dayBefore(s.date, 1);
+    const to = s.to > s.from ? s.date : shiftDate(s.date, 1);
     return { from: `${s.date}T${s.from}`, to: `${to}T${s.to}`, name: s.name };
   }
   if (ask.from === undefined && ask.to === undefined) return null;
@@ -63,7 +58,7 @@ export function resolveWindow(sheet: Pick<Sheet, 'date' | 'bench'>, ask: WindowA
   const from = windowTime(ask.from, sheet.date, '--from');
   let to = windowTime(ask.to, sheet.date, '--to');
   // A bare end not after the start is the next day (22:00 to 06:00).
-  if (to <= from && CLOCK.test(ask.to.trim())) to = `${dayBefore(to.slice(0, 10), 1)}T${to.slice(11)}`;
+  if (to <= from && CLOCK.test(ask.to.trim())) to = `${shiftDate(to.slice(0, 10), 1)}T${to.slice(11)}`;
   if (to <= from) throw new SheetError(`the window ends (${to.replace('T', ' ')}) before it starts (${from.replace('T', ' ')})`);
   return { from, to };
 }

@@ -208,6 +208,25 @@ describe('the sheet for one shift or window', async () => {
     expect(resolveWindow(demo, {})).toBeNull();
   });
 
+  it('reads a typed date and time once for the sheet\'s window and `panform shift`', async () => {
+    const { toShiftOptions } = await import('#cli/commands/shift');
+    const { parseLocalDateTime } = await import('#shared/sheet/time');
+    // One reader (shared/sheet/time.ts): both surfaces give the same time or both refuse.
+    for (const text of ['2026-12-02 18:00', '2026-12-02T18:00', ' 2026-12-31 23:59 ', '2028-02-29 06:00']) {
+      const t = parseLocalDateTime(text)!;
+      expect(windowTime(text, '2026-12-03', '--from')).toBe(t);
+      expect(toShiftOptions('formulas', { from: text, hours: '1' }).from).toBe(t);
+    }
+    // Not a day on the calendar (2026 is not a leap year), an hour past 23, a month 13.
+    for (const text of ['2026-02-29 06:00', '2026-12-02 24:00', '2026-13-01 06:00', '2026-12-02 6:00']) {
+      expect(parseLocalDateTime(text)).toBeNull();
+      expect(() => windowTime(text, '2026-12-03', '--from')).toThrow('--from needs a time');
+      expect(() => toShiftOptions('formulas', { from: text })).toThrow('--from needs a local date and time');
+    }
+    // --hours runs on past midnight and the month's end on the calendar.
+    expect(toShiftOptions('formulas', { from: '2026-12-31 18:00', hours: '12' }).to).toBe('2027-01-01T06:00');
+  });
+
   it('takes a named shift of the plan, and says which names there are', () => {
     expect(resolveWindow(demo, { shift: 'night' })).toEqual({ from: '2026-12-03T00:30', to: '2026-12-03T08:00', name: 'night' });
     expect(() => resolveWindow(demo, { shift: 'evening' })).toThrow('the plan has no shift "evening"; its shifts: day builds, night');

@@ -247,7 +247,8 @@ export function getDeviceOutbox(): Outbox {
  * still counts as today: clocks on the wall and on the tablet differ.
  */
 export function recordedAtFromTime(time: string, now: Date): Date | null {
-  const m = /^(\d{1,2}):(\d{2})$/.exec(time.trim());
+  // "02:15", "2:15", or the digits alone ("0215", "215") from a keypad without a colon.
+  const m = /^(\d{1,2}):?(\d{2})$/.exec(time.trim());
   if (!m) return null;
   const h = Number(m[1]);
   const min = Number(m[2]);

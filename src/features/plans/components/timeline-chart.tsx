@@ -116,7 +116,7 @@ export function TimelineChart({ item, sheet, now }: TimelineChartProps) {
           ))}
           <Key mark="▼">fold</Key>
           <Key line="var(--color-ember)">first bake out</Key>
-          {now !== null && <Key line="var(--color-focus)">now</Key>}
+          {now !== null && <Key line="var(--color-ink)" dotted>now</Key>}
         </span>
         <span className="mt-1 block">{item.caption} Tap or tab to a bar to see its times.</span>
       </figcaption>
@@ -136,7 +136,7 @@ function NowText({ now, sheet }: { now: number; sheet: Sheet }) {
     : now > last ? `Now ${clock(now)}: the night's work is done`
     : `Now ${clock(now)}${next ? `; next: ${next.label}, ${stepWord(next.step)} at ${clock(next.startMinute)}` : ''}`;
   return (
-    <span className="font-semibold text-focus" data-testid="now">
+    <span className="font-semibold text-ink" data-testid="now">
       {text}
     </span>
   );
@@ -268,10 +268,12 @@ function Bars({
       )}
       {now !== null && now >= model.from && now <= model.to && (
         <g data-testid="now-line" pointerEvents="none">
-          <line x1={x(now)} x2={x(now)} y1={AXIS_H - 4} y2={AXIS_H + model.rows.length * LANE_H} stroke="var(--color-focus)" strokeWidth={3} />
+          {/* Ink and dotted, with a head: not a colour of any bar (the retard bars are blue). */}
+          <line x1={x(now)} x2={x(now)} y1={AXIS_H - 4} y2={AXIS_H + model.rows.length * LANE_H} stroke="var(--color-ink)" strokeWidth={3} strokeDasharray="1 5" strokeLinecap="round" />
+          <path d={`M${x(now) - 7} ${AXIS_H - 14} h14 l-7 10 z`} fill="var(--color-ink)" />
           {/* The words for now are above the chart; here only when they do not run into "out by". */}
           {Math.abs(x(now) - x(model.readyBy)) > 110 && (
-            <text x={x(now) + (x(now) - left < 90 ? 4 : -4)} y={AXIS_H - 27} fontSize="13" fontWeight="700" fill="var(--color-focus)" textAnchor={x(now) - left < 90 ? 'start' : 'end'}>
+            <text x={x(now) + (x(now) - left < 90 ? 4 : -4)} y={AXIS_H - 27} fontSize="13" fontWeight="700" fill="var(--color-ink)" textAnchor={x(now) - left < 90 ? 'start' : 'end'}>
               now {clock(now)}
             </text>
           )}
@@ -345,7 +347,7 @@ function PrintChart({ children }: { children: ReactNode }) {
   return <div className="hidden print:block">{children}</div>;
 }
 
-function Key({ color, hatch, mark, line, children }: { color?: string; hatch?: boolean; mark?: string; line?: string; children: ReactNode }) {
+function Key({ color, hatch, mark, line, dotted, children }: { color?: string; hatch?: boolean; mark?: string; line?: string; dotted?: boolean; children: ReactNode }) {
   return (
     <span className="inline-flex items-center gap-1.5">
       {color && (
@@ -356,7 +358,7 @@ function Key({ color, hatch, mark, line, children }: { color?: string; hatch?: b
         />
       )}
       {mark && <span aria-hidden="true">{mark}</span>}
-      {line && <span aria-hidden="true" className="inline-block h-4 w-0 border-l-[3px]" style={{ borderColor: line }} />}
+      {line && <span aria-hidden="true" className={`inline-block h-4 w-0 border-l-[3px] ${dotted ? 'border-dotted' : ''}`} style={{ borderColor: line }} />}
       {children}
     </span>
   );

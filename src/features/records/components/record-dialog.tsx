@@ -94,7 +94,7 @@ export function RecordDialog({ date, target, correcting, onClose }: RecordDialog
     else if (dough.trim() !== '' && (doughValue === null || doughValue < 0 || doughValue > 60)) found.dough = 'A temperature from 0 to 60 °C.';
     if (water.trim() !== '' && (waterValue === null || waterValue < 0 || waterValue > 100)) found.water = 'A temperature from 0 to 100 °C.';
     const at = recordedAtFromTime(time, new Date());
-    if (!at) found.time = 'A time such as 02:15.';
+    if (!at) found.time = 'A time on the 24-hour clock, such as 02:15.';
     const ini = initials.trim();
     if (ini.length < 1 || ini.length > 8) found.initials = 'Your initials, up to 8 letters.';
     if (note.length > 2000) found.note = 'At most 2000 characters.';
@@ -185,7 +185,8 @@ export function RecordDialog({ date, target, correcting, onClose }: RecordDialog
             hint={target.waterTemperature !== null ? `empty: the sheet's ${temperature(target.waterTemperature)}` : 'empty: not taken'}
           />
           <div>
-            <TextField label="Time" type="time" value={time} onChange={(e) => setTime(e.target.value)} error={errors.time} hint="when you took it" />
+            {/* A text field on the 24-hour clock, as the sheet writes times: a time input would follow the browser's locale (AM/PM). */}
+            <TextField label="Time" inputMode="numeric" autoComplete="off" maxLength={5} value={time} onChange={(e) => setTime(e.target.value)} error={errors.time} hint="when you took it, 24-hour clock" />
           </div>
           <TextField
             label="Your initials"

@@ -174,7 +174,11 @@ describe('the time a record was taken', () => {
   it('allows a clock a few minutes ahead', () => {
     expect(recordedAtFromTime('00:14', now)?.getTime()).toBe(new Date(2026, 11, 3, 0, 14).getTime());
   });
-  it.each(['', '7', '24:00', '12:60', 'noon'])('refuses %j', (t) => {
+  it('takes the digits alone from a keypad without a colon', () => {
+    expect(recordedAtFromTime('0005', now)?.getTime()).toBe(new Date(2026, 11, 3, 0, 5).getTime());
+    expect(recordedAtFromTime('2350', now)?.getTime()).toBe(new Date(2026, 11, 2, 23, 50).getTime());
+  });
+  it.each(['', '7', '24:00', '12:60', '2460', 'noon', '2:5'])('refuses %j', (t) => {
     expect(recordedAtFromTime(t, now)).toBeNull();
   });
 });

@@ -3,7 +3,7 @@
 // Kept on this device (localStorage, so the first paint is right) and on the account (the app
 // shell copies the account's choice here once it is known, so every device follows it).
 import { useMemo, useSyncExternalStore } from 'react';
-import { celsiusDeltaToFahrenheit, formatMass, formatTemperature, isUnitSystem, temperatureUnitOf, type UnitSystem } from '#shared/units';
+import { celsiusDeltaToFahrenheit, celsiusToFahrenheit, fahrenheitToCelsius, formatMass, formatTemperature, isUnitSystem, temperatureUnitOf, type UnitSystem } from '#shared/units';
 import { celsius, grams, pieceWeight, weight } from './format.ts';
 
 const KEY = 'panform.units';
@@ -63,6 +63,27 @@ export function unitsFor(system: UnitSystem): Units {
     pieceWeight: us,
     temperature: (c, decimals = 1) => formatTemperature(c, temperatureUnitOf(system), decimals),
     degrees: (dc) => `${Number(celsiusDeltaToFahrenheit(dc).toFixed(1))} °F`,
+  };
+}
+
+/** A temperature typed into a form: in °F for US customary, kept in °C. */
+export interface TemperatureInput {
+  unit: 'C' | 'F';
+  /** The typed number → °C (to 0.01 °C, so a typed °F figure comes back as typed). */
+  fromTyped: (v: number) => number;
+  /** A kept °C → the figure to show in the field (to 0.1 °F). */
+  toTyped: (c: number | null | undefined) => number | null | undefined;
+  /** "0 to 60 °C" or "32 to 140 °F", for a message. */
+  range: (loC: number, hiC: number) => string;
+}
+
+export function temperatureInput(system: UnitSystem): TemperatureInput {
+  if (temperatureUnitOf(system) === 'C') return { unit: 'C', fromTyped: (v) => v, toTyped: (c) => c, range: (lo, hi) => `${lo} to ${hi} °C` };
+  return {
+    unit: 'F',
+    fromTyped: (v) => Math.round(fahrenheitToCelsius(v) * 100) / 100,
+    toTyped: (c) => (c == null ? c : Math.round(celsiusToFahrenheit(c) * 10) / 10),
+    range: (lo, hi) => `${celsiusToFahrenheit(lo)} to ${celsiusToFahrenheit(hi)} °F`,
   };
 }
 

@@ -1,6 +1,6 @@
 // The viewer's units follow the CLI's: the same shared functions, the same exact definitions.
 import { describe, expect, it } from 'vitest';
-import { unitsFor } from '../../../src/lib/units.ts';
+import { temperatureInput, unitsFor } from '../../../src/lib/units.ts';
 import { weight as cliWeight, temperature as cliTemperature } from '../../../cli/print/format.ts';
 import { DEFAULT_RESOLUTION } from '#shared/units';
 
@@ -28,5 +28,27 @@ describe('unitsFor', () => {
     expect(metric.grams(56.34)).toBe('56.3 g');
     expect(metric.temperature(25, 0)).toBe('25 °C');
     expect(metric.degrees(13)).toBe('13 °C');
+  });
+});
+
+describe('temperatureInput (the record form)', () => {
+  it('reads °F typed in US customary and keeps °C', () => {
+    const f = temperatureInput('us');
+    expect(f.unit).toBe('F');
+    expect(f.fromTyped(32)).toBe(0); // NIST SP 811 App. B.8: t/°C = (t/°F − 32)/1.8
+    expect(f.fromTyped(78.8)).toBe(26); // (78.8 − 32)/1.8 = 26
+    expect(f.fromTyped(77.5)).toBe(25.28); // 25.277… kept to 0.01 °C
+    expect(f.toTyped(26)).toBe(78.8); // back as it was typed
+    expect(f.toTyped(f.fromTyped(77.5))).toBe(77.5);
+    expect(f.toTyped(null)).toBeNull();
+    expect(f.range(0, 60)).toBe('32 to 140 °F'); // NIST SP 811 App. B.8
+  });
+
+  it('takes °C as typed in metric', () => {
+    const c = temperatureInput('metric');
+    expect(c.unit).toBe('C');
+    expect(c.fromTyped(25.5)).toBe(25.5);
+    expect(c.toTyped(25.5)).toBe(25.5);
+    expect(c.range(0, 100)).toBe('0 to 100 °C');
   });
 });

@@ -5,7 +5,7 @@ import { useEffect, useId, useRef, useState, type FormEvent } from 'react';
 import { Button } from '../../../components/button.tsx';
 import { readNumber, TextField } from '../../../components/field.tsx';
 import { Segmented } from '../../../components/segmented.tsx';
-import { useUnits } from '../../../lib/units.ts';
+import { temperatureInput, useUnits } from '../../../lib/units.ts';
 import type { BenchRecord, RecordTarget } from '../api/types.ts';
 import { getDeviceOutbox, recordedAtFromTime, timeOfDay, type PendingRecord } from '../outbox.ts';
 
@@ -42,12 +42,14 @@ function rememberInitials(initials: string): void {
 const numberText = (n: number | null | undefined) => (n === null || n === undefined ? '' : String(n));
 
 export function RecordDialog({ date, target, correcting, onClose }: RecordDialogProps) {
-  const { temperature } = useUnits();
+  const { temperature, system } = useUnits();
+  // Temperatures are typed in the person's units (°F in US customary) and kept in °C.
+  const { unit, fromTyped, toTyped, range } = temperatureInput(system);
   const ref = useRef<HTMLDialogElement>(null);
   const titleId = useId();
   const isMix = target.kind === 'mix';
-  const [dough, setDough] = useState(numberText(correcting?.doughTemperature));
-  const [water, setWater] = useState(numberText(correcting?.waterTemperature));
+  const [dough, setDough] = useState(() => numberText(toTyped(correcting?.doughTemperature)));
+  const [water, setWater] = useState(() => numberText(toTyped(correcting?.waterTemperature)));
   const [time, setTime] = useState(() => timeOfDay(correcting ? new Date(correcting.recordedAt) : new Date()));
   const [initials, setInitials] = useState(rememberedInitials);
   const [note, setNote] = useState(correcting?.note ?? '');
@@ -88,11 +90,15 @@ export function RecordDialog({ date, target, correcting, onClose }: RecordDialog
   const submit = async (e: FormEvent) => {
     e.preventDefault();
     const found: Record<string, string> = {};
-    const doughValue = dough.trim() === '' ? null : readNumber(dough);
-    const waterValue = water.trim() === '' ? null : readNumber(water);
+    const typed = (text: string) => {
+      const n = text.trim() === '' ? null : readNumber(text);
+      return n === null ? null : fromTyped(n);
+    };
+    const doughValue = typed(dough);
+    const waterValue = typed(water);
     if (isMix && dough.trim() === '') found.dough = 'Write the dough temperature off the mixer.';
-    else if (dough.trim() !== '' && (doughValue === null || doughValue < 0 || doughValue > 60)) found.dough = 'A temperature from 0 to 60 °C.';
-    if (water.trim() !== '' && (waterValue === null || waterValue < 0 || waterValue > 100)) found.water = 'A temperature from 0 to 100 °C.';
+    else if (dough.trim() !== '' && (doughValue === null || doughValue < 0 || doughValue > 60)) found.dough = `A temperature from ${range(0, 60)}.`;
+    if (water.trim() !== '' && (waterValue === null || waterValue < 0 || waterValue > 100)) found.water = `A temperature from ${range(0, 100)}.`;
     const at = recordedAtFromTime(time, new Date());
     if (!at) found.time = 'A time on the 24-hour clock, such as 02:15.';
     const ini = initials.trim();
@@ -167,7 +173,7 @@ export function RecordDialog({ date, target, correcting, onClose }: RecordDialog
             label={isMix ? 'Dough off the mixer' : 'Build temperature'}
             inputMode="decimal"
             autoComplete="off"
-            suffix="°C"
+            suffix={`°${unit}`}
             value={dough}
             onChange={(e) => setDough(e.target.value)}
             error={errors.dough}
@@ -178,7 +184,7 @@ export function RecordDialog({ date, target, correcting, onClose }: RecordDialog
             label="Water used"
             inputMode="decimal"
             autoComplete="off"
-            suffix="°C"
+            suffix={`°${unit}`}
             value={water}
             onChange={(e) => setWater(e.target.value)}
             error={errors.water}

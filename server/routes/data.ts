@@ -10,23 +10,15 @@
 // Revision history is not cached: it is read from the database when asked for.
 import { desc, max } from 'drizzle-orm';
 import { LRUCache } from 'lru-cache';
-import type { FormulaFigures } from '#shared/api';
+import type { FormulaSummary } from '#shared/api';
 import { pickFigures } from '#shared/figures';
 import { normalizeCatalog, normalizeFormula, normalizePlan, type Catalog, type Formula, type Plan } from '#shared/model';
 import type { CatalogFile, FormulaFile, PlanFile } from '#shared/schema/shapes';
 import type { Database } from '../db/client.ts';
 import { catalogTable, formulasTable, loadsTable, plansTable } from '../db/schema.ts';
 
-export interface FormulaEntry {
-  id: string;
-  title: string;
-  /** As the viewer should treat it: a formula whose file was removed counts as retired. */
-  status: string;
-  category: string;
-  tags: string[];
-  figures: FormulaFigures;
-  revision: number;
-  updatedAt: string;
+/** A formula as the server holds it: what the list shows (FormulaSummary), and the rest. */
+export interface FormulaEntry extends FormulaSummary {
   path: string;
   /** Null when the stored content no longer normalizes (it passed the schema when loaded). */
   formula: Formula | null;

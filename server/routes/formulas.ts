@@ -220,6 +220,15 @@ const COMMIT_COLUMNS = {
   gitMessage: formulaRevisionsTable.gitMessage,
 };
 
+/** What a revision's summary is made of (revisionSummary). */
+const REVISION_COLUMNS = {
+  revision: formulaRevisionsTable.revision,
+  contentHash: formulaRevisionsTable.contentHash,
+  ...COMMIT_COLUMNS,
+  loadedAt: formulaRevisionsTable.loadedAt,
+  figures: formulaRevisionsTable.figures,
+};
+
 function revisionSummary(r: CommitColumns & { revision: number; contentHash: string; loadedAt: Date; figures: unknown }): RevisionSummary {
   return {
     revision: r.revision,
@@ -336,13 +345,7 @@ export function formulasRouter(ctx: ServerContext): Router {
     const snapshot = await ctx.data.snapshot();
     const entry = visibleFormula(snapshot, req.params.id, user.role);
     const rows = await ctx.db
-      .select({
-        revision: formulaRevisionsTable.revision,
-        contentHash: formulaRevisionsTable.contentHash,
-        ...COMMIT_COLUMNS,
-        loadedAt: formulaRevisionsTable.loadedAt,
-        figures: formulaRevisionsTable.figures,
-      })
+      .select(REVISION_COLUMNS)
       .from(formulaRevisionsTable)
       .where(eq(formulaRevisionsTable.formulaId, entry.id))
       .orderBy(desc(formulaRevisionsTable.revision));
@@ -391,11 +394,7 @@ export function formulasRouter(ctx: ServerContext): Router {
         formula: formulaRevisionsTable.formulaId,
         title: formulasTable.title,
         status: formulasTable.status,
-        revision: formulaRevisionsTable.revision,
-        contentHash: formulaRevisionsTable.contentHash,
-        ...COMMIT_COLUMNS,
-        loadedAt: formulaRevisionsTable.loadedAt,
-        figures: formulaRevisionsTable.figures,
+        ...REVISION_COLUMNS,
       })
       .from(formulaRevisionsTable)
       .innerJoin(formulasTable, eq(formulasTable.id, formulaRevisionsTable.formulaId))

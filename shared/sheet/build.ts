@@ -23,7 +23,7 @@ import { cautionFacts, cautionsFor, type CautionSet } from '../cautions.ts';
 import { planBuildWater, planMixWater, type MixWater } from '../dough-water.ts';
 import { computeIce, HOT_WATER_CELSIUS, WARM_WATER_ADVICE, WARM_WATER_CELSIUS } from '../temperature.ts';
 import { formatTemperature } from '../units.ts';
-import { bookBuilds, finishBookings, scheduleNight } from '../schedule/night.ts';
+import { bookBuilds, finishBookings, scheduleNight, type NightMix } from '../schedule/night.ts';
 import { clockMinutes, localDateTime, minuteOf } from './time.ts';
 import {
   SheetError,
@@ -45,15 +45,9 @@ import { cultureFeeds } from './cultures.ts';
 
 const EPSILON = 1e-9;
 
-interface PlannedMix {
-  order: number;
+/** A mix of the plan as the scheduler sees it (NightMix), with its order and its scaled batch. */
+interface PlannedMix extends Omit<NightMix, 'label' | 'allergens'> {
   o: Order;
-  formula: Formula;
-  mixer: Mixer;
-  mixNumber: number;
-  of: number;
-  pieces: number;
-  pieceGrams: number;
   scaled: ScaleResult;
   mixStart: number;
   mixEnd: number;

@@ -7,20 +7,12 @@
 import { createStore, del, set, values } from 'idb-keyval';
 import type { BenchRecord } from './api/types.ts';
 
-/** What the baker wrote, checked by the form; temperatures in °C. */
-export interface RecordFields {
-  kind: 'mix' | 'build';
-  doughTemperature: number | null;
-  waterTemperature: number | null;
-  /** Builds: ripe or not; null: not said. */
-  ripe: boolean | null;
-  note: string;
-  initials: string;
-  /** When it was measured, ISO 8601 in UTC (the tablet's clock, or the time typed). */
-  recordedAt: string;
-  /** The id of the record this one corrects. */
-  corrects: number | null;
-}
+/**
+ * What the baker wrote, checked by the form: the record's own fields (temperatures in °C;
+ * `recordedAt` ISO 8601 in UTC, the tablet's clock or the time typed; `corrects` the id of the
+ * record this one corrects).
+ */
+export type RecordFields = Pick<BenchRecord, 'kind' | 'doughTemperature' | 'waterTemperature' | 'ripe' | 'note' | 'initials' | 'recordedAt' | 'corrects'>;
 
 export interface PendingRecord {
   /** The idempotency key, sent as `client_id`. */

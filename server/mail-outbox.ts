@@ -10,6 +10,7 @@ import { and, asc, eq, inArray, isNull, lte, sql } from 'drizzle-orm';
 import type { OutgoingMail } from './context.ts';
 import type { Database } from './db/client.ts';
 import { mailOutboxTable } from './db/schema.ts';
+import { SingleFlight } from '#shared/single-flight';
 
 /** Tries before a message is given up (about a day and a half of waiting in all). */
 export const MAX_ATTEMPTS = 8;
@@ -22,8 +23,9 @@ export function retryDelayMs(attempts: number): number {
 }
 
 export class MailOutbox {
-  private running: Promise<void> | null = null;
-  private again = false;
+  private readonly sending = new SingleFlight(async () => {
+    while (await this.sendOne());
+  });
   private timer: NodeJS.Timeout | null = null;
 
   constructor(
@@ -42,21 +44,7 @@ export class MailOutbox {
 
   /** Sends every message that is due; one run at a time (a call during a run makes it go round again). */
   drain(): Promise<void> {
-    if (this.running) {
-      this.again = true;
-      return this.running;
-    }
-    this.running = (async () => {
-      try {
-        do {
-          this.again = false;
-          while (await this.sendOne());
-        } while (this.again);
-      } finally {
-        this.running = null;
-      }
-    })();
-    return this.running;
+    return this.sending.run();
   }
 
   /** Claims and sends the oldest due message; false when none is due. */
@@ -109,6 +97,6 @@ export class MailOutbox {
   async stop(): Promise<void> {
     if (this.timer) clearInterval(this.timer);
     this.timer = null;
-    await this.running;
+    await this.sending.idle();
   }
 }

@@ -6,6 +6,7 @@
 // record sent twice (an answer lost on the way) is stored once.
 import { createStore, del, set, values } from 'idb-keyval';
 import type { BenchRecord } from './api/types.ts';
+import { SingleFlight } from '#shared/single-flight';
 
 /**
  * What the baker wrote, checked by the form: the record's own fields (temperatures in °C;
@@ -118,8 +119,10 @@ export async function sendRecord(p: PendingRecord): Promise<SendOutcome> {
 export class Outbox {
   private state: OutboxState = { items: [], sending: false, problem: null };
   private listeners = new Set<() => void>();
-  private running: Promise<void> | null = null;
-  private again = false;
+  private readonly sending = new SingleFlight(
+    () => this.sendAll(),
+    () => this.setState({ sending: false }),
+  );
 
   constructor(
     private readonly store: OutboxStore,
@@ -161,22 +164,7 @@ export class Outbox {
 
   /** Sends what waits, oldest first, one at a time; stops at the first that has to wait. */
   flush(): Promise<void> {
-    if (this.running) {
-      this.again = true;
-      return this.running;
-    }
-    this.running = (async () => {
-      try {
-        do {
-          this.again = false;
-          await this.sendAll();
-        } while (this.again);
-      } finally {
-        this.running = null;
-        this.setState({ sending: false });
-      }
-    })();
-    return this.running;
+    return this.sending.run();
   }
 
   private async sendAll(): Promise<void> {

@@ -3,7 +3,7 @@
 // Kept on this device (localStorage, so the first paint is right) and on the account (the app
 // shell copies the account's choice here once it is known, so every device follows it).
 import { useMemo, useSyncExternalStore } from 'react';
-import { celsiusDeltaToFahrenheit, celsiusToFahrenheit, fahrenheitToCelsius, formatMass, formatTemperature, isUnitSystem, temperatureUnitOf, type UnitSystem } from '#shared/units';
+import { celsiusDeltaToFahrenheit, celsiusToFahrenheit, fahrenheitDeltaToCelsius, fahrenheitToCelsius, formatMass, formatTemperature, isUnitSystem, temperatureUnitOf, type UnitSystem } from '#shared/units';
 import { celsius, grams, pieceWeight, weight } from './format.ts';
 
 const KEY = 'panform.units';
@@ -75,15 +75,23 @@ export interface TemperatureInput {
   toTyped: (c: number | null | undefined) => number | null | undefined;
   /** "0 to 60 °C" or "32 to 140 °F", for a message. */
   range: (loC: number, hiC: number) => string;
+  /** A typed difference (a mixer's rise, in °F-degrees for US customary) → °C-degrees. */
+  deltaFromTyped: (v: number) => number;
+  /** °C-degrees → the difference to show in the field. */
+  deltaToTyped: (dc: number) => number;
 }
 
 export function temperatureInput(system: UnitSystem): TemperatureInput {
-  if (temperatureUnitOf(system) === 'C') return { unit: 'C', fromTyped: (v) => v, toTyped: (c) => c, range: (lo, hi) => `${lo} to ${hi} °C` };
+  if (temperatureUnitOf(system) === 'C') {
+    return { unit: 'C', fromTyped: (v) => v, toTyped: (c) => c, range: (lo, hi) => `${lo} to ${hi} °C`, deltaFromTyped: (v) => v, deltaToTyped: (dc) => dc };
+  }
   return {
     unit: 'F',
     fromTyped: (v) => Math.round(fahrenheitToCelsius(v) * 100) / 100,
     toTyped: (c) => (c == null ? c : Math.round(celsiusToFahrenheit(c) * 10) / 10),
     range: (lo, hi) => `${celsiusToFahrenheit(lo)} to ${celsiusToFahrenheit(hi)} °F`,
+    deltaFromTyped: (v) => Math.round(fahrenheitDeltaToCelsius(v) * 100) / 100,
+    deltaToTyped: (dc) => Math.round(celsiusDeltaToFahrenheit(dc) * 100) / 100,
   };
 }
 

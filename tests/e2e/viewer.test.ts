@@ -358,6 +358,12 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
       // Flour of the written batch, 1808.53 g (above), ÷ 28.349 523 125 g/oz (NIST SP 811 App. B.8)
       // = 63.79 oz = 3 lb 15.79 oz.
       await waitForWeight(page, 'overall', 'bread flour', '3 lb 15.79 oz');
+      // The water helper's readings are typed in °F too: the bake day's flour, 20 °C, is 68 °F
+      // (NIST SP 811 App. B.8: t/°F = 1.8·t/°C + 32).
+      const helper = page.getByTestId('water-helper');
+      await page.waitForFunction(() => (document.querySelector('[data-testid="water-mixer"]') as HTMLSelectElement | null)?.value === 'spiral');
+      expect(await helper.getByLabel('Flour').inputValue()).toBe('68');
+      expect(await helper.getByTestId('water-temperature').textContent()).toMatch(/°F$/);
       const printed = await printPreview(page, 'formula-harbour-ciabatta-us');
       let text = '';
       try {

@@ -2,11 +2,11 @@ import { useEffect, useState } from 'react';
 import { FRICTION_CONVENTION, planMixWater, prefermentTemperature, type MixWater } from '#shared/dough-water';
 import type { Catalog, Formula, Plan } from '#shared/model';
 import type { ScaleResult } from '#shared/scale';
-import { formatTemperatureRange } from '#shared/units';
+import { celsiusDeltaToFahrenheit, celsiusToFahrenheit, fahrenheitDeltaToCelsius, fahrenheitToCelsius, formatTemperatureRange, type TemperatureUnit } from '#shared/units';
 import { dayMonth } from '#shared/sheet/time';
 import { readNumber, SelectField, TextField } from '../../../components/field.tsx';
 import { Button } from '../../../components/button.tsx';
-import { useUnits } from '../../../lib/units.ts';
+import { temperatureInput, useUnits } from '../../../lib/units.ts';
 import type { FrictionProposal } from '../../records/api/types.ts';
 
 /** The readings last typed on this device, kept between visits (they are the bench's, not the file's). */
@@ -19,10 +19,12 @@ export interface Readings {
   room: string;
   flour: string;
   tap: string;
-  /** The mixer's rise, °C-degrees. */
+  /** The mixer's rise, in degrees of `unit`. */
   rise: string;
   /** Pre-ferment temperatures measured tonight, by name; empty: not measured. */
   preferments: Record<string, string>;
+  /** The unit the temperatures are typed in (the person's units); missing: °C. */
+  unit?: TemperatureUnit;
 }
 
 const EMPTY: Readings = { date: '', mixer: '', room: '', flour: '', tap: '', rise: '', preferments: {} };
@@ -44,6 +46,30 @@ function saveReadings(r: Readings): void {
   } catch {
     // Private browsing or a full store: the helper still works, it only forgets.
   }
+}
+
+/** A typed figure in another unit: a temperature, or a difference (`delta`) such as a mixer's rise. Text that is no number stays as typed. */
+function typedIn(text: string, from: TemperatureUnit, to: TemperatureUnit, delta = false): string {
+  const n = readNumber(text);
+  if (from === to || text.trim() === '' || n === null) return text;
+  const v = to === 'F' ? (delta ? celsiusDeltaToFahrenheit(n) : celsiusToFahrenheit(n)) : delta ? fahrenheitDeltaToCelsius(n) : fahrenheitToCelsius(n);
+  return String(Number(v.toFixed(2)));
+}
+
+/** The readings typed in `to`: those kept in the other unit are converted once (the person changed units). */
+export function readingsIn(r: Readings, to: TemperatureUnit): Readings {
+  const from = r.unit ?? 'C';
+  if (from === to) return r;
+  const t = (text: string) => typedIn(text, from, to);
+  return {
+    ...r,
+    unit: to,
+    room: t(r.room),
+    flour: t(r.flour),
+    tap: t(r.tap),
+    rise: typedIn(r.rise, from, to, true),
+    preferments: Object.fromEntries(Object.entries(r.preferments).map(([name, text]) => [name, t(text)])),
+  };
 }
 
 /** A bake day's conditions and one of its mixers as readings (the mixer this formula is ordered on, else the first). */
@@ -100,37 +126,55 @@ export function WaterTemperatureHelper({
   onIce?: (ice: boolean) => void;
   useFriction?: UseFriction;
 }) {
-  const { grams, temperature: celsius, degrees } = useUnits();
-  const [readings, setReadings] = useState<Readings>(() => loadReadings() ?? EMPTY);
-  const [ddt, setDdt] = useState(formula.doughTemperature === undefined ? '' : String(formula.doughTemperature));
+  const { grams, temperature: celsius, degrees, system } = useUnits();
+  // Temperatures are typed in the person's units and worked out in °C.
+  const { unit, fromTyped, toTyped, deltaFromTyped, deltaToTyped } = temperatureInput(system);
+  const [kept, setReadings] = useState<Readings>(() => loadReadings() ?? EMPTY);
+  const readings = readingsIn(kept, unit);
+  const [ddtTyped, setDdtTyped] = useState(() => ({ text: formula.doughTemperature === undefined ? '' : String(formula.doughTemperature), unit: 'C' as TemperatureUnit }));
+  const ddt = typedIn(ddtTyped.text, ddtTyped.unit, unit);
+  const setDdt = (text: string) => setDdtTyped({ text, unit });
+  const fromPlan = (p: Plan, mixerName?: string) => readingsIn(readingsFromPlan(p, formula.id, mixerName), unit);
   const chosen = readings.date || nextBakeDay(days.dates, new Date().toISOString().slice(0, 10));
   const plan = days.usePlan(chosen);
 
   // With nothing kept on this device, start from the first bake day's conditions.
   useEffect(() => {
-    if (plan && readings.date === '' && readings.room === '') setReadings(readingsFromPlan(plan, formula.id));
-  }, [plan, readings.date, readings.room, formula.id]);
+    if (plan && readings.date === '' && readings.room === '') setReadings(readingsIn(readingsFromPlan(plan, formula.id), unit));
+  }, [plan, readings.date, readings.room, formula.id, unit]);
 
   const update = (next: Readings) => {
-    setReadings(next);
-    saveReadings(next);
+    const typed = { ...next, unit };
+    setReadings(typed);
+    saveReadings(typed);
   };
   const set = (k: 'room' | 'flour' | 'tap' | 'rise') => (e: { target: { value: string } }) => update({ ...readings, [k]: e.target.value });
   const chooseDay = (date: string) => update({ ...readings, date, mixer: '' });
-  const chooseMixer = (name: string) => plan && update({ ...readingsFromPlan(plan, formula.id, name), preferments: readings.preferments });
-  const takeDay = () => plan && update({ ...readingsFromPlan(plan, formula.id, readings.mixer), preferments: readings.preferments });
+  const chooseMixer = (name: string) => plan && update({ ...fromPlan(plan, name), preferments: readings.preferments });
+  const takeDay = () => plan && update({ ...fromPlan(plan, readings.mixer), preferments: readings.preferments });
 
-  const values = [ddt, readings.room, readings.flour, readings.rise, readings.tap].map(readNumber);
+  // In °C (and °C-degrees for the rise) from here on.
+  const typedNumber = (text: string, toC: (v: number) => number) => {
+    const n = readNumber(text);
+    return n === null ? null : toC(n);
+  };
+  const values = [
+    typedNumber(ddt, fromTyped),
+    typedNumber(readings.room, fromTyped),
+    typedNumber(readings.flour, fromTyped),
+    typedNumber(readings.rise, deltaFromTyped),
+    typedNumber(readings.tap, fromTyped),
+  ];
   const measured = formula.preferments.map((p) => {
     const text = readings.preferments[p.name] ?? '';
-    return text.trim() === '' ? undefined : (readNumber(text) ?? Number.NaN);
+    return text.trim() === '' ? undefined : (typedNumber(text, fromTyped) ?? Number.NaN);
   });
   const missing = values.some((v) => v === null) || measured.some((v) => Number.isNaN(v));
 
   let water: MixWater | null = null;
   if (!missing) {
     const [d, room, flour, rise, tap] = values as number[];
-    water = planMixWater(formula, scaled, catalog, { ddt: d, room, flour, rise, tap, measured, prefermentDefault: plan?.conditions.preferment });
+    water = planMixWater(formula, scaled, catalog, { ddt: d, room, flour, rise, tap, measured, prefermentDefault: plan?.conditions.preferment }, unit);
   }
   const takesIce = water?.main?.ice != null && water.main.ice > 0;
   useEffect(() => onIce?.(takesIce), [onIce, takesIce]);
@@ -168,22 +212,22 @@ export function WaterTemperatureHelper({
         <TextField
           label="Dough off the mixer"
           inputMode="decimal"
-          suffix="°C"
-          hint={formula.doughTemperatureRange && formula.doughTemperatureRange.min !== formula.doughTemperatureRange.max ? `range ${formatTemperatureRange(formula.doughTemperatureRange)}` : undefined}
+          suffix={`°${unit}`}
+          hint={formula.doughTemperatureRange && formula.doughTemperatureRange.min !== formula.doughTemperatureRange.max ? `range ${formatTemperatureRange(formula.doughTemperatureRange, unit)}` : undefined}
           value={ddt}
           onChange={(e) => setDdt(e.target.value)}
         />
-        <TextField label="Room" inputMode="decimal" suffix="°C" value={readings.room} onChange={set('room')} />
-        <TextField label="Flour" inputMode="decimal" suffix="°C" value={readings.flour} onChange={set('flour')} />
+        <TextField label="Room" inputMode="decimal" suffix={`°${unit}`} value={readings.room} onChange={set('room')} />
+        <TextField label="Flour" inputMode="decimal" suffix={`°${unit}`} value={readings.flour} onChange={set('flour')} />
         {formula.preferments.map((p) => {
-          const fallback = prefermentTemperature(p, { planDefault: plan?.conditions.preferment, room: readNumber(readings.room) ?? 20 });
+          const fallback = prefermentTemperature(p, { planDefault: plan?.conditions.preferment, room: values[1] ?? 20 });
           return (
             <TextField
               key={p.name}
               label={`${p.name[0].toUpperCase()}${p.name.slice(1)} tonight`}
               inputMode="decimal"
-              suffix="°C"
-              placeholder={String(Number(fallback.temperature.toFixed(1)))}
+              suffix={`°${unit}`}
+              placeholder={String(Number(toTyped(fallback.temperature)!.toFixed(1)))}
               hint={`empty: its ${fallback.source === 'ripening' ? 'ripening temperature' : fallback.source} (${celsius(fallback.temperature)})`}
               value={readings.preferments[p.name] ?? ''}
               onChange={(e) => update({ ...readings, preferments: { ...readings.preferments, [p.name]: e.target.value } })}
@@ -193,19 +237,19 @@ export function WaterTemperatureHelper({
         <TextField
           label="Mixer rise"
           inputMode="decimal"
-          suffix="°C"
-          hint={mixer?.riseFrom === 'friction' ? `${mixer.name}: straight-dough friction ${(mixer.rise * 3).toFixed(1)} °C ÷ 3` : 'how much warmer dough comes off it'}
+          suffix={`°${unit}`}
+          hint={mixer?.riseFrom === 'friction' ? `${mixer.name}: straight-dough friction ${degrees(mixer.rise * 3)} ÷ 3` : 'how much warmer dough comes off it'}
           value={readings.rise}
           onChange={set('rise')}
         />
-        <TextField label="Tap water" inputMode="decimal" suffix="°C" value={readings.tap} onChange={set('tap')} />
+        <TextField label="Tap water" inputMode="decimal" suffix={`°${unit}`} value={readings.tap} onChange={set('tap')} />
       </div>
       {proposal && (
         <FrictionOffer
           proposal={proposal}
           fileRise={mixer?.rise}
-          rise={readNumber(readings.rise)}
-          onUse={(rise) => update({ ...readings, rise: String(Number(rise.toFixed(2))) })}
+          rise={values[3]}
+          onUse={(rise) => update({ ...readings, rise: String(Number(deltaToTyped(rise).toFixed(2))) })}
         />
       )}
       <p className={`text-sm text-muted ${missing ? 'print:hidden' : ''}`} data-testid="water-convention">
@@ -246,7 +290,7 @@ export function WaterTemperatureHelper({
             {water.liquid?.kind === 'other' && <span className="mt-1 block text-sm text-muted">Specific heat {water.specificHeat}.</span>}
             <span className="mt-1 hidden text-sm print:block">
               Readings: {readings.date ? `${readings.date}, ` : ''}
-              {readings.mixer ? `${readings.mixer}, ` : ''}tap {readings.tap} °C.
+              {readings.mixer ? `${readings.mixer}, ` : ''}tap {readings.tap} °{unit}.
             </span>
           </>
         )}

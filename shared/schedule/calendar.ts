@@ -53,6 +53,29 @@ function ruledOut(list: Busy[], i: number, minutes: number, before: number, afte
   };
 }
 
+/**
+ * The latest end at or before `end` at which an operation of `minutes` fits between the bookings of
+ * a sorted, non-overlapping list (`gapBefore`, `gapAfter`: as for `neighbourConflict`), or
+ * -Infinity. Every end after it and up to `end` is refused: a refusal can rule out the whole
+ * stretch down to it, not only the booking in the way.
+ */
+function latestFit(
+  list: Busy[], end: number, minutes: number, gapBefore: (b: Busy) => number, gapAfter: (b: Busy) => number,
+): number {
+  let i = firstStartingAtOrAfter(list, end);
+  let hi = end;
+  // Ends in (list[i - 1].start, list[i].start] are checked against these two bookings.
+  for (;;) {
+    const next = list[i];
+    const prev = list[i - 1];
+    const u = next ? Math.min(hi, next.start - gapBefore(next)) : hi;
+    if (!prev) return u;
+    if (u > prev.start && u >= prev.end + gapAfter(prev) + minutes) return u;
+    hi = prev.start;
+    i--;
+  }
+}
+
 export class Calendar {
   readonly mixers = new Map<string, Busy[]>();
   readonly decks = new Map<string, Busy[]>();
@@ -61,6 +84,7 @@ export class Calendar {
   overtime = false;
   private readonly mixerByName = new Map<string, MixerResource>();
   readonly ovenByName = new Map<string, OvenResource>();
+  private readonly deckLists = new Map<string, Busy[][]>();
 
   constructor(problem: Problem) {
     for (const m of problem.mixers) {
@@ -69,7 +93,12 @@ export class Calendar {
     }
     for (const o of problem.ovens) {
       this.ovenByName.set(o.name, o);
-      for (let d = 1; d <= o.decks; d++) this.decks.set(deckKey(o.name, d), []);
+      const lists: Busy[][] = [];
+      for (let d = 1; d <= o.decks; d++) {
+        lists.push([]);
+        this.decks.set(deckKey(o.name, d), lists[d - 1]);
+      }
+      this.deckLists.set(o.name, lists);
     }
     const lastEnd = Math.max(...problem.shifts.map((s) => s.to));
     problem.shifts.forEach((s, i) => {
@@ -85,28 +114,41 @@ export class Calendar {
     return this.mixerByName.get(mixer)?.cleanDown ?? 0;
   }
 
-  mixerConflict(mixer: string, start: number, end: number, allergens: readonly string[]): Refusal | null {
+  /**
+   * Whether the mix fits on the mixer, and if not why. `wide`: the refusal's `above` is the latest
+   * end below that fits (every end down to it is refused), not only the end of the booking in the
+   * way; a search that does not count refusals per booking jumps there in one step.
+   */
+  mixerConflict(mixer: string, start: number, end: number, allergens: readonly string[], wide = false): Refusal | null {
     // The bookings of one mixer never overlap and are kept sorted, so only the neighbours can clash.
     const list = this.mixers.get(mixer) ?? [];
     return neighbourConflict(
       list, start, end, 'mixer', mixer,
       (b) => this.cleanDown(mixer, allergens, b.allergens),
       (b) => this.cleanDown(mixer, b.allergens, allergens),
+      wide,
     );
   }
 
-  deckConflict(oven: OvenResource, deck: number, start: number, end: number, temperature: number | null): Refusal | null {
-    const list = this.decks.get(deckKey(oven.name, deck)) ?? [];
+  /** Whether the load fits on the deck, and if not why (`wide`: as for `mixerConflict`). */
+  deckConflict(oven: OvenResource, deck: number, start: number, end: number, temperature: number | null, wide = false): Refusal | null {
+    const list = this.deckList(oven.name, deck);
     return neighbourConflict(
       list, start, end, 'oven', oven.name,
       (b) => changeMinutes(oven, temperature, b.temperature),
       (b) => changeMinutes(oven, b.temperature, temperature),
+      wide,
     );
+  }
+
+  /** A deck's bookings (the same list as in `decks`), without building its key. */
+  deckList(oven: string, deck: number): Busy[] {
+    return this.deckLists.get(oven)?.[deck - 1] ?? [];
   }
 
   /** The temperature the deck bakes at just before `start`, if anything is baked before it. */
   deckBefore(oven: string, deck: number, start: number): number | null | undefined {
-    const list = this.decks.get(deckKey(oven, deck)) ?? [];
+    const list = this.deckList(oven, deck);
     let i = firstStartingAtOrAfter(list, start);
     while (i > 0 && list[i - 1].end > start) i--;
     return list[i - 1]?.temperature;
@@ -117,7 +159,7 @@ export class Calendar {
    * reasons (each person is out of their shift or busy for a stretch around `end`; the stretch all
    * of them share is refused).
    */
-  benchRefusal(start: number, end: number): Refusal {
+  benchRefusal(start: number, end: number, wide = false): Refusal {
     const minutes = end - start;
     let above = -Infinity;
     let below = Infinity;
@@ -129,6 +171,11 @@ export class Calendar {
       else {
         const j = firstStartingAtOrAfter(p.busy, end);
         r = ruledOut(p.busy, j - 1, minutes, 0, 0);
+      }
+      if (wide) {
+        // The latest end at or below this one at which this person is free (inside the shift).
+        const fit = latestFit(p.busy, Math.min(end, to), minutes, noGap, noGap);
+        r.above = fit - minutes >= p.from ? fit : -Infinity;
       }
       above = Math.max(above, r.above);
       below = Math.min(below, r.below);
@@ -170,6 +217,8 @@ function neighbourConflict(
   gapBefore: (b: Busy) => number,
   /** Minutes needed between a booking's end and this operation's start. */
   gapAfter: (b: Busy) => number,
+  /** Rule out every end down to the latest that fits (see `latestFit`). */
+  wide: boolean,
 ): Refusal | null {
   const i = firstStartingAtOrAfter(list, end);
   const prev = list[i - 1];
@@ -178,8 +227,12 @@ function neighbourConflict(
   else if (i < list.length && list[i].start < end + gapBefore(list[i])) at = i;
   if (at < 0) return null;
   const b = list[at];
-  return { kind, name, start: b.start, end: b.end, ...ruledOut(list, at, end - start, gapBefore(b), gapAfter(b)) };
+  const minutes = end - start;
+  const r = ruledOut(list, at, minutes, gapBefore(b), gapAfter(b));
+  return { kind, name, start: b.start, end: b.end, above: wide ? latestFit(list, end, minutes, gapBefore, gapAfter) : r.above, below: r.below };
 }
+
+const noGap = () => 0;
 
 export const deckKey = (oven: string, deck: number) => `${oven}\u0000${deck}`;
 

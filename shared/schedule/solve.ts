@@ -20,7 +20,7 @@
 //   not search them again.
 // - When the budget runs out or no on-time schedule exists, a single greedy pass keeps every order
 //   it can on time and places the others at the earliest time they can be out.
-import { book, Calendar, deckKey, unbook, type Busy, type Conflict, type Refusal } from './calendar.ts';
+import { book, Calendar, unbook, type Busy, type Conflict, type Refusal } from './calendar.ts';
 import type { Job, Load, Operation, OvenResource, Placement, Problem } from './problem.ts';
 
 export const GRID_MINUTES = 5;
@@ -55,7 +55,16 @@ interface Budget {
 
 type Tally = Map<string, { count: number; conflict: Conflict }>;
 
-export function solve(problem: Problem): Solution {
+export interface SolveOptions {
+  /**
+   * Skip what is known to fail: whole busy stretches per refusal, and ends whose operations before
+   * have nowhere to go (default). Off, every candidate is checked on its own; tests compare the two.
+   */
+  prune?: boolean;
+}
+
+export function solve(problem: Problem, options: SolveOptions = {}): Solution {
+  const prune = options.prune ?? true;
   const start = nightStart(problem);
   const order = [...problem.jobs].sort(
     (a, b) => a.due - b.due || processLength(b) - processLength(a) || a.id - b.id,
@@ -68,7 +77,7 @@ export function solve(problem: Problem): Solution {
   const chosen: Placement[] = [];
   let i = 0;
   while (i >= 0 && i < order.length && budget.left > 0) {
-    gens[i] ??= placeJob(order[i], calendar, start, -Infinity, order[i].due, budget, null);
+    gens[i] ??= placeJob(order[i], calendar, start, -Infinity, order[i].due, budget, null, prune);
     const r = gens[i]!.next();
     if (r.done) {
       gens[i] = undefined;
@@ -90,7 +99,7 @@ export function solve(problem: Problem): Solution {
   const late: LateJob[] = [];
   for (const job of order) {
     const tally: Tally = new Map();
-    const onTime = placeJob(job, greedy, start, -Infinity, job.due, { left: JOB_BUDGET }, tally).next();
+    const onTime = placeJob(job, greedy, start, -Infinity, job.due, { left: JOB_BUDGET }, tally, prune).next();
     if (!onTime.done) {
       placements[job.id] = onTime.value;
       continue;
@@ -98,7 +107,7 @@ export function solve(problem: Problem): Solution {
     greedy.overtime = true;
     // Out by due + 15 min, + 30, + 60, ... until it fits, then halve the step back to the grid.
     const attempt = (by: number) => {
-      const r = placeJob(job, greedy, start, job.due + 1, by, { left: JOB_BUDGET }, null);
+      const r = placeJob(job, greedy, start, job.due + 1, by, { left: JOB_BUDGET }, null, prune);
       const first = r.next();
       r.return(undefined);
       return !first.done;
@@ -117,7 +126,7 @@ export function solve(problem: Problem): Solution {
       if (attempt(mid)) fits = mid;
       else fails = mid;
     }
-    const r = placeJob(job, greedy, start, job.due + 1, fits, { left: JOB_BUDGET }, null).next();
+    const r = placeJob(job, greedy, start, job.due + 1, fits, { left: JOB_BUDGET }, null, prune).next();
     const found = r.done ? undefined : r.value;
     greedy.overtime = false;
     if (!found) throw new ScheduleError(job.id, `cannot be placed within ${LATE_HORIZON / 60} h of its due time on these resources`);
@@ -156,28 +165,73 @@ export function minimumLength(job: Job): number {
   return processLength(job) + (last.kind === 'bake' ? 0 : job.tail.min);
 }
 
-/** End times a refusal ruled out: every end strictly between `above` and `below`. */
-interface Skip {
-  above: number;
-  below: number;
-}
+/**
+ * End times known to fail, as open stretches (every end strictly between `above` and `below`),
+ * kept sorted and disjoint: a refusal rules out the stretch its booking blocks, and the search
+ * jumps over it without a check for each end.
+ */
+class Stretches {
+  private readonly above: number[] = [];
+  private readonly below: number[] = [];
 
-const NO_SKIP: Readonly<Skip> = { above: Infinity, below: -Infinity };
-const skipped = (t: number, skip: Readonly<Skip>) => t > skip.above && t < skip.below;
+  add(above: number, below: number): void {
+    if (!(above < below)) return;
+    // The first stretch that ends after `above`; merge every one that overlaps the new one.
+    let i = 0;
+    while (i < this.below.length && this.below[i] <= above) i++;
+    let j = i;
+    while (j < this.above.length && this.above[j] < below) {
+      above = Math.min(above, this.above[j]);
+      below = Math.max(below, this.below[j]);
+      j++;
+    }
+    this.above.splice(i, j - i, above);
+    this.below.splice(i, j - i, below);
+  }
+
+  /** The index of the stretch holding `t`, or -1. */
+  private at(t: number): number {
+    let lo = 0;
+    let hi = this.below.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (this.below[mid] <= t) lo = mid + 1;
+      else hi = mid;
+    }
+    return lo < this.above.length && this.above[lo] < t ? lo : -1;
+  }
+
+  has(t: number): boolean {
+    return this.at(t) >= 0;
+  }
+
+  /** The lower end of the stretch holding `t` (so the next end to try is at or below it), or NaN. */
+  floor(t: number): number {
+    const i = this.at(t);
+    return i < 0 ? NaN : this.above[i];
+  }
+
+  /** The stretch holding all of [lo, hi], if one does. */
+  holding(lo: number, hi: number): { above: number; below: number } | null {
+    const i = this.at(lo);
+    return i >= 0 && this.below[i] > hi ? { above: this.above[i], below: this.below[i] } : null;
+  }
+}
 
 /**
  * End times to try for an operation in [lo, hi]: the preferred one, the latest, every grid step, the
- * earliest. Grid steps inside the stretch `skip` rules out (the caller widens it as bookings turn
+ * earliest. Grid steps inside a stretch of `dead` (the caller adds to it as bookings turn
  * candidates away) are jumped over without being tried.
  */
-function* candidates(lo: number, hi: number, preferred: number, skip: Readonly<Skip> = NO_SKIP): Generator<number> {
+function* candidates(lo: number, hi: number, preferred: number, dead: Stretches): Generator<number> {
   if (lo > hi) return;
   if (preferred >= lo && preferred <= hi) yield preferred;
   if (hi !== preferred) yield hi;
   for (let t = Math.ceil(hi / GRID_MINUTES) * GRID_MINUTES - GRID_MINUTES; t > lo; t -= GRID_MINUTES) {
-    if (skipped(t, skip)) {
+    const floor = dead.floor(t);
+    if (floor === floor) {
       // Jump to the last grid step at or below the refused stretch.
-      t = Math.floor(skip.above / GRID_MINUTES) * GRID_MINUTES + GRID_MINUTES;
+      t = Math.floor(floor / GRID_MINUTES) * GRID_MINUTES + GRID_MINUTES;
       continue;
     }
     if (t !== preferred) yield t;
@@ -207,7 +261,7 @@ function note(tally: Tally | null, c: Refusal, lo: number, hi: number): void {
  * them out again.
  */
 function* placeJob(
-  job: Job, cal: Calendar, nightStart: number, outLo: number, outHi: number, budget: Budget, tally: Tally | null,
+  job: Job, cal: Calendar, nightStart: number, outLo: number, outHi: number, budget: Budget, tally: Tally | null, prune: boolean,
 ): Generator<Placement> {
   const ops = job.operations;
   const k = ops.length - 1;
@@ -217,30 +271,71 @@ function* placeJob(
   // night's start. An end before that leaves no room for the mix; it is not tried.
   const earliest: number[] = [];
   ops.forEach((op, i) => earliest.push((i === 0 ? nightStart : earliest[i - 1] + job.gaps[i].min) + op.minutes));
-  // Subtrees that yielded nothing, by what they depend on: the window (or the one end time) of an
-  // operation and this job's mixer and bench bookings after it (the loads do not touch the mixer
-  // or the bench). Trying the same shaping window for a load on another deck, or an end time a
-  // neighbouring window already tried, then costs nothing.
-  const failed = new Set<string>();
-  /** Per operation and bookings after it, the end times whose subtree yielded nothing. */
-  const failedEnds = new Map<string, Set<number>>();
-  const later = (i: number) => {
-    let key = `${i}`;
-    for (let j = i + 1; j < ops.length; j++) if (ops[j].kind !== 'bake') key += `|${times[j].start}:${people.get(j) ?? ''}`;
-    return key;
+  // Subtrees that yielded nothing, by what they depend on: an operation's window (or one end time
+  // of it), and the starts of this mix's mixes after it. Nothing else of this mix matters to them:
+  // its loads are on the decks, which the operations before the bake do not use, and its later
+  // bench tasks start after them (no wait is negative) on people checked only for overlap, so
+  // they never refuse an earlier one. A later mix on the same mixer can (it may stand between an
+  // earlier mix and another dough's, changing the clean-down the check asks for), hence its start
+  // in the key. Trying the same shaping window for a load on another deck or another bench
+  // person, or an end time a neighbouring window already tried, then costs nothing.
+  const laterMixes = ops.map((_, i) => ops.flatMap((op, j) => (j > i && op.kind === 'mix' && op.minutes > 0 ? [j] : [])));
+  interface Failed {
+    /** End times whose subtree yielded nothing. */
+    ends: Set<number>;
+    /** Windows that yielded nothing, by their latest end, then their earliest. */
+    windows: Map<number, Set<number>>;
+    /**
+     * Stretches of end times that fail: refused by the operation's resource, too early for the
+     * operations before it, or whose window before lies inside such a stretch of the operation
+     * before (so the bound travels up the chain to the loads).
+     */
+    dead: Stretches;
+  }
+  const failedFor = (i: number): Failed => {
+    const dead = new Stretches();
+    dead.add(-Infinity, earliest[i]);
+    return { ends: new Set(), windows: new Map(), dead };
   };
-  const keyOf = (i: number, lo: number, hi: number, preferred: number) => `${lo}|${hi}|${preferred}|${later(i)}`;
+  const plain: Failed[] = ops.map((_, i) => failedFor(i));
+  const keyed = new Map<string, Failed>();
+  const failedOf = (i: number): Failed => {
+    // Unpruned, keyed by every later booking of this mix (the bench people too).
+    const js = prune ? laterMixes[i] : ops.flatMap((op, j) => (j > i && op.kind !== 'bake' ? [j] : []));
+    if (js.length === 0) return plain[i];
+    const key = `${i}|${js.map((j) => `${times[j].start}:${people.get(j) ?? ''}`).join('|')}`;
+    let f = keyed.get(key);
+    if (!f) keyed.set(key, (f = failedFor(i)));
+    return f;
+  };
+  /**
+   * The stretch of ends of operation `i` that fail because, for each, the window of the operation
+   * before lies inside one stretch that fails there; null when that is not known. `start`: a start
+   * of operation `i` (for the loads, the latest load's).
+   */
+  const deadBefore = (i: number, start: number, minutes: number): { above: number; below: number } | null => {
+    // Only where the operation before does not depend on this one's start (a later mix's start keys it).
+    if (!prune || i === 0 || laterMixes[i - 1].length > 0) return null;
+    const gap = job.gaps[i];
+    const h = plain[i - 1].dead.holding(start - gap.max, start - gap.min);
+    return h && { above: h.above + gap.max + minutes, below: h.below + gap.min + minutes };
+  };
 
   function* before(i: number, lo: number, hi: number, preferred: number, loads: Load[], out: number): Generator<Placement> {
     if (i >= 0) {
-      const key = keyOf(i, lo, hi, preferred);
-      if (failed.has(key)) return;
+      // The window's preferred end follows from its latest for every operation, so the two ends key it.
+      const windows = failedOf(i).windows;
+      if (windows.get(hi)?.has(lo)) return;
       let found = false;
       for (const p of step(i, lo, hi, preferred, loads, out)) {
         found = true;
         yield p;
       }
-      if (!found && budget.left > 0) failed.add(key);
+      if (!found && budget.left > 0) {
+        let los = windows.get(hi);
+        if (!los) windows.set(hi, (los = new Set()));
+        los.add(lo);
+      }
       return;
     }
     yield* step(i, lo, hi, preferred, loads, out);
@@ -252,24 +347,26 @@ function* placeJob(
       return;
     }
     const op = ops[i];
-    const gap = job.gaps[i];
-    // A refusal rules out a stretch of candidates around it: jump over those without a check.
-    const skip: Skip = { above: Infinity, below: -Infinity };
-    const rest = later(i);
-    let ends = failedEnds.get(rest);
-    if (!ends) failedEnds.set(rest, (ends = new Set()));
+    const failed = failedOf(i);
+    const ends = failed.ends;
+    // Unpruned, a refusal rules out its stretch for this window only.
+    const dead = prune ? failed.dead : new Stretches();
     const from = Math.max(lo, earliest[i]);
-    for (const end of candidates(from, hi, preferred, skip)) {
-      if (skipped(end, skip)) continue;
-      if (ends.has(end)) continue;
+    for (const end of candidates(from, hi, preferred, dead)) {
+      if (dead.has(end) || ends.has(end)) continue;
+      const before = deadBefore(i, end - op.minutes, op.minutes);
+      if (before) {
+        dead.add(before.above, before.below);
+        continue;
+      }
       if (budget.left-- <= 0) return;
       if (op.minutes === 0) {
         // Nothing to book: the first candidate is as good as any.
-        yield* at(i, end, loads, out, skip, from, hi);
+        yield* at(i, end, loads, out, dead, from, hi);
         return;
       }
       let found = false;
-      for (const p of at(i, end, loads, out, skip, from, hi)) {
+      for (const p of at(i, end, loads, out, dead, from, hi)) {
         found = true;
         yield p;
       }
@@ -277,8 +374,8 @@ function* placeJob(
     }
   }
 
-  /** Every placement with operation `i` ending at `end`; a refusal sets `skip` (`lo`, `hi`: the window, for the tally). */
-  function* at(i: number, end: number, loads: Load[], out: number, skip: Skip, lo: number, hi: number): Generator<Placement> {
+  /** Every placement with operation `i` ending at `end`; a refusal adds to `dead` (`lo`, `hi`: the window, for the tally). */
+  function* at(i: number, end: number, loads: Load[], out: number, dead: Stretches, lo: number, hi: number): Generator<Placement> {
     const op = ops[i];
     const gap = job.gaps[i];
     const start = end - op.minutes;
@@ -289,11 +386,10 @@ function* placeJob(
       return;
     }
     if (op.kind === 'mix') {
-      const c = cal.mixerConflict(job.mixer, start, end, job.allergens);
+      const c = cal.mixerConflict(job.mixer, start, end, job.allergens, prune);
       if (c) {
         note(tally, c, lo, hi);
-        skip.above = c.above;
-        skip.below = c.below;
+        dead.add(c.above, c.below);
         return;
       }
       const b: Busy = { start, end, allergens: job.allergens };
@@ -307,10 +403,9 @@ function* placeJob(
     } else if (op.kind === 'bench') {
       const free = cal.freePeople(start, end);
       if (free.length === 0) {
-        const r = cal.benchRefusal(start, end);
+        const r = cal.benchRefusal(start, end, prune);
         note(tally, r, lo, hi);
-        skip.above = r.above;
-        skip.below = r.below;
+        dead.add(r.above, r.below);
         return;
       }
       for (const person of free) {
@@ -362,30 +457,39 @@ function* placeJob(
           ? [outLo, outHi, outHi]
           : [loads[0].start - spread + bake.minutes, loads[j - 1].start + bake.minutes, loads[j - 1].start + bake.minutes];
       // Per deck, the stretch of ends its last refusal ruled out; where every deck refuses, the
-      // stretch they share is jumped over.
-      const refused: Skip[] = Array.from({ length: oven.decks }, () => ({ ...NO_SKIP }));
-      const all: Skip = { ...NO_SKIP };
+      // stretch they share is jumped over, and so is every end that leaves no room before the
+      // first load for the operations before the bake.
+      const above: number[] = Array(oven.decks).fill(Infinity);
+      const below: number[] = Array(oven.decks).fill(-Infinity);
+      const all = new Stretches();
       const from = Math.max(lo, earliest[k]);
       for (const end of candidates(from, hi, preferred, all)) {
-        if (skipped(end, all)) continue;
+        if (all.has(end)) continue;
         const start = end - bake.minutes;
+        if (j === 0) {
+          const dead = deadBefore(k, start, bake.minutes);
+          if (dead) {
+            all.add(dead.above, dead.below);
+            continue;
+          }
+        }
         const open: number[] = [];
-        for (let d = 1; d <= oven.decks; d++) if (!skipped(end, refused[d - 1])) open.push(d);
+        for (let d = 1; d <= oven.decks; d++) if (!(end > above[d - 1] && end < below[d - 1])) open.push(d);
         if (open.length === 0) {
-          all.above = Math.max(...refused.map((r) => r.above));
-          all.below = Math.min(...refused.map((r) => r.below));
+          all.add(Math.max(...above), Math.min(...below));
           continue;
         }
         for (const deck of deckOrder(cal, oven, start, bake.temperature, open)) {
           if (budget.left-- <= 0) return;
-          const c = cal.deckConflict(oven, deck, start, end, bake.temperature);
+          const c = cal.deckConflict(oven, deck, start, end, bake.temperature, prune);
           if (c) {
             note(tally, c, from, hi);
-            refused[deck - 1] = { above: c.above, below: c.below };
+            above[deck - 1] = c.above;
+            below[deck - 1] = c.below;
             continue;
           }
           const b: Busy = { start, end, temperature: bake.temperature };
-          const list = cal.decks.get(deckKey(oven.name, deck))!;
+          const list = cal.deckList(oven.name, deck);
           book(list, b);
           loads.push({ oven: oven.name, deck, start, end, slots, temperature: bake.temperature });
           try {
@@ -408,17 +512,32 @@ function* placeJob(
 function deckOrder(cal: Calendar, oven: OvenResource, start: number, temperature: number | null, open: number[]): number[] {
   // Empty decks are all alike: try only the first of them.
   let emptySeen = false;
-  const decks = open.filter((d) => {
-    if ((cal.decks.get(deckKey(oven.name, d))?.length ?? 0) > 0) return true;
-    if (emptySeen) return false;
-    emptySeen = true;
-    return true;
-  });
+  const decks: number[] = [];
+  for (const d of open) {
+    if (cal.deckList(oven.name, d).length === 0) {
+      if (emptySeen) continue;
+      emptySeen = true;
+    }
+    decks.push(d);
+  }
   if (decks.length === 1 || temperature === null) return decks;
   const rank = (d: number) => {
     const t = cal.deckBefore(oven.name, d, start);
     return t == null ? 1 : t === temperature ? 0 : t > temperature ? 1 : 2;
   };
-  const ranks = new Map(decks.map((d) => [d, rank(d)]));
-  return decks.sort((a, b) => ranks.get(a)! - ranks.get(b)! || a - b);
+  // By rank, then deck number (`open` is in deck order): an insertion sort of a handful.
+  const ranks = decks.map(rank);
+  for (let a = 1; a < decks.length; a++) {
+    const d = decks[a];
+    const r = ranks[a];
+    let b = a - 1;
+    while (b >= 0 && ranks[b] > r) {
+      decks[b + 1] = decks[b];
+      ranks[b + 1] = ranks[b];
+      b--;
+    }
+    decks[b + 1] = d;
+    ranks[b + 1] = r;
+  }
+  return decks;
 }

@@ -1,7 +1,9 @@
 // The night's scheduler (shared/schedule/solve.ts) on random small nights: no resource over its
 // capacity, every wait inside its range, and an on-time night found whenever a brute-force search
 // over the same 5-minute grid finds one; and the stretch of end times a refused booking rules out
-// (the next-event jumps of the search) holds only end times the check refuses too.
+// (the next-event jumps of the search) holds only end times the check refuses too; and the search's
+// bounds (whole busy stretches skipped per refusal, ends whose operations before have nowhere to
+// go) skip only what would fail: the same night comes out with them and without them.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { changeMinutes, type Job, type Placement, type Problem } from '#shared/schedule/problem';
@@ -199,6 +201,28 @@ describe('solve on random small nights', () => {
   });
 });
 
+describe('the search bounds skip only what would fail', () => {
+  const same = (p: Problem) => {
+    const pruned = solve(p);
+    const plain = solve(p, { prune: false });
+    expect(pruned.exact).toBe(plain.exact);
+    expect(pruned.placements).toEqual(plain.placements);
+    expect(pruned.late.map((l) => [l.job, l.tooEarly])).toEqual(plain.late.map((l) => [l.job, l.tooEarly]));
+  };
+  it('on small nights (the backtracking search)', () => {
+    fc.assert(fc.property(arbNight, (n) => same(problemOf(n))), { numRuns: RUNS });
+  });
+  it('on nights of 13 to 16 mixes (the greedy pass)', () => {
+    const arbBig = fc.record({
+      decks: fc.integer({ min: 1, max: 3 }),
+      people: fc.integer({ min: 1, max: 3 }),
+      cleanDown: fc.constantFrom(0, 10),
+      jobs: fc.array(arbJob, { minLength: 13, maxLength: 16 }),
+    });
+    fc.assert(fc.property(arbBig, (n) => same(problemOf(n))), { numRuns: Math.ceil(RUNS / 3) });
+  });
+});
+
 describe('a refusal rules out only end times the check refuses too', () => {
   // The search jumps over the stretch a refusal gives (next-event search); this holds it to the
   // check itself: every end inside the stretch is refused by the same check.
@@ -229,12 +253,20 @@ describe('a refusal rules out only end times the check refuses too', () => {
           for (let t = Math.max(r.above, end - 200) + 0.5; t < Math.min(r.below, end + 200); t += 0.5) out.push(t);
           return out;
         };
-        const mixer = cal.mixerConflict('spiral', end - minutes, end, allergens(egg));
-        if (mixer) for (const t of inside(mixer)) expect(cal.mixerConflict('spiral', t - minutes, t, allergens(egg)), `mixer end ${t}`).not.toBeNull();
-        const deck = cal.deckConflict(oven, 1, end - minutes, end, temperature(egg));
-        if (deck) for (const t of inside(deck)) expect(cal.deckConflict(oven, 1, t - minutes, t, temperature(egg)), `deck end ${t}`).not.toBeNull();
-        if (cal.freePeople(end - minutes, end).length === 0) {
-          for (const t of inside(cal.benchRefusal(end - minutes, end))) expect(cal.freePeople(t - minutes, t), `bench end ${t}`).toEqual([]);
+        // Narrow (the booking in the way) and wide (every end down to the latest that fits, which
+        // does fit).
+        for (const wide of [false, true]) {
+          const mixer = cal.mixerConflict('spiral', end - minutes, end, allergens(egg), wide);
+          if (mixer) for (const t of inside(mixer)) expect(cal.mixerConflict('spiral', t - minutes, t, allergens(egg)), `mixer end ${t}`).not.toBeNull();
+          if (mixer && wide && mixer.above > -Infinity) expect(cal.mixerConflict('spiral', mixer.above - minutes, mixer.above, allergens(egg))).toBeNull();
+          const deck = cal.deckConflict(oven, 1, end - minutes, end, temperature(egg), wide);
+          if (deck) for (const t of inside(deck)) expect(cal.deckConflict(oven, 1, t - minutes, t, temperature(egg)), `deck end ${t}`).not.toBeNull();
+          if (deck && wide && deck.above > -Infinity) expect(cal.deckConflict(oven, 1, deck.above - minutes, deck.above, temperature(egg))).toBeNull();
+          if (cal.freePeople(end - minutes, end).length === 0) {
+            const bench = cal.benchRefusal(end - minutes, end, wide);
+            for (const t of inside(bench)) expect(cal.freePeople(t - minutes, t), `bench end ${t}`).toEqual([]);
+            if (wide && bench.above > -Infinity) expect(cal.freePeople(bench.above - minutes, bench.above).length).toBeGreaterThan(0);
+          }
         }
       }),
       { numRuns: RUNS * 4 },

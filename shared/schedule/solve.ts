@@ -211,6 +211,12 @@ class Stretches {
     return i < 0 ? NaN : this.above[i];
   }
 
+  /** The upper end of the stretch holding `t`, or NaN. */
+  ceil(t: number): number {
+    const i = this.at(t);
+    return i < 0 ? NaN : this.below[i];
+  }
+
   /** The stretch holding all of [lo, hi], if one does. */
   holding(lo: number, hi: number): { above: number; below: number } | null {
     const i = this.at(lo);
@@ -439,6 +445,10 @@ function* placeJob(
     if (perLoad === 0) continue;
     const count = Math.ceil(bake.slots / perLoad);
     const loads: Load[] = [];
+    // Per deck, the ends the other mixes' bakes refuse. They hold for every load of this mix (its
+    // loads are alike: same minutes, same temperature), so a load after the first does not check a
+    // deck again where the first found it taken.
+    const taken = Array.from({ length: oven.decks }, () => new Stretches());
 
     // Loads are placed latest first; each later-placed load starts no later than the one before,
     // and all start within the proof's stretch of one another.
@@ -456,9 +466,9 @@ function* placeJob(
         j === 0
           ? [outLo, outHi, outHi]
           : [loads[0].start - spread + bake.minutes, loads[j - 1].start + bake.minutes, loads[j - 1].start + bake.minutes];
-      // Per deck, the stretch of ends its last refusal ruled out; where every deck refuses, the
-      // stretch they share is jumped over, and so is every end that leaves no room before the
-      // first load for the operations before the bake.
+      // Per deck holding a load of this mix, the stretch of ends its last refusal ruled out; where
+      // every deck refuses, the stretch they share is jumped over, and so is every end that leaves
+      // no room before the first load for the operations before the bake.
       const above: number[] = Array(oven.decks).fill(Infinity);
       const below: number[] = Array(oven.decks).fill(-Infinity);
       const all = new Stretches();
@@ -474,9 +484,23 @@ function* placeJob(
           }
         }
         const open: number[] = [];
-        for (let d = 1; d <= oven.decks; d++) if (!(end > above[d - 1] && end < below[d - 1])) open.push(d);
+        // The stretch around `end` that every deck refuses.
+        let shared = -Infinity;
+        let sharedBelow = Infinity;
+        for (let d = 0; d < oven.decks; d++) {
+          const mine = end > above[d] && end < below[d];
+          const other = taken[d].floor(end);
+          if (!mine && other !== other) {
+            open.push(d + 1);
+            continue;
+          }
+          const a = mine ? (other === other ? Math.min(above[d], other) : above[d]) : other;
+          const b = mine ? (other === other ? Math.max(below[d], taken[d].ceil(end)) : below[d]) : taken[d].ceil(end);
+          shared = Math.max(shared, a);
+          sharedBelow = Math.min(sharedBelow, b);
+        }
         if (open.length === 0) {
-          all.add(Math.max(...above), Math.min(...below));
+          all.add(shared, sharedBelow);
           continue;
         }
         for (const deck of deckOrder(cal, oven, start, bake.temperature, open)) {
@@ -484,8 +508,11 @@ function* placeJob(
           const c = cal.deckConflict(oven, deck, start, end, bake.temperature, prune);
           if (c) {
             note(tally, c, from, hi);
-            above[deck - 1] = c.above;
-            below[deck - 1] = c.below;
+            if (prune && loads.every((l) => l.deck !== deck)) taken[deck - 1].add(c.above, c.below);
+            else {
+              above[deck - 1] = c.above;
+              below[deck - 1] = c.below;
+            }
             continue;
           }
           const b: Busy = { start, end, temperature: bake.temperature };

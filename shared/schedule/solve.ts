@@ -482,6 +482,28 @@ function* placeJob(
             all.add(dead.above, dead.below);
             continue;
           }
+          if (prune && count > 1) {
+            // Every load ends within the proof's stretch up to this end, at most `rounds` of them on
+            // one deck. On decks the other bakes keep taken all that while none fits: with too few
+            // decks left for all the loads, this end fails, and so does every end whose stretch
+            // stays inside theirs.
+            const rounds = 1 + Math.floor(spread / bake.minutes);
+            let free = 0;
+            let above = -Infinity;
+            let below = Infinity;
+            for (const t of taken) {
+              const h = t.holding(end - spread, end);
+              if (!h) free++;
+              else {
+                above = Math.max(above, h.above);
+                below = Math.min(below, h.below);
+              }
+            }
+            if (free * rounds < count) {
+              all.add(above + spread, below);
+              continue;
+            }
+          }
         }
         const open: number[] = [];
         // The stretch around `end` that every deck refuses.

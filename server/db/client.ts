@@ -11,6 +11,7 @@ import { randomBytes } from 'node:crypto';
 import { closeSync, cpSync, existsSync, mkdirSync, openSync, readFileSync, renameSync, rmSync, statSync, unlinkSync, writeFileSync, writeSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { setFlagsFromString } from 'node:v8';
 import type { PgDatabase, PgQueryResultHKT } from 'drizzle-orm/pg-core';
 import { privateDir, tightenTree } from '../private-files.ts';
 import * as schema from './schema.ts';
@@ -269,6 +270,7 @@ export async function openDatabase(opts: OpenOptions = {}): Promise<DatabaseHand
     return makeHandle({ db: drizzle({ client: pool, schema }), kind: 'postgres', closeClient: () => pool.end() });
   }
   const [{ PGlite }, { drizzle }] = await Promise.all([import('@electric-sql/pglite'), import('drizzle-orm/pglite')]);
+  baselineWasmCompiler();
   if (target.kind === 'memory') {
     const client = new PGlite();
     await client.waitReady;
@@ -340,6 +342,21 @@ export function databaseSeed(): string | null {
  * 40 MB on disk, and the server keeps what it serves in its own snapshot).
  */
 export const PGLITE_SETTINGS = ['-c', 'shared_buffers=16MB'];
+
+/**
+ * PGlite is PostgreSQL compiled to WebAssembly. Node's engine compiles each of its functions with
+ * a baseline compiler (Liftoff) when first called, and by default compiles the busiest again with
+ * its optimizing compiler (TurboFan) on background threads. Those recompilations of PostgreSQL's
+ * large functions took 1.5 to 2 s of CPU during a first start and left 50 to 90 MB in the
+ * threads' memory pools, more than the server's whole JavaScript heap: a first start held 250 to
+ * 280 MB, about 160 to 190 MB on baseline code alone. The server answers from its own snapshot,
+ * so the database's queries are few and small, and loads were no slower on baseline code
+ * (docs/performance.md, 3 December 2026). Process-wide, set before PGlite compiles its module; a
+ * PostgreSQL server (node-postgres) is not affected.
+ */
+function baselineWasmCompiler(): void {
+  setFlagsFromString('--liftoff-only');
+}
 
 /** Applies the committed migrations in drizzle/ with the migrator for the handle's driver. */
 export async function migrateDatabase(handle: DatabaseHandle, folder = migrationsFolder()): Promise<void> {

@@ -337,11 +337,13 @@ export function databaseSeed(): string | null {
 }
 
 /**
- * PostgreSQL settings for the embedded database. Its default 128 MB of shared buffers sits in the
- * server's own memory; a bakery's formulas fit in a fraction of it (1,000 formulas take about
- * 40 MB on disk, and the server keeps what it serves in its own snapshot).
+ * PostgreSQL settings for the embedded database. Its shared buffers sit in the server's own
+ * memory, all of them resident from the start (PostgreSQL's default is 128 MB). The server keeps
+ * what it serves in its own snapshot and reads the database again only after a load, and the
+ * files behind the buffers stay in the system's file cache: loading 1,000 formulas (about 40 MB on
+ * disk) took the same CPU with 4, 8 or 16 MB (docs/performance.md, 3 December 2026).
  */
-export const PGLITE_SETTINGS = ['-c', 'shared_buffers=16MB'];
+export const PGLITE_SETTINGS = ['-c', 'shared_buffers=8MB'];
 
 /**
  * PGlite is PostgreSQL compiled to WebAssembly. Node's engine compiles each of its functions with

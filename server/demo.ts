@@ -5,7 +5,7 @@ import { chmodSync, existsSync, mkdirSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { ROLES, type Role } from '#shared/permissions';
-import { randomPassword, type ScryptParams } from './auth/password.ts';
+import { hashPassword, randomPassword, type ScryptParams } from './auth/password.ts';
 import { countUsers, createUser } from './auth/users.ts';
 import type { DatabaseHandle } from './db/client.ts';
 import { formulasTable } from './db/schema.ts';
@@ -63,16 +63,27 @@ export async function seedDemo(
   handle: DatabaseHandle,
   opts: { formulasDir: string | null; accountsFile: string; scrypt?: ScryptParams },
 ): Promise<DemoResult> {
+  const accounts = (await countUsers(handle.db)) === 0 ? ROLES.map((role) => ({ email: demoEmail(role), name: DEMO_NAMES[role], role, password: randomPassword() })) : null;
+  // The passwords are hashed on Node's thread pool while the formulas load on the main thread
+  // (a quarter of a second each, so most of a first start otherwise), and the accounts are added
+  // only once the load has succeeded, as before.
+  const hashing = accounts ? hashOneAtATime(accounts.map((a) => a.password), opts.scrypt) : null;
+  hashing?.catch(() => {}); // a failed load is the error to report
   const loaded = opts.formulasDir ? await loadIfEmpty(handle, opts.formulasDir, 'panform serve --demo') : null;
 
-  let accounts: DemoAccount[] | null = null;
-  if ((await countUsers(handle.db)) === 0) {
-    // One after the other: each hash holds 32 MiB while it runs.
-    accounts = ROLES.map((role) => ({ email: demoEmail(role), name: DEMO_NAMES[role], role, password: randomPassword() }));
-    for (const account of accounts) await createUser(handle.db, account, opts.scrypt);
+  if (accounts && hashing) {
+    const hashes = await hashing;
+    for (const [i, account] of accounts.entries()) await createUser(handle.db, { ...account, passwordHash: hashes[i]! });
     writeAccountsFile(opts.accountsFile, accounts);
   }
   return { loaded, accounts };
+}
+
+/** One after the other: each hash holds 32 MiB while it runs. */
+async function hashOneAtATime(passwords: string[], params?: ScryptParams): Promise<string[]> {
+  const hashes: string[] = [];
+  for (const password of passwords) hashes.push(await hashPassword(password, params));
+  return hashes;
 }
 
 export function formatAccounts(accounts: DemoAccount[]): string {

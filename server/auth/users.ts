@@ -76,14 +76,15 @@ export class DuplicateUserError extends Error {
   }
 }
 
+/** Adds an account; with `passwordHash` (from `hashPassword`) the password was hashed beforehand. */
 export async function createUser(
   db: Database,
-  input: { email: string; name?: string; role: Role; password: string },
+  input: { email: string; name?: string; role: Role } & ({ password: string } | { passwordHash: string }),
   params?: ScryptParams,
 ): Promise<UserRecord> {
   const email = normalizeEmail(input.email);
   if (await findUserByEmail(db, email)) throw new DuplicateUserError(email);
-  const passwordHash = await hashPassword(input.password, params);
+  const passwordHash = 'passwordHash' in input ? input.passwordHash : await hashPassword(input.password, params);
   const rows = await db
     .insert(usersTable)
     .values({ email, name: input.name?.trim() ?? '', role: input.role, passwordHash })

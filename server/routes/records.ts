@@ -4,7 +4,6 @@
 import type { Request, Response } from 'express';
 import { Router } from 'express';
 import type { Multer, MulterError } from 'multer';
-import { stringify } from 'csv-stringify/sync';
 import type { BenchRecord, FrictionResponse, RecordListResponse, RecordResponse } from '#shared/api';
 import { frictionTable, type CurrentRise } from '#shared/friction';
 import { roleHasPermission, type Role } from '#shared/permissions';
@@ -257,8 +256,9 @@ export function recordsRouter(ctx: ServerContext, photos: PhotoStore): Router {
     res.json({ record } satisfies RecordResponse);
   });
 
-  const sendCsv = (res: Response, name: string, records: BenchRecord[]) => {
-    res.type('text/csv; charset=utf-8').set('Content-Disposition', `attachment; filename="panform-records-${name}.csv"`).send(recordsCsv(records));
+  const sendCsv = async (res: Response, name: string, records: BenchRecord[]) => {
+    const csv = await recordsCsv(records);
+    res.type('text/csv; charset=utf-8').set('Content-Disposition', `attachment; filename="panform-records-${name}.csv"`).send(csv);
   };
 
   r.get('/plans/:date/records.csv', async (req, res) => {
@@ -267,7 +267,7 @@ export function recordsRouter(ctx: ServerContext, photos: PhotoStore): Router {
     planFor(await ctx.data.snapshot(), date, user.role);
     const formula = queryString(req, 'formula');
     const rows = await listRecords(ctx.db, { date, formula });
-    sendCsv(res, date, rows.map((x) => recordJson(x.row, x.photos, x.correctedBy)));
+    await sendCsv(res, date, rows.map((x) => recordJson(x.row, x.photos, x.correctedBy)));
   });
 
   r.get('/records.csv', async (req, res) => {
@@ -281,7 +281,7 @@ export function recordsRouter(ctx: ServerContext, photos: PhotoStore): Router {
     const formula = queryString(req, 'formula');
     const snapshot = await ctx.data.snapshot();
     const rows = (await listRecords(ctx.db, { from, to, formula })).filter((x) => dayVisible(snapshot, x.row.planDate, user.role));
-    sendCsv(res, `${from ?? 'start'}_${to ?? 'end'}`, rows.map((x) => recordJson(x.row, x.photos, x.correctedBy)));
+    await sendCsv(res, `${from ?? 'start'}_${to ?? 'end'}`, rows.map((x) => recordJson(x.row, x.photos, x.correctedBy)));
   });
 
   r.get('/friction', async (req, res) => {
@@ -311,8 +311,12 @@ export async function sheetWithProposals(ctx: ServerContext, snapshot: Snapshot,
   return { ...sheet, frictionProposals: frictionTable(records, current) };
 }
 
-/** The food-safety file's CSV: one row per record (corrections are rows of their own), RFC 4180 quoting. */
-export function recordsCsv(records: BenchRecord[]): string {
+/**
+ * The food-safety file's CSV: one row per record (corrections are rows of their own), RFC 4180
+ * quoting. The CSV writer is loaded on the first export rather than at start.
+ */
+export async function recordsCsv(records: BenchRecord[]): Promise<string> {
+  const { stringify } = await import('csv-stringify/sync');
   const header = [
     'id', 'date', 'target', 'kind', 'formula', 'mixer', 'dough_temperature_c', 'water_temperature_c', 'ripe', 'note', 'initials', 'recorded_at',
     'stored_at', 'by', 'corrects', 'corrected_by', 'photos',

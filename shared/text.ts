@@ -13,3 +13,14 @@ export function compareText(a: string, b: string): number {
   collator ??= new Intl.Collator('en', { caseFirst: 'upper' });
   return collator.compare(a, b);
 }
+
+/**
+ * Each distinct text's place in `compareText` order (texts that compare equal share one): a long
+ * sort on a name then compares two numbers, asking ICU once per name instead of once per pair.
+ */
+export function textRanks(texts: Iterable<string>): Map<string, number> {
+  const distinct = [...new Set(texts)].sort(compareText);
+  const ranks = new Map<string, number>();
+  distinct.forEach((t, i) => ranks.set(t, i > 0 && compareText(distinct[i - 1], t) === 0 ? ranks.get(distinct[i - 1])! : i));
+  return ranks;
+}

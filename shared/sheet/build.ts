@@ -37,7 +37,7 @@ import {
   type SheetMix,
   type TimelineEntry,
 } from './types.ts';
-import { compareText } from '../text.ts';
+import { textRanks } from '../text.ts';
 import { mixFinishes, pickLines, sheetFinishes } from './pick.ts';
 import { checkWeights } from './scales.ts';
 import { equipmentNeeds } from './equipment.ts';
@@ -161,7 +161,9 @@ export function buildSheet(input: SheetInput): Sheet {
       ...(b.holdTemperature !== null ? { temperature: b.holdTemperature } : {}),
     });
   }
-  timeline.sort((a, b) => a.startMinute - b.startMinute || a.endMinute - b.endMinute || compareText(a.label, b.label));
+  // Labels ranked once: thousands of entries share start and end times on a big night.
+  const labelRank = textRanks(timeline.map((e) => e.label));
+  timeline.sort((a, b) => a.startMinute - b.startMinute || a.endMinute - b.endMinute || labelRank.get(a.label)! - labelRank.get(b.label)!);
 
   // ---- mixes ---------------------------------------------------------------------------------
   const mixes: SheetMix[] = planned.map((p) => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { compareText } from '#shared/text';
+import { compareText, textRanks } from '#shared/text';
 
 // Expected orders follow the Unicode Collation Algorithm (UTS #10) with the root (DUCET) order,
 // which English uses: accents and case are secondary and tertiary differences.
@@ -15,5 +15,14 @@ describe('compareText', () => {
     expect(compareText('salt', 'Salt')).toBe(1);
     expect(compareText('Salt', 'salt')).toBe(-1);
     expect(compareText('sel', 'sél')).toBe(-1);
+  });
+});
+
+describe('textRanks', () => {
+  it('numbers each text by its place in compareText order, so a sort by rank is the same sort', () => {
+    const texts = ['zucchini', 'água', 'apple', 'Apple', 'épeautre', 'apple', 'emmer', 'Bread flour', 'bread flour'];
+    const ranks = textRanks(texts);
+    expect([...texts].sort((a, b) => ranks.get(a)! - ranks.get(b)!)).toEqual([...texts].sort(compareText));
+    expect(ranks.size).toBe(8);
   });
 });

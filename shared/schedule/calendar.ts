@@ -186,17 +186,13 @@ export class Calendar {
   /** Bench people free for the whole task; of people with nothing booked yet on the same shift, only the first. */
   freePeople(start: number, end: number): Person[] {
     const out: Person[] = [];
-    const idle = new Set<string>();
     for (const p of this.people) {
       const to = this.overtime && p.overtime ? Infinity : p.to;
       if (p.from > start || end > to) continue;
       const j = firstStartingAtOrAfter(p.busy, end);
       if (j > 0 && p.busy[j - 1].end > start) continue;
-      if (p.busy.length === 0) {
-        const key = `${p.from}/${p.to}`;
-        if (idle.has(key)) continue;
-        idle.add(key);
-      }
+      // An idle person on the same hours as one already taken is alike.
+      if (p.busy.length === 0 && out.some((q) => q.busy.length === 0 && q.from === p.from && q.to === p.to)) continue;
       out.push(p);
     }
     return out;

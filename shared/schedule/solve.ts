@@ -53,7 +53,8 @@ interface Budget {
   left: number;
 }
 
-type Tally = Map<string, { count: number; conflict: Conflict }>;
+/** Per resource that refused (in the order they first did), its weighed refusals and the latest busy stretch. */
+type Tally = (Conflict & { count: number })[];
 
 export interface SolveOptions {
   /**
@@ -98,7 +99,7 @@ export function solve(problem: Problem, options: SolveOptions = {}): Solution {
   const placements: Placement[] = [];
   const late: LateJob[] = [];
   for (const job of order) {
-    const tally: Tally = new Map();
+    const tally: Tally = [];
     const onTime = placeJob(job, greedy, start, -Infinity, job.due, { left: JOB_BUDGET }, tally, prune).next();
     if (!onTime.done) {
       placements[job.id] = onTime.value;
@@ -133,7 +134,12 @@ export function solve(problem: Problem, options: SolveOptions = {}): Solution {
     placements[job.id] = found;
     let bottleneck: Conflict | null = null;
     let most = 0;
-    for (const t of tally.values()) if (t.count > most) ({ count: most, conflict: bottleneck } = t);
+    for (const t of tally) {
+      if (t.count > most) {
+        most = t.count;
+        bottleneck = { kind: t.kind, name: t.name, start: t.start, end: t.end };
+      }
+    }
     late.push({ job: job.id, bottleneck, tooEarly: start + minimumLength(job) > job.due });
   }
   return { placements, late, calendar: greedy, exact: false };
@@ -252,13 +258,16 @@ function* candidates(lo: number, hi: number, preferred: number, dead: Stretches)
 function note(tally: Tally | null, c: Refusal, lo: number, hi: number): void {
   if (!tally) return;
   const weight = Math.max(1, Math.round((Math.min(c.below, hi) - Math.max(c.above, lo)) / GRID_MINUTES));
-  const key = `${c.kind}\u0000${c.name}`;
-  const t = tally.get(key);
-  if (t) {
+  const t = tally.find((x) => x.kind === c.kind && x.name === c.name);
+  if (!t) tally.push({ kind: c.kind, name: c.name, start: c.start, end: c.end, count: weight });
+  else {
     t.count += weight;
     // Keep the latest busy stretch: the one nearest the due time.
-    if (c.end > t.conflict.end) t.conflict = { kind: c.kind, name: c.name, start: c.start, end: c.end };
-  } else tally.set(key, { count: weight, conflict: { kind: c.kind, name: c.name, start: c.start, end: c.end } });
+    if (c.end > t.end) {
+      t.start = c.start;
+      t.end = c.end;
+    }
+  }
 }
 
 /**
@@ -327,56 +336,47 @@ function* placeJob(
     return h && { above: h.above + gap.max + minutes, below: h.below + gap.min + minutes };
   };
 
+  /** Every placement of operations `i` and before, operation `i` ending in [lo, hi]. */
   function* before(i: number, lo: number, hi: number, preferred: number, loads: Load[], out: number): Generator<Placement> {
-    if (i >= 0) {
-      // The window's preferred end follows from its latest for every operation, so the two ends key it.
-      const windows = failedOf(i).windows;
-      if (windows.get(hi)?.has(lo)) return;
-      let found = false;
-      for (const p of step(i, lo, hi, preferred, loads, out)) {
-        found = true;
-        yield p;
-      }
-      if (!found && budget.left > 0) {
-        let los = windows.get(hi);
-        if (!los) windows.set(hi, (los = new Set()));
-        los.add(lo);
-      }
-      return;
-    }
-    yield* step(i, lo, hi, preferred, loads, out);
-  }
-
-  function* step(i: number, lo: number, hi: number, preferred: number, loads: Load[], out: number): Generator<Placement> {
     if (i < 0) {
-      yield { job: job.id, operations: times.map((t) => ({ ...t })), loads: loads.map((l) => ({ ...l })), people: new Map(people), out };
+      yield { job: job.id, operations: times.map((t) => ({ start: t.start, end: t.end })), loads: loads.map((l) => ({ ...l })), people: new Map(people), out };
       return;
     }
     const op = ops[i];
     const failed = failedOf(i);
+    // The window's preferred end follows from its latest for every operation, so the two ends key it.
+    const windows = failed.windows;
+    if (windows.get(hi)?.has(lo)) return;
     const ends = failed.ends;
     // Unpruned, a refusal rules out its stretch for this window only.
     const dead = prune ? failed.dead : new Stretches();
     const from = Math.max(lo, earliest[i]);
-    for (const end of candidates(from, hi, preferred, dead)) {
-      if (dead.has(end) || ends.has(end)) continue;
-      const before = deadBefore(i, end - op.minutes, op.minutes);
-      if (before) {
-        dead.add(before.above, before.below);
-        continue;
-      }
-      if (budget.left-- <= 0) return;
-      if (op.minutes === 0) {
+    let any = false;
+    try {
+      for (const end of candidates(from, hi, preferred, dead)) {
+        if (dead.has(end) || ends.has(end)) continue;
+        const before = deadBefore(i, end - op.minutes, op.minutes);
+        if (before) {
+          dead.add(before.above, before.below);
+          continue;
+        }
+        if (budget.left-- <= 0) return;
+        let found = false;
+        for (const p of at(i, end, loads, out, dead, from, hi)) {
+          found = any = true;
+          yield p;
+        }
         // Nothing to book: the first candidate is as good as any.
-        yield* at(i, end, loads, out, dead, from, hi);
-        return;
+        if (op.minutes === 0) return;
+        if (!found && budget.left > 0) ends.add(end);
       }
-      let found = false;
-      for (const p of at(i, end, loads, out, dead, from, hi)) {
-        found = true;
-        yield p;
+    } finally {
+      // (Closing the generator after a placement was taken is not a failure.)
+      if (!any && budget.left > 0) {
+        let los = windows.get(hi);
+        if (!los) windows.set(hi, (los = new Set()));
+        los.add(lo);
       }
-      if (!found && budget.left > 0) ends.add(end);
     }
   }
 
@@ -385,7 +385,8 @@ function* placeJob(
     const op = ops[i];
     const gap = job.gaps[i];
     const start = end - op.minutes;
-    times[i] = { start, end };
+    times[i].start = start;
+    times[i].end = end;
     const next = (): Generator<Placement> => before(i - 1, start - gap.max, start - gap.min, start - gap.preferred, loads, out);
     if (op.minutes === 0) {
       yield* next();
@@ -457,7 +458,8 @@ function* placeJob(
         const first = loads[count - 1].start;
         const lastStart = loads[0].start;
         const out = loads[0].end;
-        times[k] = { start: first, end: out };
+        times[k].start = first;
+        times[k].end = out;
         yield* before(k - 1, lastStart - gap.max, first - gap.min, first - gap.preferred, loads, out);
         return;
       }

@@ -16,7 +16,7 @@
 //   use − max hours. When uses are too far apart for one build, it is made in several batches.
 //   Soakers follow the same rule with their soaking hours.
 import { lookupIngredient, type Catalog, type Formula, type Mixer, type Order } from '../model.ts';
-import { scaleFormula, ScaleError, sum, type ScaledBuild, type ScaleResult } from '../scale.ts';
+import { resolveTarget, scaleFormula, ScaleError, sum, type ScaledBuild, type ScaleResult } from '../scale.ts';
 import type { AllergenCode, IngredientKind } from '../schema/shapes.ts';
 import { AllergenError, allergenSummary } from '../allergens.ts';
 import { cautionFacts, cautionsFor, type CautionSet } from '../cautions.ts';
@@ -69,7 +69,8 @@ export function buildSheet(input: SheetInput): Sheet {
       throw new SheetError(`order ${order + 1} names formula "${o.formula}", which was not found; known formulas: ${Object.keys(formulas).sort().join(', ') || 'none'}`);
     }
     if (formula.status !== 'active') warnings.push(`${formula.id} is ${formula.status}, not active`);
-    const whole = scaleOrThrow(formula, catalog, { by: 'pieces', pieces: o.pieces, pieceGrams: o.pieceGrams }, order);
+    // The order's dough alone decides the mixer and the number of mixes; each mix is scaled below.
+    const whole = scaleOrThrow(formula, order, () => resolveTarget(formula, { by: 'pieces', pieces: o.pieces, pieceGrams: o.pieceGrams }));
     const pieceGrams = whole.pieceGrams ?? formula.yield.pieceGrams;
     const mixer = chooseMixer(plan.mixers, o, whole.mixedDough, order);
     const pieceMixed = pieceGrams / (1 - whole.loss / 100);
@@ -85,7 +86,7 @@ export function buildSheet(input: SheetInput): Sheet {
         `order ${order + 1} (${formula.id}): ${of === 1 ? 'the mix' : `each of ${of} mixes`} holds ${grams(dough)}, below mixer "${mixer.name}"'s minimum of ${grams(mixer.minimumGrams)}`,
       );
     }
-    const perMix = scaleOrThrow(formula, catalog, { by: 'mix', grams: dough }, order);
+    const perMix = scaleOrThrow(formula, order, () => scaleFormula(formula, catalog, { by: 'mix', grams: dough }));
     const base = Math.floor(o.pieces / of);
     const extra = o.pieces % of;
     if (extra > 0 && (base + 1) * pieceMixed > dough * (1 + EPSILON)) {
@@ -307,9 +308,9 @@ function allergenCodes(f: Formula, catalog: Catalog): AllergenCode[] {
   }
 }
 
-function scaleOrThrow(f: Formula, catalog: Catalog, target: Parameters<typeof scaleFormula>[2], order: number): ScaleResult {
+function scaleOrThrow<T>(f: Formula, order: number, scale: () => T): T {
   try {
-    return scaleFormula(f, catalog, target);
+    return scale();
   } catch (e) {
     if (e instanceof ScaleError) throw new SheetError(`order ${order + 1} (${f.id}): ${e.message}`);
     throw e;

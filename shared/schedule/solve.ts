@@ -10,9 +10,11 @@
 //   shaping, preshaping, dividing and mixing each as late as the waits between them (their
 //   ranges) and the free resources allow. Candidate times are the window's ends, the preferred
 //   waits (the plan's `ranges`) and every 5 minutes between. A refused candidate rules out the
-//   stretch of end times its booking blocks (next-event search: the search jumps past the booking,
-//   binary-searched in each resource's sorted list, without checking each 5 minutes), and no end
-//   is tried before the night's start leaves room for the operations before it.
+//   stretch of end times down to the latest that fits on that resource (next-event search: the
+//   search jumps past the bookings, binary-searched in each resource's sorted list, without
+//   checking each 5 minutes), and no end is tried before the night's start leaves room for the
+//   operations before it. Those stretches are kept for the whole mix and travel up the chain: an
+//   end whose window before lies inside one fails too, up to the oven loads.
 // - Search with chronological backtracking (a depth-first search over those candidates, across
 //   mixes) until every order is on time, within a budget of checks; on a small night it is
 //   exhaustive, so an on-time schedule on the 5-minute grid is found whenever one exists. Subtrees

@@ -205,6 +205,9 @@ describe('the search bounds skip only what would fail', () => {
   const same = (p: Problem) => {
     const pruned = solve(p);
     const plain = solve(p, { prune: false });
+    // Unbounded, the backtracking search can spend its budget of checks before it finds the
+    // on-time night the bounded one found (it then settles for the greedy pass): nothing to compare.
+    if (pruned.exact && !plain.exact) return;
     expect(pruned.exact).toBe(plain.exact);
     expect(pruned.placements).toEqual(plain.placements);
     expect(pruned.late.map((l) => [l.job, l.tooEarly])).toEqual(plain.late.map((l) => [l.job, l.tooEarly]));

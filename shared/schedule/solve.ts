@@ -6,6 +6,8 @@
 // resource-constrained project scheduling methods revisited: theory and computation", European
 // Journal of Operational Research 90(2), 320–333), run backward from each due time:
 // - Mixes are taken one at a time by priority: earliest due first, then the longest process.
+// - Fresh first: each oven the formula names is tried for an out time in the two hours before the
+//   due time before any is tried earlier (outBands).
 // - A mix is placed backward: its oven loads as late as they can end by the due time, then its
 //   shaping, preshaping, dividing and mixing each as late as the waits between them (their
 //   ranges) and the free resources allow. Candidate times are the window's ends, the preferred
@@ -442,123 +444,145 @@ function* placeJob(
   const bake: Extract<Operation, { kind: 'bake' }> = last;
   const gap = job.gaps[k];
   const spread = gap.max - gap.min;
-  for (const name of bake.ovens) {
-    const oven = cal.ovenByName.get(name)!;
-    const perLoad = Math.floor(oven.slots / bake.pieceSlots) * bake.pieceSlots;
-    if (perLoad === 0) continue;
-    const count = Math.ceil(bake.slots / perLoad);
-    const loads: Load[] = [];
-    // Per deck, the ends the other mixes' bakes refuse. They hold for every load of this mix (its
-    // loads are alike: same minutes, same temperature), so a load after the first does not check a
-    // deck again where the first found it taken.
-    const taken = Array.from({ length: oven.decks }, () => new Stretches());
+  // Fresh first: every oven is tried for an out time in the two hours before the due time before
+  // any oven is tried earlier, so a mix goes to another oven near its due time rather than hours
+  // early on its first choice (bread is sold fresh). Then each oven in turn, latest first.
+  for (const [bandLo, bandHi] of outBands(outLo, outHi, earliest[k])) {
+    for (const name of bake.ovens) {
+      const oven = cal.ovenByName.get(name)!;
+      const perLoad = Math.floor(oven.slots / bake.pieceSlots) * bake.pieceSlots;
+      if (perLoad === 0) continue;
+      const count = Math.ceil(bake.slots / perLoad);
+      const loads: Load[] = [];
+      // Per deck, the ends the other mixes' bakes refuse. They hold for every load of this mix (its
+      // loads are alike: same minutes, same temperature), so a load after the first does not check a
+      // deck again where the first found it taken.
+      const taken = Array.from({ length: oven.decks }, () => new Stretches());
 
-    // Loads are placed latest first; each later-placed load starts no later than the one before,
-    // and all start within the proof's stretch of one another.
-    function* load(j: number): Generator<Placement> {
-      if (j === count) {
-        const first = loads[count - 1].start;
-        const lastStart = loads[0].start;
-        const out = loads[0].end;
-        times[k].start = first;
-        times[k].end = out;
-        yield* before(k - 1, lastStart - gap.max, first - gap.min, first - gap.preferred, loads, out);
-        return;
-      }
-      const slots = j === count - 1 ? bake.slots - perLoad * (count - 1) : perLoad;
-      const [lo, hi, preferred] =
-        j === 0
-          ? [outLo, outHi, outHi]
-          : [loads[0].start - spread + bake.minutes, loads[j - 1].start + bake.minutes, loads[j - 1].start + bake.minutes];
-      // Per deck holding a load of this mix, the stretch of ends its last refusal ruled out; where
-      // every deck refuses, the stretch they share is jumped over, and so is every end that leaves
-      // no room before the first load for the operations before the bake.
-      const above: number[] = Array(oven.decks).fill(Infinity);
-      const below: number[] = Array(oven.decks).fill(-Infinity);
-      const all = new Stretches();
-      const from = Math.max(lo, earliest[k]);
-      for (const end of candidates(from, hi, preferred, all)) {
-        if (all.has(end)) continue;
-        const start = end - bake.minutes;
-        if (j === 0) {
-          const dead = deadBefore(k, start, bake.minutes);
-          if (dead) {
-            all.add(dead.above, dead.below);
-            continue;
-          }
-          if (prune && count > 1) {
-            // Every load ends within the proof's stretch up to this end, at most `rounds` of them on
-            // one deck. On decks the other bakes keep taken all that while none fits: with too few
-            // decks left for all the loads, this end fails, and so does every end whose stretch
-            // stays inside theirs.
-            const rounds = 1 + Math.floor(spread / bake.minutes);
-            let free = 0;
-            let above = -Infinity;
-            let below = Infinity;
-            for (const t of taken) {
-              const h = t.holding(end - spread, end);
-              if (!h) free++;
-              else {
-                above = Math.max(above, h.above);
-                below = Math.min(below, h.below);
-              }
-            }
-            if (free * rounds < count) {
-              all.add(above + spread, below);
+      // Loads are placed latest first; each later-placed load starts no later than the one before,
+      // and all start within the proof's stretch of one another.
+      function* load(j: number): Generator<Placement> {
+        if (j === count) {
+          const first = loads[count - 1].start;
+          const lastStart = loads[0].start;
+          const out = loads[0].end;
+          times[k].start = first;
+          times[k].end = out;
+          yield* before(k - 1, lastStart - gap.max, first - gap.min, first - gap.preferred, loads, out);
+          return;
+        }
+        const slots = j === count - 1 ? bake.slots - perLoad * (count - 1) : perLoad;
+        const [lo, hi, preferred] =
+          j === 0
+            ? [bandLo, bandHi, bandHi]
+            : [loads[0].start - spread + bake.minutes, loads[j - 1].start + bake.minutes, loads[j - 1].start + bake.minutes];
+        // Per deck holding a load of this mix, the stretch of ends its last refusal ruled out; where
+        // every deck refuses, the stretch they share is jumped over, and so is every end that leaves
+        // no room before the first load for the operations before the bake.
+        const above: number[] = Array(oven.decks).fill(Infinity);
+        const below: number[] = Array(oven.decks).fill(-Infinity);
+        const all = new Stretches();
+        const from = Math.max(lo, earliest[k]);
+        for (const end of candidates(from, hi, preferred, all)) {
+          if (all.has(end)) continue;
+          const start = end - bake.minutes;
+          if (j === 0) {
+            const dead = deadBefore(k, start, bake.minutes);
+            if (dead) {
+              all.add(dead.above, dead.below);
               continue;
             }
-          }
-        }
-        const open: number[] = [];
-        // The stretch around `end` that every deck refuses.
-        let shared = -Infinity;
-        let sharedBelow = Infinity;
-        for (let d = 0; d < oven.decks; d++) {
-          const mine = end > above[d] && end < below[d];
-          const other = taken[d].floor(end);
-          if (!mine && other !== other) {
-            open.push(d + 1);
-            continue;
-          }
-          const a = mine ? (other === other ? Math.min(above[d], other) : above[d]) : other;
-          const b = mine ? (other === other ? Math.max(below[d], taken[d].ceil(end)) : below[d]) : taken[d].ceil(end);
-          shared = Math.max(shared, a);
-          sharedBelow = Math.min(sharedBelow, b);
-        }
-        if (open.length === 0) {
-          all.add(shared, sharedBelow);
-          continue;
-        }
-        for (const deck of deckOrder(cal, oven, start, bake.temperature, open)) {
-          if (budget.left-- <= 0) return;
-          const c = cal.deckConflict(oven, deck, start, end, bake.temperature, prune);
-          if (c) {
-            note(tally, c, from, hi);
-            if (prune && loads.every((l) => l.deck !== deck)) taken[deck - 1].add(c.above, c.below);
-            else {
-              above[deck - 1] = c.above;
-              below[deck - 1] = c.below;
+            if (prune && count > 1) {
+              // Every load ends within the proof's stretch up to this end, at most `rounds` of them on
+              // one deck. On decks the other bakes keep taken all that while none fits: with too few
+              // decks left for all the loads, this end fails, and so does every end whose stretch
+              // stays inside theirs.
+              const rounds = 1 + Math.floor(spread / bake.minutes);
+              let free = 0;
+              let above = -Infinity;
+              let below = Infinity;
+              for (const t of taken) {
+                const h = t.holding(end - spread, end);
+                if (!h) free++;
+                else {
+                  above = Math.max(above, h.above);
+                  below = Math.min(below, h.below);
+                }
+              }
+              if (free * rounds < count) {
+                all.add(above + spread, below);
+                continue;
+              }
             }
+          }
+          const open: number[] = [];
+          // The stretch around `end` that every deck refuses.
+          let shared = -Infinity;
+          let sharedBelow = Infinity;
+          for (let d = 0; d < oven.decks; d++) {
+            const mine = end > above[d] && end < below[d];
+            const other = taken[d].floor(end);
+            if (!mine && other !== other) {
+              open.push(d + 1);
+              continue;
+            }
+            const a = mine ? (other === other ? Math.min(above[d], other) : above[d]) : other;
+            const b = mine ? (other === other ? Math.max(below[d], taken[d].ceil(end)) : below[d]) : taken[d].ceil(end);
+            shared = Math.max(shared, a);
+            sharedBelow = Math.min(sharedBelow, b);
+          }
+          if (open.length === 0) {
+            all.add(shared, sharedBelow);
             continue;
           }
-          const b: Busy = { start, end, temperature: bake.temperature };
-          const list = cal.deckList(oven.name, deck);
-          book(list, b);
-          loads.push({ oven: oven.name, deck, start, end, slots, temperature: bake.temperature });
-          try {
-            yield* load(j + 1);
-          } finally {
-            loads.pop();
-            unbook(list, b);
+          for (const deck of deckOrder(cal, oven, start, bake.temperature, open)) {
+            if (budget.left-- <= 0) return;
+            const c = cal.deckConflict(oven, deck, start, end, bake.temperature, prune);
+            if (c) {
+              note(tally, c, from, hi);
+              if (prune && loads.every((l) => l.deck !== deck)) taken[deck - 1].add(c.above, c.below);
+              else {
+                above[deck - 1] = c.above;
+                below[deck - 1] = c.below;
+              }
+              continue;
+            }
+            const b: Busy = { start, end, temperature: bake.temperature };
+            const list = cal.deckList(oven.name, deck);
+            book(list, b);
+            loads.push({ oven: oven.name, deck, start, end, slots, temperature: bake.temperature });
+            try {
+              yield* load(j + 1);
+            } finally {
+              loads.pop();
+              unbook(list, b);
+            }
+            // The loads after the first take their first free place: trying every other place of
+            // every load multiplies the search by decks × times per load for little gain.
+            if (j > 0) return;
           }
-          // The loads after the first take their first free place: trying every other place of
-          // every load multiplies the search by decks × times per load for little gain.
-          if (j > 0) return;
         }
       }
+      yield* load(0);
     }
-    yield* load(0);
   }
+}
+
+/** Out times within this many minutes of the latest are tried on every oven before any earlier one. */
+const FRESH_MINUTES = 120;
+
+/**
+ * [lo, hi] as two bands of out times, latest first: the last two hours (from a grid step), then
+ * the rest; one band when the rest is empty (`floor`: the earliest out there can be).
+ */
+export function* outBands(lo: number, hi: number, floor: number): Generator<[number, number]> {
+  const bottom = Math.floor((hi - FRESH_MINUTES) / GRID_MINUTES) * GRID_MINUTES;
+  if (bottom <= Math.max(lo, floor)) {
+    yield [lo, hi];
+    return;
+  }
+  yield [bottom, hi];
+  yield [lo, bottom - GRID_MINUTES];
 }
 
 /** Decks to try: one already at this temperature first, then one cooling down to it, then one heating up. */

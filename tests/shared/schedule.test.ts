@@ -293,3 +293,45 @@ describe('a refusal rules out only end times the check refuses too', () => {
     );
   });
 });
+
+describe('fresh first', () => {
+  // Two one-deck ovens; the first (the mix's first choice) is taken for the three hours before the
+  // due time. The mix goes to the second oven and is out at its due time, not baked early on the first.
+  const job = (id: number, due: number, ovens: string[], bake: number): Job => ({
+    id,
+    mixer: 'spiral',
+    allergens: ['wheat'],
+    due,
+    operations: [
+      { kind: 'mix', minutes: 10 },
+      { kind: 'bench', task: 'shape', minutes: 10 },
+      { kind: 'bake', minutes: bake, temperature: 230, slots: 1, pieceSlots: 1, ovens },
+    ],
+    gaps: [
+      { min: 0, max: 0, preferred: 0 },
+      { min: 30, max: 30, preferred: 30 },
+      { min: 30, max: 60, preferred: 30 },
+    ],
+    tail: { min: 0, max: 0, preferred: 0 },
+  });
+  const problem: Problem = {
+    mixers: [{ name: 'spiral', cleanDown: 0 }],
+    ovens: [
+      { name: 'deck oven', decks: 1, slots: 1, heatRate: 5, coolRate: 5, steam: true, fan: false },
+      { name: 'rack oven', decks: 1, slots: 1, heatRate: 5, coolRate: 5, steam: true, fan: false },
+    ],
+    shifts: [{ from: 0, to: 1440, people: 2 }],
+    room: 20,
+    // Job 0 (placed first: the longer process) holds the deck oven from 05:00 to 08:00; job 1, a
+    // 20-minute bake due at 08:00 too, names the deck oven first: there it could be out by 05:00.
+    jobs: [job(0, 480, ['deck oven'], 180), job(1, 480, ['deck oven', 'rack oven'], 20)],
+  };
+
+  it('tries every oven near the due time before baking early on the first', () => {
+    const { placements, late } = solve(problem);
+    expect(late).toEqual([]);
+    expect(placements[1].loads.map((l) => l.oven)).toEqual(['rack oven']);
+    expect(placements[1].out).toBe(480);
+    expect(placements[0].loads.map((l) => [l.oven, l.start, l.end])).toEqual([['deck oven', 300, 480]]);
+  });
+});

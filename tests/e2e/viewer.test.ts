@@ -507,17 +507,17 @@ describe.skipIf(!chromiumHere && !process.env.CI)('the viewer in a browser', { t
         expect(widths[2]).toBeLessThanOrEqual(widths[3]);
         const details = page.getByTestId('bar-details');
         expect(await details.textContent()).toMatch(/Tap a bar/);
-        // A tap (a touch, no hover) on the focaccia's mix: its times from the plan (small spiral at 01:35, 8 minutes).
-        const mix = page.getByRole('button', { name: 'Harbour focaccia 1/1: mix 01:35–01:43' });
+        // A tap (a touch, no hover) on the focaccia's mix: its times from the plan (small spiral at 04:42, 8 minutes).
+        const mix = page.getByRole('button', { name: 'Harbour focaccia 1/1: mix 04:42–04:50' });
         await mix.tap();
-        expect(await details.textContent()).toMatch(/Harbour focaccia 1\/1 · mix · 01:35–01:43 · 8 min · small spiral/);
+        expect(await details.textContent()).toMatch(/Harbour focaccia 1\/1 · mix · 04:42–04:50 · 8 min · small spiral/);
         expect(await mix.getAttribute('aria-pressed')).toBe('true');
         // The keyboard: Tab to the next bar shows its times.
         await page.keyboard.press('Tab');
-        expect(await details.textContent()).toMatch(/Harbour focaccia 1\/1 · bulk fermentation · 01:43–03:03 .* fold at 02:03, 02:23, 02:43/);
+        expect(await details.textContent()).toMatch(/Harbour focaccia 1\/1 · bulk fermentation · 04:50–06:10 .* fold at 05:10, 05:30, 05:50/);
         // Every step in words, folds included.
         await page.getByText(/Every step in time order/).click();
-        expect(await page.getByTestId('step-list').textContent()).toContain('fold at 02:03, 02:23, 02:43');
+        expect(await page.getByTestId('step-list').textContent()).toContain('fold at 05:10, 05:30, 05:50');
         await screenshot(page, 'plan-tablet-portrait-bar', { width: 768, height: 1024, fullPage: false });
       },
       { clock: new Date(2026, 11, 3, 4, 40), viewport: { width: 768, height: 1024 }, touch: true },

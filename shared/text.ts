@@ -15,6 +15,14 @@ export function compareText(a: string, b: string): number {
 }
 
 /**
+ * Code-unit order, for keys and "YYYY-MM-DDTHH:MM" times (which it sorts by time), not for the
+ * names people read (compareText).
+ */
+export function compareCodeUnits(a: string, b: string): number {
+  return a < b ? -1 : a > b ? 1 : 0;
+}
+
+/**
  * Each distinct text's place in `compareText` order (texts that compare equal share one): a long
  * sort on a name then compares two numbers, asking ICU once per name instead of once per pair.
  */

@@ -78,13 +78,13 @@ function latestFit(
 
 export class Calendar {
   readonly mixers = new Map<string, Busy[]>();
-  readonly decks = new Map<string, Busy[]>();
   readonly people: Person[] = [];
   /** Lets the bench run past its last shift (used only to place orders that are late anyway). */
   overtime = false;
   private readonly mixerByName = new Map<string, MixerResource>();
   readonly ovenByName = new Map<string, OvenResource>();
-  private readonly deckLists = new Map<string, Busy[][]>();
+  /** Per oven, each deck's bookings (deck 1 first). */
+  private readonly decks = new Map<string, Busy[][]>();
 
   constructor(problem: Problem) {
     for (const m of problem.mixers) {
@@ -93,12 +93,7 @@ export class Calendar {
     }
     for (const o of problem.ovens) {
       this.ovenByName.set(o.name, o);
-      const lists: Busy[][] = [];
-      for (let d = 1; d <= o.decks; d++) {
-        lists.push([]);
-        this.decks.set(deckKey(o.name, d), lists[d - 1]);
-      }
-      this.deckLists.set(o.name, lists);
+      this.decks.set(o.name, Array.from({ length: o.decks }, () => []));
     }
     const lastEnd = Math.max(...problem.shifts.map((s) => s.to));
     problem.shifts.forEach((s, i) => {
@@ -141,9 +136,9 @@ export class Calendar {
     );
   }
 
-  /** A deck's bookings (the same list as in `decks`), without building its key. */
+  /** A deck's bookings, sorted by start (deck 1-based). */
   deckList(oven: string, deck: number): Busy[] {
-    return this.deckLists.get(oven)?.[deck - 1] ?? [];
+    return this.decks.get(oven)?.[deck - 1] ?? [];
   }
 
   /** The temperature the deck bakes at just before `start`, if anything is baked before it. */
@@ -229,8 +224,6 @@ function neighbourConflict(
 }
 
 const noGap = () => 0;
-
-export const deckKey = (oven: string, deck: number) => `${oven}\u0000${deck}`;
 
 /** Index of the first booking that starts at or after `t` (bookings sorted by start). */
 export function firstStartingAtOrAfter(list: Busy[], t: number): number {

@@ -4,7 +4,7 @@ import type { Formula, Mixer, Oven, Plan, Shift, Step } from '../model.ts';
 import { pickFromRange, type NumberRange } from '../units.ts';
 import { clockMinutes, localDateTime, minuteOf, shortTime } from '../sheet/time.ts';
 import { SheetError, type Booking, type LocalDateTime, type OrderOutcome, type TimelineEntry } from '../sheet/types.ts';
-import { compareText } from '../text.ts';
+import { compareCodeUnits, compareText } from '../text.ts';
 import { book, type Calendar, type Busy } from './calendar.ts';
 import {
   BUILD_MIX_MINUTES, DEFAULT_BENCH, DEFAULT_CLEAN_DOWN_MINUTES, DEFAULT_COOL_RATE, DEFAULT_HEAT_RATE, DEFAULT_OVEN,
@@ -496,7 +496,7 @@ export function finishBookings(night: Night, at: (m: number) => LocalDateTime): 
   }
   for (const oven of night.problem.ovens) {
     for (let d = 1; d <= oven.decks; d++) {
-      const sorted: Busy[] = [...(night.calendar.decks.get(`${oven.name}\u0000${d}`) ?? [])].sort((a, b) => a.start - b.start);
+      const sorted = night.calendar.deckList(oven.name, d);
       let before: number | null = night.problem.room;
       let end = -Infinity;
       for (const b of sorted) {
@@ -512,6 +512,6 @@ export function finishBookings(night: Night, at: (m: number) => LocalDateTime): 
     }
   }
   return [...night.bookings, ...extra].sort(
-    (a, b) => (a.start < b.start ? -1 : a.start > b.start ? 1 : 0) || compareText(a.resource.kind, b.resource.kind) || compareText(a.resource.name, b.resource.name) || (a.resource.unit ?? 0) - (b.resource.unit ?? 0),
+    (a, b) => compareCodeUnits(a.start, b.start) || compareText(a.resource.kind, b.resource.kind) || compareText(a.resource.name, b.resource.name) || (a.resource.unit ?? 0) - (b.resource.unit ?? 0),
   );
 }

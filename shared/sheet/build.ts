@@ -37,7 +37,7 @@ import {
   type SheetMix,
   type TimelineEntry,
 } from './types.ts';
-import { textRanks } from '../text.ts';
+import { compareCodeUnits, textRanks } from '../text.ts';
 import { mixFinishes, pickLines, sheetFinishes } from './pick.ts';
 import { checkWeights } from './scales.ts';
 import { equipmentNeeds } from './equipment.ts';
@@ -463,10 +463,8 @@ function makeBuilds(
       });
     });
   }
-  // "YYYY-MM-DDTHH:MM" times sort as plain strings.
   const key = (b: SheetBuild) => b.mixFrom ?? b.mixUntil;
-  const byText = (x: string, y: string) => (x < y ? -1 : x > y ? 1 : 0);
-  return out.sort((a, b) => byText(key(a), key(b)) || byText(a.mixUntil, b.mixUntil));
+  return out.sort((a, b) => compareCodeUnits(key(a), key(b)) || compareCodeUnits(a.mixUntil, b.mixUntil));
 }
 
 interface BuildSpec {
@@ -492,8 +490,8 @@ function specOf(f: Formula, what: 'preferment' | 'soaker', index: number): Build
 function buildKey(f: Formula, what: 'preferment' | 'soaker', index: number): string {
   const spec = specOf(f, what, index);
   const src = what === 'preferment' ? f.preferments[index].ingredients : f.soakers[index].ingredients;
-  // Any fixed order makes the key: code-unit order, not the order people read.
-  const lines = [...src].sort((a, b) => (a.ingredient < b.ingredient ? -1 : a.ingredient > b.ingredient ? 1 : 0)).map((l) => [l.ingredient, l.percent]);
+  // Any fixed order makes the key.
+  const lines = [...src].sort((a, b) => compareCodeUnits(a.ingredient, b.ingredient)).map((l) => [l.ingredient, l.percent]);
   // Soakers are percent of the formula's total flour, so identical percentages are the same soaker per gram of flour.
   return JSON.stringify([what, spec.kind, lines, spec.hours ?? null, spec.holdTemperature, spec.temperature, spec.hot]);
 }

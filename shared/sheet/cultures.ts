@@ -16,6 +16,7 @@
 import { lookupIngredient, type Catalog } from '../model.ts';
 import { middleOf, type NumberRange } from '../units.ts';
 import type { CultureFeed, LocalDateTime, SheetBuild } from './types.ts';
+import { compareCodeUnits } from '../text.ts';
 
 /** Ripe culture kept back after the builds, to feed the next day (common practice). */
 export const DEFAULT_KEEP_GRAMS = 200;
@@ -98,6 +99,6 @@ export function cultureFeeds(
       });
     });
   }
-  feeds.sort((a, b) => (a.at < b.at ? -1 : a.at > b.at ? 1 : 0));
+  feeds.sort((a, b) => compareCodeUnits(a.at, b.at));
   return { feeds, warnings };
 }

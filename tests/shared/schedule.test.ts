@@ -8,7 +8,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { changeMinutes, type Job, type Placement, type Problem } from '#shared/schedule/problem';
 import { solve } from '#shared/schedule/solve';
-import { book, Calendar, deckKey } from '#shared/schedule/calendar';
+import { book, Calendar } from '#shared/schedule/calendar';
 
 const RUNS = Number(process.env.PANFORM_FUZZ_RUNS ?? 60);
 const G = 5;
@@ -265,7 +265,7 @@ describe('a refusal rules out only end times the check refuses too', () => {
           const s = b.start;
           const e = b.start + b.minutes;
           if (!cal.mixerConflict('spiral', s, e, allergens(b.egg))) book(cal.mixers.get('spiral')!, { start: s, end: e, allergens: allergens(b.egg) });
-          if (!cal.deckConflict(oven, 1, s, e, temperature(b.hot))) book(cal.decks.get(deckKey(oven.name, 1))!, { start: s, end: e, temperature: temperature(b.hot) });
+          if (!cal.deckConflict(oven, 1, s, e, temperature(b.hot))) book(cal.deckList(oven.name, 1), { start: s, end: e, temperature: temperature(b.hot) });
           if (cal.freePeople(s, e).length > 0) book(cal.people[0].busy, { start: s, end: e });
         }
         const inside = (r: { above: number; below: number }) => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { compareText, textRanks } from '#shared/text';
+import { compareCodeUnits, compareText, textRanks } from '#shared/text';
 
 // Expected orders follow the Unicode Collation Algorithm (UTS #10) with the root (DUCET) order,
 // which English uses: accents and case are secondary and tertiary differences.
@@ -24,5 +24,13 @@ describe('textRanks', () => {
     const ranks = textRanks(texts);
     expect([...texts].sort((a, b) => ranks.get(a)! - ranks.get(b)!)).toEqual([...texts].sort(compareText));
     expect(ranks.size).toBe(8);
+  });
+});
+
+describe('compareCodeUnits', () => {
+  it('sorts local date-times by time, across a day and a month', () => {
+    const times = ['2026-12-03T04:10', '2026-11-30T23:50', '2026-12-02T22:00', '2026-12-03T00:05'];
+    expect([...times].sort(compareCodeUnits)).toEqual(['2026-11-30T23:50', '2026-12-02T22:00', '2026-12-03T00:05', '2026-12-03T04:10']);
+    expect(compareCodeUnits('2026-12-03T04:10', '2026-12-03T04:10')).toBe(0);
   });
 });

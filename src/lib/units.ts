@@ -3,7 +3,7 @@
 // Kept on this device (localStorage, so the first paint is right) and on the account (the app
 // shell copies the account's choice here once it is known, so every device follows it).
 import { useMemo, useSyncExternalStore } from 'react';
-import { celsiusDeltaToFahrenheit, celsiusToFahrenheit, fahrenheitDeltaToCelsius, fahrenheitToCelsius, formatMass, formatTemperature, isUnitSystem, temperatureUnitOf, type UnitSystem } from '#shared/units';
+import { celsiusDeltaToFahrenheit, celsiusToFahrenheit, fahrenheitDeltaToCelsius, fahrenheitToCelsius, formatMass, formatTemperature, isUnitSystem, temperatureUnitOf, type TemperatureUnit, type UnitSystem } from '#shared/units';
 import { celsius, grams, pieceWeight, weight } from './format.ts';
 
 const KEY = 'panform.units';
@@ -66,7 +66,7 @@ export function unitsFor(system: UnitSystem): Units {
   };
 }
 
-/** A temperature typed into a form: in °F for US customary, kept in °C. */
+/** A temperature typed into a form in °C or °F (`temperatureUnitOf` the person's units), kept in °C. */
 export interface TemperatureInput {
   unit: 'C' | 'F';
   /** The typed number → °C (to 0.01 °C, so a typed °F figure comes back as typed). */
@@ -81,8 +81,8 @@ export interface TemperatureInput {
   deltaToTyped: (dc: number) => number;
 }
 
-export function temperatureInput(system: UnitSystem): TemperatureInput {
-  if (temperatureUnitOf(system) === 'C') {
+export function temperatureInput(unit: TemperatureUnit): TemperatureInput {
+  if (unit === 'C') {
     return { unit: 'C', fromTyped: (v) => v, toTyped: (c) => c, range: (lo, hi) => `${lo} to ${hi} °C`, deltaFromTyped: (v) => v, deltaToTyped: (dc) => dc };
   }
   return {

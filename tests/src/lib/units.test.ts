@@ -33,7 +33,7 @@ describe('unitsFor', () => {
 
 describe('temperatureInput (the record form)', () => {
   it('reads °F typed in US customary and keeps °C', () => {
-    const f = temperatureInput('us');
+    const f = temperatureInput('F');
     expect(f.unit).toBe('F');
     expect(f.fromTyped(32)).toBe(0); // NIST SP 811 App. B.8: t/°C = (t/°F − 32)/1.8
     expect(f.fromTyped(78.8)).toBe(26); // (78.8 − 32)/1.8 = 26
@@ -45,7 +45,7 @@ describe('temperatureInput (the record form)', () => {
   });
 
   it('takes °C as typed in metric', () => {
-    const c = temperatureInput('metric');
+    const c = temperatureInput('C');
     expect(c.unit).toBe('C');
     expect(c.fromTyped(25.5)).toBe(25.5);
     expect(c.toTyped(25.5)).toBe(25.5);

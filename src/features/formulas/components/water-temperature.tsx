@@ -2,7 +2,7 @@ import { useEffect, useState } from 'react';
 import { FRICTION_CONVENTION, planMixWater, prefermentTemperature, type MixWater } from '#shared/dough-water';
 import type { Catalog, Formula, Plan } from '#shared/model';
 import type { ScaleResult } from '#shared/scale';
-import { celsiusDeltaToFahrenheit, celsiusToFahrenheit, fahrenheitDeltaToCelsius, fahrenheitToCelsius, formatTemperatureRange, type TemperatureUnit } from '#shared/units';
+import { formatTemperatureRange, temperatureUnitOf, type TemperatureUnit } from '#shared/units';
 import { dayMonth } from '#shared/sheet/time';
 import { readNumber, SelectField, TextField } from '../../../components/field.tsx';
 import { Button } from '../../../components/button.tsx';
@@ -52,8 +52,8 @@ function saveReadings(r: Readings): void {
 function typedIn(text: string, from: TemperatureUnit, to: TemperatureUnit, delta = false): string {
   const n = readNumber(text);
   if (from === to || text.trim() === '' || n === null) return text;
-  const v = to === 'F' ? (delta ? celsiusDeltaToFahrenheit(n) : celsiusToFahrenheit(n)) : delta ? fahrenheitDeltaToCelsius(n) : fahrenheitToCelsius(n);
-  return String(Number(v.toFixed(2)));
+  const [a, b] = [temperatureInput(from), temperatureInput(to)];
+  return String(delta ? b.deltaToTyped(a.deltaFromTyped(n)) : b.toTyped(a.fromTyped(n)));
 }
 
 /** The readings typed in `to`: those kept in the other unit are converted once (the person changed units). */
@@ -128,7 +128,7 @@ export function WaterTemperatureHelper({
 }) {
   const { grams, temperature: celsius, degrees, system } = useUnits();
   // Temperatures are typed in the person's units and worked out in °C.
-  const { unit, fromTyped, toTyped, deltaFromTyped, deltaToTyped } = temperatureInput(system);
+  const { unit, fromTyped, toTyped, deltaFromTyped, deltaToTyped } = temperatureInput(temperatureUnitOf(system));
   const [kept, setReadings] = useState<Readings>(() => loadReadings() ?? EMPTY);
   const readings = readingsIn(kept, unit);
   const [ddtTyped, setDdtTyped] = useState(() => ({ text: formula.doughTemperature === undefined ? '' : String(formula.doughTemperature), unit: 'C' as TemperatureUnit }));

@@ -5,6 +5,7 @@ import { useEffect, useId, useRef, useState, type FormEvent } from 'react';
 import { Button } from '../../../components/button.tsx';
 import { readNumber, TextField } from '../../../components/field.tsx';
 import { Segmented } from '../../../components/segmented.tsx';
+import { temperatureUnitOf } from '#shared/units';
 import { temperatureInput, useUnits } from '../../../lib/units.ts';
 import type { BenchRecord, RecordTarget } from '../api/types.ts';
 import { getDeviceOutbox, recordedAtFromTime, timeOfDay, type PendingRecord } from '../outbox.ts';
@@ -44,7 +45,7 @@ const numberText = (n: number | null | undefined) => (n === null || n === undefi
 export function RecordDialog({ date, target, correcting, onClose }: RecordDialogProps) {
   const { temperature, system } = useUnits();
   // Temperatures are typed in the person's units (°F in US customary) and kept in °C.
-  const { unit, fromTyped, toTyped, range } = temperatureInput(system);
+  const { unit, fromTyped, toTyped, range } = temperatureInput(temperatureUnitOf(system));
   const ref = useRef<HTMLDialogElement>(null);
   const titleId = useId();
   const isMix = target.kind === 'mix';
